@@ -1,0 +1,2 @@
+//! Native benchmarks (under construction on the bench branch).
+fn main() {}

@@ -1,0 +1,1 @@
+//! JavaScript binding layer (under construction on its branch).
