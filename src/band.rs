@@ -298,6 +298,25 @@ fn tail(kind: PlanckKernel, x: f64) -> Sc {
             e: f64::NEG_INFINITY,
         };
     }
+    if x > 1e4 {
+        // Far beyond the f64 range (e^{−x} < e^{−10000}) but kept finite in logarithmic form
+        // for the inverses: only the k = 1 term matters, written as e^{−x} x^p (1 + …) so that
+        // x^p cannot overflow. (The derivative kernels share the polynomial of J_p there.)
+        let (pw, poly) = match kind {
+            PlanckKernel::Photon => (2, 1.0 + (2.0 + 2.0 / x) / x),
+            PlanckKernel::Energy | PlanckKernel::PhotonDerivative => {
+                (3, 1.0 + (3.0 + (6.0 + 6.0 / x) / x) / x)
+            }
+            PlanckKernel::EnergyDerivative => {
+                (4, 1.0 + (4.0 + (12.0 + (24.0 + 24.0 / x) / x) / x) / x)
+            }
+        };
+        return Sc {
+            m: poly,
+            f: 0.0,
+            e: -x + f64::from(pw) * float::ln(x),
+        };
+    }
     let m = match kind {
         PlanckKernel::Photon => tail_poly_j(false, x),
         PlanckKernel::Energy => tail_poly_j(true, x),
@@ -339,17 +358,28 @@ fn interval(kind: PlanckKernel, a: f64, lna: f64, b: f64, lnb: f64) -> Sc {
         return upper(kind, a, lna);
     }
     if a >= SPLIT {
+        // ta − tb = e^{ta.e} (ta.m − tb.m e^{tb.e − ta.e}); tb.e − ta.e = −(b − a) in the
+        // ordinary range.
         let ta = tail(kind, a);
         let tb = tail(kind, b);
+        let rel = if b <= 1e4 {
+            float::exp(-(b - a))
+        } else {
+            float::exp(tb.e - ta.e)
+        };
         Sc {
-            m: ta.m - float::exp(-(b - a)) * tb.m,
+            m: ta.m - rel * tb.m,
             f: ta.f,
             e: ta.e,
         }
     } else if b <= SPLIT {
         let ha = head(kind, a, lna);
         let hb = head(kind, b, lnb);
-        let ratio = float::powi(a / b, kind.head_power());
+        let ratio = if a.is_normal() && b.is_normal() {
+            float::powi(a / b, kind.head_power())
+        } else {
+            float::exp(f64::from(kind.head_power()) * (lna - lnb))
+        };
         Sc {
             m: hb.m - ratio * ha.m,
             f: hb.f,
@@ -360,12 +390,15 @@ fn interval(kind: PlanckKernel, a: f64, lna: f64, b: f64, lnb: f64) -> Sc {
     }
 }
 
-/// The narrow-band criterion on the reduced limits (see the module docs).
+/// ln(9/7): h ≤ c/8 for the interval [a, b] is b/a ≤ 9/7.
+const LN_9_OVER_7: f64 = 0.251_314_428_280_906_1;
+
+/// The narrow-band criterion on the reduced limits (see the module docs): half-width
+/// h ≤ 0.5 and h ≤ c/8 (c the centre), i.e. b − a ≤ 1 and b/a ≤ 9/7. Written with the
+/// logarithms so that it also holds when a and b are below the f64 range.
 #[inline]
-fn is_narrow(a: f64, b: f64) -> bool {
-    let h = 0.5 * (b - a);
-    let c = 0.5 * (a + b);
-    h <= 0.5 && h <= 0.125 * c
+fn is_narrow(a: f64, lna: f64, b: f64, lnb: f64) -> bool {
+    b - a <= 1.0 && lnb - lna <= LN_9_OVER_7
 }
 
 /// How the spectral variable maps to the reduced variable: x = q/(vT) or x = q·v/T.
@@ -460,7 +493,7 @@ fn reduced_band(kind: PlanckKernel, map: Map, v1: f64, v2: f64, t: f64) -> Sc {
     } else {
         (x1, lnx1, x2, lnx2)
     };
-    if is_narrow(a, b) {
+    if is_narrow(a, lna, b, lnb) {
         narrow(kind, map, v1, v2, t, a, b)
     } else {
         interval(kind, a, lna, b, lnb)
@@ -955,15 +988,16 @@ pub fn planck_integral(kernel: PlanckKernel, x_lower: f64, x_upper: f64) -> Resu
     if a >= b {
         return Err(Error::InvalidBand { lower: a, upper: b });
     }
-    let s = if a > 0.0 && is_narrow(a, b) {
+    let lna = if a > 0.0 {
+        float::ln(a)
+    } else {
+        f64::NEG_INFINITY
+    };
+    let lnb = float::ln(b);
+    let s = if is_narrow(a, lna, b, lnb) {
         narrow(kernel, Map::IDENTITY, a, b, 1.0, a, b)
     } else {
-        let lna = if a > 0.0 {
-            float::ln(a)
-        } else {
-            f64::NEG_INFINITY
-        };
-        interval(kernel, a, lna, b, float::ln(b))
+        interval(kernel, a, lna, b, lnb)
     };
     Ok(s.value())
 }

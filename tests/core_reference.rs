@@ -251,10 +251,7 @@ fn every_reference_case_agrees() {
                 let s = spectrum(c);
                 let (lo, hi, tk) = (num(c, "lower"), num(c, "upper"), num(c, "temperature_k"));
                 let got = band(&s, lo, hi, tk).unwrap();
-                assert!(
-                    (0.0..=1e-289).contains(&got),
-                    "case {i}: {got}"
-                );
+                assert!((0.0..=1e-289).contains(&got), "case {i}: {got}");
                 continue;
             }
             "fraction_below" | "photon_fraction_below" => {
