@@ -89,33 +89,36 @@ const BERN: [f64; NB] = [
     -3.685_994_940_665_310_3e-29,
 ];
 
-/// Head-series coefficients for ∫₀ˣ tⁿ/(eᵗ−1): B₂ₖ/((2k)!(2k+n)).
-const fn head_j(n: f64) -> [f64; NB] {
-    let mut t = [0.0; NB];
-    let mut k = 0;
-    while k < NB {
-        t[k] = BERN[k] / (2.0 * (k as f64 + 1.0) + n);
-        k += 1;
-    }
-    t
+/// Head-series coefficient tables, built at compile time (a macro rather than a `const fn`
+/// so that float arithmetic stays in const items):
+/// `head_table!(j, n)`: B₂ₖ/((2k)!(2k+n)) for ∫₀ˣ tⁿ/(eᵗ−1);
+/// `head_table!(d, m)`: −(2k−1)B₂ₖ/((2k)!(2k+m−1)) for ∫₀ˣ tᵐeᵗ/(eᵗ−1)².
+macro_rules! head_table {
+    (j, $n:expr) => {{
+        let mut t = [0.0; NB];
+        let mut k = 0;
+        while k < NB {
+            t[k] = BERN[k] / (2.0 * (k as f64 + 1.0) + $n);
+            k += 1;
+        }
+        t
+    }};
+    (d, $m:expr) => {{
+        let mut t = [0.0; NB];
+        let mut k = 0;
+        while k < NB {
+            let kk = k as f64 + 1.0;
+            t[k] = -(2.0 * kk - 1.0) * BERN[k] / (2.0 * kk + $m - 1.0);
+            k += 1;
+        }
+        t
+    }};
 }
 
-/// Head-series coefficients for ∫₀ˣ tᵐeᵗ/(eᵗ−1)²: −(2k−1)B₂ₖ/((2k)!(2k+m−1)).
-const fn head_d(m: f64) -> [f64; NB] {
-    let mut t = [0.0; NB];
-    let mut k = 0;
-    while k < NB {
-        let kk = k as f64 + 1.0;
-        t[k] = -(2.0 * kk - 1.0) * BERN[k] / (2.0 * kk + m - 1.0);
-        k += 1;
-    }
-    t
-}
-
-const HEAD_J2: [f64; NB] = head_j(2.0);
-const HEAD_J3: [f64; NB] = head_j(3.0);
-const HEAD_D3: [f64; NB] = head_d(3.0);
-const HEAD_D4: [f64; NB] = head_d(4.0);
+const HEAD_J2: [f64; NB] = head_table!(j, 2.0);
+const HEAD_J3: [f64; NB] = head_table!(j, 3.0);
+const HEAD_D3: [f64; NB] = head_table!(d, 3.0);
+const HEAD_D4: [f64; NB] = head_table!(d, 4.0);
 
 /// 1/k for k = 1…24.
 const INV_K: [f64; 24] = {
@@ -216,12 +219,32 @@ impl PlanckKernel {
 struct Sc {
     m: f64,
     f: f64,
+    /// ln f, or NaN when it is to be computed on demand as `lazy_pw · ln(lazy_x)`.
     e: f64,
+    lazy_pw: i32,
+    lazy_x: f64,
 }
 
 impl Sc {
     const fn plain(m: f64) -> Self {
-        Sc { m, f: 1.0, e: 0.0 }
+        Sc::new(m, 1.0, 0.0)
+    }
+    const fn new(m: f64, f: f64, e: f64) -> Self {
+        Sc {
+            m,
+            f,
+            e,
+            lazy_pw: 0,
+            lazy_x: 1.0,
+        }
+    }
+    /// ln f.
+    fn e(&self) -> f64 {
+        if self.e.is_nan() {
+            f64::from(self.lazy_pw) * float::ln(self.lazy_x)
+        } else {
+            self.e
+        }
     }
     fn value(self) -> f64 {
         if self.m <= 0.0 {
@@ -229,7 +252,7 @@ impl Sc {
         } else if self.f.is_normal() && (self.m * self.f).is_normal() {
             self.m * self.f
         } else {
-            self.m * float::exp(self.e)
+            self.m * float::exp(self.e())
         }
     }
     /// ln(m·f); −∞ when the value is 0.
@@ -239,7 +262,7 @@ impl Sc {
         } else if self.f.is_normal() && (self.m * self.f).is_normal() {
             float::ln(self.m * self.f)
         } else {
-            float::ln(self.m) + self.e
+            float::ln(self.m) + self.e()
         }
     }
 }
@@ -255,13 +278,21 @@ fn head(kind: PlanckKernel, x: f64, lnx: f64) -> Sc {
     };
     let mut s = 0.0;
     for &c in table.iter().rev() {
-        s = float::mul_add(s, y, c);
+        s = s * y + c;
     }
     let pw = kind.head_power();
-    Sc {
-        m: float::mul_add(s, y, lead),
-        f: float::powi(x, pw),
-        e: f64::from(pw) * lnx,
+    let m = s * y + lead;
+    let f = float::powi(x, pw);
+    if lnx.is_nan() {
+        Sc {
+            m,
+            f,
+            e: f64::NAN,
+            lazy_pw: pw,
+            lazy_x: x,
+        }
+    } else {
+        Sc::new(m, f, f64::from(pw) * lnx)
     }
 }
 
@@ -292,11 +323,7 @@ fn tail_poly_j(n3: bool, x: f64) -> f64 {
 /// ∫ₓ^∞ (tail series), valid for x ≥ SPLIT (x may be +∞).
 fn tail(kind: PlanckKernel, x: f64) -> Sc {
     if x.is_infinite() {
-        return Sc {
-            m: 0.0,
-            f: 0.0,
-            e: f64::NEG_INFINITY,
-        };
+        return Sc::new(0.0, 0.0, f64::NEG_INFINITY);
     }
     if x > 1e4 {
         // Far beyond the f64 range (e^{−x} < e^{−10000}) but kept finite in logarithmic form
@@ -311,11 +338,7 @@ fn tail(kind: PlanckKernel, x: f64) -> Sc {
                 (4, 1.0 + (4.0 + (12.0 + (24.0 + 24.0 / x) / x) / x) / x)
             }
         };
-        return Sc {
-            m: poly,
-            f: 0.0,
-            e: -x + f64::from(pw) * float::ln(x),
-        };
+        return Sc::new(poly, 0.0, -x + f64::from(pw) * float::ln(x));
     }
     let m = match kind {
         PlanckKernel::Photon => tail_poly_j(false, x),
@@ -327,11 +350,7 @@ fn tail(kind: PlanckKernel, x: f64) -> Sc {
             x * x * x * x / (-float::expm1(-x)) + 4.0 * tail_poly_j(true, x)
         }
     };
-    Sc {
-        m,
-        f: float::exp(-x),
-        e: -x,
-    }
+    Sc::new(m, float::exp(-x), -x)
 }
 
 /// ∫₀ˣ for any x ≥ 0.
@@ -365,12 +384,11 @@ fn interval(kind: PlanckKernel, a: f64, lna: f64, b: f64, lnb: f64) -> Sc {
         let rel = if b <= 1e4 {
             float::exp(-(b - a))
         } else {
-            float::exp(tb.e - ta.e)
+            float::exp(tb.e() - ta.e())
         };
         Sc {
             m: ta.m - rel * tb.m,
-            f: ta.f,
-            e: ta.e,
+            ..ta
         }
     } else if b <= SPLIT {
         let ha = head(kind, a, lna);
@@ -378,12 +396,11 @@ fn interval(kind: PlanckKernel, a: f64, lna: f64, b: f64, lnb: f64) -> Sc {
         let ratio = if a.is_normal() && b.is_normal() {
             float::powi(a / b, kind.head_power())
         } else {
-            float::exp(f64::from(kind.head_power()) * (lna - lnb))
+            float::exp(f64::from(kind.head_power()) * (ln_or(a, lna) - ln_or(b, lnb)))
         };
         Sc {
             m: hb.m - ratio * ha.m,
-            f: hb.f,
-            e: hb.e,
+            ..hb
         }
     } else {
         Sc::plain(kind.total() - head(kind, a, lna).value() - tail(kind, b).value())
@@ -398,7 +415,21 @@ const LN_9_OVER_7: f64 = 0.251_314_428_280_906_1;
 /// logarithms so that it also holds when a and b are below the f64 range.
 #[inline]
 fn is_narrow(a: f64, lna: f64, b: f64, lnb: f64) -> bool {
-    b - a <= 1.0 && lnb - lna <= LN_9_OVER_7
+    if a.is_normal() && b.is_normal() {
+        b - a <= 1.0 && 7.0 * b <= 9.0 * a
+    } else {
+        b - a <= 1.0 && ln_or(b, lnb) - ln_or(a, lna) <= LN_9_OVER_7
+    }
+}
+
+/// ln x, from `lnx` unless that is NaN ("not computed").
+#[inline]
+fn ln_or(x: f64, lnx: f64) -> f64 {
+    if lnx.is_nan() {
+        float::ln(x)
+    } else {
+        lnx
+    }
 }
 
 /// How the spectral variable maps to the reduced variable: x = q/(vT) or x = q·v/T.
@@ -432,12 +463,17 @@ impl Map {
         inverse: false,
     };
 
-    /// (x, ln x) at v, T; x may be 0 or ∞ for extreme inputs, ln x is always finite.
+    /// (x, ln x) at v, T; x may be 0 or ∞ for extreme inputs. ln x is finite, or NaN (not
+    /// computed) when 1e-60 < x < 700.
     #[inline]
     fn x(self, v: f64, t: f64) -> (f64, f64) {
         let den = if self.inverse { v * t } else { self.q * v };
         let x = if self.inverse { self.q / den } else { den / t };
-        if x.is_normal() && den.is_normal() && x < 1e300 && x > 1e-300 {
+        if x.is_normal() && den.is_normal() && x < 700.0 && x > 1e-60 {
+            // Comfortable range: nothing built on x can leave the f64 range, ln x is only
+            // needed on demand (NaN = "not computed", see `ln_or`).
+            (x, f64::NAN)
+        } else if x.is_normal() && den.is_normal() && x < 1e300 && x > 1e-300 {
             (x, float::ln(x))
         } else {
             let lnx = if self.inverse {
@@ -467,20 +503,18 @@ fn narrow(kind: PlanckKernel, map: Map, v1: f64, v2: f64, t: f64, xa: f64, xb: f
     } else {
         // Scaled by the integrand at the centre (extreme x only).
         let (xc, lnxc) = map.x(vc, t);
+        let lnxc = ln_or(xc, lnxc);
         let ec = kind.ln_eval(xc, lnxc) + lnxc - float::ln(vc);
         let mut s = 0.0;
         for &(z, w) in GL16.iter() {
             for v in [vc - hv * z, vc + hv * z] {
                 let (x, lnx) = map.x(v, t);
+                let lnx = ln_or(x, lnx);
                 let le = kind.ln_eval(x, lnx) + lnx - float::ln(v);
                 s += w * float::exp(le - ec);
             }
         }
-        Sc {
-            m: hv * s,
-            f: float::exp(ec),
-            e: ec,
-        }
+        Sc::new(hv * s, float::exp(ec), ec)
     }
 }
 
@@ -546,7 +580,7 @@ fn combine(p: &Pref, s: Sc) -> f64 {
     if p.p.is_normal() && s.f.is_normal() && v.is_normal() {
         v
     } else {
-        s.m * float::exp(p.ln() + s.e)
+        s.m * float::exp(p.ln() + s.e())
     }
 }
 
@@ -586,7 +620,7 @@ pub(crate) fn ln_band_unchecked(
     } else if s.m <= 0.0 {
         f64::NEG_INFINITY
     } else {
-        p.ln() + s.e + float::ln(s.m)
+        p.ln() + s.e() + float::ln(s.m)
     }
 }
 
@@ -816,13 +850,14 @@ fn lambda_t_at_fraction_kernel(kind: PlanckKernel, fraction: f64) -> Result<f64>
     let (lo, hi) = if use_upper {
         (0.5, 2.0 * (-target).max(1.0) + 60.0)
     } else {
-        (1e-7, 40.0)
+        (1e-12, 40.0)
     };
     let x = solve_monotone(g, lo, hi, None, !use_upper, true)?;
     Ok(C2 / x)
 }
 
 /// Safeguarded Newton for g(x) = 0 on [lo, hi] with g monotone (increasing if `increasing`);
+/// the caller guarantees that the root is bracketed (sign change between lo and hi);
 /// g returns (g, g′). A Newton step that leaves the current bracket is replaced by bisection
 /// (geometric mean if `geometric`, arithmetic otherwise). Converged when a step is below
 /// 2e-15 relative (geometric) or 2e-15·max(|x|, 1) absolute (arithmetic).
@@ -839,13 +874,6 @@ where
 {
     let (mut lo, mut hi) = (lo, hi);
     let sgn = if increasing { 1.0 } else { -1.0 };
-    let (glo, _) = g(lo);
-    let (ghi, _) = g(hi);
-    if !(sgn * glo <= 0.0 && sgn * ghi >= 0.0) {
-        return Err(Error::NoSolution {
-            what: "root not bracketed by the search interval",
-        });
-    }
     let mid = |a: f64, b: f64| {
         if geometric {
             float::sqrt(a * b)
@@ -870,13 +898,19 @@ where
             hi = x;
         }
         let newton = x - gx / dg;
+        let tol = 2e-15 * scale(x);
+        // A converged Newton step may land a rounding error outside the bracket (the root sits
+        // on a bracket end): accept it when the step itself is below the tolerance.
+        if newton.is_finite() && float::abs(newton - x) <= tol {
+            return Ok(newton.max(lo).min(hi));
+        }
         let next = if newton.is_finite() && newton > lo && newton < hi {
             newton
         } else {
             mid(lo, hi)
         };
         let step = float::abs(next - x);
-        if step <= 2e-15 * scale(x) || hi - lo <= 2e-15 * scale(hi) {
+        if step <= tol || hi - lo <= 2e-15 * scale(hi) {
             return Ok(next);
         }
         last_step = step / scale(x);

@@ -156,12 +156,15 @@ pub fn temperature_from_band(spec: &Spectrum, lower: f64, upper: f64, value: f64
         (lb - target, float::exp(ld - lb + u))
     };
     let (ulo, uhi) = (float::ln(T_MIN_K), float::ln(T_MAX_K));
-    if g(uhi).0 < 0.0 {
+    // Bracket check with values only (B is strictly increasing in T).
+    let l_hi = ln_band_unchecked(spec, lower, upper, T_MAX_K, false);
+    if l_hi.is_nan() || l_hi < target {
         return Err(Error::NoSolution {
             what: "band value exceeds what the band gives at the 1e7 K search ceiling",
         });
     }
-    if g(ulo).0 > 0.0 {
+    let l_lo = ln_band_unchecked(spec, lower, upper, T_MIN_K, false);
+    if l_lo.is_nan() || l_lo > target {
         return Err(Error::NoSolution {
             what: "band value is below what the band gives at the 1e-3 K search floor",
         });
@@ -263,9 +266,14 @@ pub fn temperature_from_band_ratio(
         }
         sign > 0.0
     };
-    let (glo, ghi) = (g(ulo).0, g(uhi).0);
+    let value_only = |t: f64| {
+        ln_band_unchecked(spec, band1.0, band1.1, t, false)
+            - ln_band_unchecked(spec, band2.0, band2.1, t, false)
+            - target
+    };
+    let (glo, ghi) = (value_only(T_MIN_K), value_only(T_MAX_K));
     let sgn = if increasing { 1.0 } else { -1.0 };
-    if !(sgn * glo <= 0.0 && sgn * ghi >= 0.0) {
+    if glo.is_nan() || ghi.is_nan() || sgn * glo > 0.0 || sgn * ghi < 0.0 {
         return Err(Error::NoSolution {
             what: "band ratio outside the range the two bands give between 1e-3 K and 1e7 K",
         });
