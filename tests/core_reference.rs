@@ -312,3 +312,49 @@ fn every_reference_case_agrees() {
         failures.join("\n")
     );
 }
+
+#[test]
+fn grey_body_medium_and_exitance_scale_the_reference_values() {
+    // Convention (Howell, Mengüç, Daun & Siegel, Thermal Radiation Heat Transfer, ch. 1):
+    // with vacuum spectral coordinates, a grey body of emissivity ε radiating into a medium of
+    // index n has ε·n² times the vacuum blackbody radiance; exitance is π × radiance. Applied
+    // here to every energy and photon spectral/band case of the mpmath table.
+    let t = json::parse(DATA);
+    let (eps, n) = (0.8, 1.5);
+    let factor = eps * n * n * core::f64::consts::PI;
+    let mut checked = 0;
+    for c in &t.cases {
+        let kind = get(c, "kind");
+        if !matches!(kind, "spectral" | "band" | "band_d_dt") {
+            continue;
+        }
+        let s = spectrum(c)
+            .with_emissivity(eps)
+            .with_refractive_index(n)
+            .with_geometry(Geometry::Exitance);
+        let expected = num(c, "expected") * factor;
+        if !expected.is_normal() {
+            continue;
+        }
+        let got = match kind {
+            "spectral" => s.spectral(num(c, "x"), num(c, "temperature_k")).unwrap(),
+            "band" => band(
+                &s,
+                num(c, "lower"),
+                num(c, "upper"),
+                num(c, "temperature_k"),
+            )
+            .unwrap(),
+            _ => band_d_dt(
+                &s,
+                num(c, "lower"),
+                num(c, "upper"),
+                num(c, "temperature_k"),
+            )
+            .unwrap(),
+        };
+        assert!(rel(got, expected) < 1e-13, "{c:?}: {got:e} vs {expected:e}");
+        checked += 1;
+    }
+    assert!(checked > 100, "{checked}");
+}
