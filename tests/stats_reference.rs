@@ -107,3 +107,93 @@ mod occupancy {
         });
     }
 }
+
+mod fermi_dirac_integrals {
+    use super::*;
+    use quantaband::stats::*;
+
+    #[test]
+    fn fermi_dirac_integral_vs_mpmath() {
+        check("fermi_dirac_integral", 1e-15, |i| {
+            fermi_dirac_integral(FdOrder::from_j(i[0]).unwrap(), i[1]).unwrap()
+        });
+    }
+
+    #[test]
+    fn inverse_fermi_dirac_half_recovers_eta() {
+        // Input: mpmath's F_{1/2}(η) rounded to f64; output must be η. Absolute error in η is
+        // what a relative error in F maps to for η ≤ 1 (dη = dF/F · F/F'), relative above.
+        let mut worst = 0.0f64;
+        for r in rows("fermi_dirac_integral") {
+            let (j, eta, f) = (r[0], r[1], r[2]);
+            if j != 0.5 || !(-50.0..=1e6).contains(&eta) {
+                continue;
+            }
+            let got = inverse_fermi_dirac_half(f).unwrap();
+            let err = (got - eta).abs() / eta.abs().max(1.0);
+            assert!(err <= 1e-15, "eta {eta}: got {got}, err {err:e}");
+            worst = worst.max(err);
+        }
+        println!(
+            "inverse_fermi_dirac_half: max error in eta (abs, or rel above |eta| = 1) {worst:.2e}"
+        );
+    }
+
+    /// F_{1/2}(0) = (1 − 2^{−1/2})·ζ(3/2) (DLMF 25.12.15 with η(s) = (1 − 2^{1−s})ζ(s), DLMF
+    /// 25.2.3), with ζ(3/2) = 2.612375348685488343… (DLMF Table 25.? / mpmath).
+    #[test]
+    fn f_half_at_zero_closed_form() {
+        let want = (1.0 - core::f64::consts::FRAC_1_SQRT_2) * 2.612_375_348_685_488;
+        let got = fermi_dirac_integral(FdOrder::Half, 0.0).unwrap();
+        assert!((got / want - 1.0).abs() < 4e-16, "{got} vs {want}");
+    }
+
+    /// Blakemore (1982), tables of the normalised F_{1/2}: F_{1/2}(1) = 1.57564 (from memory,
+    /// 6 significant digits, so tolerance 5e-6 relative).
+    #[test]
+    fn f_half_blakemore_row_from_memory() {
+        let got = fermi_dirac_integral(FdOrder::Half, 1.0).unwrap();
+        assert!((got / 1.575_64 - 1.0).abs() < 5e-6, "{got}");
+    }
+}
+
+mod bose_einstein_integrals {
+    use super::*;
+    use quantaband::constants::{ATOMIC_MASS_U, ELECTRON_MASS};
+    use quantaband::stats::*;
+
+    #[test]
+    fn bose_einstein_integral_vs_mpmath() {
+        check("bose_einstein_integral", 1e-15, |i| {
+            bose_einstein_integral(BoseOrder::from_s(i[0]).unwrap(), i[1]).unwrap()
+        });
+    }
+
+    /// ζ values: mpmath rows, and the published digits ζ(3/2) = 2.612375348685488…,
+    /// ζ(5/2) = 1.341487257250917…, ζ(3) = 1.202056903159594… (DLMF §25.6 / Table in
+    /// Abramowitz & Stegun 23.3 for ζ(3); from memory to the printed 16 digits).
+    #[test]
+    fn zeta_values() {
+        check("zeta", 4.5e-16, |i| {
+            bose_einstein_integral(BoseOrder::from_s(i[0]).unwrap(), 1.0).unwrap()
+        });
+        let g = |o| bose_einstein_integral(o, 1.0).unwrap();
+        assert!((g(BoseOrder::ThreeHalves) - 2.612_375_348_685_488).abs() < 2e-15);
+        assert!((g(BoseOrder::FiveHalves) - 1.341_487_257_250_917).abs() < 2e-15);
+        assert!((g(BoseOrder::Integer(3)) - 1.202_056_903_159_594).abs() < 2e-15);
+        // ζ(2) = π²/6, ζ(4) = π⁴/90 (Euler; DLMF 25.6.1)
+        let pi = core::f64::consts::PI;
+        assert!((g(BoseOrder::Integer(2)) / (pi * pi / 6.0) - 1.0).abs() < 4.5e-16);
+        assert!((g(BoseOrder::Integer(4)) / (pi.powi(4) / 90.0) - 1.0).abs() < 4.5e-16);
+    }
+
+    #[test]
+    fn critical_temperature_vs_mpmath() {
+        check("bose_critical_temperature_u", 1e-15, |i| {
+            bose_critical_temperature(i[0], i[1] * ATOMIC_MASS_U).unwrap()
+        });
+        check("bose_critical_temperature_me", 1e-15, |i| {
+            bose_critical_temperature(i[0], ELECTRON_MASS).unwrap()
+        });
+    }
+}

@@ -10,8 +10,13 @@
 //! All items are re-exported here, so `quantaband::stats::*` is the whole public surface.
 #![forbid(unsafe_code)]
 
+mod bose_einstein;
+mod fermi_dirac;
 mod occupancy;
+mod tables;
 
+pub use bose_einstein::{bose_critical_temperature, bose_einstein_integral, BoseOrder};
+pub use fermi_dirac::{fermi_dirac_integral, inverse_fermi_dirac_half, FdOrder};
 pub use occupancy::{
     bose_einstein, bose_einstein_energy, fermi_dirac, fermi_dirac_energy, maxwell_boltzmann,
     maxwell_boltzmann_energy, thermal_photon_number,

@@ -81,6 +81,11 @@ ETAS = ["-700", "-200", "-50", "-40", "-20", "-10", "-5", "-2", "-1.5", "-1.0001
         "-0.5", "-0.1", "0", "1e-8", "0.1", "0.5", "1", "1.7", "2", "3", "5", "7.5", "10", "12.5",
         "15", "20", "25", "30", "34.9", "35", "35.1", "39.9", "40", "40.1", "50", "75", "100",
         "150", "200", "1000", "1e6"]
+# dense grids around the method cut-offs of src/stats/fermi_dirac.rs (eta = -3 and 37) and a
+# sweep of the quadrature range
+ETAS += [f"{-4 + 0.25 * i:g}" for i in range(17)] + [f"{30 + 0.5 * i:g}" for i in range(21)]
+ETAS += [f"{-40 + 2.7 * i:.4g}" for i in range(30)]
+ETAS = sorted(set(ETAS), key=float)
 for j, js in [(mpf(-1) / 2, "-0.5"), (mpf(1) / 2, "0.5"), (mpf(3) / 2, "1.5")]:
     for es in ETAS:
         eta = d(es)
