@@ -15,13 +15,24 @@
 #![allow(clippy::neg_cmp_op_on_partial_ord)]
 
 pub(crate) mod gauss_legendre;
+pub mod its90;
 mod kernel;
 pub mod measurement;
 pub mod model;
+pub mod ratio;
 pub mod response;
 pub mod sakuma_hattori;
+pub mod uncertainty;
 
+pub use its90::{
+    its90_temperature, radiance_ratio, temperature_from_ratio, FixedPoint, RatioTemperatures,
+};
 pub use measurement::{measured_signal, object_temperature, Conditions, Window};
 pub use model::{SignalModel, SpectralPoint};
+pub use ratio::{ratio_temperature, two_colour_temperature, RatioReading};
 pub use response::{Response, ResponseSignal};
 pub use sakuma_hattori::{max_interpolation_error_k, FitReport, SakumaHattori};
+pub use uncertainty::{
+    sensitivities, uncertainty_budget, BudgetEntry, BudgetInput, Sensitivities,
+    StandardUncertainties, UncertaintyBudget,
+};
