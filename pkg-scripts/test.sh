@@ -133,7 +133,7 @@ step clippy-host cargo clippy --all-targets -- -D warnings
 step clippy-no-std cargo clippy --all-targets --no-default-features -- -D warnings
 step clippy-wasm cargo clippy --lib --features wasm --target wasm32-unknown-unknown -- -D warnings
 step no-std-thumbv7em cargo rustc --lib --crate-type rlib --no-default-features --target thumbv7em-none-eabihf
-step no-std-wasm32 cargo build --lib --no-default-features --target wasm32-unknown-unknown
+step no-std-wasm32 cargo rustc --lib --crate-type rlib --no-default-features --target wasm32-unknown-unknown
 step cargo-test cargo test
 step cargo-doc "RUSTDOCFLAGS='-D warnings' cargo doc --no-deps"
 
