@@ -56,7 +56,7 @@ count_tests() {
       }
     }
     /^(ℹ|#) pass [0-9]+$/ { p += $3 }
-    /^(ℹ|#) fail [0-9]+$/ { f += $3 }
+    /^(ℹ|#) (fail|cancelled) [0-9]+$/ { f += $3 }
     END { printf "%d %d\n", p, f }
   ' "$log"
 }
