@@ -100,23 +100,29 @@ impl SpectralKind {
     /// # References
     /// CODATA 2018 (Tiesinga et al. 2021, doi:10.1103/RevModPhys.93.025010), exact h and c.
     pub fn convert_si(self, arg: &'static str, value_si: f64, to: SpectralKind) -> Result<f64> {
-        use SpectralKind::*;
         let v = error::spectral(arg, value_si)?;
-        Ok(match (self, to) {
+        let (k, reciprocal) = self.relation(to);
+        Ok(if reciprocal { k / v } else { k * v })
+    }
+
+    /// The relation `to = k / from` (reciprocal) or `to = k · from` between SI values of two kinds.
+    const fn relation(self, to: SpectralKind) -> (f64, bool) {
+        use SpectralKind::*;
+        match (self, to) {
             (Wavelength, Wavelength)
             | (Wavenumber, Wavenumber)
             | (Frequency, Frequency)
-            | (PhotonEnergy, PhotonEnergy) => v,
-            (Wavelength, Wavenumber) | (Wavenumber, Wavelength) => 1.0 / v,
-            (Wavelength, Frequency) | (Frequency, Wavelength) => SPEED_OF_LIGHT_C / v,
-            (Wavelength, PhotonEnergy) | (PhotonEnergy, Wavelength) => HC / v,
-            (Wavenumber, Frequency) => SPEED_OF_LIGHT_C * v,
-            (Frequency, Wavenumber) => v / SPEED_OF_LIGHT_C,
-            (Wavenumber, PhotonEnergy) => HC * v,
-            (PhotonEnergy, Wavenumber) => v / HC,
-            (Frequency, PhotonEnergy) => PLANCK_H * v,
-            (PhotonEnergy, Frequency) => v / PLANCK_H,
-        })
+            | (PhotonEnergy, PhotonEnergy) => (1.0, false),
+            (Wavelength, Wavenumber) | (Wavenumber, Wavelength) => (1.0, true),
+            (Wavelength, Frequency) | (Frequency, Wavelength) => (SPEED_OF_LIGHT_C, true),
+            (Wavelength, PhotonEnergy) | (PhotonEnergy, Wavelength) => (HC, true),
+            (Wavenumber, Frequency) => (SPEED_OF_LIGHT_C, false),
+            (Frequency, Wavenumber) => (1.0 / SPEED_OF_LIGHT_C, false),
+            (Wavenumber, PhotonEnergy) => (HC, false),
+            (PhotonEnergy, Wavenumber) => (1.0 / HC, false),
+            (Frequency, PhotonEnergy) => (PLANCK_H, false),
+            (PhotonEnergy, Frequency) => (1.0 / PLANCK_H, false),
+        }
     }
 
     /// Lower-case name of the kind (`"wavelength"`, `"wavenumber"`, `"frequency"`,
@@ -341,15 +347,21 @@ impl SpectralUnit {
 ///
 /// # Formula
 /// ```text
-/// x_SI = x · f_from;   y_SI = K(x_SI) (see SpectralKind::convert_si);   y = y_SI / f_to
+/// y = C · x      or      y = C / x   (reciprocal kinds: λ ↔ ν̃, λ ↔ ν, λ ↔ E)
+/// C = K · (m_from/d_from)^(±1) · (d_to/m_to)
 /// ```
+/// K the kind relation of [`SpectralKind::convert_si`] (1, c, h·c, h or their inverses), m/d the
+/// units' sizes in SI ([`SpectralUnit::si_factor`]). The whole unit-and-kind factor C is formed
+/// first, so decimal cases are exact (10 µm → 1000 cm⁻¹ exactly) and no intermediate SI value
+/// can overflow or underflow.
 ///
 /// # Errors
-/// [`Error::NonFinite`] / [`Error::NonPositiveSpectral`] as for [`SpectralUnit::to_si`].
+/// [`Error::NonFinite`] for NaN/±∞, [`Error::NonPositiveSpectral`] for `value` ≤ 0 (`arg` names
+/// the argument). A valid input whose true result lies outside the f64 range gives ∞ or 0.
 ///
 /// # Accuracy
-/// At most four roundings: relative error ≤ 5e-16 for results inside the normal f64 range;
-/// unit tests compare with CODATA 2018 exact relationships.
+/// At most five roundings (constant C, then one operation): relative error ≤ 6e-16; unit tests
+/// compare with CODATA 2018 exact relationships and check every pair round-trips to 1e-15.
 ///
 /// # Examples
 /// ```
@@ -357,29 +369,37 @@ impl SpectralUnit {
 /// // CODATA 2018: hc/e = 1.239 841 984…e-6 eV·m, so 1 eV is 1239.841984 nm.
 /// let nm = convert_spectral("x", 1.0, SpectralUnit::Electronvolt, SpectralUnit::Nanometre).unwrap();
 /// assert!((nm - 1239.841_984_332_002_6).abs() < 1e-9);
+/// assert_eq!(
+///     convert_spectral("x", 10.0, SpectralUnit::Micrometre, SpectralUnit::PerCentimetre).unwrap(),
+///     1000.0
+/// );
 /// ```
 ///
 /// # References
-/// CODATA 2018 (Tiesinga et al. 2021), "electron volt–inverse meter relationship".
+/// CODATA 2018 (Tiesinga et al. 2021), "electron volt–inverse meter relationship"; BIPM SI
+/// Brochure 9th ed. (2019), Table 7.
 pub fn convert_spectral(
     arg: &'static str,
     value: f64,
     from: SpectralUnit,
     to: SpectralUnit,
 ) -> Result<f64> {
+    let v = error::spectral(arg, value)?;
     if from == to {
-        return error::spectral(arg, value);
+        return Ok(v);
     }
-    let si = from.to_si(arg, value)?;
-    let si_to = from.kind().convert_si(arg, si, to.kind())?;
-    if si_to == 0.0 {
-        // The true value is below the f64 range: report 0 rather than an error.
-        return Ok(0.0);
-    }
-    if si_to.is_infinite() {
-        return Ok(f64::INFINITY);
-    }
-    to.from_si(arg, si_to)
+    let (k, reciprocal) = from.kind().relation(to.kind());
+    let (m_from, d_from) = from.scale();
+    let (m_to, d_to) = to.scale();
+    Ok(if reciprocal {
+        // y_SI = K / (x · m_from/d_from);  y = y_SI · d_to/m_to
+        let c = (k * d_from * d_to) / (m_from * m_to);
+        c / v
+    } else {
+        // y_SI = K · x · m_from/d_from;  y = y_SI · d_to/m_to
+        let c = (k * m_from * d_to) / (d_from * m_to);
+        v * c
+    })
 }
 
 /// A temperature unit (absolute scale or difference, depending on the function used).
