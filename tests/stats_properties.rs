@@ -133,3 +133,88 @@ proptest! {
         }
     }
 }
+
+proptest! {
+    #![proptest_config(ProptestConfig::with_cases(1000))]
+
+    /// T_n = T_RJ + hf/2k: coth(y) = 1 + 2/(e^{2y} − 1) (DLMF 4.28), i.e. n̄ + ½ = ½coth(y).
+    #[test]
+    fn noise_temperature_is_rj_plus_half_quantum(
+        log_f in 3.0f64..16.0, log_t in -3.0f64..6.0
+    ) {
+        let (f, t) = (10f64.powf(log_f), 10f64.powf(log_t));
+        let tn = quantum_noise_temperature(f, t).unwrap();
+        let trj = rayleigh_jeans_brightness_temperature(f, t).unwrap();
+        let half = 0.5 * 6.626_070_15e-34 * f / 1.380_649e-23;
+        prop_assert!((tn / (trj + half) - 1.0).abs() < 4e-15, "f={f:e} T={t:e}: {tn} vs {trj}+{half}");
+        prop_assert!(tn >= t * (1.0 - 1e-15), "T_n must not be below T");
+        let p0 = available_noise_power_density_with_zero_point(f, t).unwrap();
+        let p = available_noise_power_density(f, t).unwrap();
+        prop_assert!((p0 / (1.380_649e-23 * tn) - 1.0).abs() < 4e-16);
+        prop_assert!(p == 1.380_649e-23 * trj);
+    }
+
+    /// T → T_RJ → T round trip (brightness temperature inverse).
+    #[test]
+    fn rayleigh_jeans_round_trip(log_f in 6.0f64..15.0, log_t in -3.0f64..8.0) {
+        let (f, t) = (10f64.powf(log_f), 10f64.powf(log_t));
+        let x = 4.799_243_073_366_221e-11 * f / t;
+        prop_assume!(x <= 700.0);
+        let trj = rayleigh_jeans_brightness_temperature(f, t).unwrap();
+        let back = physical_temperature_from_rayleigh_jeans(f, trj).unwrap();
+        prop_assert!((back / t - 1.0).abs() < 1e-14, "f={f:e} T={t:e}: back {back}");
+    }
+
+    /// Blackbody gas identities: T·s = u + p (Gibbs–Duhem with μ = 0), u = 3p, n·⟨E⟩ = u.
+    #[test]
+    fn photon_gas_identities(log_t in -60.0f64..70.0) {
+        let t = 10f64.powf(log_t);
+        let u = photon_energy_density(t).unwrap();
+        let p = photon_pressure(t).unwrap();
+        let s = photon_entropy_density(t).unwrap();
+        let n = photon_number_density(t).unwrap();
+        let e = mean_photon_energy(t).unwrap();
+        prop_assert!(u.is_finite() && u > 0.0);
+        prop_assert!((t * s / (u + p) - 1.0).abs() < 1e-14);
+        prop_assert!((u / (3.0 * p) - 1.0).abs() < 1e-15);
+        prop_assert!((n * e / u - 1.0).abs() < 1e-14);
+    }
+
+    /// u_E(E) = g(E)·E·n̄(E/kT) (definition) and u_ν = h·u_E(hν); no NaN/∞ at extreme inputs.
+    #[test]
+    fn spectral_energy_density_consistency(log_e in -30.0f64..-14.0, log_t in -3.0f64..7.0) {
+        let (e, t) = (10f64.powf(log_e), 10f64.powf(log_t));
+        let x = e / (1.380_649e-23 * t);
+        prop_assume!(x < 600.0);
+        let u = spectral_energy_density_energy(e, t).unwrap();
+        let built = photon_density_of_states(e).unwrap() * e * bose_einstein(x).unwrap();
+        prop_assert!((u / built - 1.0).abs() < 1e-13, "E={e:e} T={t:e}: {u} vs {built}");
+        let nu = e / 6.626_070_15e-34;
+        let u_nu = spectral_energy_density_frequency(nu, t).unwrap();
+        // ν = E/h is rounded, and that rounding is amplified by x on the Wien side.
+        let tol = 1e-15 * (1.0 + x);
+        prop_assert!((u_nu / (6.626_070_15e-34 * u) - 1.0).abs() < tol, "E={e:e} T={t:e}");
+    }
+
+    #[test]
+    fn photon_functions_extremes_never_nan(
+        a in prop_oneof![1e-300f64..1e-250, 1e-30f64..1e30, 1e250f64..1e300],
+        t in prop_oneof![1e-300f64..1e-250, 1e-3f64..1e6, 1e250f64..1e300],
+    ) {
+        for v in [
+            quantum_noise_temperature(a, t).unwrap(),
+            rayleigh_jeans_brightness_temperature(a, t).unwrap(),
+            physical_temperature_from_rayleigh_jeans(a, t).unwrap(),
+            available_noise_power_density(a, t).unwrap(),
+            spectral_energy_density_energy(a, t).unwrap(),
+            spectral_energy_density_frequency(a, t).unwrap(),
+            photon_density_of_states(a).unwrap(),
+            photon_energy_density(t).unwrap(),
+            photon_number_density(t).unwrap(),
+        ] {
+            prop_assert!(!v.is_nan() && v >= 0.0, "a={a:e} t={t:e}: {v}");
+        }
+        prop_assert!(physical_temperature_from_rayleigh_jeans(a, t).unwrap() > 0.0);
+        prop_assert!(quantum_noise_temperature(a, t).unwrap() > 0.0);
+    }
+}

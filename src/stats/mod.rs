@@ -13,6 +13,7 @@
 mod bose_einstein;
 mod fermi_dirac;
 mod occupancy;
+mod photon_gas;
 mod tables;
 
 pub use bose_einstein::{bose_critical_temperature, bose_einstein_integral, BoseOrder};
@@ -20,4 +21,11 @@ pub use fermi_dirac::{fermi_dirac_integral, inverse_fermi_dirac_half, FdOrder};
 pub use occupancy::{
     bose_einstein, bose_einstein_energy, fermi_dirac, fermi_dirac_energy, maxwell_boltzmann,
     maxwell_boltzmann_energy, thermal_photon_number,
+};
+pub use photon_gas::{
+    available_noise_power_density, available_noise_power_density_with_zero_point,
+    mean_photon_energy, photon_density_of_states, photon_energy_density, photon_entropy_density,
+    photon_number_density, photon_pressure, physical_temperature_from_rayleigh_jeans,
+    quantum_noise_temperature, rayleigh_jeans_brightness_temperature,
+    spectral_energy_density_energy, spectral_energy_density_frequency,
 };
