@@ -191,8 +191,9 @@ proptest! {
         prop_assert!((u / built - 1.0).abs() < 1e-13, "E={e:e} T={t:e}: {u} vs {built}");
         let nu = e / 6.626_070_15e-34;
         let u_nu = spectral_energy_density_frequency(nu, t).unwrap();
-        // ν = E/h is rounded, and that rounding is amplified by x on the Wien side.
-        let tol = 1e-15 * (1.0 + x);
+        // ν = E/h is rounded (½ ulp, tripled by ν³ and multiplied by x on the Wien side), on
+        // top of a few ulp for each evaluation.
+        let tol = 3e-15 * (1.0 + x);
         prop_assert!((u_nu / (6.626_070_15e-34 * u) - 1.0).abs() < tol, "E={e:e} T={t:e}");
     }
 
@@ -216,5 +217,36 @@ proptest! {
         }
         prop_assert!(physical_temperature_from_rayleigh_jeans(a, t).unwrap() > 0.0);
         prop_assert!(quantum_noise_temperature(a, t).unwrap() > 0.0);
+    }
+}
+
+proptest! {
+    #![proptest_config(ProptestConfig::with_cases(2000))]
+
+    /// Consistency with the radiometric core: for isotropic blackbody radiation the spectral
+    /// energy density is u_ν = 4π L_ν / c per unit frequency and u_E = u_ν / h per unit photon
+    /// energy (energy flux through a surface = c·u/4π per steradian; e.g. Kittel & Kroemer,
+    /// Thermal Physics, ch. 4, from memory). L_ν from `quantaband::planck`.
+    #[test]
+    fn energy_density_consistent_with_planck_radiance(
+        log_f in 6.0f64..16.0, log_t in -2.0f64..6.0
+    ) {
+        let (f, t) = (10f64.powf(log_f), 10f64.powf(log_t));
+        let x = 4.799_243_073_366_221e-11 * f / t;
+        prop_assume!(x < 700.0);
+        let c = 299_792_458.0;
+        let h = 6.626_070_15e-34;
+        let l_nu = quantaband::planck::spectral_radiance_frequency(f, t).unwrap();
+        let from_radiance = 4.0 * core::f64::consts::PI * l_nu / c;
+        // Subnormal results carry fewer than 16 digits: compare in the normal range only.
+        prop_assume!(from_radiance >= f64::MIN_POSITIVE);
+        let u_nu = spectral_energy_density_frequency(f, t).unwrap();
+        // Two independent implementations, each a few ulp, the x-amplified rounding of hf/kT.
+        let tol = 2e-15 * (1.0 + x);
+        prop_assert!((u_nu / from_radiance - 1.0).abs() < tol,
+            "f={f:e} T={t:e}: {u_nu:e} vs {from_radiance:e}");
+        let u_e = spectral_energy_density_energy(h * f, t).unwrap();
+        prop_assert!((u_e / (from_radiance / h) - 1.0).abs() < tol,
+            "f={f:e} T={t:e}: {u_e:e} vs {:e}", from_radiance / h);
     }
 }

@@ -13,13 +13,15 @@
 //! η = (E_F − E_c)/kT in *our* convention (`n = N_c·(2/√π)·𝔉_{1/2}` in theirs).
 //!
 //! # Method (no allocation, at most ~250 exponentials per call)
-//! - `η ≤ −1`: the alternating polylogarithm series `Σ_{k≥1} (−1)^{k+1} e^{kη}/k^{j+1}`, summed
-//!   until the next term is below 1e-17 of the sum (≤ 38 terms; one term for η < −39).
-//! - `−1 < η < 37`: with t = u² the integrand `2u^{2j+1}/(e^{u²−η} + 1)` is even and analytic in a
+//! - `η ≤ −3`: the alternating polylogarithm series `Σ_{k≥1} (−1)^{k+1} e^{kη}/k^{j+1}`, summed
+//!   until the next term is below 1e-17 of the sum (≤ 13 terms; one term for η < −39).
+//! - `−3 < η < 37`: with t = u² the integrand `2u^{2j+1}/(e^{u²−η} + 1)` is even and analytic in a
 //!   strip |Im u| < d, d = Im √(η + iπ) (the nearest poles of the Fermi factor), so the
 //!   trapezoidal rule on the whole real line converges geometrically, with error ∝ e^{−2πd/h}. We
 //!   use h = 2πd/42 and Neumaier-compensated summation, stopping once u² > η and the terms are
-//!   below 1e-18 of the sum (30 nodes at η = −1, about 250 at η = 37).
+//!   below 1e-18 of the sum (≈ 20 nodes at η = −3, about 250 at η = 37). The three orders share
+//!   nodes and Fermi factors (u⁰, u², u⁴ weights), so the inverse gets F_{1/2} and its
+//!   derivative F_{−1/2} from one pass.
 //! - `η ≥ 37`: the Sommerfeld asymptotic series
 //!   `F_j(η) = η^{j+1}/Γ(j+2) · [1 + Σ_{n≥1} 2η(2n)·(j+1)j⋯(j+2−2n)·η^{−2n}]` (η(·) the Dirichlet
 //!   eta function). For half-integer j the exponentially small companion term
@@ -139,19 +141,6 @@ fn k_pow(order: FdOrder, k: f64) -> f64 {
     }
 }
 
-/// u^{2j+1} for u ≥ 0.
-#[inline]
-fn u_pow(order: FdOrder, u: f64) -> f64 {
-    match order {
-        FdOrder::MinusHalf => 1.0,
-        FdOrder::Half => u * u,
-        FdOrder::ThreeHalves => {
-            let u2 = u * u;
-            u2 * u2
-        }
-    }
-}
-
 fn fd_series(order: FdOrder, eta: f64) -> f64 {
     let z = float::exp(eta);
     let mut zk = z;
@@ -174,41 +163,76 @@ fn fd_series(order: FdOrder, eta: f64) -> f64 {
     sum
 }
 
-fn fd_trapezoid(order: FdOrder, eta: f64) -> f64 {
+/// Neumaier-compensated accumulation of `term` into (`sum`, `comp`).
+#[inline]
+fn neumaier(sum: &mut f64, comp: &mut f64, term: f64) {
+    let t = *sum + term;
+    if float::abs(*sum) >= float::abs(term) {
+        *comp += (*sum - t) + term;
+    } else {
+        *comp += (term - t) + *sum;
+    }
+    *sum = t;
+}
+
+/// Trapezoidal rule for all three orders at once (they share nodes and Fermi factors):
+/// returns [F_{−1/2}, F_{1/2}, F_{3/2}] at η.
+fn fd_trapezoid_all(eta: f64) -> [f64; 3] {
     // Half-width of the strip of analyticity: Im √(η + iπ).
     let d = float::sqrt(0.5 * (float::sqrt(eta * eta + PI * PI) - eta));
     let h = 2.0 * PI * d / TRAPEZOID_NH;
-    // Node u = 0 counts once in Σ_{k∈ℤ}; by symmetry the rest count twice.
-    let mut sum = match order {
-        FdOrder::MinusHalf => 0.5 / (1.0 + float::exp(-eta)),
-        _ => 0.0,
-    };
-    let mut comp = 0.0;
+    // Node u = 0 counts once in Σ_{k∈ℤ} (only u⁰ is non-zero there); the rest count twice.
+    let mut sum = [0.5 / (1.0 + float::exp(-eta)), 0.0, 0.0];
+    let mut comp = [0.0; 3];
     let mut k = 0.0;
     while k < 4000.0 {
         k += 1.0;
         let u = k * h;
-        let a = u * u - eta;
+        let u2 = u * u;
+        let a = u2 - eta;
         let fermi = if a < 0.0 {
             1.0 / (1.0 + float::exp(a))
         } else {
             let e = float::exp(-a);
             e / (1.0 + e)
         };
-        let term = fermi * u_pow(order, u);
-        // Neumaier summation.
-        let t = sum + term;
-        if float::abs(sum) >= float::abs(term) {
-            comp += (sum - t) + term;
-        } else {
-            comp += (term - t) + sum;
+        let terms = [fermi, fermi * u2, fermi * u2 * u2];
+        for i in 0..3 {
+            neumaier(&mut sum[i], &mut comp[i], terms[i]);
         }
-        sum = t;
-        if a > 0.0 && term < 1e-18 * sum {
+        // u⁴·fermi decays last; once it is negligible so are the others.
+        if a > 0.0 && terms[0] < 1e-18 * sum[0] && terms[2] < 1e-18 * sum[2] {
             break;
         }
     }
-    2.0 * h * (sum + comp) * order.inv_gamma_j1()
+    let s = [sum[0] + comp[0], sum[1] + comp[1], sum[2] + comp[2]];
+    [
+        2.0 * h * s[0] * FdOrder::MinusHalf.inv_gamma_j1(),
+        2.0 * h * s[1] * FdOrder::Half.inv_gamma_j1(),
+        2.0 * h * s[2] * FdOrder::ThreeHalves.inv_gamma_j1(),
+    ]
+}
+
+fn fd_trapezoid(order: FdOrder, eta: f64) -> f64 {
+    let all = fd_trapezoid_all(eta);
+    match order {
+        FdOrder::MinusHalf => all[0],
+        FdOrder::Half => all[1],
+        FdOrder::ThreeHalves => all[2],
+    }
+}
+
+/// (F_{1/2}(η), F_{−1/2}(η)) sharing the quadrature nodes where that applies.
+fn fd_half_and_derivative(eta: f64) -> (f64, f64) {
+    if eta > ETA_SERIES_MAX && eta < ETA_ASYMPTOTIC_MIN {
+        let all = fd_trapezoid_all(eta);
+        (all[1], all[0])
+    } else {
+        (
+            fd_integral_unchecked(FdOrder::Half, eta),
+            fd_integral_unchecked(FdOrder::MinusHalf, eta),
+        )
+    }
 }
 
 fn fd_asymptotic(order: FdOrder, eta: f64) -> f64 {
@@ -348,9 +372,9 @@ pub fn inverse_fermi_dirac_half(reduced_density: f64) -> Result<f64> {
         let x = GAMMA_5_2_POW_2_3 * float::powf(y, 2.0 / 3.0);
         x * (1.0 - PI * PI / (12.0 * x * x))
     };
+    let mut prev_step = f64::INFINITY;
     for _ in 0..60 {
-        let f = fd_integral_unchecked(FdOrder::Half, eta);
-        let df = fd_integral_unchecked(FdOrder::MinusHalf, eta);
+        let (f, df) = fd_half_and_derivative(eta);
         // Far from the root: Newton on ln F (globally convergent, see above). Close to it:
         // Newton on F itself, whose residual f − y loses no digits to the logarithms.
         let step = if float::abs(f - y) < 0.5 * y {
@@ -362,9 +386,15 @@ pub fn inverse_fermi_dirac_half(reduced_density: f64) -> Result<f64> {
             break;
         }
         eta -= step;
-        if float::abs(step) <= 4.0 * f64::EPSILON * float::abs(eta).max(1.0) {
+        let scale = float::abs(eta).max(1.0);
+        // Converged, or at the rounding-noise floor of F (quadratic convergence has stopped
+        // and the step is already tiny).
+        if float::abs(step) <= 4.0 * f64::EPSILON * scale
+            || (float::abs(step) >= 0.5 * prev_step && float::abs(step) <= 1e-12 * scale)
+        {
             return Ok(eta);
         }
+        prev_step = float::abs(step);
     }
     Err(Error::NotConverged {
         what: "Newton iteration for the inverse of F_1/2",
