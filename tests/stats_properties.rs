@@ -73,7 +73,7 @@ fn fd(order: FdOrder, eta: f64) -> f64 {
 proptest! {
     #![proptest_config(ProptestConfig::with_cases(1000))]
 
-    /// dF_j/dη = F_{j−1} (DLMF 25.12.16 in the normalised convention), checked with a
+    /// dF_j/dη = F_{j−1} (DLMF §25.12(iii), from memory), checked with a
     /// five-point central difference (truncation error ~h⁴/30·F⁽⁵⁾ ≈ 1e-10 relative here).
     #[test]
     fn fermi_dirac_derivative_identity(eta in -60.0f64..200.0) {
@@ -137,7 +137,7 @@ proptest! {
 proptest! {
     #![proptest_config(ProptestConfig::with_cases(1000))]
 
-    /// T_n = T_RJ + hf/2k: coth(y) = 1 + 2/(e^{2y} − 1) (DLMF 4.28), i.e. n̄ + ½ = ½coth(y).
+    /// T_n = T_RJ + hf/2k: coth(y) = 1 + 2/(e^{2y} − 1) (hyperbolic identity, DLMF §4.28, from memory), i.e. n̄ + ½ = ½coth(y).
     #[test]
     fn noise_temperature_is_rj_plus_half_quantum(
         log_f in 3.0f64..16.0, log_t in -3.0f64..6.0

@@ -139,8 +139,8 @@ mod fermi_dirac_integrals {
         );
     }
 
-    /// F_{1/2}(0) = (1 − 2^{−1/2})·ζ(3/2) (DLMF 25.12.15 with η(s) = (1 − 2^{1−s})ζ(s), DLMF
-    /// 25.2.3), with ζ(3/2) = 2.612375348685488343… (DLMF Table 25.? / mpmath).
+    /// F_{1/2}(0) = (1 − 2^{−1/2})·ζ(3/2) (DLMF §25.12(iii) with η(s) = (1 − 2^{1−s})ζ(s),
+    /// DLMF §25.2; equation numbers from memory), with ζ(3/2) = 2.612375348685488343… (mpmath `zeta(1.5)`, 50 digits).
     #[test]
     fn f_half_at_zero_closed_form() {
         let want = (1.0 - core::f64::consts::FRAC_1_SQRT_2) * 2.612_375_348_685_488;
@@ -181,7 +181,7 @@ mod bose_einstein_integrals {
         assert!((g(BoseOrder::ThreeHalves) - 2.612_375_348_685_488).abs() < 2e-15);
         assert!((g(BoseOrder::FiveHalves) - 1.341_487_257_250_917).abs() < 2e-15);
         assert!((g(BoseOrder::Integer(3)) - 1.202_056_903_159_594).abs() < 2e-15);
-        // ζ(2) = π²/6, ζ(4) = π⁴/90 (Euler; DLMF 25.6.1)
+        // ζ(2) = π²/6, ζ(4) = π⁴/90 (Euler; DLMF §25.6, from memory)
         let pi = core::f64::consts::PI;
         assert!((g(BoseOrder::Integer(2)) / (pi * pi / 6.0) - 1.0).abs() < 4.5e-16);
         assert!((g(BoseOrder::Integer(4)) / (pi.powi(4) / 90.0) - 1.0).abs() < 4.5e-16);

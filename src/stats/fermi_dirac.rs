@@ -35,7 +35,7 @@
 //! # References
 //! - R. B. Dingle, *Asymptotic Expansions: Their Derivation and Interpretation*, Academic Press
 //!   (1973), ch. 13 (Sommerfeld-type expansions of Fermi–Dirac functions) (from memory).
-//! - NIST DLMF, §25.12(iii) "Fermi–Dirac and Bose–Einstein integrals", eq. 25.12.14–25.12.16,
+//! - NIST DLMF, §25.12(iii) "Fermi–Dirac and Bose–Einstein integrals", eq. 25.12.14–25.12.16 (equation numbers from memory),
 //!   <https://dlmf.nist.gov/25.12>.
 //! - L. N. Trefethen, J. A. C. Weideman, "The exponentially convergent trapezoidal rule",
 //!   SIAM Review 56, 385–458 (2014), doi:10.1137/130932132 (§5, analytic integrands on ℝ).
@@ -52,7 +52,29 @@ use super::tables::SOMMERFELD_2ETA;
 use crate::error::{self, Error, Result};
 use crate::float;
 
-/// The orders j of the complete Fermi–Dirac integral [`fermi_dirac_integral`] supports.
+/// The orders j of the complete Fermi–Dirac integral [`fermi_dirac_integral`] supports
+/// (dimensionless).
+///
+/// # Formula
+/// ```text
+/// j ∈ {−1/2, 1/2, 3/2},   F_j(η) = 1/Γ(j+1) ∫₀^∞ t^j/(e^{t−η}+1) dt
+/// ```
+///
+/// # Errors
+/// None: an enum makes unsupported orders unrepresentable ([`FdOrder::from_j`] converts a
+/// number and reports `UNSUPPORTED`).
+///
+/// # Accuracy
+/// Exact (a label).
+///
+/// # Examples
+/// ```
+/// use quantaband::stats::FdOrder;
+/// assert_eq!(FdOrder::MinusHalf.j(), -0.5);
+/// ```
+///
+/// # References
+/// - NIST DLMF §25.12(iii), <https://dlmf.nist.gov/25.12>.
 #[derive(Debug, Clone, Copy, PartialEq, Eq, Hash)]
 pub enum FdOrder {
     /// j = −1/2 (the derivative of F_{1/2}; appears in the Einstein relation and in screening).
@@ -64,13 +86,27 @@ pub enum FdOrder {
 }
 
 impl FdOrder {
-    /// The order j as a number: −0.5, 0.5 or 1.5.
+    /// The order j as a number: −0.5, 0.5 or 1.5 (dimensionless).
+    ///
+    /// # Formula
+    /// ```text
+    /// MinusHalf → −1/2, Half → 1/2, ThreeHalves → 3/2
+    /// ```
+    ///
+    /// # Errors
+    /// None.
+    ///
+    /// # Accuracy
+    /// Exact (all three are binary fractions).
     ///
     /// # Examples
     /// ```
     /// use quantaband::stats::FdOrder;
     /// assert_eq!(FdOrder::ThreeHalves.j(), 1.5);
     /// ```
+    ///
+    /// # References
+    /// - NIST DLMF §25.12(iii), <https://dlmf.nist.gov/25.12>.
     pub const fn j(self) -> f64 {
         match self {
             FdOrder::MinusHalf => -0.5,
@@ -79,10 +115,18 @@ impl FdOrder {
         }
     }
 
-    /// The order for a numeric j, if it is one of −1/2, 1/2, 3/2.
+    /// The order for a numeric j (dimensionless), if it is one of −1/2, 1/2, 3/2.
+    ///
+    /// # Formula
+    /// ```text
+    /// −0.5 → MinusHalf, 0.5 → Half, 1.5 → ThreeHalves (exact comparison)
+    /// ```
     ///
     /// # Errors
     /// [`Error::Unsupported`] for any other value (including NaN).
+    ///
+    /// # Accuracy
+    /// Exact.
     ///
     /// # Examples
     /// ```
@@ -90,6 +134,9 @@ impl FdOrder {
     /// assert_eq!(FdOrder::from_j(0.5).unwrap(), FdOrder::Half);
     /// assert!(FdOrder::from_j(1.0).is_err());
     /// ```
+    ///
+    /// # References
+    /// - NIST DLMF §25.12(iii), <https://dlmf.nist.gov/25.12>.
     pub fn from_j(j: f64) -> Result<FdOrder> {
         if j == -0.5 {
             Ok(FdOrder::MinusHalf)
@@ -301,14 +348,14 @@ pub(crate) fn fd_integral_unchecked(order: FdOrder, eta: f64) -> f64 {
 /// # Examples
 /// ```
 /// use quantaband::stats::{fermi_dirac_integral, FdOrder};
-/// // F_{1/2}(0) = (1 − 2^{−1/2})·ζ(3/2) = 0.765147024625407945… (DLMF 25.12.15 with
-/// // DLMF 25.2.3; value from mpmath)
+/// // F_{1/2}(0) = (1 − 2^{−1/2})·ζ(3/2) = 0.765147024625407945… (DLMF §25.12 and §25.2,
+/// // equation numbers not checked; value from mpmath)
 /// let f = fermi_dirac_integral(FdOrder::Half, 0.0).unwrap();
 /// assert!((f - 0.765_147_024_625_407_9).abs() < 1e-15);
 /// ```
 ///
 /// # References
-/// - NIST DLMF §25.12(iii), eq. 25.12.14–25.12.16, <https://dlmf.nist.gov/25.12>.
+/// - NIST DLMF §25.12(iii), eq. 25.12.14–25.12.16 (equation numbers from memory), <https://dlmf.nist.gov/25.12>.
 /// - J. S. Blakemore, Solid-State Electronics 25, 1067–1076 (1982),
 ///   doi:10.1016/0038-1101(82)90143-5 (conventions and tables of F_{1/2}).
 /// - L. N. Trefethen, J. A. C. Weideman, SIAM Review 56, 385–458 (2014),
