@@ -213,7 +213,9 @@ pub(crate) fn bose_integral_unchecked(order: BoseOrder, z: f64) -> f64 {
             return direct_series(order, z);
         }
         if z == 1.0 {
-            return ZETA_POSITIVE[(n - 2) as usize];
+            if let Some(&zeta) = ZETA_POSITIVE.get(n.saturating_sub(2) as usize) {
+                return zeta;
+            }
         }
         return robinson_integer(n, float::ln(z));
     }
