@@ -19,8 +19,8 @@
 //!
 //! The logarithm is a tailored kernel, [`fast_ln`]: w = 2^k·m with m ∈ [√½, √2) taken from the
 //! bits of w (k converted to f64 with the 2⁵² trick, so every step is a plain SIMD lane
-//! operation), then ln m = 2·atanh(s) = 2s·(1 + z/3 + z²/5 + z³/7 + z⁴/9 + z⁵/11), s = (m − 1)/(m
-//! + 1), z = s². Since |s| ≤ (√2 − 1)/(√2 + 1) = 0.1716, z ≤ 0.02944 and the neglected tail
+//! operation), then ln m = 2·atanh(s) = 2s·(1 + z/3 + z²/5 + z³/7 + z⁴/9 + z⁵/11) with
+//! s = (m − 1)/(m + 1) and z = s². Since |s| ≤ (√2 − 1)/(√2 + 1) = 0.1716, z ≤ 0.02944 and the neglected tail
 //! Σ_{j≥6} z^j/(2j + 1) is at most z⁶/(13(1 − z)) ≤ 5.2e-11 relative to ln m; with k ≠ 0 the
 //! relative error of k·ln 2 + ln m is smaller still. (A 128-entry table-driven logarithm was
 //! also tried: faster in a scalar build, slower once the loop is vectorised for simd128,
@@ -49,6 +49,8 @@
 //! conditions; it is not a substitute for a calibrated instrument and standard procedures, and
 //! must not be used for medical or fever screening.
 #![forbid(unsafe_code)]
+// Non-short-circuit `&` of comparisons keeps the pixel loop branch-free (vectorisable).
+#![allow(clippy::manual_range_contains)]
 
 use super::measurement::Conditions;
 use super::model::SignalModel;
