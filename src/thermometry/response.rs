@@ -263,6 +263,7 @@ fn subintervals(a: f64, b: f64, temperature_k: f64, c2_mk: f64) -> usize {
 #[derive(Debug, Clone, Copy, PartialEq)]
 pub struct ResponseSignal<'a> {
     response: Response<'a>,
+    c2: C2Convention,
     c2_mk: f64,
 }
 
@@ -271,6 +272,7 @@ impl<'a> ResponseSignal<'a> {
     pub fn new(response: Response<'a>, c2: C2Convention) -> Self {
         ResponseSignal {
             response,
+            c2,
             c2_mk: c2.c2(),
         }
     }
@@ -292,6 +294,7 @@ impl<'a> ResponseSignal<'a> {
         let (lo, hi) = self.response.support_m();
         let centre = 0.5 * (lo + hi);
         let c2 = self.c2_mk;
+        let conv = self.c2;
         let mut acc = [0.0; 4];
         for (a, b, ra, rb) in self.response.segments() {
             let n = subintervals(a, b, temperature_k, c2);
@@ -306,7 +309,7 @@ impl<'a> ResponseSignal<'a> {
                 };
                 let part = integrate(lo, hi, |w| {
                     let r = ra + slope * (w - a);
-                    let (l, dl) = super::kernel::radiance_and_dt(w, temperature_k, c2);
+                    let (l, dl) = super::kernel::radiance_and_dt(w, temperature_k, conv)?;
                     let rl = r * l;
                     let d = w - centre;
                     Ok([rl, r * dl, rl * d, rl * d * d])
