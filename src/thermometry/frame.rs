@@ -197,8 +197,9 @@ pub fn fast_ln(w: f64) -> f64 {
     kf * LN2 + 2.0 * s * p
 }
 
-/// Per-frame constants of the conversion (see the module docs). Build once per frame (or
-/// whenever the conditions change) and convert any number of frames.
+/// Per-frame constants of the conversion (see the module docs for the formula, the error bound
+/// and its measurement). Build once per frame (or whenever the conditions change) and convert
+/// any number of frames; construction and use are shown at [`FrameConverter::new`].
 #[derive(Debug, Clone, Copy, PartialEq)]
 pub struct FrameConverter {
     alpha: f64,

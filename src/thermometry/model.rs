@@ -207,8 +207,23 @@ pub struct SpectralPoint {
 impl SpectralPoint {
     /// A single-wavelength model at `wavelength_m` (m) with the given c2 convention.
     ///
+    /// # Formula
+    /// See [`SpectralPoint`].
+    ///
     /// # Errors
     /// `NonFinite` / `NonPositiveSpectral` for a bad wavelength.
+    ///
+    /// # Accuracy
+    /// Exact (stores the wavelength).
+    ///
+    /// # Examples
+    /// ```
+    /// use quantaband::thermometry::model::SpectralPoint;
+    /// assert_eq!(SpectralPoint::new(-1.0, Default::default()).unwrap_err().code(), "NON_POSITIVE_SPECTRAL");
+    /// ```
+    ///
+    /// # References
+    /// See [`SpectralPoint`].
     pub fn new(wavelength_m: f64, c2: crate::constants::C2Convention) -> Result<Self> {
         crate::error::spectral("wavelength_m", wavelength_m)?;
         Ok(SpectralPoint { wavelength_m, c2 })

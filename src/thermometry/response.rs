@@ -55,7 +55,12 @@ pub struct Response<'a> {
 }
 
 impl<'a> Response<'a> {
-    /// Validates and wraps a response table.
+    /// Validates and wraps a response table (`wavelengths_m` in m, `values` dimensionless).
+    ///
+    /// # Formula
+    /// ```text
+    /// accepted iff n ≥ 2, len(λ) = len(R), 0 < λ_0 < λ_1 < … (finite), R_i ≥ 0 (finite), Σ R_i > 0
+    /// ```
     ///
     /// # Errors
     /// - `LengthMismatch` if the two slices differ in length (expected = wavelengths' length);
@@ -64,6 +69,19 @@ impl<'a> Response<'a> {
     /// - `NotIncreasing` (arg `wavelengths_m`) if wavelengths are not strictly increasing;
     /// - `NonFinite` for a non-finite value, `OutOfRange` (range `[0, ∞)`) for a negative one;
     /// - `NonPositive` (arg `values`) if every value is zero.
+    ///
+    /// # Accuracy
+    /// Exact (validation only; the slices are borrowed, not copied).
+    ///
+    /// # Examples
+    /// ```
+    /// use quantaband::thermometry::response::Response;
+    /// assert_eq!(Response::new(&[2e-6, 1e-6], &[1.0, 1.0]).unwrap_err().code(), "NOT_INCREASING");
+    /// assert!(Response::new(&[1e-6, 2e-6], &[0.0, 1.0]).is_ok());
+    /// ```
+    ///
+    /// # References
+    /// Common practice, no source.
     pub fn new(wavelengths_m: &'a [f64], values: &'a [f64]) -> Result<Self> {
         if wavelengths_m.len() != values.len() {
             return Err(Error::LengthMismatch {
@@ -131,8 +149,26 @@ impl<'a> Response<'a> {
 
     /// Relative response at `wavelength_m` (m): linear interpolation, 0 outside the table.
     ///
+    /// # Formula
+    /// ```text
+    /// R(λ) = R_i + (R_{i+1} − R_i)(λ − λ_i)/(λ_{i+1} − λ_i),  λ_i ≤ λ ≤ λ_{i+1};  0 outside
+    /// ```
+    ///
     /// # Errors
     /// `NonFinite` / `NonPositiveSpectral` for a bad wavelength.
+    ///
+    /// # Accuracy
+    /// A few ulp.
+    ///
+    /// # Examples
+    /// ```
+    /// use quantaband::thermometry::response::Response;
+    /// let r = Response::new(&[1e-6, 2e-6], &[0.0, 1.0]).unwrap();
+    /// assert_eq!(r.value_at(1.5e-6).unwrap(), 0.5);
+    /// ```
+    ///
+    /// # References
+    /// Common practice, no source.
     pub fn value_at(&self, wavelength_m: f64) -> Result<f64> {
         spectral("wavelength_m", wavelength_m)?;
         let (lo, hi) = self.support_m();
@@ -268,7 +304,28 @@ pub struct ResponseSignal<'a> {
 }
 
 impl<'a> ResponseSignal<'a> {
-    /// Wraps a validated response with the c2 convention to use in Planck's law.
+    /// Wraps a validated response with the c2 convention to use in Planck's law (CODATA 2018
+    /// hc/k, or 0.014388 m·K for ITS-90 work).
+    ///
+    /// # Formula
+    /// See [`ResponseSignal`].
+    ///
+    /// # Errors
+    /// None: the response is already validated.
+    ///
+    /// # Accuracy
+    /// See [`ResponseSignal`].
+    ///
+    /// # Examples
+    /// ```
+    /// use quantaband::constants::C2Convention;
+    /// use quantaband::thermometry::response::{Response, ResponseSignal};
+    /// let s = ResponseSignal::new(Response::new(&[1e-6, 2e-6], &[1.0, 1.0]).unwrap(), C2Convention::Its90);
+    /// assert_eq!(s.c2_mk(), 0.014388);
+    /// ```
+    ///
+    /// # References
+    /// Preston-Thomas, Metrologia 27, 3 (1990) for the ITS-90 c2.
     pub fn new(response: Response<'a>, c2: C2Convention) -> Self {
         ResponseSignal {
             response,

@@ -93,8 +93,23 @@ impl SakumaHattori {
     /// A curve from its parameters: `a_m` (m, > 0), `b_mk` (m·K), `c` (signal units, > 0) and
     /// the c2 convention.
     ///
+    /// # Formula
+    /// See [`SakumaHattori`].
+    ///
     /// # Errors
     /// `NonFinite`, `NonPositive` (A or C ≤ 0).
+    ///
+    /// # Accuracy
+    /// Exact (stores the parameters).
+    ///
+    /// # Examples
+    /// ```
+    /// use quantaband::thermometry::sakuma_hattori::SakumaHattori;
+    /// assert_eq!(SakumaHattori::new(0.0, 0.0, 1.0, Default::default()).unwrap_err().code(), "NON_POSITIVE");
+    /// ```
+    ///
+    /// # References
+    /// Sakuma & Hattori (1982), see the module docs.
     pub fn new(a_m: f64, b_mk: f64, c: f64, c2: C2Convention) -> Result<Self> {
         positive("a_m", a_m)?;
         finite("b_mk", b_mk)?;
