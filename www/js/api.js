@@ -39,4 +39,48 @@ export const api = {
   spectralKind(unit) {
     return fn('spectralKind')(unit);
   },
+  // ---- radiometric core. spec = { variable, quantity, geometry, emissivity }; coordinates in SI.
+  spectrum(spec, xsSi, temperatureK) {
+    return fn('spectrum')(spec, xsSi, temperatureK);
+  },
+  spectralValue(spec, xSi, temperatureK) {
+    return fn('spectralValue')(spec, xSi, temperatureK);
+  },
+  spectralPeak(spec, temperatureK) {
+    return fn('spectralPeak')(spec, temperatureK);
+  },
+  band(spec, loSi, hiSi, temperatureK) {
+    return fn('band')(spec, loSi, hiSi, temperatureK);
+  },
+  bandFraction(spec, loSi, hiSi, temperatureK) {
+    return fn('bandFraction')(spec, loSi, hiSi, temperatureK);
+  },
+  bandDdt(spec, loSi, hiSi, temperatureK) {
+    return fn('bandDdt')(spec, loSi, hiSi, temperatureK);
+  },
+  bandOverTemperatures(spec, loSi, hiSi, temperaturesK) {
+    return fn('bandOverTemperatures')(spec, loSi, hiSi, temperaturesK);
+  },
+  // ---- quantum statistics (energies in J)
+  occupancyBoseEinstein(energyJ, muJ, temperatureK) {
+    return fn('occupancyBoseEinstein')(energyJ, muJ, temperatureK);
+  },
+  occupancyFermiDirac(energyJ, muJ, temperatureK) {
+    return fn('occupancyFermiDirac')(energyJ, muJ, temperatureK);
+  },
+  occupancyMaxwellBoltzmann(energyJ, muJ, temperatureK) {
+    return fn('occupancyMaxwellBoltzmann')(energyJ, muJ, temperatureK);
+  },
+  photonNumber(frequencyHz, temperatureK) {
+    return fn('photonNumber')(frequencyHz, temperatureK);
+  },
+  noiseTemperature(frequencyHz, temperatureK) {
+    return fn('noiseTemperature')(frequencyHz, temperatureK);
+  },
+  rayleighJeansTemperature(frequencyHz, temperatureK) {
+    return fn('rayleighJeansTemperature')(frequencyHz, temperatureK);
+  },
+  noisePower(frequencyHz, temperatureK, zeroPoint) {
+    return fn('noisePower')(frequencyHz, temperatureK, zeroPoint);
+  },
 };
