@@ -4,6 +4,8 @@
 
 let qb = null;
 
+const SI_UNIT = { wavelength: 'm', wavenumber: 'm-1', frequency: 'Hz', photonEnergy: 'J' };
+
 /** Installs the initialised package. */
 export function bindApi(pkg) {
   qb = pkg;
@@ -25,41 +27,46 @@ export const api = {
   },
   // ---- units (conversion lives in the core's unit module)
   toKelvin(value, unit) {
-    return fn('toKelvin')(value, unit);
+    return fn('convertTemperature')(value, unit, 'K');
   },
   fromKelvin(kelvin, unit) {
-    return fn('fromKelvin')(kelvin, unit);
+    return fn('convertTemperature')(kelvin, 'K', unit);
   },
+  /** A spectral coordinate in `unit` → the SI unit of its kind (m, m⁻¹, Hz or J). */
   spectralToSi(value, unit) {
-    return fn('spectralToSi')(value, unit);
-  },
-  spectralFromSi(valueSi, unit) {
-    return fn('spectralFromSi')(valueSi, unit);
+    return fn('convertSpectral')(value, unit, SI_UNIT[api.spectralKind(unit)]);
   },
   spectralKind(unit) {
-    return fn('spectralKind')(unit);
+    return fn('spectralUnitKind')(unit);
   },
-  // ---- radiometric core. spec = { variable, quantity, geometry, emissivity }; coordinates in SI.
-  spectrum(spec, xsSi, temperatureK) {
-    return fn('spectrum')(spec, xsSi, temperatureK);
+  // ---- radiometric core. spec = { unit, quantity, geometry, emissivity }: coordinates (points,
+  // band limits, peaks) in spec.unit, densities per the SI unit of the variable.
+  spectrum(spec, xs, temperatureK) {
+    return fn('spectralDensityArray')(spec, xs, temperatureK);
   },
-  spectralValue(spec, xSi, temperatureK) {
-    return fn('spectralValue')(spec, xSi, temperatureK);
+  spectralValue(spec, x, temperatureK) {
+    return fn('spectralDensity')(spec, x, temperatureK);
   },
   spectralPeak(spec, temperatureK) {
-    return fn('spectralPeak')(spec, temperatureK);
+    return fn('spectrumPeak')(spec, temperatureK);
   },
-  band(spec, loSi, hiSi, temperatureK) {
-    return fn('band')(spec, loSi, hiSi, temperatureK);
+  total(spec, temperatureK) {
+    return fn('spectrumTotal')(spec, temperatureK);
   },
-  bandFraction(spec, loSi, hiSi, temperatureK) {
-    return fn('bandFraction')(spec, loSi, hiSi, temperatureK);
+  band(spec, lo, hi, temperatureK) {
+    return fn('bandIntegral')(spec, lo, hi, temperatureK);
   },
-  bandDdt(spec, loSi, hiSi, temperatureK) {
-    return fn('bandDdt')(spec, loSi, hiSi, temperatureK);
+  bandFraction(spec, lo, hi, temperatureK) {
+    return fn('bandFraction')(spec, lo, hi, temperatureK);
   },
-  bandOverTemperatures(spec, loSi, hiSi, temperaturesK) {
-    return fn('bandOverTemperatures')(spec, loSi, hiSi, temperaturesK);
+  bandDdt(spec, lo, hi, temperatureK) {
+    return fn('bandIntegralDT')(spec, lo, hi, temperatureK);
+  },
+  bandOverTemperatures(spec, lo, hi, temperaturesK) {
+    return fn('bandIntegralArray')(spec, lo, hi, temperaturesK);
+  },
+  bandDdtOverTemperatures(spec, lo, hi, temperaturesK) {
+    return fn('bandIntegralDTArray')(spec, lo, hi, temperaturesK);
   },
   // ---- quantum statistics (energies in J)
   occupancyBoseEinstein(energyJ, muJ, temperatureK) {
