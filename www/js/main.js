@@ -55,9 +55,16 @@ async function boot() {
       continue;
     }
     sec.build?.();
+    const stale = document.createElement('p');
+    stale.className = 'stale';
+    stale.textContent = 'Fix the marked input: the results below still belong to the last valid inputs.';
+    document.getElementById(`${sec.id}-msg`).after(stale);
     live.push(sec);
   }
-  for (const s of document.querySelectorAll('select[data-unit="temperature"]')) fillTemperatureUnits(s);
+  for (const s of document.querySelectorAll('select[data-unit="temperature"]')) {
+    fillTemperatureUnits(s);
+    if (s.dataset.default) s.value = s.dataset.default;
+  }
   for (const s of document.querySelectorAll('select[data-unit="spectral"]')) fillSpectralUnits(s, s.dataset.kinds || 'all');
   setupFields(document);
   captureDefaults();
