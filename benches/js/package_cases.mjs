@@ -42,17 +42,39 @@ const CASES = [
     (pkg, { ref }) => {
       if (!has(pkg, "bandIntegral")) return null;
       const i = ref[kase].inputs;
-      const band = { lower: i.lower_m, upper: i.upper_m };
-      return scalar(() => pkg.bandIntegral(SI, band, i.temperature_k));
+      return scalar(() => pkg.bandIntegral(SI, i.lower_m, i.upper_m, i.temperature_k));
     },
   ]),
   [
     "band_inverse_8_14",
     (pkg, { ref }) => {
-      if (!has(pkg, "bandTemperature")) return null;
+      const name = ["temperatureFromBand", "bandTemperature"].find((n) => has(pkg, n));
+      if (!name) return null;
       const i = ref.band_inverse_8_14.inputs;
-      const band = { lower: i.lower_m, upper: i.upper_m };
-      return scalar(() => pkg.bandTemperature(SI, band, i.radiance));
+      return scalar(() => pkg[name](SI, i.lower_m, i.upper_m, i.radiance));
+    },
+  ],
+  [
+    "response_signal_400",
+    (pkg, { ref }) => {
+      if (!has(pkg, "modelSignal")) return null;
+      const i = ref.response_signal_400.inputs;
+      const model = {
+        kind: "response",
+        wavelengths: Float64Array.from(i.wavelengths_m),
+        values: Float64Array.from(i.response),
+        unit: "m",
+      };
+      return scalar(() => pkg.modelSignal(model, i.temperature_k));
+    },
+  ],
+  [
+    "sh_inverse",
+    (pkg, { ref }) => {
+      if (!has(pkg, "modelTemperature")) return null;
+      const i = ref.sh_inverse.inputs;
+      const model = { kind: "sakumaHattori", aM: i.a_m, bMK: i.b_m_k, c: i.c };
+      return scalar(() => pkg.modelTemperature(model, i.signal));
     },
   ],
   ["be_occupancy", (pkg) => (has(pkg, "boseEinstein") ? scalar(() => pkg.boseEinstein(2.0)) : null)],
