@@ -1,2 +1,318 @@
-//! Native benchmarks (under construction on the bench branch).
-fn main() {}
+//! Native benchmarks of the quantaband core: a small self-written harness (no criterion, which
+//! is slow to compile on a 2-core machine).
+//!
+//! For each case: warm up for `WARMUP`, choose an inner repetition count so that one sample
+//! lasts at least `SAMPLE`, take up to `SAMPLES` samples (stopping early after `CASE_BUDGET`),
+//! and print one JSON line with the median and minimum time per call in nanoseconds, plus the
+//! value computed (the table script compares it with `benches/data/bench_reference.json`).
+//! Inputs and outputs pass through `std::hint::black_box` so the optimiser can neither
+//! constant-fold the call nor drop it.
+//!
+//! Run through `bash pkg-scripts/bench.sh` (which merges these lines with the Node and SciPy
+//! ones into one table), or alone: `cargo bench --bench native [-- FILTER] [-- --quick]`.
+//! Timings are never asserted anywhere; this is a measurement tool, not a test.
+
+use std::hint::black_box;
+use std::time::{Duration, Instant};
+
+const WARMUP: Duration = Duration::from_millis(100);
+const SAMPLE: Duration = Duration::from_millis(5);
+const SAMPLES: usize = 31;
+const CASE_BUDGET: Duration = Duration::from_millis(1500);
+
+/// Timing summary of one case.
+struct Timing {
+    ns_median: f64,
+    ns_min: f64,
+    samples: usize,
+    iters: u64,
+}
+
+/// Times `f`, which performs ONE call of the operation being measured.
+fn measure<R, F: FnMut() -> R>(mut f: F, quick: bool) -> Timing {
+    let (warmup, budget) = if quick {
+        (WARMUP / 10, CASE_BUDGET / 10)
+    } else {
+        (WARMUP, CASE_BUDGET)
+    };
+    let t0 = Instant::now();
+    let mut calls: u64 = 0;
+    while t0.elapsed() < warmup || calls < 3 {
+        black_box(f());
+        calls += 1;
+    }
+    let per_call = t0.elapsed().as_secs_f64() / calls as f64;
+    let iters = ((SAMPLE.as_secs_f64() / per_call).ceil() as u64).max(1);
+    let mut times = Vec::with_capacity(SAMPLES);
+    let start = Instant::now();
+    for _ in 0..SAMPLES {
+        let a = Instant::now();
+        for _ in 0..iters {
+            black_box(f());
+        }
+        times.push(a.elapsed().as_secs_f64() * 1e9 / iters as f64);
+        if times.len() >= 5 && start.elapsed() > budget {
+            break;
+        }
+    }
+    times.sort_by(f64::total_cmp);
+    let mid = times.len() / 2;
+    let ns_median = if times.len() % 2 == 1 {
+        times[mid]
+    } else {
+        0.5 * (times[mid - 1] + times[mid])
+    };
+    Timing {
+        ns_median,
+        ns_min: times[0],
+        samples: times.len(),
+        iters,
+    }
+}
+
+/// A JSON number (JSON has no NaN/∞: those become null).
+fn json_num(x: f64) -> String {
+    if x.is_finite() {
+        format!("{x:e}")
+    } else {
+        "null".to_string()
+    }
+}
+
+/// Extra fields of a result line besides the timing.
+#[derive(Default)]
+struct Extra {
+    value: Option<f64>,
+    sample_values: Option<Vec<f64>>,
+    max_abs_err_k: Option<f64>,
+    pixels: Option<usize>,
+    note: Option<&'static str>,
+}
+
+struct Runner {
+    filter: Option<String>,
+    quick: bool,
+}
+
+impl Runner {
+    fn wants(&self, case: &str) -> bool {
+        self.filter.as_deref().is_none_or(|f| case.contains(f))
+    }
+
+    /// Measures `f` and prints the result line for `case`.
+    fn run<R, F: FnMut() -> R>(&self, case: &str, f: F, extra: Extra) {
+        if !self.wants(case) {
+            return;
+        }
+        let t = measure(f, self.quick);
+        let mut line = format!(
+            "{{\"impl\":\"native\",\"case\":\"{case}\",\"ns_median\":{},\"ns_min\":{},\"samples\":{},\"iters\":{}",
+            json_num(t.ns_median),
+            json_num(t.ns_min),
+            t.samples,
+            t.iters
+        );
+        if let Some(v) = extra.value {
+            line += &format!(",\"value\":{}", json_num(v));
+        }
+        if let Some(vs) = extra.sample_values {
+            let parts: Vec<String> = vs.iter().map(|&v| json_num(v)).collect();
+            line += &format!(",\"sample_values\":[{}]", parts.join(","));
+        }
+        if let Some(e) = extra.max_abs_err_k {
+            line += &format!(",\"max_abs_err_k\":{}", json_num(e));
+        }
+        if let Some(p) = extra.pixels {
+            line += &format!(",\"pixels\":{p}");
+        }
+        if let Some(n) = extra.note {
+            line += &format!(",\"note\":\"{n}\"");
+        }
+        line.push('}');
+        println!("{line}");
+    }
+
+    /// Prints a line saying a case could not be run (never a made-up number).
+    fn skip(&self, case: &str, why: &str) {
+        if self.wants(case) {
+            println!("{{\"impl\":\"native\",\"case\":\"{case}\",\"skipped\":\"{why}\"}}");
+        }
+    }
+}
+
+fn main() {
+    let mut filter = None;
+    let mut quick = false;
+    for a in std::env::args().skip(1) {
+        match a.as_str() {
+            "--bench" => {}
+            "--quick" => quick = true,
+            s if !s.starts_with('-') => filter = Some(s.to_string()),
+            _ => {}
+        }
+    }
+    let runner = Runner { filter, quick };
+    cases::radiometry(&runner);
+    cases::thermometry(&runner);
+    cases::statistics(&runner);
+}
+
+/// The benchmark cases (inputs as in `benches/data/bench_reference.json`).
+mod cases {
+    use super::{black_box, Extra, Runner};
+    use quantaband::constants::C2Convention;
+    use quantaband::planck::{self, Spectrum};
+    use quantaband::stats::{self, BoseOrder, FdOrder};
+    use quantaband::thermometry::{Response, ResponseSignal, SakumaHattori, SignalModel};
+
+    /// Invented Sakuma–Hattori calibration of the benchmark camera (A in m, B in m·K, C in
+    /// signal units), the same as `benches/py/gen_bench_reference.py` and `benches/js/scene.mjs`.
+    const SH_A: f64 = 1.05e-5;
+    const SH_B: f64 = 1.5e-4;
+    const SH_C: f64 = 2.0e4;
+
+    /// `Ok(v)` as `v`, an error as NaN (the table then shows the case as wrong, not fast).
+    fn val(r: quantaband::Result<f64>) -> f64 {
+        r.unwrap_or(f64::NAN)
+    }
+
+    pub fn radiometry(r: &Runner) {
+        // Single spectral radiance, 10 µm at 300 K.
+        let one = || {
+            val(planck::spectral_radiance_wavelength(
+                black_box(10e-6),
+                black_box(300.0),
+            ))
+        };
+        r.run(
+            "spectral_single",
+            one,
+            Extra {
+                value: Some(one()),
+                ..Extra::default()
+            },
+        );
+
+        // A 10 000-point spectrum at 1000 K into a caller-provided buffer.
+        let n = 10_000usize;
+        let (first, last) = (1e-6, 20e-6);
+        let step = (last - first) / (n - 1) as f64;
+        let lambdas: Vec<f64> = (0..n).map(|i| first + i as f64 * step).collect();
+        let mut out = vec![0.0; n];
+        let spec = Spectrum::BLACKBODY;
+        let mut spectrum = |out: &mut [f64]| {
+            let t = black_box(1000.0);
+            for (o, &l) in out.iter_mut().zip(black_box(&lambdas)) {
+                *o = val(spec.spectral(l, t));
+            }
+            black_box(out[0])
+        };
+        spectrum(&mut out);
+        let samples: Vec<f64> = (0..n).step_by(100).chain([n - 1]).map(|i| out[i]).collect();
+        let mut buf = vec![0.0; n];
+        r.run(
+            "spectrum_10k",
+            || spectrum(&mut buf),
+            Extra {
+                sample_values: Some(samples),
+                ..Extra::default()
+            },
+        );
+    }
+
+    pub fn thermometry(r: &Runner) {
+        // Response-weighted signal of the invented 9-point long-wave response at 400 K.
+        let wl = [
+            7.5e-6, 8e-6, 9e-6, 10e-6, 11e-6, 12e-6, 13e-6, 14e-6, 14.5e-6,
+        ];
+        let resp = [0.0, 0.55, 0.85, 1.0, 0.97, 0.9, 0.75, 0.5, 0.0];
+        match Response::new(&wl, &resp) {
+            Ok(response) => {
+                let model = ResponseSignal::new(response, C2Convention::Codata2018);
+                let f = || val(model.signal(black_box(400.0)));
+                r.run(
+                    "response_signal_400",
+                    f,
+                    Extra {
+                        value: Some(f()),
+                        ..Extra::default()
+                    },
+                );
+            }
+            Err(e) => r.skip("response_signal_400", e.code()),
+        }
+
+        // Sakuma–Hattori inverse, one value (invented coefficients, see the reference JSON).
+        match SakumaHattori::new(SH_A, SH_B, SH_C, C2Convention::Codata2018) {
+            Ok(sh) => {
+                let f = || val(sh.temperature(black_box(476.040_312_057_229_7)));
+                r.run(
+                    "sh_inverse",
+                    f,
+                    Extra {
+                        value: Some(f()),
+                        ..Extra::default()
+                    },
+                );
+            }
+            Err(e) => r.skip("sh_inverse", e.code()),
+        }
+    }
+
+    pub fn statistics(r: &Runner) {
+        let f = || val(stats::bose_einstein(black_box(2.0)));
+        r.run(
+            "be_occupancy",
+            f,
+            Extra {
+                value: Some(f()),
+                ..Extra::default()
+            },
+        );
+        let f = || val(stats::fermi_dirac(black_box(2.0)));
+        r.run(
+            "fd_occupancy",
+            f,
+            Extra {
+                value: Some(f()),
+                ..Extra::default()
+            },
+        );
+        let f = || val(stats::fermi_dirac_integral(FdOrder::Half, black_box(1.5)));
+        r.run(
+            "fd_half",
+            f,
+            Extra {
+                value: Some(f()),
+                ..Extra::default()
+            },
+        );
+        let f = || {
+            val(stats::inverse_fermi_dirac_half(black_box(
+                2.144_860_877_583_114,
+            )))
+        };
+        r.run(
+            "fd_half_inverse",
+            f,
+            Extra {
+                value: Some(f()),
+                ..Extra::default()
+            },
+        );
+        let f = || {
+            val(stats::bose_einstein_integral(
+                BoseOrder::ThreeHalves,
+                black_box(0.5),
+            ))
+        };
+        r.run(
+            "be_g32",
+            f,
+            Extra {
+                value: Some(f()),
+                ..Extra::default()
+            },
+        );
+    }
+}

@@ -40,6 +40,6 @@ pub mod units;
 
 // JavaScript binding layer.
 #[cfg(feature = "wasm")]
-mod wasm;
+pub mod wasm;
 
 pub use error::{Error, Result};

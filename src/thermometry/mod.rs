@@ -1,2 +1,40 @@
-//! (module under construction on its branch; filled in by its owner)
+//! Radiation-thermometry workflow: instrument spectral response, response-weighted signals,
+//! the measurement equation (emissivity, reflected surroundings, path and window), Sakuma–Hattori
+//! calibration curves, ITS-90 radiance-ratio temperatures, sensitivity coefficients and GUM
+//! uncertainty budgets, two-colour (ratio) thermometry, and fast whole-frame conversion.
+//!
+//! Every function takes SI units (K, m) with the unit in the argument name; signals are in the
+//! unit of the [`model::SignalModel`] in use. No function allocates; variable-size data (response
+//! tables, calibration points, frames) are caller-provided slices.
+//!
+//! Cautions: results are calculations, not measurements. They do not replace calibrated
+//! instruments, traceable calibration and standard procedures; do not use them for medical or
+//! fever screening or for process-safety decisions; defer to local codes and standards.
 #![forbid(unsafe_code)]
+// `!(x > 0.0)` is used on purpose throughout: it is also true for NaN.
+#![allow(clippy::neg_cmp_op_on_partial_ord)]
+
+pub mod frame;
+pub(crate) mod gauss_legendre;
+pub mod its90;
+mod kernel;
+pub mod measurement;
+pub mod model;
+pub mod ratio;
+pub mod response;
+pub mod sakuma_hattori;
+pub mod uncertainty;
+
+pub use frame::{FrameConverter, FrameSummary};
+pub use its90::{
+    its90_temperature, radiance_ratio, temperature_from_ratio, FixedPoint, RatioTemperatures,
+};
+pub use measurement::{measured_signal, object_temperature, Conditions, Window};
+pub use model::{SignalModel, SpectralPoint};
+pub use ratio::{ratio_temperature, two_colour_temperature, RatioReading};
+pub use response::{Response, ResponseSignal};
+pub use sakuma_hattori::{max_interpolation_error_k, FitReport, SakumaHattori};
+pub use uncertainty::{
+    sensitivities, uncertainty_budget, BudgetEntry, BudgetInput, Sensitivities,
+    StandardUncertainties, UncertaintyBudget,
+};

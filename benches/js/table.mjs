@@ -1,0 +1,242 @@
+// Formats the JSON lines written by the three harnesses (native Rust, Node, SciPy) into ONE
+// markdown table, followed by the target checklist.
+//
+// usage: node benches/js/table.mjs RESULTS.jsonl [--machine MACHINE.json]
+//
+// Record kinds (one JSON object per line):
+//   {impl, case, ns_median, ns_min, samples, iters, value?, sample_values?, max_abs_err_k?,
+//    pixels?, note?}                         a timed case
+//   {impl, meta: true, ...}                  versions and sizes (no timing)
+// impl is one of "native", "wasm", "jsA" (Baseline A), "jsC" (Baseline C), "scipy".
+
+import { readFileSync } from "node:fs";
+
+const args = process.argv.slice(2);
+const resultsPath = args[0];
+const machineIdx = args.indexOf("--machine");
+const machine = machineIdx >= 0 ? JSON.parse(readFileSync(args[machineIdx + 1], "utf8")) : null;
+const ref = JSON.parse(readFileSync(new URL("../data/bench_reference.json", import.meta.url), "utf8"));
+
+const records = readFileSync(resultsPath, "utf8")
+  .split("\n")
+  .filter((l) => l.trim().startsWith("{"))
+  .map((l) => JSON.parse(l));
+
+const timed = new Map(); // "impl/case" -> record
+const meta = {};
+const skipped = [];
+for (const r of records) {
+  if (r.meta) Object.assign((meta[r.impl] ??= {}), r);
+  else if (r.case && r.skipped) skipped.push(`${r.impl} ${r.case} (${r.skipped})`);
+  else if (r.case) timed.set(`${r.impl}/${r.case}`, r);
+}
+const get = (impl, kase) => timed.get(`${impl}/${kase}`);
+
+const ROWS = [
+  ["spectral_single", "Spectral radiance L_λ(10 µm, 300 K)"],
+  ["spectrum_10k", "Spectrum L_λ, 10 000 points 1–20 µm, 1000 K (per spectrum)"],
+  ["band_8_14_300", "Band radiance 8–14 µm, 300 K"],
+  ["band_1_2_1500", "Band radiance 1–2 µm, 1500 K"],
+  ["band_inverse_8_14", "Band inverse 8–14 µm (T = 350 K)"],
+  ["response_signal_400", "Response-weighted signal, 9-point curve, 400 K"],
+  ["sh_inverse", "Sakuma–Hattori inverse, one value"],
+  ["frame_640x512", "Frame 640×512 signal → T (Sakuma–Hattori)"],
+  ["be_occupancy", "Bose–Einstein occupancy, x = 2"],
+  ["fd_occupancy", "Fermi–Dirac occupancy, x = 2"],
+  ["fd_half", "Fermi–Dirac integral F_{1/2}(1.5)"],
+  ["fd_half_inverse", "Inverse of F_{1/2} (η = 1.5)"],
+  ["be_g32", "Bose–Einstein integral g_{3/2}(0.5)"],
+];
+
+function fmtNs(ns) {
+  if (ns === undefined || ns === null || !Number.isFinite(ns)) return "–";
+  if (ns >= 1e6) return `${(ns / 1e6).toPrecision(3)} ms`;
+  if (ns >= 1e3) return `${(ns / 1e3).toPrecision(3)} µs`;
+  return `${ns.toPrecision(3)} ns`;
+}
+
+function fmtErr(e) {
+  if (e === undefined) return "";
+  if (e.kind === "rel") return e.value === 0 ? "rel 0" : `rel ${e.value.toExponential(1)}`;
+  if (e.kind === "absK") return e.value === 0 ? "ΔT 0 K" : `ΔT ${e.value.toExponential(1)} K`;
+  return "";
+}
+
+// Exact difference between an f64 and a decimal string, using BigInt rationals, so that errors
+// near the f64 resolution (1e-16) are not blurred by rounding the reference to f64.
+function exactParts(v) {
+  const dv = new DataView(new ArrayBuffer(8));
+  dv.setFloat64(0, v);
+  const bits = dv.getBigUint64(0);
+  const sign = bits >> 63n ? -1n : 1n;
+  const expBits = Number((bits >> 52n) & 0x7ffn);
+  let mant = bits & ((1n << 52n) - 1n);
+  let e2;
+  if (expBits === 0) e2 = -1074;
+  else {
+    mant |= 1n << 52n;
+    e2 = expBits - 1075;
+  }
+  return { m: sign * mant, e2 };
+}
+function decimalParts(str) {
+  const m = /^([+-]?)(\d*)(?:\.(\d*))?(?:e([+-]?\d+))?$/i.exec(str.trim());
+  const digits = (m[2] || "") + (m[3] || "");
+  const p = Number(m[4] || 0) - (m[3] || "").length;
+  return { d: (m[1] === "-" ? -1n : 1n) * BigInt(digits || "0"), p };
+}
+const pow = (b, n) => b ** BigInt(n);
+/** {abs, rel} of v against the decimal string refStr, exactly, rounded to a Number at the end. */
+function exactError(v, refStr) {
+  const { m, e2 } = exactParts(v);
+  const { d, p } = decimalParts(refStr);
+  const E2 = Math.max(0, -e2);
+  const P10 = Math.max(0, -p);
+  const x = m * pow(2n, e2 + E2) * pow(10n, P10);
+  const y = d * pow(10n, p + P10) * pow(2n, E2);
+  let diff = x - y;
+  if (diff < 0n) diff = -diff;
+  const ay = y < 0n ? -y : y;
+  const SCALE = 10n ** 30n;
+  const rel = Number((diff * SCALE) / ay) / 1e30;
+  const denom = pow(2n, E2) * pow(10n, P10);
+  const abs = Number((diff * SCALE) / denom) / 1e30;
+  return { abs, rel };
+}
+
+// Error of one record against the reference (relative, or absolute in K for temperatures).
+function errorOf(rec, kase) {
+  if (!rec) return undefined;
+  if (typeof rec.max_abs_err_k === "number") return { kind: "absK", value: rec.max_abs_err_k };
+  const c = ref.cases[kase];
+  if (!c) return undefined;
+  if (Array.isArray(rec.sample_values) && Array.isArray(c.sample_values)) {
+    let m = 0;
+    rec.sample_values.forEach((v, i) => {
+      m = Math.max(m, exactError(v, c.sample_values[i]).rel);
+    });
+    return { kind: "rel", value: m };
+  }
+  if (typeof rec.value !== "number" || c.value === undefined) return undefined;
+  const e = exactError(rec.value, c.value);
+  if (c.unit === "K") return { kind: "absK", value: e.abs };
+  return { kind: "rel", value: e.rel };
+}
+
+function worse(a, b) {
+  if (!a) return b;
+  if (!b) return a;
+  return a.value >= b.value ? a : b;
+}
+
+function speed(rec) {
+  if (!rec) return "–";
+  let s = fmtNs(rec.ns_median);
+  if (rec.pixels) s += ` (${((rec.pixels / rec.ns_median) * 1e3).toFixed(0)} Mpx/s)`;
+  return s;
+}
+
+function ratio(num, den) {
+  if (!num || !den) return "–";
+  const r = num.ns_median / den.ns_median;
+  return r >= 10 ? `${r.toFixed(0)}×` : `${r.toFixed(2)}×`;
+}
+
+const lines = [];
+const header = [
+  "case",
+  "native Rust (median)",
+  "wasm in Node (median)",
+  "wasm / native",
+  "package error",
+  "Baseline A/C plain JS",
+  "A/C error",
+  "A/C ÷ wasm",
+  "SciPy",
+  "SciPy error",
+  "SciPy ÷ wasm",
+];
+lines.push(`| ${header.join(" | ")} |`);
+lines.push(`|${header.map(() => "---").join("|")}|`);
+
+const results = {}; // for the target checklist
+for (const [kase, label] of ROWS) {
+  const n = get("native", kase);
+  const w = get("wasm", kase);
+  const a = get("jsA", kase) ?? get("jsC", kase);
+  const s = get("scipy", kase);
+  if (!n && !w && !a && !s) continue;
+  const pkgErr = worse(errorOf(n, kase), errorOf(w, kase));
+  const aErr = errorOf(a, kase);
+  const sErr = errorOf(s, kase);
+  results[kase] = { n, w, a, s, pkgErr, aErr, sErr };
+  const aLabel = a ? (a.impl === "jsC" ? "C: " : "A: ") + speed(a) : "–";
+  lines.push(
+    `| ${label} | ${speed(n)} | ${speed(w)} | ${ratio(w, n)} | ${fmtErr(pkgErr)} | ${aLabel} | ${fmtErr(aErr)} | ${ratio(a, w)} | ${speed(s)} | ${fmtErr(sErr)} | ${ratio(s, w)} |`,
+  );
+}
+
+const wm = meta.wasm ?? {};
+if (wm.wasm_bytes) {
+  lines.push(
+    `| .wasm size raw / gzip -9 | – | ${(wm.wasm_bytes / 1024).toFixed(1)} KiB / ${(wm.wasm_gzip_bytes / 1024).toFixed(1)} KiB | | | | | | | | |`,
+  );
+}
+const inst = meta.instantiate;
+if (inst && inst.ns_median) {
+  lines.push(
+    `| Module compile + instantiate from bytes (fresh Node process, median of ${inst.runs}) | – | ${fmtNs(inst.ns_median)} (min ${fmtNs(inst.ns_min)}) | | | | | | | | |`,
+  );
+}
+
+console.log(lines.join("\n"));
+if (skipped.length) console.log(`\nNot measured in this run: ${skipped.join("; ")}.`);
+if (meta.wasm && meta.wasm.skipped) console.log(`\nwasm package not measured: ${meta.wasm.skipped}.`);
+
+// Target checklist (goals of the issue; never asserted in tests).
+const out = [];
+const mark = (ok) => (ok === undefined ? "not measured" : ok ? "met" : "MISSED");
+function bandTarget(kase) {
+  const r = results[kase];
+  if (!r || !r.w) return;
+  const vsS = r.s ? r.s.ns_median / r.w.ns_median : undefined;
+  const vsA = r.a ? r.a.ns_median / r.w.ns_median : undefined;
+  const accS = r.s && r.pkgErr && r.sErr ? r.pkgErr.value <= r.sErr.value : undefined;
+  const accA = r.a && r.pkgErr && r.aErr ? r.pkgErr.value <= r.aErr.value : undefined;
+  out.push(
+    `- ${kase}: wasm ${vsS === undefined ? "?" : vsS.toFixed(0)}× faster than SciPy (≥ 100×: ${mark(vsS === undefined ? undefined : vsS >= 100)}; accuracy package ${fmtErr(r.pkgErr)} vs SciPy ${fmtErr(r.sErr)}: ${accS === undefined ? "?" : accS ? "equal or better" : "WORSE"}), ` +
+      `${vsA === undefined ? "?" : vsA.toFixed(0)}× faster than Baseline A (≥ 20×: ${mark(vsA === undefined ? undefined : vsA >= 20)}; accuracy package ${fmtErr(r.pkgErr)} vs A ${fmtErr(r.aErr)}: ${accA === undefined ? "?" : accA ? "equal or better" : "WORSE"})`,
+  );
+}
+bandTarget("band_8_14_300");
+bandTarget("band_1_2_1500");
+const wr = Object.entries(results)
+  .filter(([, r]) => r.n && r.w)
+  .map(([k, r]) => [k, r.w.ns_median / r.n.ns_median]);
+if (wr.length) {
+  const bad = wr.filter(([, x]) => x > 2);
+  out.push(
+    `- wasm within 2× of native: ${bad.length === 0 ? "met for all rows" : `MISSED for ${bad.map(([k, x]) => `${k} (${x.toFixed(2)}×)`).join(", ")}`}`,
+  );
+}
+const fr = results.frame_640x512;
+if (fr && fr.w) {
+  const mpx = (fr.w.pixels / fr.w.ns_median) * 1e3;
+  const vsC = fr.a ? fr.a.ns_median / fr.w.ns_median : undefined;
+  out.push(
+    `- frame: ${mpx.toFixed(0)} Mpixel/s in Node (≥ 100: ${mark(mpx >= 100)}), ${vsC === undefined ? "?" : vsC.toFixed(2)}× Baseline C (≥ 3×: ${mark(vsC === undefined ? undefined : vsC >= 3)})`,
+  );
+}
+const nb = results.band_8_14_300?.n;
+if (nb) out.push(`- native band radiance ${fmtNs(nb.ns_median)} (≤ 200 ns: ${mark(nb.ns_median <= 200)})`);
+const ni = results.band_inverse_8_14?.n;
+if (ni) out.push(`- native band inverse ${fmtNs(ni.ns_median)} (≤ 2 µs: ${mark(ni.ns_median <= 2000)})`);
+if (out.length) console.log("\nTargets (goals, not test assertions):\n" + out.join("\n"));
+
+if (machine) {
+  console.log(
+    `\nMeasured ${machine.date} on ${machine.cpu} (${machine.nproc} cores visible, shared), ${machine.rustc}, Node ${machine.node}` +
+      (meta.scipy ? `, Python ${meta.scipy.python} + SciPy ${meta.scipy.scipy}` : "") +
+      ".",
+  );
+}

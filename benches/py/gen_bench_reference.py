@@ -1,0 +1,179 @@
+#!/usr/bin/env python3
+"""Reference values for the benchmark cases (benches/data/bench_reference.json).
+
+The benchmark table reports, next to each speed, how far each implementation's answer is from
+the exact value. "Exact" here comes from mpmath at 40 significant digits, evaluated directly
+from the definitions (Planck's law in closed form, band integrals by mpmath's tanh-sinh
+quadrature `mp.quad`, Fermi-Dirac and Bose-Einstein integrals by `mp.polylog`, the
+Sakuma-Hattori inverse in closed form). None of this reuses the package's algorithms (the
+package evaluates band integrals by series, not quadrature).
+
+Constants: CODATA 2018 / SI 2019 exact h, c, k (Tiesinga et al., Rev. Mod. Phys. 93, 025010,
+2021, doi:10.1103/RevModPhys.93.025010).
+
+The response curve, the calibration coefficients and the frame are invented for the benchmark
+(a made-up long-wave camera); they are demo data, not measurements.
+
+Run:  python3 benches/py/gen_bench_reference.py   (needs mpmath; 1.3.0 was used)
+"""
+
+import datetime
+import json
+import os
+
+import mpmath as mp
+
+mp.mp.dps = 40
+
+H = mp.mpf("6.62607015e-34")
+C = mp.mpf("299792458")
+K = mp.mpf("1.380649e-23")
+C1L = 2 * H * C**2
+C2 = H * C / K
+
+
+def planck_l(lam, t):
+    """Spectral radiance per wavelength, W m^-2 sr^-1 m^-1 (blackbody, vacuum)."""
+    lam = mp.mpf(lam)
+    t = mp.mpf(t)
+    return C1L / lam**5 / mp.expm1(C2 / (lam * t))
+
+
+def band_l(lo, hi, t):
+    """Band radiance W m^-2 sr^-1 by tanh-sinh quadrature, split into 8 pieces."""
+    pts = mp.linspace(mp.mpf(lo), mp.mpf(hi), 9)
+    return mp.quad(lambda x: planck_l(x, t), pts)
+
+
+def s(x):
+    return mp.nstr(x, 30, min_fixed=1, max_fixed=0)
+
+
+cases = {}
+
+# 1. single spectral radiance, 10 um at 300 K
+cases["spectral_single"] = {
+    "inputs": {"wavelength_m": 10e-6, "temperature_k": 300.0},
+    "value": s(planck_l(mp.mpf(10e-6), 300)),
+    "unit": "W m^-2 sr^-1 m^-1",
+}
+
+# 2. 10 000-point spectrum, lambda_i = 1 um + i * 19 um / 9999 (computed in f64 exactly as the
+#    benchmarks do), T = 1000 K; reference at every 100th index and the last one.
+n = 10000
+lam0, lam1 = 1e-6, 20e-6
+step = (lam1 - lam0) / (n - 1)
+idx = list(range(0, n, 100)) + [n - 1]
+lams = [lam0 + i * step for i in idx]
+cases["spectrum_10k"] = {
+    "inputs": {"n": n, "first_m": lam0, "last_m": lam1, "temperature_k": 1000.0,
+               "grid": "lambda_i = first + i*((last-first)/(n-1)) in f64"},
+    "sample_index": idx,
+    "sample_values": [s(planck_l(mp.mpf(x), 1000)) for x in lams],
+    "unit": "W m^-2 sr^-1 m^-1",
+}
+
+# 3./4. band radiances
+cases["band_8_14_300"] = {
+    "inputs": {"lower_m": 8e-6, "upper_m": 14e-6, "temperature_k": 300.0},
+    "value": s(band_l(mp.mpf(8e-6), mp.mpf(14e-6), 300)),
+    "unit": "W m^-2 sr^-1",
+}
+cases["band_1_2_1500"] = {
+    "inputs": {"lower_m": 1e-6, "upper_m": 2e-6, "temperature_k": 1500.0},
+    "value": s(band_l(mp.mpf(1e-6), mp.mpf(2e-6), 1500)),
+    "unit": "W m^-2 sr^-1",
+}
+
+# 5. band inverse: the 8-14 um band radiance of a 350 K blackbody, rounded to f64, is the input;
+#    the exact answer is the temperature whose band radiance equals that f64 number.
+l350 = band_l(mp.mpf(8e-6), mp.mpf(14e-6), 350)
+l350_f64 = float(l350)
+t_exact = mp.findroot(lambda t: band_l(mp.mpf(8e-6), mp.mpf(14e-6), t) - mp.mpf(l350_f64), 350)
+cases["band_inverse_8_14"] = {
+    "inputs": {"lower_m": 8e-6, "upper_m": 14e-6, "radiance": l350_f64},
+    "value": s(t_exact),
+    "unit": "K",
+}
+
+# 6. response-weighted signal of an invented long-wave camera at 400 K: linear interpolation of
+#    the table, zero outside; integrated segment by segment with mp.quad.
+resp_m = [7.5e-6, 8e-6, 9e-6, 10e-6, 11e-6, 12e-6, 13e-6, 14e-6, 14.5e-6]
+resp_val = [0.0, 0.55, 0.85, 1.0, 0.97, 0.9, 0.75, 0.5, 0.0]
+
+
+def response_signal(t):
+    total = mp.mpf(0)
+    for i in range(len(resp_m) - 1):
+        a, b = mp.mpf(resp_m[i]), mp.mpf(resp_m[i + 1])
+        ra, rb = mp.mpf(resp_val[i]), mp.mpf(resp_val[i + 1])
+
+        def f(x, a=a, b=b, ra=ra, rb=rb):
+            return (ra + (rb - ra) * (x - a) / (b - a)) * planck_l(x, t)
+
+        total += mp.quad(f, [a, b])
+    return total
+
+
+cases["response_signal_400"] = {
+    "inputs": {"wavelengths_m": resp_m, "response": resp_val, "temperature_k": 400.0},
+    "value": s(response_signal(400)),
+    "unit": "W m^-2 sr^-1",
+}
+
+# 7. Sakuma-Hattori inverse T = (c2 / ln(C/S + 1) - B) / A with invented coefficients.
+SH_A, SH_B, SH_C = 1.05e-5, 1.5e-4, 2.0e4
+
+
+def sh_signal(t):
+    return mp.mpf(SH_C) / mp.expm1(C2 / (mp.mpf(SH_A) * t + mp.mpf(SH_B)))
+
+
+def sh_inverse(sig):
+    return (C2 / mp.log(mp.mpf(SH_C) / mp.mpf(sig) + 1) - mp.mpf(SH_B)) / mp.mpf(SH_A)
+
+
+sig_350 = float(sh_signal(mp.mpf(350)))
+cases["sh_inverse"] = {
+    "inputs": {"a_m": SH_A, "b_m_k": SH_B, "c": SH_C, "c2": "CODATA 2018", "signal": sig_350},
+    "value": s(sh_inverse(sig_350)),
+    "unit": "K",
+}
+
+# 8. Quantum statistics (normalised Fermi-Dirac integral F_j(eta) = -Li_{j+1}(-e^eta),
+#    Bose-Einstein integral g_s(z) = Li_s(z)).
+cases["be_occupancy"] = {"inputs": {"x": 2.0}, "value": s(1 / mp.expm1(2)), "unit": "1"}
+cases["fd_occupancy"] = {"inputs": {"x": 2.0}, "value": s(1 / (mp.exp(2) + 1)), "unit": "1"}
+fd_eta = 1.5
+
+
+def fd_half(eta):
+    """F_{1/2}(eta) = -Li_{3/2}(-e^eta) (mpmath returns an mpc with zero imaginary part)."""
+    v = -mp.polylog(mp.mpf(3) / 2, -mp.exp(eta))
+    return mp.re(v)
+
+
+fd_val = fd_half(fd_eta)
+# Cross-check the polylog route against direct quadrature of the defining integral.
+fd_quad = mp.quad(lambda t: mp.sqrt(t) / (mp.exp(t - fd_eta) + 1), [0, fd_eta, mp.inf]) / mp.gamma(1.5)
+assert abs(fd_quad / fd_val - 1) < mp.mpf("1e-30"), (fd_quad, fd_val)
+cases["fd_half"] = {"inputs": {"eta": fd_eta}, "value": s(fd_val), "unit": "1"}
+fd_val_f64 = float(fd_val)
+eta_exact = mp.findroot(lambda e: fd_half(e) - mp.mpf(fd_val_f64), fd_eta)
+cases["fd_half_inverse"] = {"inputs": {"value": fd_val_f64}, "value": s(eta_exact), "unit": "1"}
+cases["be_g32"] = {"inputs": {"s": 1.5, "z": 0.5}, "value": s(mp.re(mp.polylog(mp.mpf(3) / 2, mp.mpf("0.5")))),
+                   "unit": "1"}
+
+out = {
+    "oracle": "mpmath " + mp.__version__ + " (mp.quad tanh-sinh, mp.polylog, closed forms)",
+    "mp_dps": mp.mp.dps,
+    "generated": datetime.date.today().isoformat(),
+    "constants": "CODATA 2018 exact h, c, k; c1L = 2hc^2, c2 = hc/k",
+    "note": "Invented demo inputs (response curve, calibration coefficients); values are decimal strings.",
+    "cases": cases,
+}
+path = os.path.join(os.path.dirname(os.path.abspath(__file__)), "..", "data", "bench_reference.json")
+with open(path, "w") as fh:
+    json.dump(out, fh, indent=1)
+    fh.write("\n")
+print("wrote", os.path.normpath(path))

@@ -1,0 +1,114 @@
+#!/usr/bin/env bash
+# Builds the npm package in pkg/ and the single-file offline page, after installing prerequisites.
+#
+#   bash pkg-scripts/build.sh [--no-simd] [--opt=-Oz|-O3|-O2|-Os] [--no-page] [--serve[=PORT]]
+#
+#   --no-simd    build without wasm simd128 (default: with it; Node >= 16.4 and all current
+#                browsers run simd128, and the frame conversion is vectorised with it)
+#   --opt=LEVEL  wasm-opt optimisation level (default -Oz, the smaller and not slower of -Oz/-O3 here;
+#                see DEVELOPERS.md, "Build, package and test matrix")
+#   --no-page    skip `node www/build.mjs`
+#   --serve      after building, serve dist/ on http://127.0.0.1:PORT/ (default 8765) until Ctrl-C
+#
+# Steps: install.sh -> cargo build --release (wasm32, --features wasm) -> wasm-bindgen --target web
+# -> wasm-opt (binaryen from node_modules, with exactly the features the module declares) ->
+# pkg/package.json + Node entry -> size budget (fails when over) -> load check in Node ->
+# node www/build.mjs (the page) -> prints the paths.
+# Environment: QB_SKIP_INSTALL=1 skips install.sh (test.sh sets it after running it once).
+set -euo pipefail
+cd "$(dirname "${BASH_SOURCE[0]}")/.."
+ROOT="$(pwd)"
+
+SIMD=1
+OPT=-Oz
+PAGE=1
+SERVE=""
+for arg in "$@"; do
+  case "$arg" in
+    --no-simd) SIMD=0 ;;
+    --opt=*) OPT="${arg#--opt=}" ;;
+    --no-page) PAGE=0 ;;
+    --serve) SERVE=8765 ;;
+    --serve=*) SERVE="${arg#--serve=}" ;;
+    -h|--help) sed -n '2,20p' "$0"; exit 0 ;;
+    *) echo "build.sh: unknown argument '$arg' (try --help)" >&2; exit 2 ;;
+  esac
+done
+case "$OPT" in -O|-O1|-O2|-O3|-O4|-Os|-Oz) ;; *) echo "build.sh: bad --opt '$OPT'" >&2; exit 2 ;; esac
+
+say() { printf '[build] %s\n' "$*"; }
+now() { date +%s.%N; }
+since() { awk -v a="$1" -v b="$(now)" 'BEGIN { printf "%.1f s", b - a }'; }
+T0="$(now)"
+
+if [ "${QB_SKIP_INSTALL:-0}" != 1 ]; then
+  bash pkg-scripts/install.sh
+fi
+CARGO_BIN="${CARGO_HOME:-$HOME/.cargo}/bin"
+case ":$PATH:" in *":$CARGO_BIN:"*) ;; *) export PATH="$CARGO_BIN:$PATH" ;; esac
+
+# shellcheck source=pkg-scripts/lib/wasm-env.sh
+. pkg-scripts/lib/wasm-env.sh
+qb_wasm_rustflags "$SIMD"
+
+NAME=quantaband
+TARGET_DIR="${CARGO_TARGET_DIR:-$ROOT/target}"
+RAW_WASM="$TARGET_DIR/wasm32-unknown-unknown/release/$NAME.wasm"
+STAGE="$TARGET_DIR/pkg-stage"
+
+t="$(now)"
+say "cargo build --release --lib --target wasm32-unknown-unknown --features wasm (simd128: $([ "$SIMD" = 1 ] && echo on || echo off))"
+cargo build --release --lib --target wasm32-unknown-unknown --features wasm
+say "cargo build: $(since "$t"), $(stat -c %s "$RAW_WASM") B"
+
+t="$(now)"
+rm -rf "$STAGE"
+wasm-bindgen --target web --remove-name-section --remove-producers-section --out-dir "$STAGE" "$RAW_WASM"
+BG="$STAGE/${NAME}_bg.wasm"
+say "wasm-bindgen: $(since "$t"), $(stat -c %s "$BG") B"
+
+t="$(now)"
+read -r -a FEATURES <<<"$(node pkg-scripts/lib/wasm-features.mjs "$BG")"
+if [ "$SIMD" = 1 ] && ! printf '%s\n' "${FEATURES[@]}" | grep -qx -- --enable-simd; then
+  echo "[build] ERROR: simd128 requested but the module does not declare it" >&2; exit 1
+fi
+before="$(stat -c %s "$BG")"
+node_modules/.bin/wasm-opt "$OPT" "${FEATURES[@]}" "$BG" -o "$BG.opt"
+mv "$BG.opt" "$BG"
+say "wasm-opt $OPT ${FEATURES[*]}: $(since "$t"), $before -> $(stat -c %s "$BG") B"
+
+node pkg-scripts/lib/write-pkg-json.mjs "$STAGE"
+rm -rf pkg
+mv "$STAGE" pkg
+
+node tests/size/check.mjs pkg/${NAME}_bg.wasm
+
+# The package must load in Node through its own entry (instantiates the wasm synchronously).
+node --input-type=module -e "
+  const m = await import('$ROOT/pkg/node.js');
+  const n = Object.keys(m).length;
+  console.log('[build] pkg/node.js loads in Node ' + process.version + ': ' + n + ' exports');
+"
+
+PAGE_PATH=""
+if [ "$PAGE" = 1 ] && [ -f www/build.mjs ]; then
+  t="$(now)"
+  say "node www/build.mjs"
+  node www/build.mjs
+  say "page build: $(since "$t")"
+  if [ -f dist/$NAME.html ]; then PAGE_PATH="$ROOT/dist/$NAME.html"; fi
+fi
+
+say "done in $(since "$T0")"
+say "package: $ROOT/pkg ($(cd pkg && ls | tr '\n' ' '))"
+if [ -n "$PAGE_PATH" ]; then
+  say "page:    $PAGE_PATH  (open it by double-clicking; it works offline from disk)"
+elif [ "$PAGE" = 1 ]; then
+  say "page:    not built (no www/build.mjs or no dist/$NAME.html)"
+fi
+
+if [ -n "$SERVE" ]; then
+  [ -n "$PAGE_PATH" ] || { echo "[build] --serve: no page to serve" >&2; exit 1; }
+  say "serving $ROOT/dist on http://127.0.0.1:$SERVE/$NAME.html (Ctrl-C to stop)"
+  exec python3 -m http.server "$SERVE" --bind 127.0.0.1 --directory "$ROOT/dist"
+fi

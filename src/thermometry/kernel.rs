@@ -1,0 +1,25 @@
+//! The Planck values the response-weighted integrals need at one node, from the radiometric
+//! core ([`crate::planck::Spectrum`]): blackbody spectral radiance per wavelength and its
+//! temperature derivative, for a chosen c2 convention.
+#![forbid(unsafe_code)]
+
+use crate::constants::C2Convention;
+use crate::planck::Spectrum;
+use crate::Result;
+
+/// (L_λ, ∂L_λ/∂T) in W·m⁻³·sr⁻¹ and W·m⁻³·sr⁻¹·K⁻¹ at `wavelength_m`, `temperature_k`.
+///
+/// # Errors
+/// Those of [`Spectrum::spectral`] (bad wavelength or temperature).
+#[inline]
+pub(crate) fn radiance_and_dt(
+    wavelength_m: f64,
+    temperature_k: f64,
+    c2: C2Convention,
+) -> Result<(f64, f64)> {
+    let s = Spectrum::BLACKBODY.with_c2(c2);
+    Ok((
+        s.spectral(wavelength_m, temperature_k)?,
+        s.spectral_d_dt(wavelength_m, temperature_k)?,
+    ))
+}

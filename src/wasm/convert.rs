@@ -1,0 +1,188 @@
+//! Unit conversion and physical constants for JavaScript.
+
+use js_sys::{Object, Reflect};
+use wasm_bindgen::prelude::*;
+
+use super::error::map_indexed;
+use crate::constants as k;
+use crate::units::{
+    convert_spectral as conv_spectral, convert_temperature as conv_temperature,
+    convert_temperature_difference as conv_difference, SpectralUnit, TemperatureUnit,
+};
+
+#[wasm_bindgen(typescript_custom_section)]
+const TS_UNITS: &str = r#"
+/**
+ * A spectral unit name (case-sensitive). Wavelength: m, mm, um/µm/μm/micron, nm. Wavenumber:
+ * m-1 (m^-1, m⁻¹, 1/m), cm-1 (cm^-1, cm⁻¹, 1/cm). Frequency: Hz, kHz, MHz, GHz, THz. Photon
+ * energy: J, eV, meV.
+ */
+export type SpectralUnit =
+  | "m" | "mm" | "um" | "µm" | "μm" | "micron" | "nm"
+  | "m-1" | "m^-1" | "m⁻¹" | "1/m"
+  | "cm-1" | "cm^-1" | "cm⁻¹" | "1/cm"
+  | "Hz" | "kHz" | "MHz" | "GHz" | "THz"
+  | "J" | "eV" | "meV";
+
+/** The kind of quantity a spectral unit measures. */
+export type SpectralKind = "wavelength" | "wavenumber" | "frequency" | "photonEnergy";
+
+/**
+ * A temperature unit name (case-sensitive): K; degC (°C, ℃, C); degF (°F, ℉, F); degR (°R,
+ * Rankine).
+ */
+export type TemperatureUnit =
+  | "K"
+  | "degC" | "°C" | "℃" | "C"
+  | "degF" | "°F" | "℉" | "F"
+  | "degR" | "°R";
+
+/** Physical constants used by the package (SI units; CODATA 2018 and ITS-90). */
+export interface Constants {
+  /** Planck constant h, J·s (exact). */
+  readonly planckH: number;
+  /** Reduced Planck constant ħ, J·s. */
+  readonly planckHbar: number;
+  /** Speed of light in vacuum c, m/s (exact). */
+  readonly speedOfLightC: number;
+  /** Boltzmann constant k, J/K (exact). */
+  readonly boltzmannK: number;
+  /** Elementary charge e, C (exact). */
+  readonly elementaryChargeE: number;
+  /** Avogadro constant N_A, 1/mol (exact). */
+  readonly avogadroNA: number;
+  /** Unified atomic mass unit, kg. */
+  readonly atomicMassU: number;
+  /** Electron mass, kg. */
+  readonly electronMass: number;
+  /** First radiation constant c1 = 2πhc², W·m². */
+  readonly c1: number;
+  /** First radiation constant for radiance c1L = 2hc², W·m²·sr⁻¹. */
+  readonly c1L: number;
+  /** Second radiation constant c2 = hc/k (CODATA 2018), m·K. */
+  readonly c2: number;
+  /** Second radiation constant fixed by ITS-90, m·K (0.014388 exactly). */
+  readonly c2Its90: number;
+  /** Stefan–Boltzmann constant σ, W·m⁻²·K⁻⁴. */
+  readonly stefanBoltzmannSigma: number;
+  /** Radiation constant a = 4σ/c, J·m⁻³·K⁻⁴. */
+  readonly radiationA: number;
+  /** Wien wavelength displacement constant b, m·K. */
+  readonly wienB: number;
+  /** Wien frequency displacement constant b′, Hz/K. */
+  readonly wienBFrequency: number;
+}
+"#;
+
+/// Converts a spectral coordinate between units, across kinds if needed (wavelength ↔
+/// wavenumber ↔ frequency ↔ photon energy; vacuum values, CODATA 2018 h and c).
+///
+/// Example: `convertSpectral(10, "um", "cm-1")` → 1000.
+///
+/// @throws {QuantabandError} `UNKNOWN_UNIT` for an unknown unit name, `NON_FINITE` /
+/// `NON_POSITIVE_SPECTRAL` for a value that is not a finite number > 0.
+#[wasm_bindgen(js_name = convertSpectral)]
+pub fn convert_spectral(
+    value: f64,
+    #[wasm_bindgen(unchecked_param_type = "SpectralUnit")] from: &str,
+    #[wasm_bindgen(unchecked_param_type = "SpectralUnit")] to: &str,
+) -> Result<f64, JsValue> {
+    let (f, t) = (SpectralUnit::parse(from)?, SpectralUnit::parse(to)?);
+    Ok(conv_spectral("value", value, f, t)?)
+}
+
+/// Converts every element of `values` between spectral units (see `convertSpectral`). Returns a
+/// new `Float64Array` of the same length.
+///
+/// @throws {QuantabandError} as `convertSpectral`; `index` is the first bad element.
+#[wasm_bindgen(js_name = convertSpectralArray)]
+pub fn convert_spectral_array(
+    values: &[f64],
+    #[wasm_bindgen(unchecked_param_type = "SpectralUnit")] from: &str,
+    #[wasm_bindgen(unchecked_param_type = "SpectralUnit")] to: &str,
+) -> Result<Vec<f64>, JsValue> {
+    let (f, t) = (SpectralUnit::parse(from)?, SpectralUnit::parse(to)?);
+    map_indexed(values, |v| conv_spectral("value", v, f, t))
+}
+
+/// The kind of quantity a spectral unit measures.
+///
+/// @throws {QuantabandError} `UNKNOWN_UNIT`.
+#[wasm_bindgen(js_name = spectralUnitKind, unchecked_return_type = "SpectralKind")]
+pub fn spectral_unit_kind(
+    #[wasm_bindgen(unchecked_param_type = "SpectralUnit")] unit: &str,
+) -> Result<String, JsValue> {
+    Ok(SpectralUnit::parse(unit)?.kind().name().into())
+}
+
+/// Converts an ABSOLUTE temperature between units (K, °C, °F, °R). For a temperature
+/// difference use `convertTemperatureDifference`.
+///
+/// Example: `convertTemperature(100, "degC", "K")` → 373.15.
+///
+/// @throws {QuantabandError} `UNKNOWN_UNIT`; `NON_FINITE`; `NON_POSITIVE_TEMPERATURE` when the
+/// value is at or below absolute zero.
+#[wasm_bindgen(js_name = convertTemperature)]
+pub fn convert_temperature(
+    value: f64,
+    #[wasm_bindgen(unchecked_param_type = "TemperatureUnit")] from: &str,
+    #[wasm_bindgen(unchecked_param_type = "TemperatureUnit")] to: &str,
+) -> Result<f64, JsValue> {
+    let (f, t) = (TemperatureUnit::parse(from)?, TemperatureUnit::parse(to)?);
+    Ok(conv_temperature("temperature", value, f, t)?)
+}
+
+/// Converts every element of `values` (absolute temperatures) between units.
+///
+/// @throws {QuantabandError} as `convertTemperature`; `index` is the first bad element.
+#[wasm_bindgen(js_name = convertTemperatureArray)]
+pub fn convert_temperature_array(
+    values: &[f64],
+    #[wasm_bindgen(unchecked_param_type = "TemperatureUnit")] from: &str,
+    #[wasm_bindgen(unchecked_param_type = "TemperatureUnit")] to: &str,
+) -> Result<Vec<f64>, JsValue> {
+    let (f, t) = (TemperatureUnit::parse(from)?, TemperatureUnit::parse(to)?);
+    map_indexed(values, |v| conv_temperature("temperature", v, f, t))
+}
+
+/// Converts a temperature DIFFERENCE between units (no offset: a rise of 9 °F is a rise of
+/// 5 K). May be negative.
+///
+/// @throws {QuantabandError} `UNKNOWN_UNIT`; `NON_FINITE`.
+#[wasm_bindgen(js_name = convertTemperatureDifference)]
+pub fn convert_temperature_difference(
+    value: f64,
+    #[wasm_bindgen(unchecked_param_type = "TemperatureUnit")] from: &str,
+    #[wasm_bindgen(unchecked_param_type = "TemperatureUnit")] to: &str,
+) -> Result<f64, JsValue> {
+    let (f, t) = (TemperatureUnit::parse(from)?, TemperatureUnit::parse(to)?);
+    Ok(conv_difference("difference", value, f, t)?)
+}
+
+/// The physical constants the package uses (SI; CODATA 2018, ITS-90 c2).
+#[wasm_bindgen(js_name = constants, unchecked_return_type = "Constants")]
+pub fn constants() -> JsValue {
+    let o = Object::new();
+    for (name, v) in [
+        ("planckH", k::PLANCK_H),
+        ("planckHbar", k::PLANCK_HBAR),
+        ("speedOfLightC", k::SPEED_OF_LIGHT_C),
+        ("boltzmannK", k::BOLTZMANN_K),
+        ("elementaryChargeE", k::ELEMENTARY_CHARGE_E),
+        ("avogadroNA", k::AVOGADRO_NA),
+        ("atomicMassU", k::ATOMIC_MASS_U),
+        ("electronMass", k::ELECTRON_MASS),
+        ("c1", k::C1),
+        ("c1L", k::C1L),
+        ("c2", k::C2),
+        ("c2Its90", k::C2_ITS90),
+        ("stefanBoltzmannSigma", k::STEFAN_BOLTZMANN_SIGMA),
+        ("radiationA", k::RADIATION_A),
+        ("wienB", k::WIEN_B),
+        ("wienBFrequency", k::WIEN_B_FREQUENCY),
+    ] {
+        // Setting a data property on a fresh plain object cannot fail.
+        let _ = Reflect::set(&o, &JsValue::from_str(name), &JsValue::from_f64(v));
+    }
+    Object::freeze(&o).into()
+}

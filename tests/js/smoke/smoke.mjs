@@ -1,0 +1,285 @@
+// Tarball smoke test: packs pkg/ with `npm pack`, installs the .tgz into a scratch project under
+// the system temp folder (offline: the package has no dependencies) and uses it as a consumer
+// would, through the package name only:
+//   - Node, `import … from 'quantaband'` (the "node" condition: instantiated at import, no init);
+//   - Node, `quantaband/web` + `initSync` with the bytes of the `quantaband/quantaband_bg.wasm`
+//     subpath export;
+//   - TypeScript `tsc --strict` on a consumer file (module/moduleResolution nodenext), resolving
+//     the types through the manifest;
+//   - headless Chromium (Debian's, driven by playwright-core): the "default" entry with
+//     `await init()` on the main thread and in a module web worker, served from 127.0.0.1,
+//     with no request leaving that origin and no console error.
+// Each environment runs the same probe (probe.mjs) and the values are checked against
+// reference.json (mpmath, see reference.py).
+//
+//   node --test tests/js/smoke/smoke.mjs          (QB_TARBALL=path.tgz skips the pack step)
+import { after, before, test } from 'node:test';
+import assert from 'node:assert/strict';
+import { execFileSync } from 'node:child_process';
+import { mkdtempSync, readFileSync, rmSync, statSync, writeFileSync } from 'node:fs';
+import { createServer } from 'node:http';
+import { tmpdir } from 'node:os';
+import { dirname, extname, join, normalize, resolve, sep } from 'node:path';
+import { fileURLToPath } from 'node:url';
+
+const here = dirname(fileURLToPath(import.meta.url));
+const root = resolve(here, '..', '..', '..');
+const reference = JSON.parse(readFileSync(join(here, 'reference.json'), 'utf8'));
+const cargoVersion = readFileSync(join(root, 'Cargo.toml'), 'utf8').match(/^version\s*=\s*"([^"]+)"/m)[1];
+const errorCodesInCore = [
+  ...readFileSync(join(root, 'src', 'error.rs'), 'utf8').matchAll(/Error::\w+ \{ \.\. \} => "([A-Z_]+)"/g),
+].map((m) => m[1]);
+
+/** Checks one environment's probe result (see probe.mjs) against the references. */
+function checkProbe(result, ref, coreCodes) {
+  assert.equal(typeof result, 'object');
+  assert.equal(result.failure, undefined, result.failure);
+  assert.ok(result.exportCount >= 3, `only ${result.exportCount} exports`);
+  assert.deepEqual(result.errorCodes, coreCodes, 'ERROR_CODES must list the core error codes in order');
+  const kelvin = ref.units.map((u) => u.kelvin);
+  result.units.degCToK.forEach((k, i) => assert.ok(Math.abs(k - kelvin[i]) <= 1e-12 * kelvin[i], `${k} K`));
+  result.units.degCToKArray.forEach((k, i) => assert.ok(Math.abs(k - kelvin[i]) <= 1e-12 * kelvin[i], `${k} K`));
+  assert.ok(Math.abs(result.units.umToPerCm - 1000) <= 1e-12 * 1000, `10 um = ${result.units.umToPerCm} cm-1`);
+  assert.deepEqual(result.badInput, {
+    instanceOfClass: true,
+    instanceOfError: true,
+    name: 'QuantabandError',
+    code: 'NON_POSITIVE_TEMPERATURE',
+  });
+  assert.deepEqual(result.badElement, { code: 'NON_FINITE', index: 1 });
+  assert.equal(result.afterError, result.units.degCToK[0], 'a call after an error must still work and agree');
+}
+
+let tgz;
+let scratch;
+let installed;
+
+function run(cmd, args, opts = {}) {
+  return execFileSync(cmd, args, { encoding: 'utf8', stdio: ['ignore', 'pipe', 'pipe'], ...opts });
+}
+
+before(() => {
+  tgz = process.env.QB_TARBALL ?? run('bash', [join(root, 'pkg-scripts', 'pack.sh')]).trim().split('\n').pop();
+  assert.ok(statSync(tgz).isFile(), `tarball ${tgz} not found`);
+  scratch = mkdtempSync(join(tmpdir(), 'quantaband-smoke-'));
+  writeFileSync(
+    join(scratch, 'package.json'),
+    JSON.stringify({ name: 'quantaband-smoke-consumer', version: '1.0.0', private: true, type: 'module' }),
+  );
+  run('npm', ['install', '--offline', '--no-audit', '--no-fund', '--ignore-scripts', '--loglevel=error', tgz], {
+    cwd: scratch,
+  });
+  installed = join(scratch, 'node_modules', 'quantaband');
+});
+
+after(() => {
+  if (scratch && !process.env.QB_KEEP_SMOKE) rmSync(scratch, { recursive: true, force: true });
+});
+
+test('the tarball holds the package files and nothing else', () => {
+  const entries = run('tar', ['-tzf', tgz]).trim().split('\n').sort();
+  const required = [
+    'package/LICENSE',
+    'package/README.md',
+    'package/node.js',
+    'package/package.json',
+    'package/quantaband.d.ts',
+    'package/quantaband.js',
+    'package/quantaband_bg.wasm',
+    'package/quantaband_bg.wasm.d.ts',
+  ];
+  for (const f of required) assert.ok(entries.includes(f), `${f} missing from the tarball`);
+  const extra = entries.filter((e) => !required.includes(e) && !/^package\/snippets\/[\w.\/-]+\.js$/.test(e));
+  assert.deepEqual(extra, [], 'unexpected files in the tarball');
+  // Every snippet the glue imports must be in the tarball.
+  const glue = readFileSync(join(installed, 'quantaband.js'), 'utf8');
+  for (const m of glue.matchAll(/from '\.\/(snippets\/[^']+)'/g)) {
+    assert.ok(entries.includes(`package/${m[1]}`), `glue imports ${m[1]}, which is not packed`);
+  }
+});
+
+test('the installed manifest is an ES module package with node/default entries and types', () => {
+  const pj = JSON.parse(readFileSync(join(installed, 'package.json'), 'utf8'));
+  assert.equal(pj.name, 'quantaband');
+  assert.equal(pj.version, cargoVersion, 'npm version must equal the crate version');
+  assert.equal(pj.type, 'module');
+  assert.equal(pj.license, 'MIT');
+  assert.equal(pj.exports['.'].types, './quantaband.d.ts');
+  assert.equal(pj.exports['.'].node, './node.js');
+  assert.equal(pj.exports['.'].default, './quantaband.js');
+  assert.equal(Object.keys(pj.exports['.'])[0], 'types', '"types" must come first to be picked by TypeScript');
+  assert.equal(pj.exports['./quantaband_bg.wasm'], './quantaband_bg.wasm');
+  const wasm = readFileSync(join(installed, 'quantaband_bg.wasm'));
+  assert.ok(WebAssembly.validate(wasm), 'packed .wasm must validate');
+  assert.deepEqual(
+    readFileSync(join(root, 'pkg', 'quantaband_bg.wasm')),
+    wasm,
+    'packed .wasm must be the one in pkg/',
+  );
+});
+
+const probeModule = join(here, 'probe.mjs');
+
+test('Node: import from "quantaband" resolves to the node entry and computes without init', () => {
+  const script = `
+    import * as m from 'quantaband';
+    import { runProbe } from ${JSON.stringify(probeModule)};
+    const ref = JSON.parse(process.argv[2]);
+    const out = { resolved: import.meta.resolve('quantaband'), result: await runProbe(m, ref) };
+    process.stdout.write(JSON.stringify(out));
+  `;
+  writeFileSync(join(scratch, 'node-consumer.mjs'), script);
+  const out = JSON.parse(run('node', ['node-consumer.mjs', JSON.stringify(reference)], { cwd: scratch }));
+  assert.match(out.resolved, /\/node_modules\/quantaband\/node\.js$/);
+  checkProbe(out.result, reference, errorCodesInCore);
+});
+
+test('Node: the web entry works with initSync and the .wasm subpath export', () => {
+  const script = `
+    import { readFileSync } from 'node:fs';
+    import * as m from 'quantaband/web';
+    import { runProbe } from ${JSON.stringify(probeModule)};
+    const wasmUrl = new URL(import.meta.resolve('quantaband/quantaband_bg.wasm'));
+    m.initSync({ module: readFileSync(wasmUrl) });
+    const ref = JSON.parse(process.argv[2]);
+    process.stdout.write(JSON.stringify({ resolved: import.meta.resolve('quantaband/web'), result: await runProbe(m, ref) }));
+  `;
+  writeFileSync(join(scratch, 'web-consumer.mjs'), script);
+  const out = JSON.parse(run('node', ['web-consumer.mjs', JSON.stringify(reference)], { cwd: scratch }));
+  assert.match(out.resolved, /\/node_modules\/quantaband\/quantaband\.js$/);
+  checkProbe(out.result, reference, errorCodesInCore);
+});
+
+test('TypeScript: a strict consumer type-checks against the installed package, and a wrong call is rejected', async () => {
+  const typescriptConsumer = readFileSync(join(here, 'consumer.ts'), 'utf8');
+  writeFileSync(join(scratch, 'consumer.ts'), typescriptConsumer);
+  writeFileSync(
+    join(scratch, 'tsconfig.json'),
+    JSON.stringify({
+      compilerOptions: {
+        strict: true,
+        noEmit: true,
+        target: 'es2022',
+        module: 'nodenext',
+        moduleResolution: 'nodenext',
+        lib: ['es2022', 'dom'],
+        types: [],
+        skipLibCheck: false,
+      },
+      files: ['consumer.ts'],
+    }),
+  );
+  const tsc = join(root, 'node_modules', 'typescript', 'bin', 'tsc');
+  let output = '';
+  try {
+    output = run('node', [tsc, '-p', 'tsconfig.json'], { cwd: scratch });
+  } catch (e) {
+    assert.fail(`tsc rejected the consumer:\n${e.stdout}${e.stderr}`);
+  }
+  assert.equal(output.trim(), '');
+  // The same file without its @ts-expect-error line must fail: the types are not `any`.
+  writeFileSync(join(scratch, 'consumer.ts'), typescriptConsumer.replace(/^\s*\/\/ @ts-expect-error.*$/m, ''));
+  assert.throws(
+    () => run('node', [tsc, '-p', 'tsconfig.json'], { cwd: scratch }),
+    (e) => /consumer\.ts\(\d+,\d+\): error TS2345/.test(String(e.stdout)),
+    'tsc must reject the call that the @ts-expect-error line covers',
+  );
+});
+
+const MIME = {
+  '.html': 'text/html; charset=utf-8',
+  '.js': 'text/javascript; charset=utf-8',
+  '.mjs': 'text/javascript; charset=utf-8',
+  '.json': 'application/json',
+  '.wasm': 'application/wasm',
+};
+
+test('Chromium: the default entry runs with await init() on the main thread and in a module worker', async (t) => {
+  const { chromium } = await import(join(root, 'node_modules', 'playwright-core', 'index.mjs'));
+  const pj = JSON.parse(readFileSync(join(installed, 'package.json'), 'utf8'));
+  // Resolve the browser entry the way a bundler would: exports["."], condition "default".
+  const entry = `/node_modules/quantaband/${normalize(pj.exports['.'].default).replace(/^\.\//, '')}`;
+  const files = {
+    '/index.html': `<!doctype html><meta charset="utf-8"><title>smoke</title><link rel="icon" href="data:,">
+<script type="importmap">${JSON.stringify({ imports: { quantaband: entry } })}</script>
+<script type="module">
+  import init, * as m from 'quantaband';
+  import { runProbe } from '/probe.mjs';
+  const ref = await (await fetch('/reference.json')).json();
+  try { await init(); window.__main = await runProbe(m, ref); }
+  catch (e) { window.__main = { failure: String(e && e.stack || e) }; }
+  const w = new Worker('/worker.mjs', { type: 'module' });
+  w.onmessage = (e) => { window.__worker = e.data; };
+  w.onerror = (e) => { window.__worker = { failure: 'worker error: ' + e.message }; };
+</script>`,
+    '/worker.mjs': `import init, * as m from '${entry}';
+import { runProbe } from '/probe.mjs';
+try {
+  const ref = await (await fetch('/reference.json')).json();
+  await init();
+  postMessage(await runProbe(m, ref));
+} catch (e) { postMessage({ failure: String(e && e.stack || e) }); }`,
+  };
+  const server = createServer((req, res) => {
+    const path = decodeURIComponent(new URL(req.url, 'http://127.0.0.1').pathname);
+    let body;
+    if (path in files) body = files[path];
+    else if (path === '/probe.mjs') body = readFileSync(join(here, 'probe.mjs'));
+    else if (path === '/reference.json') body = JSON.stringify(reference);
+    else if (path.startsWith('/node_modules/quantaband/')) {
+      const file = normalize(join(scratch, path));
+      if (file.startsWith(installed + sep)) {
+        try {
+          body = readFileSync(file);
+        } catch {
+          body = undefined;
+        }
+      }
+    }
+    if (body === undefined) {
+      res.writeHead(404).end();
+      return;
+    }
+    res.writeHead(200, { 'content-type': MIME[extname(path)] ?? 'application/octet-stream' }).end(body);
+  });
+  await new Promise((ok) => server.listen(0, '127.0.0.1', ok));
+  const origin = `http://127.0.0.1:${server.address().port}`;
+  const browser = await chromium.launch({
+    executablePath: '/usr/bin/chromium',
+    args: [
+      '--no-sandbox',
+      '--disable-gpu',
+      '--disable-quic',
+      '--no-first-run',
+      '--disable-background-networking',
+      '--disable-component-update',
+      '--disable-sync',
+    ],
+  });
+  t.after(async () => {
+    await browser.close();
+    await new Promise((ok) => server.close(ok));
+  });
+  const page = await browser.newPage();
+  const consoleErrors = [];
+  const foreign = [];
+  page.on('console', (msg) => {
+    if (msg.type() === 'error') consoleErrors.push(msg.text());
+  });
+  page.on('pageerror', (err) => consoleErrors.push(String(err)));
+  page.on('request', (req) => {
+    if (!req.url().startsWith(origin)) foreign.push(req.url());
+  });
+  await page.goto(`${origin}/index.html`);
+  await page.waitForFunction(() => window.__main !== undefined && window.__worker !== undefined, null, {
+    timeout: 30_000,
+  });
+  const main = await page.evaluate(() => window.__main);
+  const worker = await page.evaluate(() => window.__worker);
+  assert.equal(main.failure, undefined, main.failure);
+  assert.equal(worker.failure, undefined, worker.failure);
+  checkProbe(main, reference, errorCodesInCore);
+  checkProbe(worker, reference, errorCodesInCore);
+  assert.deepEqual(consoleErrors, [], 'console errors in the page');
+  assert.deepEqual(foreign, [], 'requests outside the test origin');
+});

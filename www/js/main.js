@@ -1,0 +1,121 @@
+// Start-up: inflate the embedded wasm, start the glue with initSync, build the sections whose
+// bindings exist, restore the state from the address, compute, and mark the page ready.
+import * as qb from '../../pkg/quantaband.js';
+import { bindApi } from './api.js';
+import { captureDefaults, restoreState, saveState } from './state.js';
+import { setupFields, fillTemperatureUnits, fillSpectralUnits, guarded } from './form.js';
+import { spectrumSection } from './sec-spectrum.js';
+import { bandSection } from './sec-band.js';
+import { signalSection } from './sec-signal.js';
+import { occupancySection } from './sec-occupancy.js';
+import { calibSection } from './sec-calib.js';
+
+const SECTIONS = [spectrumSection, bandSection, signalSection, occupancySection, calibSection];
+
+async function wasmBytes() {
+  const holder = document.getElementById('qb-wasm');
+  const bin = atob(holder.textContent.trim());
+  const gz = new Uint8Array(bin.length);
+  for (let i = 0; i < bin.length; i++) gz[i] = bin.charCodeAt(i);
+  const stream = new Blob([gz]).stream().pipeThrough(new DecompressionStream('gzip'));
+  return new Uint8Array(await new Response(stream).arrayBuffer());
+}
+
+function scheduleCompute(sec) {
+  if (sec.pending) return;
+  sec.pending = true;
+  requestAnimationFrame(() => {
+    sec.pending = false;
+    run(sec);
+    saveState();
+  });
+}
+
+function run(sec) {
+  guarded(sec.el, () => sec.compute());
+}
+
+async function boot() {
+  const t0 = performance.now();
+  const status = document.getElementById('status');
+  try {
+    const bytes = await wasmBytes();
+    qb.initSync({ module: bytes });
+    bindApi(qb);
+  } catch (e) {
+    status.textContent = `The calculation core could not start: ${e.message}`;
+    status.classList.add('bad');
+    throw e;
+  }
+  const live = [];
+  for (const sec of SECTIONS) {
+    sec.el = document.getElementById(sec.id);
+    if (!sec.available()) {
+      sec.el.remove(); // this build of the core lacks the functions the section needs
+      continue;
+    }
+    sec.build?.();
+    const stale = document.createElement('p');
+    stale.className = 'stale';
+    stale.textContent = 'Fix the marked input: the results below still belong to the last valid inputs.';
+    document.getElementById(`${sec.id}-msg`).after(stale);
+    live.push(sec);
+  }
+  for (const s of document.querySelectorAll('select[data-unit="temperature"]')) {
+    fillTemperatureUnits(s);
+    if (s.dataset.default) s.value = s.dataset.default;
+  }
+  for (const s of document.querySelectorAll('select[data-unit="spectral"]')) fillSpectralUnits(s, s.dataset.kinds || 'all');
+  setupFields(document);
+  captureDefaults();
+  restoreState();
+  const toc = document.getElementById('toc');
+  toc.innerHTML = live.map((s) => `<li><a href="#${s.id}">${s.el.dataset.title}</a></li>`).join('');
+  // In-page links must not overwrite the state fragment: scroll and move focus instead.
+  document.addEventListener('click', (ev) => {
+    const a = ev.target.closest('a[href^="#"]');
+    const target = a && document.getElementById(a.getAttribute('href').slice(1));
+    if (!target) return;
+    ev.preventDefault();
+    target.scrollIntoView();
+    const first = target.matches('main') ? target.querySelector('input, select, textarea') : target.querySelector('input, select, textarea, button');
+    first?.focus({ preventScroll: true });
+  });
+  for (const sec of live) {
+    sec.el.addEventListener('input', () => scheduleCompute(sec));
+    sec.el.addEventListener('change', () => scheduleCompute(sec));
+    sec.wire?.(() => scheduleCompute(sec));
+    run(sec);
+  }
+  window.addEventListener('hashchange', () => {
+    if (location.hash.length > 1 && !location.hash.includes('=')) return;
+    restoreState();
+    live.forEach(run);
+  });
+  const ms = performance.now() - t0;
+  status.textContent = `Ready: the core started and computed every section in ${ms.toFixed(0)} ms.`;
+  document.body.dataset.readyMs = ms.toFixed(1);
+  document.body.dataset.sections = live.map((s) => s.id).join(' ');
+  document.body.dataset.ready = '1';
+}
+
+boot();
+
+// "Print this section": only that section (with the header, cautions and a link to the state)
+// goes to paper. `beforeprint`/`afterprint` also cover the browser's own print command.
+document.addEventListener('click', (ev) => {
+  const b = ev.target.closest('button.print-sec');
+  if (!b) return;
+  printSection(b.dataset.print);
+  window.print();
+});
+window.addEventListener('afterprint', () => printSection(null));
+
+/** Marks which section the print stylesheet keeps (null = all). Exposed for the browser tests. */
+function printSection(id) {
+  document.getElementById('print-link').textContent = location.href;
+  for (const s of document.querySelectorAll('.calc')) s.classList.toggle('printing', s.id === id);
+  if (id) document.body.dataset.printing = id;
+  else delete document.body.dataset.printing;
+}
+window.quantabandPrintSection = printSection;
