@@ -22,7 +22,7 @@
 //!
 //! - **Upper tail**, x ≥ 2 (`SPLIT`): the exponential series of Widger & Woodall (1976),
 //!   `∫ₓ^∞ tⁿ/(eᵗ−1) dt = Σₖ e^{−kx} Σⱼ n!/(n−j)! x^{n−j}/k^{j+1}`, summed until
-//!   e^{−(k−1)x} < e^{−40} (at most 21 terms). The factor e^{−x} is kept separate, so far-tail
+//!   e^{−(k−1)x} < e^{−40} (at most 22 terms). The factor e^{−x} is kept separate, so far-tail
 //!   values keep full *relative* accuracy and even values below the f64 range can be multiplied
 //!   by a large prefactor without loss. For the derivative kernels integration by parts gives
 //!   `∫ₓ^∞ t^m eᵗ/(eᵗ−1)² dt = xᵐ/(eˣ−1) + m ∫ₓ^∞ t^{m−1}/(eᵗ−1) dt` (all terms positive).
@@ -650,9 +650,11 @@ pub(crate) fn check_band(spec: &Spectrum, lower: f64, upper: f64) -> Result<()> 
 /// if `lower >= upper`; `NonFinite`/`NonPositiveTemperature` for `temperature_k`.
 ///
 /// # Accuracy
-/// Relative error ≤ 1e-14 typical and ≤ 1e-13 over the reference table (mpmath `quad` at 40
-/// digits) where the reduced limits are ≤ 200; for x ≫ 1 the inherent sensitivity
-/// (≈ x·ε_machine to rounding of the inputs) dominates. Values below the f64 range return 0.
+/// Measured against mpmath `quad` at 40 digits over the reference table (52 bands: all three
+/// variables, energy and photon, wide, narrow down to 1e-10 relative width, far tails, 1 mK to
+/// 1e6 K): max relative error 1.7e-14 (bound tested: 1e-13 + 2.5e-16·x_a, x_a the smaller
+/// reduced limit — the inherent sensitivity to rounding of the inputs). Values below the f64
+/// range return 0.
 ///
 /// # Examples
 /// ```
@@ -684,7 +686,7 @@ pub fn band(spec: &Spectrum, lower: f64, upper: f64, temperature_k: f64) -> Resu
 /// As [`band`].
 ///
 /// # Accuracy
-/// As [`band`] (≤ 1e-13 relative over the reference table).
+/// Measured against mpmath `quad` of ∂L/∂T (52 reference bands): max relative error 1.7e-14.
 ///
 /// # Examples
 /// ```
@@ -717,7 +719,8 @@ pub fn band_d_dt(spec: &Spectrum, lower: f64, upper: f64, temperature_k: f64) ->
 /// As [`band`].
 ///
 /// # Accuracy
-/// Absolute ≤ 1e-15 and relative ≤ 1e-13 over the reference table (mpmath).
+/// Against mpmath over the reference table (52 bands): max relative error 1.7e-14, absolute
+/// error ≤ 1e-15 (both asserted).
 ///
 /// # Examples
 /// ```
@@ -770,8 +773,9 @@ fn fraction_below_kernel(kind: PlanckKernel, lambda_t_m_k: f64) -> Result<f64> {
 /// `NonFinite`, `NonPositive` for `lambda_t_m_k`.
 ///
 /// # Accuracy
-/// Absolute ≤ 1e-15 (and relative ≤ 1e-13 in the far tail) against mpmath `quad` at 40 digits
-/// for λT from 50 µm·K to 1e6 µm·K (reference table).
+/// Against mpmath (`quad` and polylogarithms, 40 digits) at 41 values of λT from 50 µm·K to
+/// 1e6 µm·K: absolute error ≤ 1e-15 and max relative error 3.7e-14 (at λT = 50 µm·K, where
+/// x = 288 and F ≈ 4e-120; inherent sensitivity x·1.1e-16).
 ///
 /// # Examples
 /// ```
@@ -800,7 +804,7 @@ pub fn fraction_below(lambda_t_m_k: f64) -> Result<f64> {
 /// `NonFinite`, `NonPositive` for `lambda_t_m_k`.
 ///
 /// # Accuracy
-/// Absolute ≤ 1e-15 against mpmath (reference table).
+/// As [`fraction_below`]: absolute ≤ 1e-15, max relative 3.7e-14 over 41 reference values.
 ///
 /// # Examples
 /// ```
@@ -1004,7 +1008,7 @@ fn check_x(arg: &'static str, x: f64) -> Result<f64> {
 /// `NonFinite`, `OutOfRange` for a negative limit, `InvalidBand` if `x_lower >= x_upper`.
 ///
 /// # Accuracy
-/// Relative ≤ 1e-14 against mpmath `quad` (reference table).
+/// Max relative error 5.9e-16 against mpmath `quad` (28 reference intervals, all kernels).
 ///
 /// # Examples
 /// ```
@@ -1047,7 +1051,8 @@ pub fn planck_integral(kernel: PlanckKernel, x_lower: f64, x_upper: f64) -> Resu
 /// `NonFinite`, `OutOfRange` for x < 0.
 ///
 /// # Accuracy
-/// Relative ≤ 1e-14 against mpmath (reference table) for x ≤ 200.
+/// Max relative error 3.4e-16 against mpmath polylogarithms and `quad` (60 reference values,
+/// x from 1e-6 to 500, all kernels).
 ///
 /// # Examples
 /// ```
@@ -1080,7 +1085,7 @@ pub fn planck_integral_upper(kernel: PlanckKernel, x: f64) -> Result<f64> {
 /// `NonFinite`, `OutOfRange` for x < 0.
 ///
 /// # Accuracy
-/// Relative ≤ 1e-14 against mpmath (reference table).
+/// Max relative error 1.1e-15 against mpmath `quad` (60 reference values).
 ///
 /// # Examples
 /// ```

@@ -95,8 +95,9 @@ fn brightness_unchecked(spec: &Spectrum, v: f64, value: f64) -> Option<f64> {
 /// range.
 ///
 /// # Accuracy
-/// Relative ≤ 1e-14 in T for the round trip T → spectral → T from 1 K to 1e5 K (property test
-/// `tests/core_properties.rs`), and against mpmath values in the reference table.
+/// Round trip T → spectral → T: max relative error 4.4e-16 over a grid of 6426 points
+/// (T from 1 K to 1e5 K, x from 0.01 to 200, all variables and quantities; measured with a
+/// scratch program, not a test); the property test `tests/core_properties.rs` asserts 1e-10.
 ///
 /// # Examples
 /// ```
@@ -132,8 +133,8 @@ pub fn brightness_temperature(spec: &Spectrum, x: f64, value: f64) -> Result<f64
 /// [`T_MIN_K`] and [`T_MAX_K`]; `NotConverged` (not observed) if the iteration stalls.
 ///
 /// # Accuracy
-/// Relative ≤ 1e-12 in T for the round trip from 1 K to 1e5 K (property test), typically a few
-/// ulp.
+/// Round trip T → band → T: max relative error 8.0e-15 over the same 6426-point grid (bands
+/// [λ, 1.5λ]); the property test asserts 1e-10.
 ///
 /// # Examples
 /// ```
@@ -196,8 +197,10 @@ pub fn temperature_from_band(spec: &Spectrum, lower: f64, upper: f64, value: f64
 /// `NotConverged` (not observed) if the iteration stalls.
 ///
 /// # Accuracy
-/// Relative ≤ 1e-10 in T for the round trip from 1 K to 1e5 K (property test); the attainable
-/// accuracy falls as the ratio flattens (Rayleigh–Jeans regime, T ≫ c₂/λ).
+/// Round trip T → ratio → T: max relative error 2.2e-13 over the grid above restricted to
+/// 0.3 < x < 100 (adjacent bands [λ, 1.2λ], [1.2λ, 1.5λ]); the property test asserts 1e-10.
+/// The attainable accuracy falls as the ratio flattens (Rayleigh–Jeans regime, x ≪ 1), where
+/// the sensitivity d ln R/d ln T tends to 0.
 ///
 /// # Examples
 /// ```
