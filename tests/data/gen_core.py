@@ -258,6 +258,22 @@ for var, lo, hi, T, note in band_cases:
                 add(kind="band_fraction", variable=var, quantity=q, lower=lo, upper=hi,
                     temperature_k=T, c2="codata2018", note=note, expected=val / total)
 
+# 3b. ITS-90 second radiation constant (c2 = 0.014388 m K in the exponent, prefactor unchanged).
+for var, lo, hi, T, note in [
+    ("wavelength", "0.645e-6", "0.655e-6", "1337.33", "ITS-90 c2, narrow red band at the gold point"),
+    ("wavelength", "0.8e-6", "1.1e-6", "1800", "ITS-90 c2, silicon-detector band"),
+    ("frequency", "2.14e13", "3.75e13", "300", "ITS-90 c2, 8-14 um as frequency"),
+]:
+    for q in ("energy", "photon"):
+        for d_dt in (False, True):
+            xa, xb = sorted([reduced(var, lo, T, C2_ITS90), reduced(var, hi, T, C2_ITS90)])
+            val = quad_band(var, q, lo, hi, T, C2_ITS90, d_dt)
+            pl = polylog_band(var, q, lo, hi, T, C2_ITS90, d_dt)
+            assert abs(val / pl - 1) < mpf("1e-25"), (var, lo, hi, T, q, d_dt)
+            add(kind="band_d_dt" if d_dt else "band", variable=var, quantity=q, lower=lo,
+                upper=hi, temperature_k=T, c2="its90", reduced_lower=xa, reduced_upper=xb,
+                note=note, expected=val)
+
 # 4. Dimensionless kernels: upper tails, lower heads, intervals.
 for kern in ("photon", "energy", "photon_derivative", "energy_derivative"):
     for x in ("1e-6", "0.01", "0.5", "1", "1.9", "2", "2.1", "3", "5", "10", "30", "50", "100",
