@@ -158,7 +158,29 @@ pub enum PlanckKernel {
 }
 
 impl PlanckKernel {
-    /// ∫₀^∞ of the kernel: 2ζ(3), π⁴/15, 6ζ(3) or 4π⁴/15.
+    /// ∫₀^∞ of the kernel (dimensionless): 2ζ(3), π⁴/15, 6ζ(3) or 4π⁴/15.
+    ///
+    /// # Formula
+    /// ```text
+    /// ∫₀^∞ xⁿ/(eˣ−1) dx = n! ζ(n+1);  ∫₀^∞ xᵐeˣ/(eˣ−1)² dx = m! ζ(m)
+    /// ```
+    ///
+    /// # Errors
+    /// None.
+    ///
+    /// # Accuracy
+    /// The f64 nearest to the exact value (π⁴/15 and 2ζ(3) from mpmath); the derivative totals
+    /// are exact multiples (×4, ×3).
+    ///
+    /// # Examples
+    /// ```
+    /// use quantaband::band::PlanckKernel;
+    /// // π⁴/15 = 6.493 939 402 266 829 … (Abramowitz & Stegun 23.2.24 with ζ(4) = π⁴/90).
+    /// assert!((PlanckKernel::Energy.total() - 6.493_939_402_266_829).abs() < 1e-15);
+    /// ```
+    ///
+    /// # References
+    /// Abramowitz & Stegun (1964), 23.2.7 and 23.2.24 (ζ(n) and its integral representation).
     pub const fn total(self) -> f64 {
         match self {
             PlanckKernel::Photon => TWO_ZETA_3,

@@ -68,6 +68,26 @@ pub enum SpectralVariable {
 
 impl SpectralVariable {
     /// The argument name (with its unit) used in error values for this variable.
+    ///
+    /// # Formula
+    /// ```text
+    /// Wavelength → "wavelength_m", Wavenumber → "wavenumber_per_m", Frequency → "frequency_hz"
+    /// ```
+    ///
+    /// # Errors
+    /// None.
+    ///
+    /// # Accuracy
+    /// Exact.
+    ///
+    /// # Examples
+    /// ```
+    /// use quantaband::planck::SpectralVariable;
+    /// assert_eq!(SpectralVariable::Frequency.arg_name(), "frequency_hz");
+    /// ```
+    ///
+    /// # References
+    /// The crate's argument-naming rule (unit in the name).
     pub const fn arg_name(self) -> &'static str {
         match self {
             SpectralVariable::Wavelength => "wavelength_m",
@@ -154,7 +174,28 @@ impl Spectrum {
         c2: C2Convention::Codata2018,
     };
 
-    /// A blackbody spectrum (ε = 1, n = 1, CODATA c₂) in the given variable, quantity, geometry.
+    /// A blackbody spectrum (ε = 1, n = 1, CODATA c₂) in the given variable, quantity and geometry.
+    ///
+    /// # Formula
+    /// ```text
+    /// Spectrum { variable, quantity, geometry, emissivity: 1, refractive_index: 1, c2: Codata2018 }
+    /// ```
+    ///
+    /// # Errors
+    /// None (nothing to validate).
+    ///
+    /// # Accuracy
+    /// Exact: the value is stored, not computed.
+    ///
+    /// # Examples
+    /// ```
+    /// use quantaband::planck::{Geometry, Quantity, SpectralVariable, Spectrum};
+    /// let s = Spectrum::new(SpectralVariable::Frequency, Quantity::Photon, Geometry::Exitance);
+    /// assert_eq!((s.emissivity, s.refractive_index), (1.0, 1.0));
+    /// ```
+    ///
+    /// # References
+    /// Howell et al., Thermal Radiation Heat Transfer (2020), ch. 1 (blackbody).
     pub const fn new(variable: SpectralVariable, quantity: Quantity, geometry: Geometry) -> Self {
         Spectrum {
             variable,
@@ -166,19 +207,84 @@ impl Spectrum {
         }
     }
 
-    /// This spectrum with emissivity ε (validated when used).
+    /// This spectrum with emissivity ε (dimensionless; validated when used).
+    ///
+    /// # Formula
+    /// ```text
+    /// every density, band and total of the spectrum is multiplied by ε (grey body)
+    /// ```
+    ///
+    /// # Errors
+    /// None here; an ε outside (0, 1] makes every computing method return `OutOfRange`.
+    ///
+    /// # Accuracy
+    /// Exact: the value is stored, not computed.
+    ///
+    /// # Examples
+    /// ```
+    /// use quantaband::planck::Spectrum;
+    /// let grey = Spectrum::default().with_emissivity(0.5).spectral(10e-6, 300.0).unwrap();
+    /// let black = Spectrum::default().spectral(10e-6, 300.0).unwrap();
+    /// assert_eq!(grey, 0.5 * black);
+    /// ```
+    ///
+    /// # References
+    /// Howell et al. (2020), ch. 3 (grey surfaces).
     pub const fn with_emissivity(mut self, emissivity: f64) -> Self {
         self.emissivity = emissivity;
         self
     }
 
-    /// This spectrum with medium refractive index n (validated when used).
+    /// This spectrum with refractive index n of the medium (dimensionless; validated when used).
+    ///
+    /// # Formula
+    /// ```text
+    /// every density, band and total is multiplied by n² (vacuum spectral coordinates)
+    /// ```
+    ///
+    /// # Errors
+    /// None here; n not finite or ≤ 0 makes every computing method return an error.
+    ///
+    /// # Accuracy
+    /// Exact: the value is stored, not computed.
+    ///
+    /// # Examples
+    /// ```
+    /// use quantaband::planck::Spectrum;
+    /// let glass = Spectrum::default().with_refractive_index(1.5).spectral(10e-6, 300.0).unwrap();
+    /// let vacuum = Spectrum::default().spectral(10e-6, 300.0).unwrap();
+    /// assert!((glass / vacuum / 2.25 - 1.0).abs() < 1e-15);
+    /// ```
+    ///
+    /// # References
+    /// Howell et al. (2020), ch. 1 (blackbody intensity in a medium of index n).
     pub const fn with_refractive_index(mut self, refractive_index: f64) -> Self {
         self.refractive_index = refractive_index;
         self
     }
 
-    /// This spectrum with the given c₂ convention.
+    /// This spectrum with the given c₂ convention (CODATA 2018 hc/k or ITS-90 0.014388 m·K).
+    ///
+    /// # Formula
+    /// ```text
+    /// x = c₂/(λT) in the exponent uses the chosen c₂; the prefactor keeps the exact h and c
+    /// ```
+    ///
+    /// # Errors
+    /// None.
+    ///
+    /// # Accuracy
+    /// Exact: the value is stored, not computed.
+    ///
+    /// # Examples
+    /// ```
+    /// use quantaband::{constants::C2Convention, planck::Spectrum};
+    /// let s = Spectrum::default().with_c2(C2Convention::Its90);
+    /// assert_eq!(s.c2.c2(), 0.014388);
+    /// ```
+    ///
+    /// # References
+    /// Preston-Thomas, Metrologia 27, 3–10 (1990) (ITS-90 c₂).
     pub const fn with_c2(mut self, c2: C2Convention) -> Self {
         self.c2 = c2;
         self
@@ -186,8 +292,16 @@ impl Spectrum {
 
     /// Checks emissivity ∈ (0, 1] and refractive index finite and > 0.
     ///
+    /// # Formula
+    /// ```text
+    /// 0 < ε ≤ 1,  0 < n < ∞
+    /// ```
+    ///
     /// # Errors
     /// `OutOfRange` (emissivity), `NonFinite`, `NonPositive` (refractive index).
+    ///
+    /// # Accuracy
+    /// Exact comparisons.
     ///
     /// # Examples
     /// ```
@@ -198,6 +312,9 @@ impl Spectrum {
     ///     "OUT_OF_RANGE"
     /// );
     /// ```
+    ///
+    /// # References
+    /// The crate's error contract (`src/error.rs`).
     pub fn validate(&self) -> Result<()> {
         error::unit_interval_open_closed("emissivity", self.emissivity)?;
         error::positive("refractive_index", self.refractive_index)?;
@@ -1103,19 +1220,83 @@ pub fn peak_photon_frequency_hz(temperature_k: f64) -> Result<f64> {
 }
 
 impl Spectrum {
-    /// This spectrum with another spectral variable.
+    /// This spectrum with another spectral variable (wavelength m, wavenumber m⁻¹, frequency Hz).
+    ///
+    /// # Formula
+    /// ```text
+    /// same physics, densities per unit of the new variable
+    /// ```
+    ///
+    /// # Errors
+    /// None.
+    ///
+    /// # Accuracy
+    /// Exact: the value is stored, not computed.
+    ///
+    /// # Examples
+    /// ```
+    /// use quantaband::planck::{SpectralVariable, Spectrum};
+    /// let s = Spectrum::default().with_variable(SpectralVariable::Wavenumber);
+    /// assert_eq!(s.variable, SpectralVariable::Wavenumber);
+    /// ```
+    ///
+    /// # References
+    /// Howell et al. (2020), ch. 1.
     pub const fn with_variable(mut self, variable: SpectralVariable) -> Self {
         self.variable = variable;
         self
     }
 
-    /// This spectrum with another quantity (energy or photon).
+    /// This spectrum with another quantity (energy in W or photons in photons/s).
+    ///
+    /// # Formula
+    /// ```text
+    /// photon density = energy density / (hc/λ)
+    /// ```
+    ///
+    /// # Errors
+    /// None.
+    ///
+    /// # Accuracy
+    /// Exact: the value is stored, not computed.
+    ///
+    /// # Examples
+    /// ```
+    /// use quantaband::planck::{Quantity, Spectrum};
+    /// let s = Spectrum::default().with_quantity(Quantity::Photon);
+    /// assert_eq!(s.quantity, Quantity::Photon);
+    /// ```
+    ///
+    /// # References
+    /// Howell et al. (2020), ch. 1.
     pub const fn with_quantity(mut self, quantity: Quantity) -> Self {
         self.quantity = quantity;
         self
     }
 
-    /// This spectrum with another geometry (radiance or exitance).
+    /// This spectrum with another geometry (radiance per sr, or hemispherical exitance).
+    ///
+    /// # Formula
+    /// ```text
+    /// exitance = π × radiance (Lambertian emitter)
+    /// ```
+    ///
+    /// # Errors
+    /// None.
+    ///
+    /// # Accuracy
+    /// Exact: the value is stored, not computed.
+    ///
+    /// # Examples
+    /// ```
+    /// use quantaband::planck::{Geometry, Spectrum};
+    /// let m = Spectrum::default().with_geometry(Geometry::Exitance).spectral(1e-5, 300.0).unwrap();
+    /// let l = Spectrum::default().spectral(1e-5, 300.0).unwrap();
+    /// assert!((m / l / core::f64::consts::PI - 1.0).abs() < 1e-15);
+    /// ```
+    ///
+    /// # References
+    /// Howell et al. (2020), ch. 1 (emissive power = π × intensity).
     pub const fn with_geometry(mut self, geometry: Geometry) -> Self {
         self.geometry = geometry;
         self
