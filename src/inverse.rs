@@ -281,6 +281,20 @@ pub fn temperature_from_band_ratio(
             what: "band ratio outside the range the two bands give between 1e-3 K and 1e7 K",
         });
     }
-    let u = solve_monotone(g, ulo, uhi, Some(float::ln(1000.0)), increasing, false)?;
+    // Initial guess from the Wien approximation at the band centres:
+    // ln R ≈ ln(v₁ᵖ w₁ / (v₂ᵖ w₂)) − (a₁ − a₂)/T with x = a/T (a = q/v or q·v).
+    let (_, p, q, inverse) = spec.density_params();
+    let centre = |b: (f64, f64)| 0.5 * (b.0 + b.1);
+    let (v1, v2) = (centre(band1), centre(band2));
+    let a = |v: f64| if inverse { q / v } else { q * v };
+    let lead = f64::from(p) * (float::ln(v1) - float::ln(v2)) + float::ln(band1.1 - band1.0)
+        - float::ln(band2.1 - band2.0);
+    let t0 = (a(v1) - a(v2)) / (lead - target);
+    let x0 = if t0.is_finite() && t0 > T_MIN_K && t0 < T_MAX_K {
+        Some(float::ln(t0))
+    } else {
+        Some(float::ln(1000.0))
+    };
+    let u = solve_monotone(g, ulo, uhi, x0, increasing, false)?;
     Ok(float::exp(u))
 }
