@@ -844,6 +844,72 @@ pub fn spectral_photon_radiance_frequency(frequency_hz: f64, temperature_k: f64)
     .spectral(frequency_hz, temperature_k)
 }
 
+/// Blackbody spectral photon radiance per vacuum wavenumber, photons·s⁻¹·m⁻²·sr⁻¹/(m⁻¹).
+///
+/// # Formula
+/// ```text
+/// L_p,σ = 2c σ̃² / (exp(c₂σ̃/T) − 1)
+/// ```
+///
+/// # Errors
+/// As [`spectral_radiance_wavenumber`].
+///
+/// # Accuracy
+/// As [`Spectrum::spectral`].
+///
+/// # Examples
+/// ```
+/// use quantaband::planck::{spectral_photon_radiance_wavenumber, spectral_radiance_wavenumber};
+/// // photon density = energy density / (hcσ̃)
+/// let p = spectral_photon_radiance_wavenumber(1e5, 300.0).unwrap();
+/// let e = spectral_radiance_wavenumber(1e5, 300.0).unwrap();
+/// assert!((p * 6.626_070_15e-34 * 299_792_458.0 * 1e5 / e - 1.0).abs() < 1e-14);
+/// ```
+///
+/// # References
+/// Planck (1901); Howell et al. (2020), ch. 1.
+pub fn spectral_photon_radiance_wavenumber(
+    wavenumber_per_m: f64,
+    temperature_k: f64,
+) -> Result<f64> {
+    Spectrum::new(
+        SpectralVariable::Wavenumber,
+        Quantity::Photon,
+        Geometry::Radiance,
+    )
+    .spectral(wavenumber_per_m, temperature_k)
+}
+
+/// ∂L_σ/∂T of blackbody spectral radiance per wavenumber, W·m⁻²·sr⁻¹/(m⁻¹)·K⁻¹.
+///
+/// # Formula
+/// ```text
+/// ∂L_σ/∂T = L_σ · x eˣ / ((eˣ − 1) T),  x = c₂σ̃/T
+/// ```
+///
+/// # Errors
+/// As [`spectral_radiance_wavenumber`].
+///
+/// # Accuracy
+/// As [`Spectrum::spectral_d_dt`].
+///
+/// # Examples
+/// ```
+/// use quantaband::planck::d_spectral_radiance_wavenumber_dt;
+/// // σ̃ = 1e5 m⁻¹ is λ = 10 µm: ∂L_σ/∂T = λ² ∂L_λ/∂T = 1e-10 × 1.599 715 672 513 219 4e5
+/// // (mpmath value of ∂L_λ/∂T at 10 µm, 300 K).
+/// let d = d_spectral_radiance_wavenumber_dt(1e5, 300.0).unwrap();
+/// assert!((d / 1.599_715_672_513_219_4e-5 - 1.0).abs() < 1e-14);
+/// ```
+///
+/// # References
+/// Planck (1901), differentiated.
+pub fn d_spectral_radiance_wavenumber_dt(wavenumber_per_m: f64, temperature_k: f64) -> Result<f64> {
+    Spectrum::BLACKBODY
+        .with_variable(SpectralVariable::Wavenumber)
+        .spectral_d_dt(wavenumber_per_m, temperature_k)
+}
+
 /// Blackbody spectral exitance per vacuum wavelength, W·m⁻²·m⁻¹ (π × radiance).
 ///
 /// # Formula
