@@ -291,6 +291,25 @@ for kern in ("photon", "energy", "photon_derivative", "energy_derivative"):
         val = nquad(lambda t: kernel_integrand(kern, t), [f64(a), f64(b)])
         add(kind="planck_integral", kernel=kern, x_lower=a, x_upper=b, expected=val)
 
+# 4b. Seeded random intervals of the dimensionless kernels, crossing the library's internal
+#     switch points (x = 2, the narrow-interval rule) many times.
+import random  # noqa: E402
+
+rng = random.Random(20261201)
+for kern in ("photon", "energy", "photon_derivative", "energy_derivative"):
+    for _ in range(40):
+        a = 10 ** rng.uniform(-3, 2.5)
+        b = a * (1 + 10 ** rng.uniform(-6, 0.5))
+        a_s, b_s = repr(a), repr(b)
+        av, bv = f64(a_s), f64(b_s)
+        if bv <= av:
+            continue
+        val = nquad(lambda t: kernel_integrand(kern, t), [av, (av + bv) / 2, bv])
+        if (bv - av) / (av + bv) > mpf("1e-3"):
+            ref = kernel_upper(kern, av) - kernel_upper(kern, bv)
+            assert abs(val / ref - 1) < mpf("1e-25"), (kern, a_s, b_s)
+        add(kind="planck_integral", kernel=kern, x_lower=a_s, x_upper=b_s, expected=val)
+
 # 5. Inverse blackbody fraction: lambda T at which F(0 -> lambda T) = f.
 for frac in ("1e-12", "0.01", "0.1", "0.25", "0.5", "0.75", "0.9", "0.99", "0.999999"):
     for kern, kind in (("energy", "lambda_t_at_fraction"), ("photon", "photon_lambda_t_at_fraction")):
