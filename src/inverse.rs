@@ -197,7 +197,7 @@ pub fn temperature_from_band(spec: &Spectrum, lower: f64, upper: f64, value: f64
 /// `NotConverged` (not observed) if the iteration stalls.
 ///
 /// # Accuracy
-/// Round trip T → ratio → T: max relative error 1.7e-13 over the grid above restricted to
+/// Round trip T → ratio → T: max relative error 1.8e-13 over the grid above restricted to
 /// 0.3 < x < 100 (adjacent bands [λ, 1.2λ], [1.2λ, 1.5λ]); the property test asserts 1e-10.
 /// The attainable accuracy falls as the ratio flattens (Rayleigh–Jeans regime, x ≪ 1), where
 /// the sensitivity d ln R/d ln T tends to 0.
