@@ -17,7 +17,10 @@ use quantaband::band::{
     PlanckKernel,
 };
 use quantaband::constants::C2Convention;
-use quantaband::planck::{Geometry, Quantity, SpectralVariable, Spectrum};
+use quantaband::planck::{
+    mean_photon_energy_j, photon_number_density, total_exitance, Geometry, Quantity,
+    SpectralVariable, Spectrum,
+};
 
 const DATA: &str = include_str!("data/core_reference.json");
 
@@ -287,6 +290,41 @@ fn every_reference_case_agrees() {
                 };
                 // Conditioning of the inverse near f → 1: rounding of f (1.1e-16) over 1 − f.
                 (got, 1e-14 + 1.1e-16 / (1.0 - f), 0.0)
+            }
+            "total" => {
+                let q = if get(c, "quantity") == "energy" {
+                    Quantity::Energy
+                } else {
+                    Quantity::Photon
+                };
+                let g = if get(c, "geometry") == "radiance" {
+                    Geometry::Radiance
+                } else {
+                    Geometry::Exitance
+                };
+                let s = Spectrum::new(SpectralVariable::Wavelength, q, g);
+                let tk = num(c, "temperature_k");
+                let got = s.total(tk).unwrap();
+                if q == Quantity::Energy && g == Geometry::Exitance {
+                    // The convenience function uses CODATA σ directly.
+                    assert!(rel(total_exitance(tk).unwrap(), expected) < 4e-16, "{c:?}");
+                }
+                (got, 1e-15, 0.0)
+            }
+            "photon_number_density" => (
+                photon_number_density(num(c, "temperature_k")).unwrap(),
+                1e-15,
+                0.0,
+            ),
+            "mean_photon_energy" => (
+                mean_photon_energy_j(num(c, "temperature_k")).unwrap(),
+                1e-15,
+                0.0,
+            ),
+            "peak" => {
+                let s = spectrum(c);
+                // mpmath findroot of a numerical derivative: ~1e-30 relative.
+                (s.peak(num(c, "temperature_k")).unwrap(), 1e-15, 0.0)
             }
             other => panic!("unknown kind {other}"),
         };

@@ -310,6 +310,33 @@ for kern in ("photon", "energy", "photon_derivative", "energy_derivative"):
             assert abs(val / ref - 1) < mpf("1e-25"), (kern, a_s, b_s)
         add(kind="planck_integral", kernel=kern, x_lower=a_s, x_upper=b_s, expected=val)
 
+# 4c. Totals (Stefan-Boltzmann and photon analogues, as mp.quad of the density over all x) and
+#     peak locations (mp.findroot of the numerical derivative mp.diff of ln density).
+for T in ("1e-3", "2.725", "300", "1500", "5772", "1e6"):
+    Tv = f64(T)
+    for q in ("energy", "photon"):
+        n = 3 if q == "energy" else 2
+        integral = nquad(lambda t: t**n / mp.expm1(t), [mpf("1e-30"), 1, 4, 16, 64, 256, 1024])
+        k = C1L if q == "energy" else 2 * C
+        radiance = k * (Tv / C2_CODATA) ** (n + 1) * integral
+        add(kind="total", quantity=q, geometry="radiance", temperature_k=T, expected=radiance)
+        add(kind="total", quantity=q, geometry="exitance", temperature_k=T,
+            expected=mp.pi * radiance)
+    add(kind="photon_number_density", temperature_k=T,
+        expected=2 * mp.zeta(3) / mp.pi**2 * (K * Tv / (H / (2 * mp.pi) * C)) ** 3)
+    add(kind="mean_photon_energy", temperature_k=T,
+        expected=(C1L * (Tv / C2_CODATA) ** 4 * mp.pi**4 / 15)
+        / (2 * C * (Tv / C2_CODATA) ** 3 * 2 * mp.zeta(3)))
+for T in ("300", "5772"):
+    Tv = f64(T)
+    for var, guess in (("wavelength", C2_CODATA / (4 * Tv)), ("wavenumber", 2 * Tv / C2_CODATA),
+                       ("frequency", 2 * C * Tv / C2_CODATA)):
+        for q in ("energy", "photon"):
+            # d ln f / d ln v = 0, in u = ln(v/guess) so that the numbers are O(1).
+            g = lambda u: mp.log(density(var, q, guess * mp.exp(u), T, C2_CODATA)[0])
+            vmax = guess * mp.exp(mp.findroot(lambda u: mp.diff(g, u), mpf(0)))
+            add(kind="peak", variable=var, quantity=q, temperature_k=T, expected=vmax)
+
 # 5. Inverse blackbody fraction: lambda T at which F(0 -> lambda T) = f.
 for frac in ("1e-12", "0.01", "0.1", "0.25", "0.5", "0.75", "0.9", "0.99", "0.999999"):
     for kern, kind in (("energy", "lambda_t_at_fraction"), ("photon", "photon_lambda_t_at_fraction")):
