@@ -482,8 +482,8 @@ impl Spectrum {
     /// `NonFinite`/`NonPositiveTemperature` for `temperature_k`; [`Spectrum::validate`] errors.
     ///
     /// # Accuracy
-    /// A few ulp (products of correctly rounded constants); checked against σT⁴ from CODATA 2018
-    /// and against mpmath.
+    /// Max relative error 2.8e-16 against mpmath (`quad` of the density over all x, 24 cases:
+    /// energy and photon, radiance and exitance, 1 mK to 1e6 K; reference table).
     ///
     /// # Examples
     /// ```
@@ -569,7 +569,8 @@ impl Spectrum {
     /// `NonFinite`/`NonPositiveTemperature` for `temperature_k`; [`Spectrum::validate`] errors.
     ///
     /// # Accuracy
-    /// A few ulp; the roots x are the f64 nearest to the exact Lambert-W values.
+    /// Max relative error 2.2e-16 against mpmath (`findroot` of d ln L/d ln v, 12 cases: three
+    /// variables, energy and photon, 300 K and 5772 K; reference table).
     ///
     /// # Examples
     /// ```
