@@ -577,6 +577,8 @@ fn reduced_band(kind: PlanckKernel, map: Map, v1: f64, v2: f64, t: f64) -> Sc {
 #[derive(Clone, Copy)]
 struct Pref {
     p: f64,
+    /// ln k when k (= ε n² g K) is not a normal number (subnormal ε); NaN otherwise.
+    ln_k: f64,
     k: f64,
     power: i32,
     r: f64,
@@ -586,7 +588,8 @@ struct Pref {
 
 impl Pref {
     fn of(spec: &Spectrum, t: f64, d_dt: bool) -> Self {
-        let (k, power) = spec.band_coefficient();
+        let (k0, power) = spec.band_coefficient_unscaled();
+        let k = spec.scale() * k0;
         let r = t / spec.c2.c2();
         let mut p = k * float::powi(r, power);
         if d_dt {
@@ -594,6 +597,11 @@ impl Pref {
         }
         Pref {
             p,
+            ln_k: if k.is_normal() {
+                f64::NAN
+            } else {
+                spec.ln_scaled(k0)
+            },
             k,
             power,
             r,
@@ -602,7 +610,12 @@ impl Pref {
         }
     }
     fn ln(&self) -> f64 {
-        let mut l = float::ln(self.k) + f64::from(self.power) * float::ln(self.r);
+        let lk = if self.ln_k.is_nan() {
+            float::ln(self.k)
+        } else {
+            self.ln_k
+        };
+        let mut l = lk + f64::from(self.power) * float::ln(self.r);
         if self.d_dt {
             l -= float::ln(self.t);
         }

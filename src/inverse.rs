@@ -39,15 +39,15 @@ pub const T_MAX_K: f64 = 1e7;
 
 /// Brightness temperature without validation; None when T is outside the f64 range.
 fn brightness_unchecked(spec: &Spectrum, v: f64, value: f64) -> Option<f64> {
-    let (k, p, q, inverse) = spec.density_params();
+    let (k, p, q, inverse, ln_k) = spec.density_params();
     let vp = float::powi(v, p);
     let r = k * vp / value;
     // X = ln(1 + r) is the reduced variable x at the brightness temperature.
-    let (x, lnx) = if vp.is_normal() && r.is_normal() && r < 1e300 {
+    let (x, lnx) = if k.is_normal() && vp.is_normal() && r.is_normal() && r < 1e300 {
         let x = float::ln_1p(r);
         (x, float::ln(x))
     } else {
-        let lnr = float::ln(k) + f64::from(p) * float::ln(v) - float::ln(value);
+        let lnr = ln_k + f64::from(p) * float::ln(v) - float::ln(value);
         if lnr > 36.0 {
             let x = lnr + float::ln_1p(float::exp(-lnr));
             (x, float::ln(x))
@@ -283,7 +283,7 @@ pub fn temperature_from_band_ratio(
     }
     // Initial guess from the Wien approximation at the band centres:
     // ln R ≈ ln(v₁ᵖ w₁ / (v₂ᵖ w₂)) − (a₁ − a₂)/T with x = a/T (a = q/v or q·v).
-    let (_, p, q, inverse) = spec.density_params();
+    let (_, p, q, inverse, _) = spec.density_params();
     let centre = |b: (f64, f64)| 0.5 * (b.0 + b.1);
     let (v1, v2) = (centre(band1), centre(band2));
     let a = |v: f64| if inverse { q / v } else { q * v };

@@ -330,16 +330,41 @@ impl Spectrum {
         self.emissivity * self.refractive_index * self.refractive_index * g
     }
 
+    /// ln(ε n² g) from the parts, so a subnormal ε (valid) cannot turn into ln 0.
+    pub(crate) fn ln_scale(&self) -> f64 {
+        let lg = match self.geometry {
+            Geometry::Radiance => 0.0,
+            Geometry::Exitance => 1.144_729_885_849_400_2, // ln π
+        };
+        float::ln(self.emissivity) + 2.0 * float::ln(self.refractive_index) + lg
+    }
+
+    /// ln(ε n² g · k) for a constant k > 0, robust to the product leaving the f64 range.
+    pub(crate) fn ln_scaled(&self, k: f64) -> f64 {
+        let v = self.scale() * k;
+        if ok(v) {
+            float::ln(v)
+        } else {
+            self.ln_scale() + float::ln(k)
+        }
+    }
+
     /// The value of c₂ in m·K for this spectrum.
     pub(crate) fn c2_value(&self) -> f64 {
         self.c2.c2()
     }
 
-    /// (ε n² g K, p, q, inverse) of the density ε n² g · K · v^p / (eˣ − 1) with x = q/(vT)
-    /// (`inverse`) or x = q·v/T.
-    pub(crate) fn density_params(&self) -> (f64, i32, f64, bool) {
+    /// (ε n² g K, p, q, inverse, ln(ε n² g K)) of the density ε n² g · K · v^p / (eˣ − 1) with
+    /// x = q/(vT) (`inverse`) or x = q·v/T.
+    pub(crate) fn density_params(&self) -> (f64, i32, f64, bool, f64) {
         let kn = self.kernel();
-        (self.scale() * kn.k, kn.p, kn.q, kn.inverse)
+        (
+            self.scale() * kn.k,
+            kn.p,
+            kn.q,
+            kn.inverse,
+            self.ln_scaled(kn.k),
+        )
     }
 
     fn kernel(&self) -> Kernel {
@@ -425,13 +450,7 @@ impl Spectrum {
         self.validate()?;
         error::spectral(self.variable.arg_name(), x)?;
         error::temperature("temperature_k", temperature_k)?;
-        Ok(density(
-            self.kernel(),
-            self.scale(),
-            x,
-            temperature_k,
-            false,
-        ))
+        Ok(density(self, x, temperature_k, false))
     }
 
     /// Partial derivative ∂/∂T of [`Spectrum::spectral`], in the density's unit per kelvin.
@@ -463,7 +482,7 @@ impl Spectrum {
         self.validate()?;
         error::spectral(self.variable.arg_name(), x)?;
         error::temperature("temperature_k", temperature_k)?;
-        Ok(density(self.kernel(), self.scale(), x, temperature_k, true))
+        Ok(density(self, x, temperature_k, true))
     }
 
     /// The spectrum integrated over all of its spectral variable: total radiance (W·m⁻²·sr⁻¹ or
@@ -498,8 +517,14 @@ impl Spectrum {
     pub fn total(&self, temperature_k: f64) -> Result<f64> {
         self.validate()?;
         error::temperature("temperature_k", temperature_k)?;
-        let (coef, power) = self.total_coefficient();
-        Ok(scaled_power(coef, temperature_k / self.c2_value(), power))
+        let (k, power) = self.band_coefficient_unscaled();
+        let kz = k * self.kernel_total();
+        Ok(scaled_power_ln(
+            self.scale() * kz,
+            self.ln_scaled(kz),
+            temperature_k / self.c2_value(),
+            power,
+        ))
     }
 
     /// ∂/∂T of [`Spectrum::total`] (the total's unit per kelvin).
@@ -528,29 +553,30 @@ impl Spectrum {
     pub fn total_d_dt(&self, temperature_k: f64) -> Result<f64> {
         self.validate()?;
         error::temperature("temperature_k", temperature_k)?;
-        let (coef, power) = self.total_coefficient();
+        let (k, power) = self.band_coefficient_unscaled();
         let c2 = self.c2_value();
-        Ok(scaled_power(
-            coef * f64::from(power) / c2,
+        let kz = k * self.kernel_total() * f64::from(power) / c2;
+        Ok(scaled_power_ln(
+            self.scale() * kz,
+            self.ln_scaled(kz),
             temperature_k / c2,
             power - 1,
         ))
     }
 
-    /// (coefficient, power) with total = coefficient · (T/c₂)^power.
-    pub(crate) fn total_coefficient(&self) -> (f64, i32) {
-        let (k, power) = self.band_coefficient();
+    /// ∫₀^∞ of the spectrum's dimensionless kernel: π⁴/15 (energy) or 2ζ(3) (photon).
+    fn kernel_total(&self) -> f64 {
         match self.quantity {
-            Quantity::Energy => (k * PI4_OVER_15, power),
-            Quantity::Photon => (k * TWO_ZETA_3, power),
+            Quantity::Energy => PI4_OVER_15,
+            Quantity::Photon => TWO_ZETA_3,
         }
     }
 
-    /// (K, p) with band = K · (T/c₂)^p · (dimensionless Planck integral); K includes ε n² g.
-    pub(crate) fn band_coefficient(&self) -> (f64, i32) {
+    /// (K, p) with band = ε n² g · K · (T/c₂)^p · (dimensionless Planck integral).
+    pub(crate) fn band_coefficient_unscaled(&self) -> (f64, i32) {
         match self.quantity {
-            Quantity::Energy => (self.scale() * C1L, 4),
-            Quantity::Photon => (self.scale() * K_PHOTON, 3),
+            Quantity::Energy => (C1L, 4),
+            Quantity::Photon => (K_PHOTON, 3),
         }
     }
 
@@ -658,8 +684,10 @@ pub(crate) fn ln_one_minus_exp_neg(x: f64, lnx: f64) -> f64 {
     }
 }
 
-/// K·v^p/(eˣ − 1) times `scale`, or its T-derivative; inputs validated.
-fn density(kn: Kernel, scale: f64, v: f64, t: f64, d_dt: bool) -> f64 {
+/// ε n² g · K·v^p/(eˣ − 1), or its T-derivative; inputs validated.
+fn density(spec: &Spectrum, v: f64, t: f64, d_dt: bool) -> f64 {
+    let kn = spec.kernel();
+    let scale = spec.scale();
     let (x, lnx) = reduced_x(kn, v, t);
     // Direct evaluation when every intermediate is a normal number.
     let vp = float::powi(v, kn.p);
@@ -674,7 +702,7 @@ fn density(kn: Kernel, scale: f64, v: f64, t: f64, d_dt: bool) -> f64 {
         }
     }
     // Logarithmic evaluation: correct tiny or huge values, 0 or ∞ only outside the f64 range.
-    let mut lnv = float::ln(scale * kn.k) + f64::from(kn.p) * float::ln(v) - ln_expm1(x, lnx);
+    let mut lnv = spec.ln_scaled(kn.k) + f64::from(kn.p) * float::ln(v) - ln_expm1(x, lnx);
     if d_dt {
         lnv += lnx - float::ln(t) - ln_one_minus_exp_neg(x, lnx);
     }
@@ -684,12 +712,17 @@ fn density(kn: Kernel, scale: f64, v: f64, t: f64, d_dt: bool) -> f64 {
 /// coef · r^n with a logarithmic fallback so that r^n overflowing or underflowing on its own
 /// does not spoil a representable product (coef > 0, r > 0).
 pub(crate) fn scaled_power(coef: f64, r: f64, n: i32) -> f64 {
+    scaled_power_ln(coef, float::ln(coef), r, n)
+}
+
+/// As [`scaled_power`] with ln(coef) supplied (coef itself may have underflowed).
+pub(crate) fn scaled_power_ln(coef: f64, ln_coef: f64, r: f64, n: i32) -> f64 {
     let rn = float::powi(r, n);
     let v = coef * rn;
-    if ok(rn) && ok(v) {
+    if ok(coef) && ok(rn) && ok(v) {
         v
     } else {
-        float::exp(float::ln(coef) + f64::from(n) * float::ln(r))
+        float::exp(ln_coef + f64::from(n) * float::ln(r))
     }
 }
 
