@@ -80,4 +80,4 @@ const manifest = {
 };
 
 writeFileSync(join(pkgDir, 'package.json'), `${JSON.stringify(manifest, null, 2)}\n`);
-console.log(`[build] wrote ${join(pkgDir, 'package.json')} (${name}@${version}; files: ${files.join(', ')})`);
+console.log(`[build] wrote package.json (${name}@${version}; files: ${files.join(', ')})`);

@@ -17,5 +17,9 @@
 mod convert;
 mod error;
 mod opts;
+mod radiometry;
+mod stats;
 
 pub use convert::*;
+pub use radiometry::*;
+pub use stats::*;

@@ -43,9 +43,13 @@ export function throwsCode(fn, code, index) {
   return caught;
 }
 
-/** Loads a reference JSON from tests/data if it exists (written by the physics helpers). */
+/**
+ * Loads a reference JSON from tests/data (written by the physics helpers' generator scripts), or
+ * from the directory in QB_REFERENCE_DIR when set (to try a freshly generated table).
+ */
 export function loadReference(name) {
-  const url = new URL(`../data/${name}`, import.meta.url);
+  const dir = process.env.QB_REFERENCE_DIR;
+  const url = dir ? new URL(`file://${dir}/${name}`) : new URL(`../data/${name}`, import.meta.url);
   if (!existsSync(url)) return undefined;
   return JSON.parse(readFileSync(url, 'utf8'));
 }

@@ -55,9 +55,16 @@ async function boot() {
       continue;
     }
     sec.build?.();
+    const stale = document.createElement('p');
+    stale.className = 'stale';
+    stale.textContent = 'Fix the marked input: the results below still belong to the last valid inputs.';
+    document.getElementById(`${sec.id}-msg`).after(stale);
     live.push(sec);
   }
-  for (const s of document.querySelectorAll('select[data-unit="temperature"]')) fillTemperatureUnits(s);
+  for (const s of document.querySelectorAll('select[data-unit="temperature"]')) {
+    fillTemperatureUnits(s);
+    if (s.dataset.default) s.value = s.dataset.default;
+  }
   for (const s of document.querySelectorAll('select[data-unit="spectral"]')) fillSpectralUnits(s, s.dataset.kinds || 'all');
   setupFields(document);
   captureDefaults();
@@ -93,3 +100,22 @@ async function boot() {
 }
 
 boot();
+
+// "Print this section": only that section (with the header, cautions and a link to the state)
+// goes to paper. `beforeprint`/`afterprint` also cover the browser's own print command.
+document.addEventListener('click', (ev) => {
+  const b = ev.target.closest('button.print-sec');
+  if (!b) return;
+  printSection(b.dataset.print);
+  window.print();
+});
+window.addEventListener('afterprint', () => printSection(null));
+
+/** Marks which section the print stylesheet keeps (null = all). Exposed for the browser tests. */
+function printSection(id) {
+  document.getElementById('print-link').textContent = location.href;
+  for (const s of document.querySelectorAll('.calc')) s.classList.toggle('printing', s.id === id);
+  if (id) document.body.dataset.printing = id;
+  else delete document.body.dataset.printing;
+}
+window.quantabandPrintSection = printSection;

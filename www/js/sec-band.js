@@ -3,7 +3,7 @@ import { api } from './api.js';
 import { fmt } from './fmt.js';
 import { drawPlot, fillTable } from './plot.js';
 import { toCsv, download } from './csv.js';
-import { PageInputError, tag, readNum, readKelvin, readSpectral, UNIT_LABEL } from './form.js';
+import { PageInputError, tag, readNum, readKelvin, UNIT_LABEL } from './form.js';
 import { bandUnit } from './quantities.js';
 
 const $ = (id) => document.getElementById(id);
@@ -28,7 +28,7 @@ export { result as fillResults };
 
 export const bandSection = {
   id: 'band',
-  available: () => api.has('band', 'bandFraction', 'bandDdt', 'spectralToSi', 'toKelvin', 'fromKelvin'),
+  available: () => api.has('bandIntegral', 'bandIntegralDT', 'bandFraction', 'bandIntegralArray', 'bandIntegralDTArray', 'convertTemperature', 'spectralUnitKind'),
   wire() {
     $('bd-csv').addEventListener('click', () => last && download('quantaband-band-sweep.csv', last.csv));
   },
@@ -38,16 +38,16 @@ export const bandSection = {
     const tUnit = $('bd-tu').value;
     const variable = api.spectralKind(unit);
     const geometry = $('bd-g').value;
-    const lo = readSpectral('bd-lo', 'bd-su');
-    const hi = readSpectral('bd-hi', 'bd-su');
+    const lo = readNum('bd-lo');
+    const hi = readNum('bd-hi');
     const t = readKelvin('bd-t', 'bd-tu');
     const emissivity = readNum('bd-eps');
-    const eSpec = { variable, quantity: 'energy', geometry, emissivity };
-    const pSpec = { variable, quantity: 'photon', geometry, emissivity };
-    tag('bd-lo', () => api.bandFraction({ variable, quantity: 'energy' }, lo, hi, t));
+    const eSpec = { unit, quantity: 'energy', geometry, emissivity };
+    const pSpec = { unit, quantity: 'photon', geometry, emissivity };
+    tag('bd-lo', () => api.bandFraction({ unit }, lo, hi, t));
     const L = tag('bd-eps', () => api.band(eSpec, lo, hi, t));
     const P = api.band(pSpec, lo, hi, t);
-    const F = api.bandFraction({ variable, quantity: 'energy' }, lo, hi, t);
+    const F = api.bandFraction({ unit }, lo, hi, t);
     const dL = api.bandDdt(eSpec, lo, hi, t);
     const contrast = (100 * dL) / L;
     const uL = bandUnit('energy', geometry);
@@ -74,7 +74,7 @@ export const bandSection = {
     for (let i = 0; i < nRaw; i++) temps[i] = t0 + ((t1 - t0) * i) / (nRaw - 1);
     const Ls = api.bandOverTemperatures(eSpec, lo, hi, temps);
     const Ps = api.bandOverTemperatures(pSpec, lo, hi, temps);
-    const dLs = temps.map((tk) => api.bandDdt(eSpec, lo, hi, tk));
+    const dLs = api.bandDdtOverTemperatures(eSpec, lo, hi, temps);
     const shown = temps.map((tk) => api.fromKelvin(tk, tUnit));
     const rows = [];
     const csvRows = [];
@@ -88,7 +88,7 @@ export const bandSection = {
       title: `Band ${name} against temperature`,
       x: { label: `temperature (${tLabel})`, short: 'T', readoutUnit: tLabel },
       y: { label: `band ${name} (${uL})`, readoutUnit: uL },
-      series: [{ label: `${fmt(lo / api.spectralToSi(1, unit), 4)}–${fmt(hi / api.spectralToSi(1, unit), 4)} ${uLabel}`, x: shown, y: Ls }],
+      series: [{ label: `${fmt(lo, 4)}–${fmt(hi, 4)} ${uLabel}`, x: shown, y: Ls }],
       markers: [{ x: api.fromKelvin(t, tUnit), y: L, label: '' }],
       caption: 'The triangle marks the single temperature above.',
     });
@@ -96,7 +96,7 @@ export const bandSection = {
       csv: toCsv(
         [`temperature (${tLabel})`, 'temperature (K)', `band ${name} (${uL})`, `band photon ${name} (${uP})`, `dL/dT (${uL}/K)`, 'thermal contrast (%/K)'],
         csvRows,
-        [`quantaband band sweep; band ${lo} to ${hi} (SI unit of ${variable}); emissivity ${emissivity}`],
+        [`quantaband band sweep; band ${lo} to ${hi} ${unit} (${variable}); emissivity ${emissivity}`],
       ),
     };
   },

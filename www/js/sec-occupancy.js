@@ -12,7 +12,7 @@ let last = null;
 
 export const occupancySection = {
   id: 'occupancy',
-  available: () => api.has('occupancyBoseEinstein', 'occupancyFermiDirac', 'occupancyMaxwellBoltzmann', 'photonNumber', 'noiseTemperature', 'spectralToSi', 'toKelvin', 'fromKelvin'),
+  available: () => api.has('boseEinsteinEnergy', 'fermiDiracEnergy', 'maxwellBoltzmannEnergy', 'thermalPhotonNumber', 'quantumNoiseTemperature', 'convertSpectral', 'convertTemperature'),
   wire() {
     $('oc-csv').addEventListener('click', () => last && download('quantaband-occupancy.csv', last.csv));
   },
@@ -66,8 +66,8 @@ export const occupancySection = {
       ['n', 'Thermal photon number n̄', fmt(n, 7), 'photons per mode'],
       ['tnoise', 'Noise temperature (hf/2k)·coth(hf/2kT)', fmt(tn, 7), 'K', true],
     ];
-    if (api.has('rayleighJeansTemperature')) items.push(['trj', 'Rayleigh–Jeans brightness temperature', fmt(api.rayleighJeansTemperature(f, tf), 7), 'K']);
-    if (api.has('noisePower')) {
+    if (api.has('rayleighJeansBrightnessTemperature')) items.push(['trj', 'Rayleigh–Jeans brightness temperature', fmt(api.rayleighJeansTemperature(f, tf), 7), 'K']);
+    if (api.has('availableNoisePowerDensity', 'availableNoisePowerDensityWithZeroPoint')) {
       items.push(['p', 'Available noise power per bandwidth, n̄·hf', fmt(api.noisePower(f, tf, false), 7), 'W/Hz']);
       items.push(['pz', 'Same with the zero-point half quantum, (n̄+½)·hf', fmt(api.noisePower(f, tf, true), 7), 'W/Hz']);
     }

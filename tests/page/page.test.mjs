@@ -1,0 +1,219 @@
+// Browser tests of the single-file offline page (dist/quantaband.html), opened with file:// in
+// headless Debian Chromium. Reference values come from the shared tables in tests/data/, which
+// the physics helpers generate with mpmath (the oracle each JSON header names).
+import { test, before, after } from 'node:test';
+import assert from 'node:assert/strict';
+import { statSync } from 'node:fs';
+import { resolve } from 'node:path';
+import {
+  PAGE, ARTIFACTS, launch, open, foreignRequests, reference, setValue, select, settle, resultText, num, rel,
+  parseCsv, downloadText,
+} from './harness.mjs';
+
+let browser;
+before(async () => {
+  browser = await launch();
+});
+after(async () => {
+  await browser?.close();
+});
+
+const thermo = () => reference('thermometry_reference.json');
+const stats = () => reference('stats_reference.json');
+
+test('the page is one file of at most 400 KB', () => {
+  const bytes = statSync(PAGE).size;
+  console.log(`page size: ${bytes} bytes (${(bytes / 1024).toFixed(1)} KiB)`);
+  assert.ok(bytes <= 400 * 1024, `dist/quantaband.html is ${bytes} bytes`);
+});
+
+test('opens from file://, becomes ready with no console errors and no network requests', async () => {
+  const { page, context, requests, consoleErrors, readyMs } = await open(browser);
+  const inPage = await page.evaluate(() => Number(document.body.dataset.readyMs));
+  console.log(`navigation to ready: ${readyMs} ms (page's own measure from script start: ${inPage} ms)`);
+  const sections = (await page.getAttribute('body', 'data-sections')).split(' ');
+  console.log(`sections present: ${sections.join(', ')}`);
+  assert.ok(sections.includes('spectrum') && sections.includes('band'), `sections: ${sections}`);
+  // Every section computed without an error on the defaults.
+  for (const id of sections) assert.equal(await page.getAttribute(`#${id}`, 'data-state'), 'ok', `section ${id}`);
+  // The CSP meta is there and forbids the network.
+  const csp = await page.getAttribute('meta[http-equiv="Content-Security-Policy"]', 'content');
+  assert.match(csp, /default-src 'none'/);
+  for (const id of sections) {
+    await page.locator(`#${id}`).screenshot({ path: resolve(ARTIFACTS, `section-${id}.png`) });
+  }
+  await page.screenshot({ path: resolve(ARTIFACTS, 'page-full.png'), fullPage: true });
+  assert.deepEqual(consoleErrors, []);
+  assert.deepEqual(foreignRequests(requests), []);
+  await context.close();
+});
+
+test('spectrum: value at 10 µm and 300 K matches the mpmath reference, CSV holds the plotted points', async () => {
+  const ref = thermo().spectral_points.find((p) => p.wavelength_m === 1e-5 && p.temperature_k === 300);
+  assert.ok(ref, 'reference point 10 µm / 300 K');
+  const { page, context, requests, consoleErrors } = await open(browser);
+  await select(page, 'sp-tu', 'K');
+  await select(page, 'sp-su', 'um');
+  await select(page, 'sp-q', 'energy');
+  await select(page, 'sp-g', 'radiance');
+  await setValue(page, 'sp-t', '300, 500');
+  await setValue(page, 'sp-lo', '10');
+  await setValue(page, 'sp-hi', '30');
+  const points = Number(await page.getAttribute('#sp-plot', 'data-points'));
+  const { name, text } = await downloadText(page, '#sp-csv');
+  assert.match(name, /\.csv$/);
+  const csv = parseCsv(text);
+  assert.equal(csv.header.length, 3);
+  assert.match(csv.header[1], /300 K/);
+  assert.equal(csv.rows.length * 2, points, 'one CSV row per plotted x, one column per curve');
+  assert.equal(csv.rows[0][0], 10);
+  assert.ok(rel(csv.rows.at(-1)[0], 30) < 1e-12);
+  // W m^-2 sr^-1 m^-1 -> per µm
+  const expected = ref.radiance * 1e-6;
+  assert.ok(rel(csv.rows[0][1], expected) < 1e-9, `${csv.rows[0][1]} vs ${expected}`);
+  // The table's peak for 300 K: Wien's displacement law λ_max·T = b = 2.897 771 955e-3 m K (CODATA 2018).
+  const peakText = await page.textContent('#sp-table tbody tr:first-child td:nth-child(3)');
+  assert.ok(rel(num(peakText), 2.897771955e-3 / 300 / 1e-6) < 1e-6, peakText);
+  assert.deepEqual(consoleErrors, []);
+  assert.deepEqual(foreignRequests(requests), []);
+  await context.close();
+});
+
+test('band: 8–14 µm radiance and dL/dT at 250 K match the mpmath reference', async () => {
+  const ref = thermo().integrals.find((r) => r.response === 'rect_8_14um' && r.temperature_k === 250);
+  const { page, context } = await open(browser);
+  await select(page, 'bd-su', 'um');
+  await select(page, 'bd-tu', 'K');
+  await select(page, 'bd-g', 'radiance');
+  await setValue(page, 'bd-lo', '8');
+  await setValue(page, 'bd-hi', '14');
+  await setValue(page, 'bd-eps', '1');
+  await setValue(page, 'bd-t', '250');
+  const L = num(await resultText(page, 'bd-res', 'L'));
+  const dL = num(await resultText(page, 'bd-res', 'dLdT'));
+  const c = num(await resultText(page, 'bd-res', 'contrast'));
+  assert.ok(rel(L, ref.signal) < 1e-6, `${L} vs ${ref.signal}`); // 7 digits shown
+  assert.ok(rel(dL, ref.d_signal_dt) < 1e-6, `${dL} vs ${ref.d_signal_dt}`);
+  assert.ok(rel(c, (100 * ref.d_signal_dt) / ref.signal) < 1e-5, `${c}`);
+  // Celsius input gives the same answer (unit conversion in the core): 250 K = −23.15 °C.
+  await select(page, 'bd-tu', 'degC');
+  await setValue(page, 'bd-t', '-23.15');
+  assert.ok(rel(num(await resultText(page, 'bd-res', 'L')), ref.signal) < 1e-6);
+  // Sweep CSV: 300 K and 600 K rows against the same reference.
+  await select(page, 'bd-tu', 'K');
+  await setValue(page, 'bd-t', '250');
+  await setValue(page, 'bd-t0', '300');
+  await setValue(page, 'bd-t1', '600');
+  await setValue(page, 'bd-n', '4');
+  const csv = parseCsv((await downloadText(page, '#bd-csv')).text);
+  assert.equal(csv.rows.length, 4);
+  for (const t of [300, 600]) {
+    const r = thermo().integrals.find((x) => x.response === 'rect_8_14um' && x.temperature_k === t);
+    const row = csv.rows.find((x) => x[1] === t);
+    assert.ok(row, `sweep row at ${t} K`);
+    assert.ok(rel(row[2], r.signal) < 1e-9, `${row[2]} vs ${r.signal}`);
+    assert.ok(rel(row[4], r.d_signal_dt) < 1e-7, `${row[4]} vs ${r.d_signal_dt}`);
+  }
+  await context.close();
+});
+
+test('occupancy: photon number and quantum noise temperature match the mpmath reference', async () => {
+  const { page, context } = await open(browser);
+  const sections = await page.getAttribute('body', 'data-sections');
+  assert.match(sections, /occupancy/, 'occupancy section present');
+  const rows = stats().rows;
+  const n = rows.find((r) => r[0] === 'thermal_photon_number' && r[1] === '1.4204e9' && r[2] === '2.725');
+  const tn = rows.find((r) => r[0] === 'quantum_noise_temperature' && r[1] === '1.4204e9' && r[2] === '2.725');
+  await select(page, 'oc-tu', 'K');
+  await setValue(page, 'oc-f', '1.4204');
+  await setValue(page, 'oc-ft', '2.725');
+  assert.ok(rel(num(await resultText(page, 'oc-res', 'n')), Number(n[3])) < 1e-6);
+  assert.ok(rel(num(await resultText(page, 'oc-res', 'tnoise')), Number(tn[3])) < 1e-6);
+  await context.close();
+});
+
+test('bad input shows the core error message inline, keeps the code, and recovers', async () => {
+  const { page, context, consoleErrors } = await open(browser);
+  await select(page, 'sp-tu', 'K');
+  await setValue(page, 'sp-t', '600, -5');
+  assert.match(await page.textContent('#sp-t-msg'), /must be > 0 K/);
+  assert.equal(await page.getAttribute('#sp-t-msg', 'data-code'), 'NON_POSITIVE_TEMPERATURE');
+  assert.equal(await page.getAttribute('#sp-t', 'aria-invalid'), 'true');
+  await setValue(page, 'sp-t', '600');
+  assert.equal(await page.textContent('#sp-t-msg'), '');
+  assert.equal(await page.getAttribute('#spectrum', 'data-state'), 'ok');
+
+  await setValue(page, 'bd-eps', '1.5');
+  assert.equal(await page.getAttribute('#bd-eps-msg', 'data-code'), 'OUT_OF_RANGE');
+  assert.match(await page.textContent('#bd-eps-msg'), /\(0, 1\]/);
+  await setValue(page, 'bd-eps', 'abc');
+  assert.equal(await page.getAttribute('#bd-eps-msg', 'data-code'), 'NON_FINITE');
+  await setValue(page, 'bd-eps', '0.9');
+  await setValue(page, 'bd-lo', '20');
+  assert.equal(await page.getAttribute('#bd-lo-msg', 'data-code'), 'INVALID_BAND');
+  await page.locator('#band').screenshot({ path: resolve(ARTIFACTS, 'band-error.png') });
+  await setValue(page, 'bd-lo', '8');
+  assert.equal(await page.getAttribute('#band', 'data-state'), 'ok');
+  assert.equal(await page.textContent('#bd-lo-msg'), '');
+  await setValue(page, 'bd-n', '1');
+  assert.equal(await page.getAttribute('#bd-n-msg', 'data-code'), 'PAGE_INPUT');
+  assert.deepEqual(consoleErrors, []);
+  await context.close();
+});
+
+test('the URL fragment keeps the state and restores it on load', async () => {
+  const first = await open(browser);
+  await select(first.page, 'bd-tu', 'degC');
+  await setValue(first.page, 'bd-t', '150');
+  await setValue(first.page, 'bd-lo', '3');
+  await setValue(first.page, 'bd-hi', '5');
+  await first.page.waitForFunction(() => ['bd-t=150', 'bd-lo=3', 'bd-hi=5'].every((s) => location.hash.includes(s)));
+  const hash = await first.page.evaluate(() => location.hash);
+  const value = await resultText(first.page, 'bd-res', 'L');
+  await first.context.close();
+  assert.match(hash, /bd-tu=degC/);
+  const second = await open(browser, hash);
+  assert.equal(await second.page.inputValue('#bd-t'), '150');
+  assert.equal(await second.page.inputValue('#bd-tu'), 'degC');
+  assert.equal(await second.page.inputValue('#bd-lo'), '3');
+  assert.equal(await resultText(second.page, 'bd-res', 'L'), value);
+  assert.deepEqual(second.consoleErrors, []);
+  await second.context.close();
+});
+
+test('keyboard: Tab walks the band inputs in order, each labelled and visibly focused', async () => {
+  const { page, context } = await open(browser);
+  await page.focus('#bd-su');
+  const seen = [];
+  for (let i = 0; i < 10; i++) {
+    const info = await page.evaluate(() => {
+      const e = document.activeElement;
+      const cs = getComputedStyle(e);
+      return {
+        id: e.id,
+        tag: e.tagName,
+        labelled: (e.labels && e.labels.length > 0 && e.labels[0].textContent.trim().length > 0) || !!e.getAttribute('aria-label'),
+        outline: cs.outlineStyle !== 'none' && parseFloat(cs.outlineWidth) >= 2,
+      };
+    });
+    seen.push(info.id);
+    if (['INPUT', 'SELECT', 'TEXTAREA'].includes(info.tag)) {
+      assert.ok(info.labelled, `${info.id} has a label`);
+      if (i > 0) assert.ok(info.outline, `${info.id} shows a focus outline`);
+    }
+    await page.keyboard.press('Tab');
+  }
+  assert.deepEqual(seen.slice(0, 7), ['bd-su', 'bd-lo', 'bd-hi', 'bd-tu', 'bd-t', 'bd-eps', 'bd-g']);
+  await context.close();
+});
+
+test('printing one section gives a one-page record', async () => {
+  const { page, context } = await open(browser);
+  await page.evaluate(() => window.quantabandPrintSection('band'));
+  await page.emulateMedia({ media: 'print' });
+  await page.screenshot({ path: resolve(ARTIFACTS, 'print-band.png'), fullPage: true });
+  const pdf = await page.pdf({ format: 'A4', printBackground: false });
+  const pages = (pdf.toString('latin1').match(/\/Type\s*\/Page[^s]/g) || []).length;
+  assert.equal(pages, 1, `band section prints on ${pages} page(s)`);
+  await context.close();
+});
