@@ -176,7 +176,7 @@ pub fn invert_monotone<M: SignalModel + ?Sized>(
 /// # Formula
 /// ```text
 /// S(T) = c1L / (λ⁵·(exp(c2/(λT)) − 1))      c1L = 2hc², c2 per the chosen convention
-/// T(S) = c2 / (λ·ln(1 + c1L/(λ⁵·S)))
+/// T(S) = c2 / (λ·ln(1 + c1L/(λ⁵·S)))       (crate::inverse::brightness_temperature)
 /// ```
 ///
 /// # Errors
@@ -248,6 +248,8 @@ impl SignalModel for SpectralPoint {
     }
     fn temperature(&self, signal: f64) -> Result<f64> {
         positive("signal", signal)?;
-        invert_monotone(self, signal, 1000.0)
+        // Closed-form brightness temperature from the radiometric core.
+        let spec = crate::planck::Spectrum::BLACKBODY.with_c2(self.c2);
+        crate::inverse::brightness_temperature(&spec, self.wavelength_m, signal)
     }
 }
