@@ -111,6 +111,7 @@ pub(crate) fn parse_c2(what: &str, s: Option<String>) -> Result<C2Convention, Js
 }
 
 /// Reads and validates a `SpectrumOptions` object.
+#[inline(never)]
 pub(crate) fn parse_spectrum(value: &JsValue) -> Result<Spec, JsValue> {
     let o = Opts::new(value, "SpectrumOptions", SPECTRUM_FIELDS)?;
     let unit_name = o.string("unit", "UNKNOWN_UNIT")?.ok_or_else(|| {
