@@ -1,12 +1,15 @@
 #!/usr/bin/env bash
 # Builds the npm package in pkg/ and the single-file offline page, after installing prerequisites.
 #
-#   bash pkg-scripts/build.sh [--no-simd] [--opt=-Oz|-O3|-O2|-Os] [--no-page] [--serve[=PORT]]
+#   bash pkg-scripts/build.sh [--no-simd] [--opt=-Oz|-O3|-O2|-Os] [--rust-opt=3|s|z] [--no-page]
+#                             [--serve[=PORT]]
 #
 #   --no-simd    build without wasm simd128 (default: with it; Node >= 16.4 and all current
 #                browsers run simd128, and the frame conversion is vectorised with it)
 #   --opt=LEVEL  wasm-opt optimisation level (default -Oz, the smaller and not slower of -Oz/-O3 here;
 #                see DEVELOPERS.md, "Build, package and test matrix")
+#   --rust-opt=L rustc opt-level for this build only (default: the release profile's, 3); `z` trades
+#                speed for size (CARGO_PROFILE_RELEASE_OPT_LEVEL, Cargo.toml untouched)
 #   --no-page    skip `node www/build.mjs`
 #   --serve      after building, serve dist/ on http://127.0.0.1:PORT/ (default 8765) until Ctrl-C
 #
@@ -27,14 +30,16 @@ for arg in "$@"; do
   case "$arg" in
     --no-simd) SIMD=0 ;;
     --opt=*) OPT="${arg#--opt=}" ;;
+    --rust-opt=*) export CARGO_PROFILE_RELEASE_OPT_LEVEL="${arg#--rust-opt=}" ;;
     --no-page) PAGE=0 ;;
     --serve) SERVE=8765 ;;
     --serve=*) SERVE="${arg#--serve=}" ;;
-    -h|--help) sed -n '2,20p' "$0"; exit 0 ;;
+    -h|--help) sed -n '2,23p' "$0"; exit 0 ;;
     *) echo "build.sh: unknown argument '$arg' (try --help)" >&2; exit 2 ;;
   esac
 done
 case "$OPT" in -O|-O1|-O2|-O3|-O4|-Os|-Oz) ;; *) echo "build.sh: bad --opt '$OPT'" >&2; exit 2 ;; esac
+case "${CARGO_PROFILE_RELEASE_OPT_LEVEL:-3}" in 0|1|2|3|s|z) ;; *) echo "build.sh: bad --rust-opt" >&2; exit 2 ;; esac
 
 say() { printf '[build] %s\n' "$*"; }
 now() { date +%s.%N; }
@@ -57,7 +62,7 @@ RAW_WASM="$TARGET_DIR/wasm32-unknown-unknown/release/$NAME.wasm"
 STAGE="$TARGET_DIR/pkg-stage"
 
 t="$(now)"
-say "cargo build --release --lib --target wasm32-unknown-unknown --features wasm (simd128: $([ "$SIMD" = 1 ] && echo on || echo off))"
+say "cargo build --release --lib --target wasm32-unknown-unknown --features wasm (simd128: $([ "$SIMD" = 1 ] && echo on || echo off), opt-level ${CARGO_PROFILE_RELEASE_OPT_LEVEL:-from Cargo.toml})"
 cargo build --release --lib --target wasm32-unknown-unknown --features wasm
 say "cargo build: $(since "$t"), $(stat -c %s "$RAW_WASM") B"
 
