@@ -283,7 +283,11 @@ pub(crate) fn unit_interval_open_closed(arg: &'static str, value: f64) -> Result
     if value > 0.0 && value <= 1.0 {
         Ok(value)
     } else {
-        Err(Error::OutOfRange { arg, value, range: "(0, 1]" })
+        Err(Error::OutOfRange {
+            arg,
+            value,
+            range: "(0, 1]",
+        })
     }
 }
 
@@ -294,13 +298,22 @@ pub(crate) fn unit_interval_closed(arg: &'static str, value: f64) -> Result<f64>
     if (0.0..=1.0).contains(&value) {
         Ok(value)
     } else {
-        Err(Error::OutOfRange { arg, value, range: "[0, 1]" })
+        Err(Error::OutOfRange {
+            arg,
+            value,
+            range: "[0, 1]",
+        })
     }
 }
 
 /// Checks that `lower < upper`, both finite and > 0 (a spectral band).
 #[inline]
-pub(crate) fn band(lower_arg: &'static str, lower: f64, upper_arg: &'static str, upper: f64) -> Result<(f64, f64)> {
+pub(crate) fn band(
+    lower_arg: &'static str,
+    lower: f64,
+    upper_arg: &'static str,
+    upper: f64,
+) -> Result<(f64, f64)> {
     spectral(lower_arg, lower)?;
     spectral(upper_arg, upper)?;
     if lower < upper {
