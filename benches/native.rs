@@ -160,16 +160,159 @@ fn main() {
 /// The benchmark cases (inputs as in `benches/data/bench_reference.json`).
 mod cases {
     use super::{black_box, Extra, Runner};
+    use quantaband::constants::C2Convention;
+    use quantaband::planck::{self, Spectrum};
+    use quantaband::stats::{self, BoseOrder, FdOrder};
+    use quantaband::thermometry::{Response, ResponseSignal, SakumaHattori, SignalModel};
+
+    /// Invented Sakuma–Hattori calibration of the benchmark camera (A in m, B in m·K, C in
+    /// signal units), the same as `benches/py/gen_bench_reference.py` and `benches/js/scene.mjs`.
+    const SH_A: f64 = 1.05e-5;
+    const SH_B: f64 = 1.5e-4;
+    const SH_C: f64 = 2.0e4;
+
+    /// `Ok(v)` as `v`, an error as NaN (the table then shows the case as wrong, not fast).
+    fn val(r: quantaband::Result<f64>) -> f64 {
+        r.unwrap_or(f64::NAN)
+    }
 
     pub fn radiometry(r: &Runner) {
-        let _ = r;
+        // Single spectral radiance, 10 µm at 300 K.
+        let one = || {
+            val(planck::spectral_radiance_wavelength(
+                black_box(10e-6),
+                black_box(300.0),
+            ))
+        };
+        r.run(
+            "spectral_single",
+            one,
+            Extra {
+                value: Some(one()),
+                ..Extra::default()
+            },
+        );
+
+        // A 10 000-point spectrum at 1000 K into a caller-provided buffer.
+        let n = 10_000usize;
+        let (first, last) = (1e-6, 20e-6);
+        let step = (last - first) / (n - 1) as f64;
+        let lambdas: Vec<f64> = (0..n).map(|i| first + i as f64 * step).collect();
+        let mut out = vec![0.0; n];
+        let spec = Spectrum::BLACKBODY;
+        let mut spectrum = |out: &mut [f64]| {
+            let t = black_box(1000.0);
+            for (o, &l) in out.iter_mut().zip(black_box(&lambdas)) {
+                *o = val(spec.spectral(l, t));
+            }
+            black_box(out[0])
+        };
+        spectrum(&mut out);
+        let samples: Vec<f64> = (0..n).step_by(100).chain([n - 1]).map(|i| out[i]).collect();
+        let mut buf = vec![0.0; n];
+        r.run(
+            "spectrum_10k",
+            || spectrum(&mut buf),
+            Extra {
+                sample_values: Some(samples),
+                ..Extra::default()
+            },
+        );
     }
 
     pub fn thermometry(r: &Runner) {
-        let _ = r;
+        // Response-weighted signal of the invented 9-point long-wave response at 400 K.
+        let wl = [
+            7.5e-6, 8e-6, 9e-6, 10e-6, 11e-6, 12e-6, 13e-6, 14e-6, 14.5e-6,
+        ];
+        let resp = [0.0, 0.55, 0.85, 1.0, 0.97, 0.9, 0.75, 0.5, 0.0];
+        match Response::new(&wl, &resp) {
+            Ok(response) => {
+                let model = ResponseSignal::new(response, C2Convention::Codata2018);
+                let f = || val(model.signal(black_box(400.0)));
+                r.run(
+                    "response_signal_400",
+                    f,
+                    Extra {
+                        value: Some(f()),
+                        ..Extra::default()
+                    },
+                );
+            }
+            Err(e) => r.skip("response_signal_400", e.code()),
+        }
+
+        // Sakuma–Hattori inverse, one value (invented coefficients, see the reference JSON).
+        match SakumaHattori::new(SH_A, SH_B, SH_C, C2Convention::Codata2018) {
+            Ok(sh) => {
+                let f = || val(sh.temperature(black_box(476.040_312_057_229_7)));
+                r.run(
+                    "sh_inverse",
+                    f,
+                    Extra {
+                        value: Some(f()),
+                        ..Extra::default()
+                    },
+                );
+            }
+            Err(e) => r.skip("sh_inverse", e.code()),
+        }
     }
 
     pub fn statistics(r: &Runner) {
-        let _ = (r, black_box(0), Extra::default());
+        let f = || val(stats::bose_einstein(black_box(2.0)));
+        r.run(
+            "be_occupancy",
+            f,
+            Extra {
+                value: Some(f()),
+                ..Extra::default()
+            },
+        );
+        let f = || val(stats::fermi_dirac(black_box(2.0)));
+        r.run(
+            "fd_occupancy",
+            f,
+            Extra {
+                value: Some(f()),
+                ..Extra::default()
+            },
+        );
+        let f = || val(stats::fermi_dirac_integral(FdOrder::Half, black_box(1.5)));
+        r.run(
+            "fd_half",
+            f,
+            Extra {
+                value: Some(f()),
+                ..Extra::default()
+            },
+        );
+        let f = || {
+            val(stats::inverse_fermi_dirac_half(black_box(
+                2.144_860_877_583_114,
+            )))
+        };
+        r.run(
+            "fd_half_inverse",
+            f,
+            Extra {
+                value: Some(f()),
+                ..Extra::default()
+            },
+        );
+        let f = || {
+            val(stats::bose_einstein_integral(
+                BoseOrder::ThreeHalves,
+                black_box(0.5),
+            ))
+        };
+        r.run(
+            "be_g32",
+            f,
+            Extra {
+                value: Some(f()),
+                ..Extra::default()
+            },
+        );
     }
 }

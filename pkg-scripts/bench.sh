@@ -55,8 +55,9 @@ cargo bench --bench native -- "${QFLAG[@]}" | tee -a "$RESULTS" >&2
 # ---- wasm package -----------------------------------------------------------------------------
 if [ "$BUILD" = 1 ]; then
   if [ -f pkg-scripts/build.sh ]; then
-    say "package: bash pkg-scripts/build.sh"
-    bash pkg-scripts/build.sh >&2
+    # --no-page: the benchmark needs pkg/ only, not the offline page.
+    say "package: bash pkg-scripts/build.sh --no-page"
+    bash pkg-scripts/build.sh --no-page >&2
   else
     say "package: pkg-scripts/build.sh not present yet; the wasm column will be empty"
   fi

@@ -55,13 +55,13 @@ pub const WIEN_B: f64 = 2.897_771_955_185_172_7e-3;
 pub const WIEN_B_FREQUENCY: f64 = 5.878_925_757_646_825e10;
 
 /// Root of x = 5(1 − e⁻ˣ): peak of spectral radiance per wavelength is at λT = c2/x.
-pub const WIEN_X_WAVELENGTH: f64 = 4.965_114_231_744_276_3;
+pub const WIEN_X_WAVELENGTH: f64 = 4.965_114_231_744_276;
 /// Root of x = 3(1 − e⁻ˣ): peak of spectral radiance per frequency is at hν = x·kT.
 pub const WIEN_X_FREQUENCY: f64 = 2.821_439_372_122_078_9;
 /// Root of x = 4(1 − e⁻ˣ): peak of photon radiance per wavelength is at λT = c2/x.
 pub const WIEN_X_PHOTON_WAVELENGTH: f64 = 3.920_690_394_872_886_3;
 /// Root of x = 2(1 − e⁻ˣ): peak of photon radiance per frequency is at hν = x·kT.
-pub const WIEN_X_PHOTON_FREQUENCY: f64 = 1.593_624_260_040_040_1;
+pub const WIEN_X_PHOTON_FREQUENCY: f64 = 1.593_624_260_040_04;
 /// Apéry's constant ζ(3).
 pub const ZETA_3: f64 = 1.202_056_903_159_594_3;
 

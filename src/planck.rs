@@ -218,6 +218,13 @@ impl Spectrum {
         self.c2.c2()
     }
 
+    /// (ε n² g K, p, q, inverse) of the density ε n² g · K · v^p / (eˣ − 1) with x = q/(vT)
+    /// (`inverse`) or x = q·v/T.
+    pub(crate) fn density_params(&self) -> (f64, i32, f64, bool) {
+        let kn = self.kernel();
+        (self.scale() * kn.k, kn.p, kn.q, kn.inverse)
+    }
+
     fn kernel(&self) -> Kernel {
         let c2 = self.c2_value();
         match (self.variable, self.quantity) {
@@ -414,9 +421,18 @@ impl Spectrum {
 
     /// (coefficient, power) with total = coefficient · (T/c₂)^power.
     pub(crate) fn total_coefficient(&self) -> (f64, i32) {
+        let (k, power) = self.band_coefficient();
         match self.quantity {
-            Quantity::Energy => (self.scale() * C1L * PI4_OVER_15, 4),
-            Quantity::Photon => (self.scale() * K_PHOTON * TWO_ZETA_3, 3),
+            Quantity::Energy => (k * PI4_OVER_15, power),
+            Quantity::Photon => (k * TWO_ZETA_3, power),
+        }
+    }
+
+    /// (K, p) with band = K · (T/c₂)^p · (dimensionless Planck integral); K includes ε n² g.
+    pub(crate) fn band_coefficient(&self) -> (f64, i32) {
+        match self.quantity {
+            Quantity::Energy => (self.scale() * C1L, 4),
+            Quantity::Photon => (self.scale() * K_PHOTON, 3),
         }
     }
 

@@ -73,7 +73,7 @@ fn fd(order: FdOrder, eta: f64) -> f64 {
 proptest! {
     #![proptest_config(ProptestConfig::with_cases(1000))]
 
-    /// dF_j/dη = F_{j−1} (DLMF 25.12.16 in the normalised convention), checked with a
+    /// dF_j/dη = F_{j−1} (DLMF §25.12(iii), from memory), checked with a
     /// five-point central difference (truncation error ~h⁴/30·F⁽⁵⁾ ≈ 1e-10 relative here).
     #[test]
     fn fermi_dirac_derivative_identity(eta in -60.0f64..200.0) {
@@ -131,5 +131,122 @@ proptest! {
                 prop_assert!(v.is_finite());
             }
         }
+    }
+}
+
+proptest! {
+    #![proptest_config(ProptestConfig::with_cases(1000))]
+
+    /// T_n = T_RJ + hf/2k: coth(y) = 1 + 2/(e^{2y} − 1) (hyperbolic identity, DLMF §4.28, from memory), i.e. n̄ + ½ = ½coth(y).
+    #[test]
+    fn noise_temperature_is_rj_plus_half_quantum(
+        log_f in 3.0f64..16.0, log_t in -3.0f64..6.0
+    ) {
+        let (f, t) = (10f64.powf(log_f), 10f64.powf(log_t));
+        let tn = quantum_noise_temperature(f, t).unwrap();
+        let trj = rayleigh_jeans_brightness_temperature(f, t).unwrap();
+        let half = 0.5 * 6.626_070_15e-34 * f / 1.380_649e-23;
+        prop_assert!((tn / (trj + half) - 1.0).abs() < 4e-15, "f={f:e} T={t:e}: {tn} vs {trj}+{half}");
+        prop_assert!(tn >= t * (1.0 - 1e-15), "T_n must not be below T");
+        let p0 = available_noise_power_density_with_zero_point(f, t).unwrap();
+        let p = available_noise_power_density(f, t).unwrap();
+        prop_assert!((p0 / (1.380_649e-23 * tn) - 1.0).abs() < 4e-16);
+        prop_assert!(p == 1.380_649e-23 * trj);
+    }
+
+    /// T → T_RJ → T round trip (brightness temperature inverse).
+    #[test]
+    fn rayleigh_jeans_round_trip(log_f in 6.0f64..15.0, log_t in -3.0f64..8.0) {
+        let (f, t) = (10f64.powf(log_f), 10f64.powf(log_t));
+        let x = 4.799_243_073_366_221e-11 * f / t;
+        prop_assume!(x <= 700.0);
+        let trj = rayleigh_jeans_brightness_temperature(f, t).unwrap();
+        let back = physical_temperature_from_rayleigh_jeans(f, trj).unwrap();
+        prop_assert!((back / t - 1.0).abs() < 1e-14, "f={f:e} T={t:e}: back {back}");
+    }
+
+    /// Blackbody gas identities: T·s = u + p (Gibbs–Duhem with μ = 0), u = 3p, n·⟨E⟩ = u.
+    #[test]
+    fn photon_gas_identities(log_t in -60.0f64..70.0) {
+        let t = 10f64.powf(log_t);
+        let u = photon_energy_density(t).unwrap();
+        let p = photon_pressure(t).unwrap();
+        let s = photon_entropy_density(t).unwrap();
+        let n = photon_number_density(t).unwrap();
+        let e = mean_photon_energy(t).unwrap();
+        prop_assert!(u.is_finite() && u > 0.0);
+        prop_assert!((t * s / (u + p) - 1.0).abs() < 1e-14);
+        prop_assert!((u / (3.0 * p) - 1.0).abs() < 1e-15);
+        prop_assert!((n * e / u - 1.0).abs() < 1e-14);
+    }
+
+    /// u_E(E) = g(E)·E·n̄(E/kT) (definition) and u_ν = h·u_E(hν); no NaN/∞ at extreme inputs.
+    #[test]
+    fn spectral_energy_density_consistency(log_e in -30.0f64..-14.0, log_t in -3.0f64..7.0) {
+        let (e, t) = (10f64.powf(log_e), 10f64.powf(log_t));
+        let x = e / (1.380_649e-23 * t);
+        prop_assume!(x < 600.0);
+        let u = spectral_energy_density_energy(e, t).unwrap();
+        let built = photon_density_of_states(e).unwrap() * e * bose_einstein(x).unwrap();
+        prop_assert!((u / built - 1.0).abs() < 1e-13, "E={e:e} T={t:e}: {u} vs {built}");
+        let nu = e / 6.626_070_15e-34;
+        let u_nu = spectral_energy_density_frequency(nu, t).unwrap();
+        // ν = E/h is rounded (½ ulp, tripled by ν³ and multiplied by x on the Wien side), on
+        // top of a few ulp for each evaluation.
+        let tol = 3e-15 * (1.0 + x);
+        prop_assert!((u_nu / (6.626_070_15e-34 * u) - 1.0).abs() < tol, "E={e:e} T={t:e}");
+    }
+
+    #[test]
+    fn photon_functions_extremes_never_nan(
+        a in prop_oneof![1e-300f64..1e-250, 1e-30f64..1e30, 1e250f64..1e300],
+        t in prop_oneof![1e-300f64..1e-250, 1e-3f64..1e6, 1e250f64..1e300],
+    ) {
+        for v in [
+            quantum_noise_temperature(a, t).unwrap(),
+            rayleigh_jeans_brightness_temperature(a, t).unwrap(),
+            physical_temperature_from_rayleigh_jeans(a, t).unwrap(),
+            available_noise_power_density(a, t).unwrap(),
+            spectral_energy_density_energy(a, t).unwrap(),
+            spectral_energy_density_frequency(a, t).unwrap(),
+            photon_density_of_states(a).unwrap(),
+            photon_energy_density(t).unwrap(),
+            photon_number_density(t).unwrap(),
+        ] {
+            prop_assert!(!v.is_nan() && v >= 0.0, "a={a:e} t={t:e}: {v}");
+        }
+        prop_assert!(physical_temperature_from_rayleigh_jeans(a, t).unwrap() > 0.0);
+        prop_assert!(quantum_noise_temperature(a, t).unwrap() > 0.0);
+    }
+}
+
+proptest! {
+    #![proptest_config(ProptestConfig::with_cases(2000))]
+
+    /// Consistency with the radiometric core: for isotropic blackbody radiation the spectral
+    /// energy density is u_ν = 4π L_ν / c per unit frequency and u_E = u_ν / h per unit photon
+    /// energy (energy flux through a surface = c·u/4π per steradian; e.g. Kittel & Kroemer,
+    /// Thermal Physics, ch. 4, from memory). L_ν from `quantaband::planck`.
+    #[test]
+    fn energy_density_consistent_with_planck_radiance(
+        log_f in 6.0f64..16.0, log_t in -2.0f64..6.0
+    ) {
+        let (f, t) = (10f64.powf(log_f), 10f64.powf(log_t));
+        let x = 4.799_243_073_366_221e-11 * f / t;
+        prop_assume!(x < 700.0);
+        let c = 299_792_458.0;
+        let h = 6.626_070_15e-34;
+        let l_nu = quantaband::planck::spectral_radiance_frequency(f, t).unwrap();
+        let from_radiance = 4.0 * core::f64::consts::PI * l_nu / c;
+        // Subnormal results carry fewer than 16 digits: compare in the normal range only.
+        prop_assume!(from_radiance >= f64::MIN_POSITIVE);
+        let u_nu = spectral_energy_density_frequency(f, t).unwrap();
+        // Two independent implementations, each a few ulp, the x-amplified rounding of hf/kT.
+        let tol = 2e-15 * (1.0 + x);
+        prop_assert!((u_nu / from_radiance - 1.0).abs() < tol,
+            "f={f:e} T={t:e}: {u_nu:e} vs {from_radiance:e}");
+        let u_e = spectral_energy_density_energy(h * f, t).unwrap();
+        prop_assert!((u_e / (from_radiance / h) - 1.0).abs() < tol,
+            "f={f:e} T={t:e}: {u_e:e} vs {:e}", from_radiance / h);
     }
 }

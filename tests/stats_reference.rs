@@ -139,8 +139,8 @@ mod fermi_dirac_integrals {
         );
     }
 
-    /// F_{1/2}(0) = (1 − 2^{−1/2})·ζ(3/2) (DLMF 25.12.15 with η(s) = (1 − 2^{1−s})ζ(s), DLMF
-    /// 25.2.3), with ζ(3/2) = 2.612375348685488343… (DLMF Table 25.? / mpmath).
+    /// F_{1/2}(0) = (1 − 2^{−1/2})·ζ(3/2) (DLMF §25.12(iii) with η(s) = (1 − 2^{1−s})ζ(s),
+    /// DLMF §25.2; equation numbers from memory), with ζ(3/2) = 2.612375348685488343… (mpmath `zeta(1.5)`, 50 digits).
     #[test]
     fn f_half_at_zero_closed_form() {
         let want = (1.0 - core::f64::consts::FRAC_1_SQRT_2) * 2.612_375_348_685_488;
@@ -181,7 +181,7 @@ mod bose_einstein_integrals {
         assert!((g(BoseOrder::ThreeHalves) - 2.612_375_348_685_488).abs() < 2e-15);
         assert!((g(BoseOrder::FiveHalves) - 1.341_487_257_250_917).abs() < 2e-15);
         assert!((g(BoseOrder::Integer(3)) - 1.202_056_903_159_594).abs() < 2e-15);
-        // ζ(2) = π²/6, ζ(4) = π⁴/90 (Euler; DLMF 25.6.1)
+        // ζ(2) = π²/6, ζ(4) = π⁴/90 (Euler; DLMF §25.6, from memory)
         let pi = core::f64::consts::PI;
         assert!((g(BoseOrder::Integer(2)) / (pi * pi / 6.0) - 1.0).abs() < 4.5e-16);
         assert!((g(BoseOrder::Integer(4)) / (pi.powi(4) / 90.0) - 1.0).abs() < 4.5e-16);
@@ -195,5 +195,79 @@ mod bose_einstein_integrals {
         check("bose_critical_temperature_me", 1e-15, |i| {
             bose_critical_temperature(i[0], ELECTRON_MASS).unwrap()
         });
+    }
+}
+
+mod photon_gas {
+    use super::*;
+    use quantaband::stats::*;
+
+    #[test]
+    fn noise_and_brightness_temperatures_vs_mpmath() {
+        check_scaled("rayleigh_jeans_temperature", 1e-15, scale_x, |i| {
+            rayleigh_jeans_brightness_temperature(i[0], i[1]).unwrap()
+        });
+        check("quantum_noise_temperature", 1e-15, |i| {
+            quantum_noise_temperature(i[0], i[1]).unwrap()
+        });
+    }
+
+    /// Inverting mpmath's T_RJ (rounded to f64) must give back T.
+    #[test]
+    fn rayleigh_jeans_inverse_vs_mpmath() {
+        let mut worst = 0.0f64;
+        for r in rows("rayleigh_jeans_temperature") {
+            let (f, t, t_rj) = (r[0], r[1], r[2]);
+            if t_rj < f64::MIN_POSITIVE {
+                continue; // T_RJ itself underflows in f64: nothing to invert
+            }
+            let got = physical_temperature_from_rayleigh_jeans(f, t_rj).unwrap();
+            let e = rel(got, t) / scale_x(&[f, t]);
+            assert!(e <= 1e-15, "f={f} T={t}: got {got}");
+            worst = worst.max(e);
+        }
+        println!("physical_temperature_from_rayleigh_jeans: max (rel err / scale) {worst:.2e}");
+    }
+
+    #[test]
+    fn blackbody_gas_vs_mpmath() {
+        check("photon_number_density", 4.5e-16, |i| {
+            photon_number_density(i[0]).unwrap()
+        });
+        check("photon_energy_density", 6.7e-16, |i| {
+            photon_energy_density(i[0]).unwrap()
+        });
+        check("photon_entropy_density", 4.5e-16, |i| {
+            photon_entropy_density(i[0]).unwrap()
+        });
+        check("photon_pressure", 6.7e-16, |i| {
+            photon_pressure(i[0]).unwrap()
+        });
+        check("mean_photon_energy", 2.3e-16, |i| {
+            mean_photon_energy(i[0]).unwrap()
+        });
+    }
+
+    #[test]
+    fn density_of_states_and_spectral_density_vs_mpmath() {
+        check("photon_density_of_states", 6.7e-16, |i| {
+            photon_density_of_states(i[0]).unwrap()
+        });
+        // Scale by max(1, E/kT): the rounding of x is amplified on the Wien side.
+        check_scaled(
+            "spectral_energy_density_energy",
+            1e-15,
+            |i| (i[0] / (1.380_649e-23 * i[1])).max(1.0),
+            |i| spectral_energy_density_energy(i[0], i[1]).unwrap(),
+        );
+    }
+
+    /// The radiation constant: u = aT⁴ with a = 7.565 733 250 280 00(47)e-16 J m⁻³ K⁻⁴ is the
+    /// CODATA 2018 value derived from σ (4σ/c; CODATA 2018, σ = 5.670 374 419…e-8 W m⁻² K⁻⁴).
+    #[test]
+    fn energy_density_codata_sigma() {
+        let sigma = 5.670_374_419e-8; // CODATA 2018, printed digits
+        let u = photon_energy_density(1000.0).unwrap();
+        assert!((u / (4.0 * sigma / 299_792_458.0 * 1e12) - 1.0).abs() < 1e-10);
     }
 }

@@ -29,6 +29,27 @@ function nowNs() {
   return Number(process.hrtime.bigint());
 }
 
+// Each measured case gets its OWN copy of the timing loop (compiled from source with
+// `new Function`), so the call `fn()` inside it stays monomorphic and V8 can inline it, as the
+// native harness's closure is inlined. A single shared loop would become megamorphic after the
+// first few cases and add ~10-40 ns of call overhead to every later case.
+const LOOP_SRC = `
+  let acc = 0;
+  for (let i = 0; i < iters; i += 1) {
+    const v = fn();
+    acc += typeof v === "number" ? v : v && v.length ? Number(v[0]) : 1;
+  }
+  return acc;
+`;
+let loops = 0;
+function makeLoop() {
+  // A unique comment makes the source unique, so V8's compilation cache cannot hand back a loop
+  // whose call-site feedback is shared with an earlier case.
+  loops += 1;
+  // eslint-disable-next-line no-new-func
+  return new Function("fn", "iters", `// timing loop ${loops}\n${LOOP_SRC}`);
+}
+
 /**
  * Times `fn` (called with no arguments).
  * @param {() => unknown} fn
@@ -40,12 +61,15 @@ export function measure(fn, opts = {}) {
   const sampleMs = opts.sampleMs ?? 10;
   const samples = opts.samples ?? 21;
   const maxMs = opts.maxMs ?? 4000;
+  const loop = makeLoop();
   const t0 = nowNs();
-  // Warm-up, also estimating the cost of one call.
+  // Warm-up in growing batches, also estimating the cost of one call.
   let calls = 0;
+  let batch = 1;
   while (nowNs() - t0 < warmupMs * 1e6 || calls < 3) {
-    consume(fn());
-    calls += 1;
+    sink += loop(fn, batch);
+    calls += batch;
+    if (batch < 1024) batch *= 2;
   }
   const perCall = (nowNs() - t0) / calls;
   const iters = Math.max(1, Math.ceil((sampleMs * 1e6) / perCall));
@@ -53,7 +77,7 @@ export function measure(fn, opts = {}) {
   const start = nowNs();
   for (let s = 0; s < samples; s += 1) {
     const a = nowNs();
-    for (let i = 0; i < iters; i += 1) consume(fn());
+    sink += loop(fn, iters);
     times.push((nowNs() - a) / iters);
     if (times.length >= 5 && nowNs() - start > maxMs * 1e6) break;
   }

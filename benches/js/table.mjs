@@ -24,8 +24,10 @@ const records = readFileSync(resultsPath, "utf8")
 
 const timed = new Map(); // "impl/case" -> record
 const meta = {};
+const skipped = [];
 for (const r of records) {
   if (r.meta) Object.assign((meta[r.impl] ??= {}), r);
+  else if (r.case && r.skipped) skipped.push(`${r.impl} ${r.case} (${r.skipped})`);
   else if (r.case) timed.set(`${r.impl}/${r.case}`, r);
 }
 const get = (impl, kase) => timed.get(`${impl}/${kase}`);
@@ -188,6 +190,8 @@ if (inst && inst.ns_median) {
 }
 
 console.log(lines.join("\n"));
+if (skipped.length) console.log(`\nNot measured in this run: ${skipped.join("; ")}.`);
+if (meta.wasm && meta.wasm.skipped) console.log(`\nwasm package not measured: ${meta.wasm.skipped}.`);
 
 // Target checklist (goals of the issue; never asserted in tests).
 const out = [];

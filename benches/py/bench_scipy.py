@@ -1,6 +1,7 @@
 #!/usr/bin/env python3
 """Baseline B: what a scientist would use - SciPy `integrate.quad` for band radiances and
-`optimize.brentq` (around quad) for the band inverse, with SciPy's default tolerances and a
+`optimize.brentq` (around quad) for the band inverse, quad with break points for the
+response-weighted signal, with SciPy's default tolerances and a
 plain Python Planck function (math.expm1).
 
 Emits one JSON line per case on stdout (same fields as the Rust and Node harnesses):
@@ -16,6 +17,7 @@ import statistics
 import sys
 import time
 
+import numpy as np
 import scipy
 from scipy import integrate, optimize
 
@@ -33,6 +35,13 @@ def planck(lam, t):
 
 def band(lo, hi, t):
     return integrate.quad(planck, lo, hi, args=(t,))[0]
+
+
+def response_signal(wl, resp, t):
+    """Response-weighted signal: quad of np.interp(R) * L over the response's support, with the
+    table's wavelengths as break points."""
+    return integrate.quad(lambda x: float(np.interp(x, wl, resp)) * planck(x, t), wl[0], wl[-1],
+                          args=(), points=wl[1:-1])[0]
 
 
 def band_inverse(lo, hi, radiance):
@@ -78,6 +87,11 @@ def main():
     emit("spectral_single", lambda: planck(10e-6, 300.0))
     emit("band_8_14_300", lambda: band(8e-6, 14e-6, 300.0), "quad, default tolerances")
     emit("band_1_2_1500", lambda: band(1e-6, 2e-6, 1500.0), "quad, default tolerances")
+    if ref is not None:
+        r = ref["cases"]["response_signal_400"]["inputs"]
+        wl, resp = np.array(r["wavelengths_m"]), np.array(r["response"])
+        emit("response_signal_400", lambda: response_signal(wl, resp, r["temperature_k"]),
+             "quad with the table points as break points, np.interp for R")
     emit("band_inverse_8_14", lambda: band_inverse(8e-6, 14e-6, inv_radiance),
          "brentq on [50, 5000] K around quad, default tolerances")
 

@@ -31,7 +31,29 @@ use super::tables::{ROBINSON_3_2, ROBINSON_5_2, ZETA_NONPOSITIVE, ZETA_POSITIVE}
 use crate::error::{self, Error, Result};
 use crate::float;
 
-/// The orders s of the Bose–Einstein integral [`bose_einstein_integral`] supports.
+/// The orders s of the Bose–Einstein integral [`bose_einstein_integral`] supports
+/// (dimensionless).
+///
+/// # Formula
+/// ```text
+/// s ∈ {3/2, 5/2} ∪ {2, 3, 4, …},   g_s(z) = Σ_{k≥1} z^k/k^s
+/// ```
+///
+/// # Errors
+/// None here; `Integer(n)` with n < 2 is rejected by [`bose_einstein_integral`] and
+/// [`BoseOrder::from_s`] with `UNSUPPORTED`.
+///
+/// # Accuracy
+/// Exact (a label).
+///
+/// # Examples
+/// ```
+/// use quantaband::stats::BoseOrder;
+/// assert_eq!(BoseOrder::FiveHalves.s(), 2.5);
+/// ```
+///
+/// # References
+/// - NIST DLMF §25.12, <https://dlmf.nist.gov/25.12>.
 #[derive(Debug, Clone, Copy, PartialEq, Eq, Hash)]
 pub enum BoseOrder {
     /// s = 3/2: number density of the ideal Bose gas, n·λ³ = g_{3/2}(z).
@@ -43,13 +65,27 @@ pub enum BoseOrder {
 }
 
 impl BoseOrder {
-    /// The order s as a number (1.5, 2.5 or n).
+    /// The order s as a number (1.5, 2.5 or n; dimensionless).
+    ///
+    /// # Formula
+    /// ```text
+    /// ThreeHalves → 3/2, FiveHalves → 5/2, Integer(n) → n
+    /// ```
+    ///
+    /// # Errors
+    /// None.
+    ///
+    /// # Accuracy
+    /// Exact (every u32 is an f64).
     ///
     /// # Examples
     /// ```
     /// use quantaband::stats::BoseOrder;
     /// assert_eq!(BoseOrder::Integer(3).s(), 3.0);
     /// ```
+    ///
+    /// # References
+    /// - NIST DLMF §25.12, <https://dlmf.nist.gov/25.12>.
     pub fn s(self) -> f64 {
         match self {
             BoseOrder::ThreeHalves => 1.5,
@@ -58,11 +94,19 @@ impl BoseOrder {
         }
     }
 
-    /// The order for a numeric s: 1.5, 2.5 or an integer ≥ 2 (up to 2³²−1).
+    /// The order for a numeric s (dimensionless): 1.5, 2.5 or an integer ≥ 2 (up to 2³²−1).
+    ///
+    /// # Formula
+    /// ```text
+    /// 1.5 → ThreeHalves, 2.5 → FiveHalves, n ∈ {2, 3, …} → Integer(n) (exact comparison)
+    /// ```
     ///
     /// # Errors
     /// [`Error::Unsupported`] for any other value (including NaN and s < 2 integers, where
     /// g_s(1) diverges).
+    ///
+    /// # Accuracy
+    /// Exact.
     ///
     /// # Examples
     /// ```
@@ -70,6 +114,9 @@ impl BoseOrder {
     /// assert_eq!(BoseOrder::from_s(4.0).unwrap(), BoseOrder::Integer(4));
     /// assert!(BoseOrder::from_s(1.0).is_err());
     /// ```
+    ///
+    /// # References
+    /// - NIST DLMF §25.12, <https://dlmf.nist.gov/25.12>.
     pub fn from_s(s: f64) -> Result<BoseOrder> {
         if s == 1.5 {
             Ok(BoseOrder::ThreeHalves)
@@ -166,7 +213,9 @@ pub(crate) fn bose_integral_unchecked(order: BoseOrder, z: f64) -> f64 {
             return direct_series(order, z);
         }
         if z == 1.0 {
-            return ZETA_POSITIVE[(n - 2) as usize];
+            if let Some(&zeta) = ZETA_POSITIVE.get(n.saturating_sub(2) as usize) {
+                return zeta;
+            }
         }
         return robinson_integer(n, float::ln(z));
     }
@@ -212,7 +261,7 @@ pub(crate) fn bose_integral_unchecked(order: BoseOrder, z: f64) -> f64 {
 /// // g_{3/2}(1) = ζ(3/2) = 2.612375348685488343… (DLMF §25.12, value from mpmath)
 /// let g = bose_einstein_integral(BoseOrder::ThreeHalves, 1.0).unwrap();
 /// assert!((g - 2.612_375_348_685_488).abs() < 1e-15);
-/// // g_2(1/2) = Li₂(1/2) = π²/12 − (ln 2)²/2 (DLMF 25.12.4 ff.)
+/// // g_2(1/2) = Li₂(1/2) = π²/12 − (ln 2)²/2 (DLMF §25.12, equation number not checked)
 /// let li2 = bose_einstein_integral(BoseOrder::Integer(2), 0.5).unwrap();
 /// let exact = std::f64::consts::PI.powi(2) / 12.0 - std::f64::consts::LN_2.powi(2) / 2.0;
 /// assert!((li2 - exact).abs() < 1e-15);

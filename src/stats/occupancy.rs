@@ -372,7 +372,7 @@ mod tests {
 
     #[test]
     fn be_small_x_limit() {
-        // n = 1/x − 1/2 + x/12 − … (Bernoulli expansion of 1/(eˣ−1), DLMF 24.2.1)
+        // n = 1/x − 1/2 + x/12 − … (Bernoulli expansion of 1/(eˣ−1), DLMF §24.2, from memory)
         let x = 1e-6;
         let n = be_unchecked(x);
         let series = 1.0 / x - 0.5 + x / 12.0;

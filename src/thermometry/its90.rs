@@ -34,11 +34,25 @@ pub enum FixedPoint {
 impl FixedPoint {
     /// The assigned temperature T90 of the fixed point, K (ITS-90 Table 1).
     ///
+    /// # Formula
+    /// ```text
+    /// Ag 1234.93 K, Au 1337.33 K, Cu 1357.77 K (freezing points, exact by definition)
+    /// ```
+    ///
+    /// # Errors
+    /// None.
+    ///
+    /// # Accuracy
+    /// Exact (defined values).
+    ///
     /// # Examples
     /// ```
     /// use quantaband::thermometry::its90::FixedPoint;
     /// assert_eq!(FixedPoint::Gold.temperature_k(), 1337.33);
     /// ```
+    ///
+    /// # References
+    /// Preston-Thomas, Metrologia 27, 3 (1990), Table 1.
     pub const fn temperature_k(self) -> f64 {
         match self {
             FixedPoint::Silver => 1234.93,

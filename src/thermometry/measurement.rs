@@ -52,7 +52,9 @@ pub struct Window {
     pub reflected_temperature_k: f64,
 }
 
-/// Conditions of a measurement: object emissivity, reflected surroundings, path and window.
+/// Conditions of a measurement: object emissivity, reflected surroundings, path and window (the
+/// symbols of the module docs' model; every function validates them with
+/// [`Conditions::validate`]).
 #[derive(Debug, Clone, Copy, PartialEq)]
 pub struct Conditions {
     /// Object emissivity ε in the instrument's band, (0, 1].
@@ -80,9 +82,27 @@ impl Conditions {
 
     /// Checks every field.
     ///
+    /// # Formula
+    /// ```text
+    /// ε, τ, τ_w ∈ (0, 1];  ρ_w ∈ [0, 1);  τ_w + ρ_w ≤ 1;  all temperatures finite and > 0 K
+    /// ```
+    ///
     /// # Errors
     /// `NonFinite`; `OutOfRange` for ε, τ, τ_w outside (0, 1], ρ_w outside [0, 1) or
     /// τ_w + ρ_w > 1 (arg `window.reflectance`); `NonPositiveTemperature` for a temperature ≤ 0.
+    ///
+    /// # Accuracy
+    /// Exact comparisons (τ_w + ρ_w may exceed 1 by 1e-15 for rounding).
+    ///
+    /// # Examples
+    /// ```
+    /// use quantaband::thermometry::measurement::Conditions;
+    /// let c = Conditions { emissivity: 0.0, ..Conditions::BLACKBODY };
+    /// assert_eq!(c.validate().unwrap_err().code(), "OUT_OF_RANGE");
+    /// ```
+    ///
+    /// # References
+    /// See the module docs.
     pub fn validate(&self) -> Result<()> {
         unit_interval_open_closed("emissivity", self.emissivity)?;
         temperature("reflected_temperature_k", self.reflected_temperature_k)?;

@@ -14,6 +14,7 @@
 // `!(x > 0.0)` is used on purpose throughout: it is also true for NaN.
 #![allow(clippy::neg_cmp_op_on_partial_ord)]
 
+pub mod frame;
 pub(crate) mod gauss_legendre;
 pub mod its90;
 mod kernel;
@@ -24,6 +25,7 @@ pub mod response;
 pub mod sakuma_hattori;
 pub mod uncertainty;
 
+pub use frame::{FrameConverter, FrameSummary};
 pub use its90::{
     its90_temperature, radiance_ratio, temperature_from_ratio, FixedPoint, RatioTemperatures,
 };

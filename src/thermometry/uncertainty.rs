@@ -2,8 +2,9 @@
 //! single-band measurement (model of [`super::measurement`]).
 //!
 //! # Method
-//! The measurement equation is F(T, p) = τ_w·[τ(ε S(T) + (1 − ε) S(T_refl)) + (1 − τ) S(T_path)]
-//! + window terms − signal = 0. Implicit differentiation gives every sensitivity coefficient
+//! The measurement equation is F(T, p) = 0 with
+//! F = τ_w·[τ(ε S(T) + (1 − ε) S(T_refl)) + (1 − τ) S(T_path)] plus the window terms minus the
+//! signal. Implicit differentiation gives every sensitivity coefficient
 //! analytically, ∂T/∂p = −(∂F/∂p)/(∂F/∂T), from the model's S and dS/dT only — no finite
 //! differences. The combined standard uncertainty follows the law of propagation of uncertainty
 //! for uncorrelated inputs, JCGM 100:2008 (GUM) eq. (10): u_c² = Σ (c_i·u_i)².

@@ -84,7 +84,7 @@ ETAS = ["-700", "-200", "-50", "-40", "-20", "-10", "-5", "-2", "-1.5", "-1.0001
 # dense grids around the method cut-offs of src/stats/fermi_dirac.rs (eta = -3 and 37) and a
 # sweep of the quadrature range
 ETAS += [f"{-4 + 0.25 * i:g}" for i in range(17)] + [f"{30 + 0.5 * i:g}" for i in range(21)]
-ETAS += [f"{-40 + 2.7 * i:.4g}" for i in range(30)]
+ETAS += [f"{-40 + 2.7 * i:.4g}" for i in range(30)] + [f"{0.7 * i + 0.05:.4g}" for i in range(53)]
 ETAS = sorted(set(ETAS), key=float)
 for j, js in [(mpf(-1) / 2, "-0.5"), (mpf(1) / 2, "0.5"), (mpf(3) / 2, "1.5")]:
     for es in ETAS:

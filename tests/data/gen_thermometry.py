@@ -1,7 +1,8 @@
 #!/usr/bin/env python3
 """Reference values for the radiation-thermometry tests (tests/thermometry_*.rs).
 
-Oracle: mpmath 1.3.0 at 40 significant digits. Nothing here reuses the crate's algorithms:
+Oracle: mpmath 1.3.0 at 60 significant digits (40 left mpmath.quad ~1e-11 short on the
+sharply weighted cold cases). Nothing here reuses the crate's algorithms:
   * response-weighted integrals use mpmath.quad (tanh-sinh) per table segment, not Gauss-Legendre;
   * temperatures are found with mpmath.findroot on the defining equation, never a closed-form
     inverse or the crate's safeguarded Newton;
@@ -18,7 +19,7 @@ import os
 
 import mpmath as mp
 
-mp.mp.dps = 40
+mp.mp.dps = 60
 
 H = mp.mpf("6.62607015e-34")
 C = mp.mpf("299792458")

@@ -1,0 +1,460 @@
+//! Whole-frame conversion of raw signals (camera counts or calibrated signals) to object
+//! temperatures through a Sakuma–Hattori calibration curve and the measurement equation.
+//!
+//! # Method
+//! Everything that is the same for the whole frame is hoisted out of the pixel loop by
+//! [`FrameConverter::new`]: the measurement equation's gain and background
+//! ([`Conditions::affine`]), the count-to-signal gain/offset and the curve constants. With
+//! signal = g·count + o and the Sakuma–Hattori inverse T = (c2/ln(1 + C/S_obj) − B)/A, each pixel
+//! needs
+//!
+//! ```text
+//! T = k1 / ln(1 + num/den) − k0
+//! scalar ε:   num = 1,          den = α·raw + β         α = g/(C·a),  β = (o − b)/(C·a)
+//! ε map:      num = C·K·ε_i,    den = g·raw + (o − b0) + K·S(T_refl)·ε_i
+//! k1 = c2/A,  k0 = B/A,  K = τ_w·τ,  a = K·ε,  b0 = b + a·S(T_refl) (the background at ε = 0)
+//! ```
+//!
+//! so each pixel costs one multiply–add, one logarithm and two divisions.
+//!
+//! The logarithm is a tailored kernel, [`fast_ln`]: w = 2^k·m with m ∈ [√½, √2) taken from the
+//! bits of w (k converted to f64 with the 2⁵² trick, so every step is a plain SIMD lane
+//! operation), then ln m = 2·atanh(s) = 2s·(1 + z/3 + z²/5 + z³/7 + z⁴/9 + z⁵/11) with
+//! s = (m − 1)/(m + 1) and z = s². Since |s| ≤ (√2 − 1)/(√2 + 1) = 0.1716, z ≤ 0.02944 and the neglected tail
+//! Σ_{j≥6} z^j/(2j + 1) is at most z⁶/(13(1 − z)) ≤ 5.2e-11 relative to ln m; with k ≠ 0 the
+//! relative error of k·ln 2 + ln m is smaller still. (A 128-entry table-driven logarithm was
+//! also tried: faster in a scalar build, slower once the loop is vectorised for simd128,
+//! because wasm has no gather.)
+//!
+//! Error bound. L = ln(1 + num/den) = c2/(A·T + B) = x (the Planck exponent) and
+//! T + B/A = k1/L, so a relative error δ in L gives |ΔT| = (T + B/A)·δ. δ is the 5.2e-11 of the
+//! series plus roundings: those of w = 1 + v (≤ 1.1e-16·w/(w − 1)·1/L relative, i.e. ≈ 1e-16/x²
+//! for small x) and a few ulp in the kernel. For every thermometer with λT ≤ 0.29 m·K (x ≥ 0.05:
+//! 14 µm up to 20 000 K) that is |ΔT| ≤ 1e-10·(T + B/A) — 0.3 µK at 3000 K, far below the
+//! 1 mK target. The sweep test in `tests/thermometry_frame.rs` measures the actual maximum
+//! against the closed-form f64 inverse. With f32 output the final rounding (≤ 6e-8·T)
+//! dominates.
+//!
+//! The loop is branch-free (invalid pixels are computed on a substitute value and replaced by
+//! NaN with a select) so LLVM can vectorise it, including to wasm simd128. The summary's minimum
+//! and maximum come from a second pass over the output on the integer bit patterns (positive
+//! floats order like their bits; NaN sorts above +∞), which vectorises where float min/max
+//! reductions do not.
+//!
+//! Invalid pixels — a non-finite input, a signal at or below the background the reflected,
+//! path and window terms give (no physical solution), an emissivity outside (0, 1], or a result
+//! that is not a positive finite temperature — become NaN and are counted in [`FrameSummary`].
+//!
+//! Cautions: a thermal image converted this way is a calculation from the given emissivity and
+//! conditions; it is not a substitute for a calibrated instrument and standard procedures, and
+//! must not be used for medical or fever screening.
+#![forbid(unsafe_code)]
+// Non-short-circuit `&` of comparisons keeps the pixel loop branch-free (vectorisable).
+#![allow(clippy::manual_range_contains)]
+
+use super::measurement::Conditions;
+use super::model::SignalModel;
+use super::sakuma_hattori::SakumaHattori;
+use crate::error::finite;
+use crate::{Error, Result};
+
+/// A pixel type that frames can be read from (`u16` counts, `f32`, `f64`). Sealed.
+pub trait FrameInput: Copy + sealed::Sealed {
+    /// The value as f64.
+    fn to_f64(self) -> f64;
+}
+/// A pixel type that temperatures can be written to (`f32`, `f64`). Sealed.
+pub trait FrameOutput: Copy + sealed::Sealed {
+    /// From an f64 temperature (rounded to nearest).
+    fn from_f64(v: f64) -> Self;
+    /// Smallest and largest non-NaN value of a slice of non-negative values and NaN (as f64).
+    fn min_max(values: &[Self]) -> (f64, f64);
+}
+
+mod sealed {
+    pub trait Sealed {}
+    impl Sealed for u16 {}
+    impl Sealed for f32 {}
+    impl Sealed for f64 {}
+}
+
+impl FrameInput for u16 {
+    #[inline(always)]
+    fn to_f64(self) -> f64 {
+        // Exact: 2^52 + x has x in its mantissa. Written with bits so it vectorises (wasm has
+        // no 64-bit integer to float lane conversion).
+        f64::from_bits(TWO52_BITS | u64::from(self)) - TWO52
+    }
+}
+impl FrameInput for f32 {
+    #[inline(always)]
+    fn to_f64(self) -> f64 {
+        f64::from(self)
+    }
+}
+impl FrameInput for f64 {
+    #[inline(always)]
+    fn to_f64(self) -> f64 {
+        self
+    }
+}
+// Non-negative floats order like their bit patterns; the positive NaN the loop writes has bits
+// above +∞, so an integer minimum skips it and the maximum masks it out.
+impl FrameOutput for f32 {
+    #[inline(always)]
+    fn from_f64(v: f64) -> Self {
+        v as f32
+    }
+    fn min_max(values: &[Self]) -> (f64, f64) {
+        let mut lo = i32::MAX;
+        let mut hi = 0i32;
+        for v in values {
+            let b = v.to_bits() as i32;
+            lo = lo.min(b);
+            hi = hi.max(if b <= 0x7f80_0000 { b } else { 0 });
+        }
+        (
+            f64::from(f32::from_bits(lo as u32)),
+            f64::from(f32::from_bits(hi as u32)),
+        )
+    }
+}
+impl FrameOutput for f64 {
+    #[inline(always)]
+    fn from_f64(v: f64) -> Self {
+        v
+    }
+    fn min_max(values: &[Self]) -> (f64, f64) {
+        let mut lo = i64::MAX;
+        let mut hi = 0i64;
+        for v in values {
+            let b = v.to_bits() as i64;
+            lo = lo.min(b);
+            hi = hi.max(if b <= 0x7ff0_0000_0000_0000 { b } else { 0 });
+        }
+        (f64::from_bits(lo as u64), f64::from_bits(hi as u64))
+    }
+}
+
+/// Counts of a converted frame.
+#[derive(Debug, Clone, Copy, PartialEq)]
+pub struct FrameSummary {
+    /// Pixels converted to a temperature.
+    pub valid: usize,
+    /// Pixels set to NaN (non-finite input, at/below background, bad emissivity).
+    pub invalid: usize,
+    /// Lowest temperature among valid pixels, K (NaN if none is valid).
+    pub min_temperature_k: f64,
+    /// Highest temperature among valid pixels, K (NaN if none is valid).
+    pub max_temperature_k: f64,
+}
+
+const LN2: f64 = core::f64::consts::LN_2;
+/// bits of √½ (rounded): subtracting them makes the exponent field of w the k of w = 2^k·m.
+const SQRT_HALF_BITS: u64 = 0x3fe6_a09e_667f_3bcd;
+/// 2^52 as f64 bits: OR-ing a small integer into the mantissa and subtracting 2^52 converts it.
+const TWO52_BITS: u64 = 0x4330_0000_0000_0000;
+const TWO52: f64 = 4_503_599_627_370_496.0;
+
+/// Natural logarithm for w ≥ 1 (finite), relative error ≤ 5.2e-11 plus a few ulp (see the module
+/// docs); branch-free lane arithmetic so that it vectorises.
+///
+/// # Formula
+/// ```text
+/// w = 2^k·m, m ∈ [√½, √2);  s = (m − 1)/(m + 1),  z = s²
+/// ln w ≈ k·ln 2 + 2s·(1 + z/3 + z²/5 + z³/7 + z⁴/9 + z⁵/11)
+/// ```
+///
+/// # Errors
+/// None; the result is meaningless for w < √½ or non-finite w (the frame loop never passes
+/// such values).
+///
+/// # Accuracy
+/// Truncation ≤ z⁶/(13(1 − z)) ≤ 5.2e-11 relative; the measured maximum relative error over
+/// w ∈ [1 + 1e-12, 1e300] is stated in `tests/thermometry_frame.rs`.
+///
+/// # Examples
+/// ```
+/// use quantaband::thermometry::frame::fast_ln;
+/// assert!((fast_ln(10.0) / 10f64.ln() - 1.0).abs() < 1e-10);
+/// ```
+///
+/// # References
+/// Range reduction with an exponent offset of √½ as in FreeBSD/musl `log` — from memory;
+/// series ln m = 2·atanh((m − 1)/(m + 1)): Abramowitz & Stegun 4.1.27.
+#[inline(always)]
+pub fn fast_ln(w: f64) -> f64 {
+    let bits = w.to_bits();
+    // For w ≥ √½ the difference is non-negative, so a logical shift gives k.
+    let k = bits.wrapping_sub(SQRT_HALF_BITS) >> 52;
+    let m = f64::from_bits(bits.wrapping_sub(k << 52));
+    let kf = f64::from_bits(TWO52_BITS | k) - TWO52;
+    let f = m - 1.0;
+    let s = f / (2.0 + f);
+    let z = s * s;
+    let p = 1.0
+        + z * (1.0 / 3.0 + z * (1.0 / 5.0 + z * (1.0 / 7.0 + z * (1.0 / 9.0 + z * (1.0 / 11.0)))));
+    kf * LN2 + 2.0 * s * p
+}
+
+/// Per-frame constants of the conversion (see the module docs for the formula, the error bound
+/// and its measurement). Build once per frame (or whenever the conditions change) and convert
+/// any number of frames; construction and use are shown at [`FrameConverter::new`].
+#[derive(Debug, Clone, Copy, PartialEq)]
+pub struct FrameConverter {
+    alpha: f64,
+    beta: f64,
+    k1: f64,
+    k0: f64,
+    // emissivity-map form: num = ck·ε, den = g·raw + o_minus_b0 + ks_r·ε
+    ck: f64,
+    gain: f64,
+    o_minus_b0: f64,
+    ks_r: f64,
+    background: f64,
+}
+
+impl FrameConverter {
+    /// Prepares the conversion of raw values with signal = `gain`·raw + `offset` (use 1 and 0 for
+    /// frames that already hold signals in the curve's unit) through `curve` under
+    /// `conditions`.
+    ///
+    /// # Formula
+    /// ```text
+    /// signal = gain·raw + offset;   signal = a·S(T_obj) + b  (Conditions::affine with the curve)
+    /// ```
+    ///
+    /// # Errors
+    /// `NonFinite` for gain/offset; `NonPositive` for gain ≤ 0; as [`Conditions::validate`];
+    /// errors of the curve at the background temperatures.
+    ///
+    /// # Accuracy
+    /// See the module docs.
+    ///
+    /// # Examples
+    /// ```
+    /// use quantaband::thermometry::frame::FrameConverter;
+    /// use quantaband::thermometry::measurement::Conditions;
+    /// use quantaband::thermometry::model::SignalModel;
+    /// use quantaband::thermometry::sakuma_hattori::SakumaHattori;
+    /// // an invented 8–14 µm microbolometer core: 0.01 signal units per count, offset −100
+    /// let curve = SakumaHattori::new(1.0e-5, 1.8e-4, 1.0e6, Default::default()).unwrap();
+    /// let conv = FrameConverter::new(&curve, &Conditions::BLACKBODY, 0.01, -100.0).unwrap();
+    /// let counts: [u16; 3] = [0, 20000, 40000];
+    /// let mut out = [0f32; 3];
+    /// let sum = conv.convert(&counts, &mut out).unwrap();
+    /// assert_eq!((sum.valid, sum.invalid), (2, 1)); // count 0 gives a negative signal
+    /// assert!(out[0].is_nan());
+    /// let t = curve.temperature(0.01 * 20000.0 - 100.0).unwrap();
+    /// assert!((out[1] as f64 - t).abs() < 1e-3);
+    /// ```
+    ///
+    /// # References
+    /// See the module docs.
+    pub fn new(
+        curve: &SakumaHattori,
+        conditions: &Conditions,
+        gain: f64,
+        offset: f64,
+    ) -> Result<Self> {
+        crate::error::positive("gain", gain)?;
+        finite("offset", offset)?;
+        let (a, b) = conditions.affine(curve)?;
+        let c = curve.c();
+        let alpha = gain / (c * a);
+        let beta = (offset - b) / (c * a);
+        let k1 = curve.c2_mk() / curve.a_m();
+        let k0 = curve.b_mk() / curve.a_m();
+        // Emissivity-map form: K = τ_w·τ, the background at ε = 0 and the reflected-term slope.
+        let unit_eps = Conditions {
+            emissivity: 1.0,
+            ..*conditions
+        };
+        let (k_gain, _) = unit_eps.affine(curve)?; // = τ_w·τ
+        let s_r = curve.signal(conditions.reflected_temperature_k)?;
+        let b0 = b + a * s_r; // b(ε) = b0 − K·ε·S_r, and a = K·ε
+        let ck = c * k_gain;
+        let ks_r = k_gain * s_r;
+        if ![alpha, beta, k1, k0, ck, b0, ks_r]
+            .iter()
+            .all(|v| v.is_finite())
+        {
+            return Err(Error::NoSolution {
+                what: "frame constants overflow: gain/(C*emissivity*transmittance) out of the f64 range",
+            });
+        }
+        Ok(FrameConverter {
+            alpha,
+            beta,
+            k1,
+            k0,
+            ck,
+            gain,
+            o_minus_b0: offset - b0,
+            ks_r,
+            background: b,
+        })
+    }
+
+    /// The background signal b (reflected, path and window terms) for the frame's scalar
+    /// emissivity, in the curve's unit.
+    pub fn background(&self) -> f64 {
+        self.background
+    }
+
+    /// T = k1/ln(1 + num/den) − k0 for one pixel, and whether it is valid.
+    #[inline(always)]
+    fn finish(&self, num: f64, den: f64, ok: bool) -> (f64, bool) {
+        // Substitute a harmless value for invalid pixels so the arithmetic stays branch-free.
+        let w = if ok { 1.0 + num / den } else { 2.0 };
+        let t = self.k1 / fast_ln(w) - self.k0;
+        let ok = ok & (t > 0.0) & (t < f64::INFINITY);
+        (t, ok)
+    }
+
+    /// Converts a frame with the scalar conditions given to [`FrameConverter::new`]; `out_k`
+    /// (same length) receives temperatures in K, NaN for invalid pixels.
+    ///
+    /// # Formula
+    /// See the module docs.
+    ///
+    /// # Errors
+    /// `LengthMismatch` if `out_k` and `raw` differ in length.
+    ///
+    /// # Accuracy
+    /// |ΔT| ≤ 1e-10·(T + B/A) for x = c2/(A·T + B) ≥ 0.05, plus the output rounding (module
+    /// docs);
+    /// measured in `tests/thermometry_frame.rs`.
+    ///
+    /// # Examples
+    /// See [`FrameConverter::new`].
+    ///
+    /// # References
+    /// See the module docs.
+    pub fn convert<I: FrameInput, O: FrameOutput>(
+        &self,
+        raw: &[I],
+        out_k: &mut [O],
+    ) -> Result<FrameSummary> {
+        if raw.len() != out_k.len() {
+            return Err(Error::LengthMismatch {
+                expected: raw.len(),
+                got: out_k.len(),
+            });
+        }
+        let n = raw.len();
+        Ok(drive(
+            out_k,
+            |i| {
+                let den = self.alpha * raw[i].to_f64() + self.beta;
+                // den below the normal range means S_obj ≤ 2.2e-308·C: treated as no signal.
+                let ok = (den >= f64::MIN_POSITIVE) & (den < f64::INFINITY);
+                self.finish(1.0, den, ok)
+            },
+            n,
+        ))
+    }
+
+    /// Converts a frame with a per-pixel emissivity map (`emissivity`, same length as `raw`)
+    /// replacing the scalar emissivity; the other conditions stay per-frame.
+    ///
+    /// # Formula
+    /// ```text
+    /// num_i = C·K·ε_i,  den_i = g·raw_i + (o − b0) + K·S(T_refl)·ε_i,   K = τ_w·τ
+    /// T_i = k1/(ln(den_i + num_i) − ln(den_i)) − k0
+    /// ```
+    ///
+    /// # Errors
+    /// `LengthMismatch` if the three slices differ in length. Pixels with ε outside (0, 1] are
+    /// invalid (NaN), not an error.
+    ///
+    /// # Accuracy
+    /// As [`FrameConverter::convert`].
+    ///
+    /// # Examples
+    /// ```
+    /// use quantaband::thermometry::frame::FrameConverter;
+    /// use quantaband::thermometry::measurement::{object_temperature, Conditions};
+    /// use quantaband::thermometry::sakuma_hattori::SakumaHattori;
+    /// let curve = SakumaHattori::new(1.0e-5, 1.8e-4, 1.0e6, Default::default()).unwrap();
+    /// let cond = Conditions { reflected_temperature_k: 300.0, ..Conditions::BLACKBODY };
+    /// let conv = FrameConverter::new(&curve, &cond, 1.0, 0.0).unwrap();
+    /// let raw = [20000.0f64, 20000.0];
+    /// let eps = [0.9f32, 1.5];
+    /// let mut out = [0f64; 2];
+    /// let sum = conv.convert_with_emissivity(&raw, &eps, &mut out).unwrap();
+    /// assert_eq!(sum.invalid, 1);
+    /// let exact = object_temperature(&curve, 20000.0, &Conditions { emissivity: 0.9f32 as f64, ..cond }).unwrap();
+    /// assert!((out[0] - exact).abs() < 1e-4);
+    /// ```
+    ///
+    /// # References
+    /// See the module docs.
+    pub fn convert_with_emissivity<I: FrameInput, E: FrameInput, O: FrameOutput>(
+        &self,
+        raw: &[I],
+        emissivity: &[E],
+        out_k: &mut [O],
+    ) -> Result<FrameSummary> {
+        if emissivity.len() != raw.len() {
+            return Err(Error::LengthMismatch {
+                expected: raw.len(),
+                got: emissivity.len(),
+            });
+        }
+        if raw.len() != out_k.len() {
+            return Err(Error::LengthMismatch {
+                expected: raw.len(),
+                got: out_k.len(),
+            });
+        }
+        let n = raw.len();
+        Ok(drive(
+            out_k,
+            |i| {
+                let eps = emissivity[i].to_f64();
+                let den = self.gain * raw[i].to_f64() + self.o_minus_b0 + self.ks_r * eps;
+                let num = self.ck * eps;
+                let ok = (eps > 0.0)
+                    & (eps <= 1.0)
+                    & (den >= f64::MIN_POSITIVE)
+                    & (den < f64::INFINITY)
+                    & (num >= f64::MIN_POSITIVE);
+                self.finish(num, den, ok)
+            },
+            n,
+        ))
+    }
+}
+
+/// Runs `pixel` over indices 0..n (n = out.len(), the inputs already checked to be as long),
+/// writing T or NaN and counting valid pixels; then takes min/max in a second pass.
+#[inline(always)]
+fn drive<O: FrameOutput, F: Fn(usize) -> (f64, bool)>(
+    out: &mut [O],
+    pixel: F,
+    n: usize,
+) -> FrameSummary {
+    let m = n.min(out.len());
+    let out = &mut out[..m];
+    let mut valid = 0usize;
+    for (i, o) in out.iter_mut().enumerate() {
+        let (t, ok) = pixel(i);
+        *o = O::from_f64(if ok { t } else { f64::NAN });
+        valid += usize::from(ok);
+    }
+    if valid == 0 {
+        return summary(m, 0, f64::NAN, f64::NAN);
+    }
+    let (lo, hi) = O::min_max(out);
+    summary(m, valid, lo, hi)
+}
+
+fn summary(n: usize, valid: usize, lo: f64, hi: f64) -> FrameSummary {
+    FrameSummary {
+        valid,
+        invalid: n - valid,
+        min_temperature_k: lo,
+        max_temperature_k: hi,
+    }
+}
