@@ -694,7 +694,7 @@ pub fn object_temperature_array(
             // the same steps as thermometry::object_temperature, with the affine form hoisted
             finite("signal", s)?;
             let net = s - bg;
-            if !(net > 0.0) {
+            if net.is_nan() || net <= 0.0 {
                 return Err(Error::NoPhysicalSolution {
                     signal: s,
                     background: bg,
