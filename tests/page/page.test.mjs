@@ -132,6 +132,72 @@ test('occupancy: photon number and quantum noise temperature match the mpmath re
   await context.close();
 });
 
+test('signal → temperature: band and spectral readings invert the mpmath reference radiances', async () => {
+  const t = thermo();
+  const band = t.integrals.find((r) => r.response === 'rect_8_14um' && r.temperature_k === 250);
+  const point = t.spectral_points.find((p) => p.wavelength_m === 1e-5 && p.temperature_k === 300);
+  const { page, context, consoleErrors } = await open(browser);
+  assert.match(await page.getAttribute('body', 'data-sections'), /signal/, 'signal section present');
+  await select(page, 'sg-tu', 'K');
+  await select(page, 'sg-su', 'um');
+  await select(page, 'sg-mode', 'band');
+  await setValue(page, 'sg-lo', '8');
+  await setValue(page, 'sg-hi', '14');
+  await setValue(page, 'sg-eps', '1');
+  await setValue(page, 'sg-tau', '1');
+  await setValue(page, 'sg-sig', String(band.signal));
+  assert.equal(await page.getAttribute('#signal', 'data-state'), 'ok');
+  assert.ok(Math.abs(num(await resultText(page, 'sg-res', 't')) - 250) < 1e-4, await resultText(page, 'sg-res', 't'));
+  // Sensitivity to the signal: ∂T/∂S = 1/(dS/dT) with ε = τ = 1 (reference dS/dT).
+  const cells = await page.$$eval('#sg-table tbody tr', (trs) => trs.map((tr) => [...tr.children].map((c) => c.textContent)));
+  const sigRow = cells.find((r) => r[0] === 'Signal');
+  assert.ok(rel(num(sigRow[3]), 1 / band.d_signal_dt) < 1e-4, sigRow[3]); // shown with 5 digits
+  // GUM eq. (10), uncorrelated inputs: u_c² = Σ (|c_i|·u_i)²  (JCGM 100:2008).
+  const contributions = cells.filter((r) => r[0] !== 'Combined standard uncertainty u_c').map((r) => num(r[4]));
+  const combined = num(cells.find((r) => r[0] === 'Combined standard uncertainty u_c')[4]);
+  const rss = Math.sqrt(contributions.reduce((a, c) => a + c * c, 0));
+  assert.ok(rel(rss, combined) < 5e-3, `${rss} vs ${combined}`); // contributions are shown with 3 digits
+  await page.locator('#signal').screenshot({ path: resolve(ARTIFACTS, 'section-signal-band.png') });
+
+  await select(page, 'sg-mode', 'spectral');
+  await setValue(page, 'sg-x', '10');
+  await setValue(page, 'sg-sig', String(point.radiance * 1e-6)); // W m^-2 sr^-1 µm^-1
+  assert.ok(Math.abs(num(await resultText(page, 'sg-res', 't')) - 300) < 1e-4, await resultText(page, 'sg-res', 't'));
+  // A signal below what the reflected surroundings alone give has no physical solution.
+  await setValue(page, 'sg-eps', '0.5');
+  await setValue(page, 'sg-tr', '400');
+  assert.equal(await page.getAttribute('#sg-sig-msg', 'data-code'), 'NO_PHYSICAL_SOLUTION');
+  assert.deepEqual(consoleErrors, []);
+  await context.close();
+});
+
+test('calibration: a Sakuma–Hattori fit through three reference band signals reproduces them', async () => {
+  const t = thermo();
+  const pts = [250, 300, 600].map((k) => t.integrals.find((r) => r.response === 'rect_8_14um' && r.temperature_k === k));
+  const moments = t.response_moments.find((m) => m.response === 'rect_8_14um');
+  const { page, context, consoleErrors } = await open(browser);
+  assert.match(await page.getAttribute('body', 'data-sections'), /calib/, 'calibration section present');
+  await select(page, 'cf-tu', 'K');
+  await page.fill('#cf-resp', '# rectangular 8-14 um\n8, 1\n14, 1');
+  await page.fill('#cf-pts', pts.map((p) => `${p.temperature_k}, ${p.signal}`).join('\n'));
+  await setValue(page, 'cf-eps', '1');
+  await setValue(page, 'cf-tau', '1');
+  await setValue(page, 'cf-sig', String(pts[1].signal));
+  await setValue(page, 'cf-usig', '0');
+  assert.equal(await page.getAttribute('#calib', 'data-state'), 'ok', await page.textContent('#calib-msg'));
+  assert.ok(rel(num(await resultText(page, 'cf-fit', 'lm')), moments.mean_m * 1e6) < 1e-6);
+  assert.ok(rel(num(await resultText(page, 'cf-fit', 'ls')), moments.spread_m * 1e6) < 1e-5);
+  // Three points, three parameters: the curve passes through them.
+  assert.ok(Math.abs(num(await resultText(page, 'cf-fit', 'rmax'))) < 1e-3, await resultText(page, 'cf-fit', 'rmax')); // mK
+  assert.ok(Math.abs(num(await resultText(page, 'cf-res', 't')) - 300) < 1e-5, await resultText(page, 'cf-res', 't'));
+  // Too few points: the core's TOO_FEW_POINTS under the points field.
+  await page.fill('#cf-pts', '300, 54.9');
+  await settle(page);
+  assert.equal(await page.getAttribute('#cf-pts-msg', 'data-code'), 'TOO_FEW_POINTS');
+  assert.deepEqual(consoleErrors, []);
+  await context.close();
+});
+
 test('bad input shows the core error message inline, keeps the code, and recovers', async () => {
   const { page, context, consoleErrors } = await open(browser);
   await select(page, 'sp-tu', 'K');

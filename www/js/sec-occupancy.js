@@ -12,7 +12,7 @@ let last = null;
 
 export const occupancySection = {
   id: 'occupancy',
-  available: () => api.has('boseEinsteinEnergy', 'fermiDiracEnergy', 'maxwellBoltzmannEnergy', 'thermalPhotonNumber', 'quantumNoiseTemperature', 'convertSpectral', 'convertTemperature'),
+  available: () => api.has('boseEinsteinEnergy', 'fermiDiracEnergy', 'maxwellBoltzmannEnergy', 'thermalPhotonNumber', 'convertSpectral', 'convertTemperature'),
   wire() {
     $('oc-csv').addEventListener('click', () => last && download('quantaband-occupancy.csv', last.csv));
   },
@@ -61,11 +61,8 @@ export const occupancySection = {
     const f = tag('oc-f', () => api.spectralToSi(readNum('oc-f'), 'GHz'));
     const tf = readKelvin('oc-ft', 'oc-tu');
     const n = tag('oc-f', () => api.photonNumber(f, tf));
-    const tn = api.noiseTemperature(f, tf);
-    const items = [
-      ['n', 'Thermal photon number n̄', fmt(n, 7), 'photons per mode'],
-      ['tnoise', 'Noise temperature (hf/2k)·coth(hf/2kT)', fmt(tn, 7), 'K', true],
-    ];
+    const items = [['n', 'Thermal photon number n̄', fmt(n, 7), 'photons per mode', true]];
+    if (api.has('quantumNoiseTemperature')) items.push(['tnoise', 'Noise temperature (hf/2k)·coth(hf/2kT)', fmt(api.noiseTemperature(f, tf), 7), 'K', true]);
     if (api.has('rayleighJeansBrightnessTemperature')) items.push(['trj', 'Rayleigh–Jeans brightness temperature', fmt(api.rayleighJeansTemperature(f, tf), 7), 'K']);
     if (api.has('availableNoisePowerDensity', 'availableNoisePowerDensityWithZeroPoint')) {
       items.push(['p', 'Available noise power per bandwidth, n̄·hf', fmt(api.noisePower(f, tf, false), 7), 'W/Hz']);
