@@ -283,3 +283,54 @@ test('printing one section gives a one-page record', async () => {
   assert.equal(pages, 1, `band section prints on ${pages} page(s)`);
   await context.close();
 });
+
+test('plot readout follows the pointer and the arrow keys', async () => {
+  const { page, context } = await open(browser);
+  const svg = page.locator('#sp-plot svg');
+  await svg.scrollIntoViewIfNeeded();
+  const box = await svg.boundingBox();
+  await page.mouse.move(box.x + box.width * 0.5, box.y + box.height * 0.5);
+  const text1 = await page.textContent('#sp-plot-readout');
+  assert.match(text1, /wavelength = [0-9.]+ µm/);
+  assert.match(text1, /K: [0-9.]+/);
+  await svg.focus();
+  for (let i = 0; i < 5; i++) await page.keyboard.press('ArrowRight');
+  const text2 = await page.textContent('#sp-plot-readout');
+  assert.notEqual(text2, text1);
+  await context.close();
+});
+
+test('text keeps WCAG AA contrast (≥ 4.5:1) against its background', async () => {
+  const { page, context } = await open(browser);
+  // Relative luminance and contrast ratio as defined in WCAG 2.1 (§1.4.3, "relative luminance").
+  const worst = await page.evaluate(() => {
+    const parse = (c) => (c.match(/[\d.]+/g) || []).map(Number);
+    const lum = ([r, g, b]) => {
+      const f = (v) => { v /= 255; return v <= 0.03928 ? v / 12.92 : ((v + 0.055) / 1.055) ** 2.4; };
+      return 0.2126 * f(r) + 0.7152 * f(g) + 0.0722 * f(b);
+    };
+    const bgOf = (el) => {
+      for (let e = el; e; e = e.parentElement) {
+        const c = parse(getComputedStyle(e).backgroundColor);
+        if (c.length === 3 || (c.length === 4 && c[3] > 0.5)) return c.slice(0, 3);
+      }
+      return [255, 255, 255];
+    };
+    const out = [];
+    for (const el of document.querySelectorAll('label, legend, dt, dd, td, th, p, li, button, h1, h2, h3, caption, figcaption, .readout, input, select, textarea, a')) {
+      if (!el.textContent.trim() && !('value' in el)) continue;
+      if (el.closest('[hidden]') || el.offsetParent === null) continue;
+      const cs = getComputedStyle(el);
+      const fg = parse(cs.color).slice(0, 3);
+      const l1 = lum(fg);
+      const l2 = lum(bgOf(el));
+      const ratio = (Math.max(l1, l2) + 0.05) / (Math.min(l1, l2) + 0.05);
+      out.push({ ratio, what: `${el.tagName}#${el.id || ''}.${el.className || ''} "${el.textContent.trim().slice(0, 30)}"` });
+    }
+    out.sort((a, b) => a.ratio - b.ratio);
+    return out.slice(0, 3);
+  });
+  assert.ok(worst.length > 0);
+  assert.ok(worst[0].ratio >= 4.5, `lowest contrast ${worst[0].ratio.toFixed(2)} at ${worst[0].what}`);
+  await context.close();
+});

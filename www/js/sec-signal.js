@@ -25,7 +25,7 @@ export function fillBudget(table, budget, units) {
     INPUT_NAMES[e.input] || e.input,
     `${fmt(e.value, 6)} ${units[e.input] || ''}`.trim(),
     `${fmt(e.standardUncertainty, 3)} ${units[e.input] || ''}`.trim(),
-    `${fmt(e.sensitivity, 5)} K/${units[e.input] || '1'}`,
+    `${fmt(e.sensitivity, 5)} K/${/[·/]/.test(units[e.input] || '') ? `(${units[e.input]})` : units[e.input] || '1'}`,
     `${fmt(e.contributionK, 3)} K`,
     `${fmt(100 * e.varianceShare, 3)} %`,
   ]);
