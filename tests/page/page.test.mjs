@@ -334,3 +334,43 @@ test('text keeps WCAG AA contrast (≥ 4.5:1) against its background', async () 
   assert.ok(worst[0].ratio >= 4.5, `lowest contrast ${worst[0].ratio.toFixed(2)} at ${worst[0].what}`);
   await context.close();
 });
+
+test('frame: the invented scene converts to a temperature map with the dead pixels flagged', async () => {
+  const { page, context, consoleErrors } = await open(browser);
+  assert.ok(await page.$('#cf-canvas'), 'frame view present (convertFrame bound)');
+  assert.equal(num(await resultText(page, 'cf-frame-res', 'invalid')), 5, 'five dead pixels are invalid');
+  assert.equal(num(await resultText(page, 'cf-frame-res', 'valid')), 160 * 120 - 5);
+  // The colour scale's CIE 1976 lightness L* (sRGB, IEC 61966-2-1 transfer function) rises
+  // monotonically from the bottom (cold) to the top (hot) row.
+  const lum = await page.evaluate(() => {
+    const c = document.getElementById('cf-scale');
+    const d = c.getContext('2d').getImageData(0, 0, 1, 256).data;
+    const lin = (v) => { v /= 255; return v <= 0.04045 ? v / 12.92 : ((v + 0.055) / 1.055) ** 2.4; };
+    const out = [];
+    for (let i = 0; i < 256; i++) {
+      const Y = 0.2126 * lin(d[4 * i]) + 0.7152 * lin(d[4 * i + 1]) + 0.0722 * lin(d[4 * i + 2]);
+      out.push(Y > 216 / 24389 ? 116 * Math.cbrt(Y) - 16 : (24389 / 27) * Y);
+    }
+    return out;
+  });
+  for (let i = 1; i < 256; i++) assert.ok(lum[i] < lum[i - 1], `scale lightness not monotone at row ${i}`);
+  assert.ok(lum[0] - lum[255] > 80, 'the scale spans most of the lightness range');
+  // Pointer readout over the conveyor mesh (pixel 4, 4): reads colder with one frame emissivity (0.93)
+  // than with the scene's emissivity map (mesh 0.35).
+  const canvas = page.locator('#cf-canvas');
+  await canvas.scrollIntoViewIfNeeded();
+  const box = await canvas.boundingBox();
+  const at = async () => {
+    await page.mouse.move(box.x + (4.5 / 160) * box.width, box.y + (4.5 / 120) * box.height);
+    return Number(await page.getAttribute('#cf-canvas', 'data-readout-k'));
+  };
+  const single = await at();
+  await page.check('#cf-emap');
+  await settle(page);
+  const mapped = await at();
+  assert.ok(Number.isFinite(single) && Number.isFinite(mapped));
+  assert.ok(mapped > single + 20, `emissivity map raises the mesh reading (${single} → ${mapped} K)`);
+  await page.locator('#calib').screenshot({ path: resolve(ARTIFACTS, 'section-calib-emissivity-map.png') });
+  assert.deepEqual(consoleErrors, []);
+  await context.close();
+});

@@ -18,9 +18,13 @@ function signalScale(model) {
   return model.kind === 'spectral' ? 1 / api.spectralToSi(1, model.unit) : 1;
 }
 
-/** The frame-conversion binding, once the package has one (null until then). */
+/** The frame-conversion binding as (curve, counts, gain, offset, cond, emissivityMap?) → frame. */
 function frameFn() {
-  return null;
+  if (!qb || typeof qb.convertFrame !== 'function') return null;
+  return (curve, counts, gain, offset, cond, emissivity) => {
+    const r = qb.convertFrame(curve, counts, { gain, offset, conditions: cond, ...(emissivity ? { emissivity } : {}) });
+    return { temperaturesK: r.temperaturesK, valid: r.valid, invalid: r.invalid, minK: r.minTemperatureK, maxK: r.maxTemperatureK };
+  };
 }
 
 /** Installs the initialised package. */
@@ -182,7 +186,7 @@ export const api = {
   toKelvinArray(values, unit) {
     return fn('convertTemperatureArray')(values, unit, 'K');
   },
-  convertFrame(model, counts, gain, offset, cond) {
-    return frameFn()(instrument(model), counts, gain, offset, cond);
+  convertFrame(model, counts, gain, offset, cond, emissivityMap) {
+    return frameFn()(instrument(model), counts, gain, offset, cond, emissivityMap);
   },
 };

@@ -181,7 +181,8 @@ export const calibSection = {
     const offset = 0;
     const counts = new Uint16Array(sceneSignal.length);
     for (let i = 0; i < counts.length; i++) counts[i] = scene.dead[i] ? 0 : Math.min(65535, Math.round((sceneSignal[i] - offset) / gain));
-    const out = api.convertFrame(model, counts, gain, offset, cond);
+    const emap = $('cf-emap').checked ? Float32Array.from(scene.emissivity) : null;
+    const out = api.convertFrame(model, counts, gain, offset, cond, emap);
     frame = { ...out, counts };
     const minShown = api.fromKelvin(out.minK, tUnit);
     const maxShown = api.fromKelvin(out.maxK, tUnit);
