@@ -171,6 +171,41 @@ test('signal → temperature: band and spectral readings invert the mpmath refer
   await context.close();
 });
 
+test('signal → temperature: the two-band ratio inverts band radiances computed by the band section', async () => {
+  const { page, context, consoleErrors } = await open(browser);
+  // Forward: band radiances at 800 K from the band section's sweep CSV (full precision).
+  const bandAt800 = async (lo, hi) => {
+    await select(page, 'bd-su', 'um');
+    await select(page, 'bd-tu', 'K');
+    await setValue(page, 'bd-lo', lo);
+    await setValue(page, 'bd-hi', hi);
+    await setValue(page, 'bd-t0', '800');
+    await setValue(page, 'bd-t1', '900');
+    await setValue(page, 'bd-n', '2');
+    return parseCsv((await downloadText(page, '#bd-csv')).text).rows.find((r) => r[1] === 800)[2];
+  };
+  const ratio = (await bandAt800('3', '5')) / (await bandAt800('8', '14'));
+  // Inverse: the ratio reading of the signal section (grey body, ε1/ε2 = 1) gives 800 K back.
+  await select(page, 'sg-mode', 'ratio');
+  await select(page, 'sg-su', 'um');
+  await select(page, 'sg-tu', 'K');
+  await setValue(page, 'sg-r1lo', '3');
+  await setValue(page, 'sg-r1hi', '5');
+  await setValue(page, 'sg-r2lo', '8');
+  await setValue(page, 'sg-r2hi', '14');
+  await setValue(page, 'sg-er', '1');
+  await setValue(page, 'sg-ratio', String(ratio));
+  assert.equal(await page.getAttribute('#signal', 'data-state'), 'ok', await page.textContent('#signal'));
+  assert.ok(Math.abs(num(await resultText(page, 'sg-res', 't')) - 800) < 1e-3, await resultText(page, 'sg-res', 't'));
+  // Bands in the wrong order: the core's UNSUPPORTED message under the ratio field.
+  await setValue(page, 'sg-r1lo', '9');
+  await setValue(page, 'sg-r1hi', '12');
+  assert.ok(['UNSUPPORTED', 'NO_SOLUTION'].includes(await page.getAttribute('#sg-ratio-msg', 'data-code')));
+  await page.locator('#signal').screenshot({ path: resolve(ARTIFACTS, 'section-signal-ratio.png') });
+  assert.deepEqual(consoleErrors, []);
+  await context.close();
+});
+
 test('calibration: a Sakuma–Hattori fit through three reference band signals reproduces them', async () => {
   const t = thermo();
   const pts = [250, 300, 600].map((k) => t.integrals.find((r) => r.response === 'rect_8_14um' && r.temperature_k === k));
