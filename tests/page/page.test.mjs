@@ -308,14 +308,21 @@ test('keyboard: Tab walks the band inputs in order, each labelled and visibly fo
   await context.close();
 });
 
-test('printing one section gives a one-page record', async () => {
+test('printing a section gives a one-page record (each section)', async () => {
   const { page, context } = await open(browser);
-  await page.evaluate(() => window.quantabandPrintSection('band'));
-  await page.emulateMedia({ media: 'print' });
-  await page.screenshot({ path: resolve(ARTIFACTS, 'print-band.png'), fullPage: true });
-  const pdf = await page.pdf({ format: 'A4', printBackground: false });
-  const pages = (pdf.toString('latin1').match(/\/Type\s*\/Page[^s]/g) || []).length;
-  assert.equal(pages, 1, `band section prints on ${pages} page(s)`);
+  const sections = (await page.getAttribute('body', 'data-sections')).split(' ');
+  for (const id of sections) {
+    await page.evaluate((s) => window.quantabandPrintSection(s), id);
+    await page.emulateMedia({ media: 'print' });
+    if (id === 'band') await page.screenshot({ path: resolve(ARTIFACTS, 'print-band.png'), fullPage: true });
+    const pdf = await page.pdf({ format: 'A4', printBackground: false });
+    const pages = (pdf.toString('latin1').match(/\/Type\s*\/Page[^s]/g) || []).length;
+    assert.equal(pages, 1, `section ${id} prints on ${pages} page(s)`);
+    // The record carries the cautions and a link to the state.
+    const text = await page.evaluate(() => document.body.innerText);
+    assert.match(text, /not for medical or fever temperature screening/i);
+    await page.emulateMedia({ media: 'screen' });
+  }
   await context.close();
 });
 

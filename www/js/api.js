@@ -57,6 +57,10 @@ export const api = {
   spectralToSi(value, unit) {
     return fn('convertSpectral')(value, unit, SI_UNIT[api.spectralKind(unit)]);
   },
+  /** Converts an array of spectral coordinates between units (one call into the core). */
+  spectralArray(values, from, to) {
+    return fn('convertSpectralArray')(values, from, to);
+  },
   spectralKind(unit) {
     return fn('spectralUnitKind')(unit);
   },

@@ -181,12 +181,12 @@ export function drawPlot(figure, spec) {
   }
   // legend
   const lg = el('g', { class: 'legend' }, svg);
-  const lgBox = el('rect', { x: W - m.r - 156, y: m.t + 1, width: 152, height: 0, fill: 'rgba(255,255,255,0.88)', stroke: '#c9c4b8' }, lg);
+  const lgBox = el('rect', { x: W - m.r - 176, y: m.t + 1, width: 172, height: 0, fill: 'rgba(255,255,255,0.88)', stroke: '#c9c4b8' }, lg);
   let ly = m.t + 12;
   series.forEach((s, k) => {
     const colour = s.colour || SERIES_COLOURS[k % SERIES_COLOURS.length];
-    el('line', { x1: W - m.r - 150, x2: W - m.r - 124, y1: ly, y2: ly, stroke: colour, 'stroke-width': 2.5, 'stroke-dasharray': s.dash ?? DASHES[k % DASHES.length] }, lg);
-    const t = el('text', { x: W - m.r - 118, y: ly + 4 }, lg);
+    el('line', { x1: W - m.r - 170, x2: W - m.r - 144, y1: ly, y2: ly, stroke: colour, 'stroke-width': 2.5, 'stroke-dasharray': s.dash ?? DASHES[k % DASHES.length] }, lg);
+    const t = el('text', { x: W - m.r - 138, y: ly + 4 }, lg);
     t.textContent = s.label;
     ly += 16;
   });
