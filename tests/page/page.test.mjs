@@ -79,6 +79,38 @@ test('spectrum: value at 10 µm and 300 K matches the mpmath reference, CSV hold
   await context.close();
 });
 
+test('spectrum: photon units per THz and per cm⁻¹ match the core reference (mpmath quad)', async () => {
+  const cases = reference('core_reference.json').cases;
+  const find = (variable, quantity, x, t) => cases.find((c) => c.kind === 'spectral' && c.variable === variable && c.quantity === quantity && c.x === x && c.temperature_k === t);
+  const { page, context, consoleErrors } = await open(browser);
+  await select(page, 'sp-tu', 'K');
+  await select(page, 'sp-g', 'radiance');
+  await setValue(page, 'sp-t', '300');
+  const firstRow = async () => parseCsv((await downloadText(page, '#sp-csv')).text).rows[0];
+  // 10 THz, 300 K, photons s^-1 m^-2 sr^-1 Hz^-1 → per THz (× 1e12)
+  await select(page, 'sp-su', 'THz');
+  await select(page, 'sp-q', 'photon');
+  await setValue(page, 'sp-lo', '10');
+  await setValue(page, 'sp-hi', '100');
+  await setValue(page, 'sp-blo', '20');
+  await setValue(page, 'sp-bhi', '30');
+  let row = await firstRow();
+  assert.equal(row[0], 10);
+  assert.ok(rel(row[1], Number(find('frequency', 'photon', '1e13', '300').expected) * 1e12) < 1e-9, String(row[1]));
+  // 1000 cm⁻¹ (1e5 m⁻¹), 300 K, energy, W m^-2 sr^-1 (m^-1)^-1 → per cm^-1 (× 100)
+  await select(page, 'sp-su', 'cm-1');
+  await select(page, 'sp-q', 'energy');
+  await setValue(page, 'sp-lo', '1000');
+  await setValue(page, 'sp-hi', '3000');
+  await setValue(page, 'sp-blo', '1500');
+  await setValue(page, 'sp-bhi', '2000');
+  row = await firstRow();
+  assert.equal(row[0], 1000);
+  assert.ok(rel(row[1], Number(find('wavenumber', 'energy', '1e5', '300').expected) * 100) < 1e-9, String(row[1]));
+  assert.deepEqual(consoleErrors, []);
+  await context.close();
+});
+
 test('band: 8–14 µm radiance and dL/dT at 250 K match the mpmath reference', async () => {
   const ref = thermo().integrals.find((r) => r.response === 'rect_8_14um' && r.temperature_k === 250);
   const { page, context } = await open(browser);
@@ -95,6 +127,20 @@ test('band: 8–14 µm radiance and dL/dT at 250 K match the mpmath reference', 
   assert.ok(rel(L, ref.signal) < 1e-6, `${L} vs ${ref.signal}`); // 7 digits shown
   assert.ok(rel(dL, ref.d_signal_dt) < 1e-6, `${dL} vs ${ref.d_signal_dt}`);
   assert.ok(rel(c, (100 * ref.d_signal_dt) / ref.signal) < 1e-5, `${c}`);
+  // Photon radiance and energy fraction at 300 K, and the same band as wavenumbers (core reference).
+  const core = reference('core_reference.json').cases;
+  const pick = (kind, variable, quantity, note) => Number(core.find((x) => x.kind === kind && x.variable === variable && x.quantity === quantity && x.temperature_k === '300' && (note ? x.note === note : x.lower === '8e-6' && x.upper === '14e-6')).expected);
+  await setValue(page, 'bd-t', '300');
+  assert.ok(rel(num(await resultText(page, 'bd-res', 'P')), pick('band', 'wavelength', 'photon')) < 1e-6);
+  assert.ok(rel(num(await resultText(page, 'bd-res', 'F')) / 100, pick('band_fraction', 'wavelength', 'energy')) < 1e-6);
+  await select(page, 'bd-su', 'cm-1');
+  await setValue(page, 'bd-lo', '714');
+  await setValue(page, 'bd-hi', '1250');
+  assert.ok(rel(num(await resultText(page, 'bd-res', 'L')), pick('band', 'wavenumber', 'energy', '8-14 um as wavenumber')) < 1e-6);
+  await select(page, 'bd-su', 'um');
+  await setValue(page, 'bd-lo', '8');
+  await setValue(page, 'bd-hi', '14');
+  await setValue(page, 'bd-t', '250');
   // Celsius input gives the same answer (unit conversion in the core): 250 K = −23.15 °C.
   await select(page, 'bd-tu', 'degC');
   await setValue(page, 'bd-t', '-23.15');
