@@ -260,7 +260,11 @@ test('calibration: a Sakuma–Hattori fit through three reference band signals r
   assert.match(await page.getAttribute('body', 'data-sections'), /calib/, 'calibration section present');
   await select(page, 'cf-tu', 'K');
   await page.fill('#cf-resp', '# rectangular 8-14 um\n8, 1\n14, 1');
-  await page.fill('#cf-pts', pts.map((p) => `${p.temperature_k}, ${p.signal}`).join('\n'));
+  // Points loaded from a local file through the page's file picker (read with FileReader).
+  const csvText = `temperature_K,signal\n${pts.map((p) => `${p.temperature_k},${p.signal}`).join('\n')}\n`;
+  await page.setInputFiles('#cf-pts-file', { name: 'points.csv', mimeType: 'text/csv', buffer: Buffer.from(csvText) });
+  await page.waitForFunction(() => document.getElementById('cf-pts').value.startsWith('temperature_K'));
+  await settle(page);
   await setValue(page, 'cf-eps', '1');
   await setValue(page, 'cf-tau', '1');
   await setValue(page, 'cf-sig', String(pts[1].signal));

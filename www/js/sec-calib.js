@@ -90,7 +90,20 @@ export const calibSection = {
   build() {
     if (!api.hasFrame()) $('cf-frame-part').remove(); // this build of the core has no frame converter
   },
-  wire() {
+  wire(recompute) {
+    // "Load" buttons: read a local file into its text area (FileReader; nothing leaves the machine).
+    for (const input of this.el.querySelectorAll('input.loader')) {
+      input.addEventListener('change', () => {
+        const file = input.files && input.files[0];
+        if (!file) return;
+        const reader = new FileReader();
+        reader.onload = () => {
+          $(input.dataset.target).value = String(reader.result);
+          recompute();
+        };
+        reader.readAsText(file);
+      });
+    }
     if (!api.hasFrame()) return;
     const c = $('cf-canvas');
     c.addEventListener('pointermove', (ev) => {
