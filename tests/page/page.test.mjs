@@ -466,3 +466,31 @@ test('frame: the invented scene converts to a temperature map with the dead pixe
   assert.deepEqual(consoleErrors, []);
   await context.close();
 });
+
+test('also works when served over http (loopback server), still without further requests', async () => {
+  const { createServer } = await import('node:http');
+  const { readFileSync } = await import('node:fs');
+  const html = readFileSync(PAGE);
+  const server = createServer((req, res) => {
+    res.writeHead(200, { 'content-type': 'text/html; charset=utf-8' });
+    res.end(html);
+  });
+  await new Promise((r) => server.listen(0, '127.0.0.1', r));
+  const url = `http://127.0.0.1:${server.address().port}/quantaband.html`;
+  const context = await browser.newContext();
+  const page = await context.newPage();
+  const requests = [];
+  const errors = [];
+  page.on('request', (r) => requests.push(r.url()));
+  page.on('console', (m) => m.type() === 'error' && errors.push(m.text()));
+  try {
+    await page.goto(url);
+    await page.waitForSelector('body[data-ready="1"]', { timeout: 30000 });
+    assert.match(await page.getAttribute('body', 'data-sections'), /spectrum/);
+    assert.deepEqual(errors, []);
+    assert.deepEqual(requests.filter((u) => u !== url && !u.startsWith('data:') && !u.startsWith('blob:')), []);
+  } finally {
+    await context.close();
+    server.close();
+  }
+});
