@@ -3,7 +3,7 @@
 // the physics helpers generate with mpmath (the oracle each JSON header names).
 import { test, before, after } from 'node:test';
 import assert from 'node:assert/strict';
-import { statSync } from 'node:fs';
+import { statSync, readFileSync } from 'node:fs';
 import { resolve } from 'node:path';
 import {
   PAGE, ARTIFACTS, launch, open, foreignRequests, reference, setValue, select, settle, resultText, num, rel,
@@ -21,10 +21,19 @@ after(async () => {
 const thermo = () => reference('thermometry_reference.json');
 const stats = () => reference('stats_reference.json');
 
-test('the page is one file of at most 400 KB', () => {
+test('the page is one self-contained file of at most 400 KB', () => {
   const bytes = statSync(PAGE).size;
   console.log(`page size: ${bytes} bytes (${(bytes / 1024).toFixed(1)} KiB)`);
   assert.ok(bytes <= 400 * 1024, `dist/quantaband.html is ${bytes} bytes`);
+  const html = readFileSync(PAGE, 'utf8');
+  // Nothing to fetch: no script/link/img sources, no links except in-page anchors, and the one
+  // module script has no import/export statement left (file:// forbids module imports).
+  assert.doesNotMatch(html, /<(script|img|link|iframe)[^>]*\s(src|href)=/i);
+  for (const m of html.matchAll(/\shref="([^"]*)"/g)) assert.ok(m[1].startsWith('#'), `link ${m[1]}`);
+  const modules = [...html.matchAll(/<script type="module">([\s\S]*?)<\/script>/g)];
+  assert.equal(modules.length, 1);
+  assert.doesNotMatch(modules[0][1], /^\s*(import|export)\s/m);
+  assert.match(html, /<script type="application\/octet-stream" id="qb-wasm"/);
 });
 
 test('opens from file://, becomes ready with no console errors and no network requests', async () => {
