@@ -75,9 +75,6 @@ export const api = {
   spectralPeak(spec, temperatureK) {
     return fn('spectrumPeak')(spec, temperatureK);
   },
-  total(spec, temperatureK) {
-    return fn('spectrumTotal')(spec, temperatureK);
-  },
   band(spec, lo, hi, temperatureK) {
     return fn('bandIntegral')(spec, lo, hi, temperatureK);
   },
