@@ -317,6 +317,15 @@ test('bad input shows the core error message inline, keeps the code, and recover
   assert.equal(await page.textContent('#bd-lo-msg'), '');
   await setValue(page, 'bd-n', '1');
   assert.equal(await page.getAttribute('#bd-n-msg', 'data-code'), 'PAGE_INPUT');
+  await select(page, 'oc-tu', 'degC');
+  await setValue(page, 'oc-t', '-300');
+  assert.equal(await page.getAttribute('#oc-t-msg', 'data-code'), 'NON_POSITIVE_TEMPERATURE');
+  await setValue(page, 'oc-f', '0');
+  assert.equal(await page.getAttribute('#oc-t-msg', 'data-code'), 'NON_POSITIVE_TEMPERATURE', 'first error wins');
+  await setValue(page, 'oc-t', '25');
+  assert.equal(await page.getAttribute('#oc-f-msg', 'data-code'), 'NON_POSITIVE_SPECTRAL');
+  await setValue(page, 'oc-f', '100');
+  assert.equal(await page.getAttribute('#occupancy', 'data-state'), 'ok');
   assert.deepEqual(consoleErrors, []);
   await context.close();
 });
