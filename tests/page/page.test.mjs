@@ -512,3 +512,19 @@ test('also works when served over http (loopback server), still without further 
     server.close();
   }
 });
+
+test('every control on the page has a visible label and a message slot', async () => {
+  const { page, context } = await open(browser);
+  const problems = await page.evaluate(() => {
+    const out = [];
+    for (const c of document.querySelectorAll('input, select, textarea')) {
+      const label = c.labels && c.labels[0];
+      if (!label || !label.textContent.trim()) out.push(`${c.id}: no label`);
+      if (c.closest('.fld') && !document.getElementById(`${c.id}-msg`)) out.push(`${c.id}: no message element`);
+      if (c.id && document.querySelectorAll(`[id="${c.id}"]`).length > 1) out.push(`${c.id}: duplicate id`);
+    }
+    return out;
+  });
+  assert.deepEqual(problems, []);
+  await context.close();
+});
