@@ -430,3 +430,61 @@ fn two_colour_matches_mpmath() {
     );
     assert!(rel(r.d_t_d_ratio, c.f("d_t_d_ratio")) <= 1e-8, "{r:?}");
 }
+
+/// The rectangular-response special case: the response-weighted integral of a flat two-point
+/// table (our Gauss–Legendre marching) equals the radiometric core's exact band function
+/// (`band::band`, `band::band_d_dt`: closed-form series, a different algorithm) to ≤ 1e-10
+/// relative (brief), and both equal the mpmath values for the flat reference tables.
+#[test]
+fn rectangular_band_equals_core_band_functions() {
+    use quantaband::thermometry::rectangular::RectangularBand;
+    let mut worst: f64 = 0.0;
+    let bands = [
+        (8e-6, 14e-6),
+        (3e-6, 5e-6),
+        (0.64e-6, 0.66e-6),
+        (1e-6, 14e-6),
+        (1e-6, 1000e-6),
+        (50e-6, 1000e-6),
+    ];
+    let temps = [20.0, 77.0, 250.0, 300.0, 600.0, 1234.93, 3000.0, 6000.0];
+    for (lo, hi) in bands {
+        let wl = [lo, hi];
+        let ones = [1.0, 1.0];
+        let flat =
+            ResponseSignal::new(Response::new(&wl, &ones).unwrap(), C2Convention::Codata2018);
+        let exact = RectangularBand::new(lo, hi, C2Convention::Codata2018).unwrap();
+        for t in temps {
+            let (s, ds) = flat.signal_and_derivative(t).unwrap();
+            let (e, de) = (exact.signal(t).unwrap(), exact.d_signal_dt(t).unwrap());
+            if e == 0.0 {
+                // below the f64 range for both
+                assert_eq!(s, 0.0, "{lo}-{hi} at {t}");
+                continue;
+            }
+            let (r1, r2) = (rel(s, e), rel(ds, de));
+            worst = worst.max(r1).max(r2);
+            assert!(
+                r1 <= 1e-10 && r2 <= 1e-10,
+                "{lo}-{hi} m at {t} K: {r1:e} {r2:e}"
+            );
+            // and the inverses agree
+            let t_back = exact.temperature(s).unwrap();
+            assert!((t_back - t).abs() <= 1e-9 * t, "{t_back} vs {t}");
+        }
+    }
+    println!("flat table vs core band functions: max rel diff {worst:e}");
+    let j = reference();
+    for case in j.get("integrals").arr() {
+        let name = case.s("response");
+        let (wl, v) = response_of(&j, name);
+        if v.iter().all(|&x| x == 1.0) && wl.len() == 2 {
+            let b = RectangularBand::new(wl[0], wl[1], C2Convention::Codata2018).unwrap();
+            let t = case.f("temperature_k");
+            assert!(
+                rel(b.signal(t).unwrap(), case.f("signal")) <= 1e-12,
+                "{name} at {t}"
+            );
+        }
+    }
+}

@@ -7,6 +7,7 @@ use quantaband::thermometry::measurement::{
     measured_signal, object_temperature, Conditions, Window,
 };
 use quantaband::thermometry::model::{SignalModel, SpectralPoint};
+use quantaband::thermometry::rectangular::RectangularBand;
 use quantaband::thermometry::response::{Response, ResponseSignal};
 use quantaband::thermometry::sakuma_hattori::{max_interpolation_error_k, SakumaHattori};
 use quantaband::thermometry::{its90, ratio};
@@ -45,7 +46,9 @@ fn round_trips_within_1e_9_k() {
     let sh = SakumaHattori::new(1.0e-5, 1.8e-4, 1.0e6, C2Convention::Codata2018).unwrap();
     let cond = conditions_with_window();
     let mut worst: f64 = 0.0;
-    let models: [(&dyn SignalModel, &[f64]); 4] = [
+    let rect = RectangularBand::new(3e-6, 5e-6, C2Convention::Codata2018).unwrap();
+    let models: [(&dyn SignalModel, &[f64]); 5] = [
+        (&rect, &[220.0, 300.0, 900.0, 2500.0]),
         (&lwir, &[200.0, 250.0, 300.0, 600.0, 1500.0]),
         (&si, &[600.0, 900.0, 1234.93, 2000.0, 3500.0]),
         (&point, &[250.0, 500.0, 1000.0]),

@@ -23,3 +23,14 @@ pub(crate) fn radiance_and_dt(
         s.spectral_d_dt(wavelength_m, temperature_k)?,
     ))
 }
+
+/// L_λ alone, W·m⁻³·sr⁻¹.
+///
+/// # Errors
+/// Those of [`Spectrum::spectral`].
+#[inline]
+pub(crate) fn radiance(wavelength_m: f64, temperature_k: f64, c2: C2Convention) -> Result<f64> {
+    Spectrum::BLACKBODY
+        .with_c2(c2)
+        .spectral(wavelength_m, temperature_k)
+}

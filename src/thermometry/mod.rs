@@ -21,6 +21,7 @@ mod kernel;
 pub mod measurement;
 pub mod model;
 pub mod ratio;
+pub mod rectangular;
 pub mod response;
 pub mod sakuma_hattori;
 pub mod uncertainty;
@@ -32,6 +33,7 @@ pub use its90::{
 pub use measurement::{measured_signal, object_temperature, Conditions, Window};
 pub use model::{SignalModel, SpectralPoint};
 pub use ratio::{ratio_temperature, two_colour_temperature, RatioReading};
+pub use rectangular::RectangularBand;
 pub use response::{Response, ResponseSignal};
 pub use sakuma_hattori::{max_interpolation_error_k, FitReport, SakumaHattori};
 pub use uncertainty::{

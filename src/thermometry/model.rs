@@ -3,10 +3,11 @@
 //!
 //! # Method of the shared inverse
 //! The signal S(T) of every radiation thermometer rises monotonically with T, and ln S is very
-//! nearly linear in u = 1/T (exactly so in the Wien limit). [`invert_monotone`] therefore
-//! brackets the root of g(u) = ln S(1/u) − ln s by doubling/halving T from a starting guess and
-//! then runs Newton's method on g in u, falling back to bisection of the bracket whenever a
-//! Newton step leaves it. It stops when the step is below 4·10⁻¹⁶ relative.
+//! nearly linear in u = 1/T (exactly so in the Wien limit). [`invert_monotone`] therefore runs
+//! Newton's method on g(u) = ln S(1/u) − ln s in u from a starting guess, keeping the bracket
+//! every evaluation establishes; a step that leaves the bracket is replaced by bisection in u
+//! (both ends known) or by a factor-4 expansion (one end known). It stops when the step is below
+//! 4·10⁻¹⁶ relative, and reports `NoSolution` once the bracket is pinned at 1e-3 K or 1e9 K.
 #![forbid(unsafe_code)]
 
 use crate::error::{positive, temperature};
@@ -69,7 +70,7 @@ pub trait SignalModel {
 /// # Errors
 /// `NonFinite` / `NonPositive` for a bad `signal`, `NonFinite` / `NonPositiveTemperature` for a
 /// bad `guess_k`; `NoSolution` when S(T) stays below `signal` up to [`MAX_TEMPERATURE_K`] or
-/// above it down to [`MIN_TEMPERATURE_K`]; `NotConverged` if 200 iterations do not meet the
+/// above it down to [`MIN_TEMPERATURE_K`]; `NotConverged` if 300 iterations do not meet the
 /// tolerance (not observed in the tests); errors of the model are passed on.
 ///
 /// # Accuracy
@@ -96,71 +97,63 @@ pub fn invert_monotone<M: SignalModel + ?Sized>(
     positive("signal", signal)?;
     temperature("guess_k", guess_k)?;
     let target = crate::float::ln(signal);
-    let guess = guess_k.clamp(MIN_TEMPERATURE_K, MAX_TEMPERATURE_K);
-    // Bracket [t_lo, t_hi] with S(t_lo) < s ≤ S(t_hi).
-    let s0 = model.signal(guess)?;
-    let (mut t_lo, mut t_hi) = if s0 < signal {
-        let mut lo;
-        let mut hi = guess;
-        loop {
-            if hi >= MAX_TEMPERATURE_K {
-                return Err(Error::NoSolution {
-                    what: "signal above what the model gives up to 1e9 K",
-                });
-            }
-            lo = hi;
-            hi = (hi * 2.0).min(MAX_TEMPERATURE_K);
-            if model.signal(hi)? >= signal {
-                break (lo, hi);
-            }
-        }
-    } else {
-        let mut lo = guess;
-        let mut hi;
-        loop {
-            if lo <= MIN_TEMPERATURE_K {
-                return Err(Error::NoSolution {
-                    what: "signal below what the model gives down to 1e-3 K",
-                });
-            }
-            hi = lo;
-            lo = (lo * 0.5).max(MIN_TEMPERATURE_K);
-            if model.signal(lo)? < signal {
-                break (lo, hi);
-            }
-        }
-    };
-    if t_hi == t_lo {
-        return Ok(t_hi);
-    }
-    // Newton in u = 1/T from the bracket end nearer in ln S.
-    let mut t = t_hi;
-    for _ in 0..200 {
+    // Known bracket: S(t_lo) < s ≤ S(t_hi); `None` until a point on that side has been seen.
+    let mut t_lo: Option<f64> = None;
+    let mut t_hi: Option<f64> = None;
+    let mut t = guess_k.clamp(MIN_TEMPERATURE_K, MAX_TEMPERATURE_K);
+    for _ in 0..300 {
         let (s, ds) = model.signal_and_derivative(t)?;
-        let mut next = f64::NAN;
-        if s > 0.0 && ds > 0.0 {
+        let mut newton = f64::NAN;
+        if s > 0.0 {
             let g = crate::float::ln(s) - target;
             if g == 0.0 {
                 return Ok(t);
             }
             if g > 0.0 {
-                t_hi = t;
+                t_hi = Some(t);
             } else {
-                t_lo = t;
+                t_lo = Some(t);
             }
-            // g'(u) = −T²·S'/S  →  u_new = u − g/g'
-            let u = 1.0 / t;
-            let gp = -t * t * ds / s;
-            let u_new = u - g / gp;
-            next = 1.0 / u_new;
-        } else if s <= 0.0 {
-            t_lo = t;
+            if ds > 0.0 {
+                // g(u) = ln S(1/u) − ln s, g′(u) = −T²·S′/S, u = 1/T
+                let gp = -t * t * ds / s;
+                newton = 1.0 / (1.0 / t - g / gp);
+            }
+        } else {
+            t_lo = Some(t);
         }
-        if !(next > t_lo && next < t_hi) {
-            // Bisect in u (geometric-ish in T) when Newton leaves the bracket.
-            next = 2.0 / (1.0 / t_lo + 1.0 / t_hi);
+        let lo = t_lo.unwrap_or(MIN_TEMPERATURE_K);
+        let hi = t_hi.unwrap_or(MAX_TEMPERATURE_K);
+        if t_lo.is_some_and(|v| v >= MAX_TEMPERATURE_K) {
+            return Err(Error::NoSolution {
+                what: "signal above what the model gives up to 1e9 K",
+            });
         }
-        if (next - t).abs() <= 4e-16 * t || t_hi - t_lo <= 4e-16 * t_hi {
+        if t_hi.is_some_and(|v| v <= MIN_TEMPERATURE_K) {
+            return Err(Error::NoSolution {
+                what: "signal below what the model gives down to 1e-3 K",
+            });
+        }
+        let next = if newton > lo && newton < hi {
+            newton
+        } else {
+            match (t_lo, t_hi) {
+                // Both sides known: bisect in u = 1/T.
+                (Some(l), Some(h)) => 2.0 / (1.0 / l + 1.0 / h),
+                // Only too-cold points so far: expand upwards.
+                (Some(l), None) => (l * 4.0).min(MAX_TEMPERATURE_K),
+                // Only too-hot points so far: expand downwards.
+                (None, Some(h)) => (h * 0.25).max(MIN_TEMPERATURE_K),
+                (None, None) => {
+                    return Err(Error::NotConverged {
+                        what: "temperature from signal",
+                    })
+                }
+            }
+        };
+        if (next - t).abs() <= 4e-16 * t
+            || (t_lo.is_some() && t_hi.is_some() && hi - lo <= 4e-16 * hi)
+        {
             return Ok(next);
         }
         t = next;
@@ -176,7 +169,7 @@ pub fn invert_monotone<M: SignalModel + ?Sized>(
 /// # Formula
 /// ```text
 /// S(T) = c1L / (λ⁵·(exp(c2/(λT)) − 1))      c1L = 2hc², c2 per the chosen convention
-/// T(S) = c2 / (λ·ln(1 + c1L/(λ⁵·S)))
+/// T(S) = c2 / (λ·ln(1 + c1L/(λ⁵·S)))       (crate::inverse::brightness_temperature)
 /// ```
 ///
 /// # Errors
@@ -248,6 +241,8 @@ impl SignalModel for SpectralPoint {
     }
     fn temperature(&self, signal: f64) -> Result<f64> {
         positive("signal", signal)?;
-        invert_monotone(self, signal, 1000.0)
+        // Closed-form brightness temperature from the radiometric core.
+        let spec = crate::planck::Spectrum::BLACKBODY.with_c2(self.c2);
+        crate::inverse::brightness_temperature(&spec, self.wavelength_m, signal)
     }
 }

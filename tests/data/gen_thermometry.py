@@ -51,7 +51,8 @@ def response_at(wl, vals, lam):
 
 
 def weighted(wl, vals, t, g):
-    """sum over segments of quad(R(lam) * g(lam), [a, b]) with the segment split in 8 for quad."""
+    """sum over segments of quad(R(lam) * g(lam), [a, b]); each segment is split geometrically
+    into max(8, ln(b/a)/0.05) pieces so tanh-sinh sees a smooth integrand on each."""
     wl = [mp.mpf(w) for w in wl]
     vals = [mp.mpf(v) for v in vals]
     total = mp.mpf(0)
@@ -60,7 +61,8 @@ def weighted(wl, vals, t, g):
         ra, rb = vals[i], vals[i + 1]
         if ra == 0 and rb == 0:
             continue
-        pts = [a + (b - a) * j / 8 for j in range(9)]
+        m = max(8, int(mp.ceil(mp.log(b / a) / mp.mpf("0.05"))))
+        pts = [a * (b / a) ** (mp.mpf(j) / m) for j in range(m + 1)]
         total += mp.quad(lambda lam: (ra + (rb - ra) * (lam - a) / (b - a)) * g(lam), pts)
     return total
 
@@ -82,6 +84,8 @@ RESPONSES = {
     "si_0p8_1p1um": ([0.80e-6, 0.90e-6, 1.00e-6, 1.10e-6], [0.2, 0.8, 1.0, 0.1]),
     "triangle_650nm": ([0.645e-6, 0.650e-6, 0.655e-6], [0.0, 1.0, 0.0]),
     "rect_1_14um": ([1e-6, 14e-6], [1.0, 1.0]),
+    "rect_1_1000um": ([1e-6, 1000e-6], [1.0, 1.0]),
+    "ramp_0p3_30um": ([0.3e-6, 30e-6], [1.0, 0.0]),
 }
 
 INTEGRAL_CASES = [
@@ -92,6 +96,9 @@ INTEGRAL_CASES = [
     ("triangle_650nm", 1234.93), ("triangle_650nm", 3000.0),
     # extreme but valid: tiny true values that are still inside the f64 range
     ("triangle_650nm", 100.0), ("rect_1_14um", 20.0), ("si_0p8_1p1um", 150.0),
+    # very wide segments: hot (peak far inside the short end) and cold (Wien tail over 3 decades)
+    ("rect_1_1000um", 5000.0), ("rect_1_1000um", 3.0), ("ramp_0p3_30um", 1500.0),
+    ("ramp_0p3_30um", 6000.0),
 ]
 
 
