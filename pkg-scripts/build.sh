@@ -1,13 +1,18 @@
 #!/usr/bin/env bash
 # Builds the npm package in pkg/ and the single-file offline page, after installing prerequisites.
 #
-#   bash pkg-scripts/build.sh [--no-simd] [--opt=-Oz|-O3|-O2|-Os] [--no-page] [--serve[=PORT]]
+#   bash pkg-scripts/build.sh [--no-simd] [--opt=-Oz|-O3|-O2|-Os] [--rust-opt=3|s|z] [--no-page]
+#                             [--size-report] [--serve[=PORT]]
 #
 #   --no-simd    build without wasm simd128 (default: with it; Node >= 16.4 and all current
 #                browsers run simd128, and the frame conversion is vectorised with it)
 #   --opt=LEVEL  wasm-opt optimisation level (default -Oz, the smaller and not slower of -Oz/-O3 here;
 #                see DEVELOPERS.md, "Build, package and test matrix")
+#   --rust-opt=L rustc opt-level for this build only (default: the release profile's, 3); `z` trades
+#                speed for size (CARGO_PROFILE_RELEASE_OPT_LEVEL, Cargo.toml untouched)
 #   --no-page    skip `node www/build.mjs`
+#   --size-report  print where the .wasm bytes go (largest functions, bytes per module); also
+#                printed automatically when the size budget is exceeded
 #   --serve      after building, serve dist/ on http://127.0.0.1:PORT/ (default 8765) until Ctrl-C
 #
 # Steps: install.sh -> cargo build --release (wasm32, --features wasm) -> wasm-bindgen --target web
@@ -22,19 +27,23 @@ ROOT="$(pwd)"
 SIMD=1
 OPT=-Oz
 PAGE=1
+SIZE_REPORT=0
 SERVE=""
 for arg in "$@"; do
   case "$arg" in
     --no-simd) SIMD=0 ;;
     --opt=*) OPT="${arg#--opt=}" ;;
+    --rust-opt=*) export CARGO_PROFILE_RELEASE_OPT_LEVEL="${arg#--rust-opt=}" ;;
     --no-page) PAGE=0 ;;
+    --size-report) SIZE_REPORT=1 ;;
     --serve) SERVE=8765 ;;
     --serve=*) SERVE="${arg#--serve=}" ;;
-    -h|--help) sed -n '2,20p' "$0"; exit 0 ;;
+    -h|--help) sed -n '2,26p' "$0"; exit 0 ;;
     *) echo "build.sh: unknown argument '$arg' (try --help)" >&2; exit 2 ;;
   esac
 done
 case "$OPT" in -O|-O1|-O2|-O3|-O4|-Os|-Oz) ;; *) echo "build.sh: bad --opt '$OPT'" >&2; exit 2 ;; esac
+case "${CARGO_PROFILE_RELEASE_OPT_LEVEL:-3}" in 0|1|2|3|s|z) ;; *) echo "build.sh: bad --rust-opt" >&2; exit 2 ;; esac
 
 say() { printf '[build] %s\n' "$*"; }
 now() { date +%s.%N; }
@@ -57,7 +66,7 @@ RAW_WASM="$TARGET_DIR/wasm32-unknown-unknown/release/$NAME.wasm"
 STAGE="$TARGET_DIR/pkg-stage"
 
 t="$(now)"
-say "cargo build --release --lib --target wasm32-unknown-unknown --features wasm (simd128: $([ "$SIMD" = 1 ] && echo on || echo off))"
+say "cargo build --release --lib --target wasm32-unknown-unknown --features wasm (simd128: $([ "$SIMD" = 1 ] && echo on || echo off), opt-level ${CARGO_PROFILE_RELEASE_OPT_LEVEL:-from Cargo.toml})"
 cargo build --release --lib --target wasm32-unknown-unknown --features wasm
 say "cargo build: $(since "$t"), $(stat -c %s "$RAW_WASM") B"
 
@@ -81,7 +90,21 @@ node pkg-scripts/lib/write-pkg-json.mjs "$STAGE"
 rm -rf pkg
 mv "$STAGE" pkg
 
-node tests/size/check.mjs pkg/${NAME}_bg.wasm
+# Size budget; when it fails (or on request), show where the bytes go, from a build that keeps
+# the function names (same wasm-opt level, -g keeps the name section).
+size_report() {
+  local d="$TARGET_DIR/size-report"
+  rm -rf "$d"
+  wasm-bindgen --target web --out-dir "$d" "$RAW_WASM"
+  node_modules/.bin/wasm-opt "$OPT" -g "${FEATURES[@]}" "$d/${NAME}_bg.wasm" -o "$d/named.wasm"
+  node tests/size/breakdown.mjs "$d/named.wasm" 25
+}
+if ! node tests/size/check.mjs pkg/${NAME}_bg.wasm; then
+  size_report
+  echo "[build] ERROR: pkg/${NAME}_bg.wasm is over the size budget (see the breakdown above)" >&2
+  exit 1
+fi
+if [ "$SIZE_REPORT" = 1 ]; then size_report; fi
 
 # The package must load in Node through its own entry (instantiates the wasm synchronously).
 node --input-type=module -e "

@@ -770,7 +770,7 @@ mod tests {
         assert!(
             rel(
                 c(
-                    1239.841_984_332_002_6,
+                    1_239.841_984_332_002_6,
                     SpectralUnit::Nanometre,
                     SpectralUnit::Electronvolt
                 ),

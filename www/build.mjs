@@ -20,26 +20,10 @@ import { gzipSync } from 'node:zlib';
 
 const here = dirname(fileURLToPath(import.meta.url));
 const root = resolve(here, '..');
-const args = process.argv.slice(2);
-const outArg = args.indexOf('--out');
-const outPath = outArg >= 0 ? resolve(args[outArg + 1]) : resolve(root, 'dist', 'quantaband.html');
-const pkgArg = args.indexOf('--pkg');
-const pkgDir = pkgArg >= 0 ? resolve(args[pkgArg + 1]) : resolve(root, 'pkg');
 
 const CSP =
   "default-src 'none'; script-src 'unsafe-inline' 'wasm-unsafe-eval'; " +
   "style-src 'unsafe-inline'; img-src data: blob:";
-
-function fail(msg) {
-  console.error(`www/build.mjs: ${msg}`);
-  process.exit(1);
-}
-
-const glue = resolve(pkgDir, 'quantaband.js');
-const wasmPath = resolve(pkgDir, 'quantaband_bg.wasm');
-if (!existsSync(glue) || !existsSync(wasmPath)) {
-  fail('pkg/quantaband.js or pkg/quantaband_bg.wasm is missing: build the package first (bash pkg-scripts/build.sh)');
-}
 
 // ---------------------------------------------------------------- module bundling
 const IMPORT_RE = /^[ \t]*import\s+([^'";]+?)\s+from\s+['"]([^'"]+)['"]\s*;?[ \t]*$/gm;
@@ -47,8 +31,6 @@ const BARE_IMPORT_RE = /^[ \t]*import\s+['"]([^'"]+)['"]\s*;?[ \t]*$/gm;
 const EXPORT_LIST_RE = /^[ \t]*export\s*\{([^}]*)\}\s*;?[ \t]*$/gm;
 const EXPORT_DECL_RE = /^([ \t]*)export\s+(async\s+function\*?|function\*?|class|const|let|var)\s+([A-Za-z_$][\w$]*)/gm;
 
-const modules = new Map(); // abs path -> { id, code, deps }
-let counter = 0;
 
 function bindingList(spec, modVar) {
   // spec: `{ a, b as c }`, `* as ns`, `def`, or `def, { a }`
@@ -73,49 +55,57 @@ function bindingList(spec, modVar) {
   return out;
 }
 
-const PKG_IMPORT = resolve(root, 'pkg', 'quantaband.js');
-function load(absPath, stack = []) {
-  if (absPath === PKG_IMPORT) absPath = glue;
-  if (modules.has(absPath)) return modules.get(absPath);
-  if (stack.includes(absPath)) throw new Error(`import cycle: ${[...stack, absPath].map((p) => relative(root, p)).join(' -> ')}`);
-  if (!existsSync(absPath)) throw new Error(`missing module ${relative(root, absPath)} (imported by ${relative(root, stack.at(-1) || '')})`);
-  let code = readFileSync(absPath, 'utf8');
-  const deps = [];
-  const exportsMap = []; // [exportedName, localName]
-  const rec = { id: `__qb${counter++}`, path: absPath, code: '', deps, exportsMap };
+/**
+ * Bundles the ES-module graph rooted at `entry` into one script with no import/export left.
+ * `alias` maps absolute module paths to replacements (used to point pkg/quantaband.js at --pkg).
+ * Returns { code, paths } (paths: every module included, in evaluation order).
+ */
+export function bundleModules(entry, alias = new Map()) {
+  const modules = new Map(); // abs path -> { id, code, deps, exportsMap }
+  let counter = 0;
 
-  code = code.replace(BARE_IMPORT_RE, (_, spec) => {
-    const dep = load(resolve(dirname(absPath), spec), [...stack, absPath]);
-    deps.push(dep);
-    return '';
-  });
-  code = code.replace(IMPORT_RE, (_, what, spec) => {
-    const dep = load(resolve(dirname(absPath), spec), [...stack, absPath]);
-    deps.push(dep);
-    return bindingList(what, dep.id).join(' ');
-  });
-  code = code.replace(EXPORT_LIST_RE, (_, list) => {
-    for (const p of list.split(',').map((s) => s.trim()).filter(Boolean)) {
-      const m = /^([A-Za-z_$][\w$]*)(?:\s+as\s+([A-Za-z_$][\w$]*))?$/.exec(p);
-      if (!m) throw new Error(`unsupported export specifier in ${relative(root, absPath)}: ${p}`);
-      exportsMap.push([m[2] || m[1], m[1]]);
-    }
-    return '';
-  });
-  code = code.replace(EXPORT_DECL_RE, (_, indent, kind, name) => {
-    exportsMap.push([name, name]);
-    return `${indent}${kind} ${name}`;
-  });
-  if (/^[ \t]*export\s/m.test(code)) throw new Error(`unsupported export form left in ${relative(root, absPath)}`);
-  if (/^[ \t]*import[\s{*]/m.test(code)) throw new Error(`unsupported import form left in ${relative(root, absPath)}`);
-  // The glue's default wasm location (only used by the async init, which the page never calls).
-  code = code.replace(/import\.meta\.url/g, 'document.baseURI');
-  rec.code = code;
-  modules.set(absPath, rec);
-  return rec;
-}
+  function load(absPath, stack = []) {
+    if (alias.has(absPath)) absPath = alias.get(absPath);
+    if (modules.has(absPath)) return modules.get(absPath);
+    if (stack.includes(absPath)) throw new Error(`import cycle: ${[...stack, absPath].map((p) => relative(root, p)).join(' -> ')}`);
+    if (!existsSync(absPath)) throw new Error(`missing module ${relative(root, absPath)} (imported by ${relative(root, stack.at(-1) || '')})`);
+    let code = readFileSync(absPath, 'utf8');
+    const deps = [];
+    const exportsMap = []; // [exportedName, localName]
+    const rec = { id: `__qb${counter++}`, path: absPath, code: '', deps, exportsMap };
 
-function bundle(entry) {
+    code = code.replace(BARE_IMPORT_RE, (_, spec) => {
+      const dep = load(resolve(dirname(absPath), spec), [...stack, absPath]);
+      deps.push(dep);
+      return '';
+    });
+    code = code.replace(IMPORT_RE, (_, what, spec) => {
+      const dep = load(resolve(dirname(absPath), spec), [...stack, absPath]);
+      deps.push(dep);
+      return bindingList(what, dep.id).join(' ');
+    });
+    code = code.replace(EXPORT_LIST_RE, (_, list) => {
+      for (const p of list.split(',').map((s) => s.trim()).filter(Boolean)) {
+        const m = /^([A-Za-z_$][\w$]*)(?:\s+as\s+([A-Za-z_$][\w$]*))?$/.exec(p);
+        if (!m) throw new Error(`unsupported export specifier in ${relative(root, absPath)}: ${p}`);
+        exportsMap.push([m[2] || m[1], m[1]]);
+      }
+      return '';
+    });
+    code = code.replace(EXPORT_DECL_RE, (_, indent, kind, name) => {
+      exportsMap.push([name, name]);
+      return `${indent}${kind} ${name}`;
+    });
+    if (/^[ \t]*export\s/m.test(code)) throw new Error(`unsupported export form left in ${relative(root, absPath)}`);
+    if (/^[ \t]*import[\s{*]/m.test(code)) throw new Error(`unsupported import form left in ${relative(root, absPath)}`);
+    if (/(^|[^.\w$])import\s*\(/m.test(code)) throw new Error(`dynamic import() in ${relative(root, absPath)} cannot work from file://`);
+    // The glue's default wasm location (only used by the async init, which the page never calls).
+    code = code.replace(/import\.meta\.url/g, 'document.baseURI');
+    rec.code = code;
+    modules.set(absPath, rec);
+    return rec;
+  }
+
   const ordered = [];
   const seen = new Set();
   (function visit(m) {
@@ -124,21 +114,42 @@ function bundle(entry) {
     m.deps.forEach(visit);
     ordered.push(m);
   })(load(entry));
-  return ordered
+  const code = ordered
     .map((m) => {
       const ret = m.exportsMap.map(([ext, local]) => (ext === local ? local : `${JSON.stringify(ext)}: ${local}`));
       return `// ---- ${relative(root, m.path)}\nconst ${m.id} = (() => {\n${m.code.trim()}\nreturn Object.freeze({ ${ret.join(', ')} });\n})();`;
     })
     .join('\n\n');
+  return { code, paths: ordered.map((m) => m.path) };
+}
+
+function fail(msg) {
+  console.error(`www/build.mjs: ${msg}`);
+  process.exit(1);
+}
+
+function main() {
+const here = dirname(fileURLToPath(import.meta.url));
+const args = process.argv.slice(2);
+const outArg = args.indexOf('--out');
+const outPath = outArg >= 0 ? resolve(args[outArg + 1]) : resolve(root, 'dist', 'quantaband.html');
+const pkgArg = args.indexOf('--pkg');
+const pkgDir = pkgArg >= 0 ? resolve(args[pkgArg + 1]) : resolve(root, 'pkg');
+
+const glue = resolve(pkgDir, 'quantaband.js');
+const wasmPath = resolve(pkgDir, 'quantaband_bg.wasm');
+if (!existsSync(glue) || !existsSync(wasmPath)) {
+  fail('pkg/quantaband.js or pkg/quantaband_bg.wasm is missing: build the package first (bash pkg-scripts/build.sh)');
 }
 
 let js;
 try {
-  js = bundle(resolve(here, 'js', 'main.js'));
+  const b = bundleModules(resolve(here, 'js', 'main.js'), new Map([[resolve(root, 'pkg', 'quantaband.js'), glue]]));
+  js = b.code;
+  if (!b.paths.includes(glue)) fail('www/js/*.js never imports ../../pkg/quantaband.js');
 } catch (e) {
   fail(e.message);
 }
-if (!modules.has(glue)) fail('www/js/*.js never imports ../../pkg/quantaband.js');
 
 // ---------------------------------------------------------------- assembling the page
 const wasm = readFileSync(wasmPath);
@@ -178,3 +189,6 @@ console.log(
     `${kb(wasmGz.length)} KiB gzip, embedded as base64; script ${kb(js.length)} KiB; style ${kb(css.length)} KiB)`,
 );
 if (Buffer.byteLength(html) > 400 * 1024) console.warn('warning: page is larger than the 400 KiB budget');
+}
+
+if (process.argv[1] && resolve(process.argv[1]) === fileURLToPath(import.meta.url)) main();

@@ -11,8 +11,13 @@ export class QuantabandError extends Error {
   }
 }
 
-/** Called from Rust: builds the error object that the binding then throws. */
-export function qbMakeError(code, message, index) {
+/**
+ * Called from Rust: builds the error object that the binding then throws. Each U+0001 in
+ * `template` is replaced by the next of `numbers`, formatted by String(number).
+ */
+export function qbMakeError(code, template, numbers, index) {
+  let i = 0;
+  const message = template.replace(/\u0001/g, () => String(numbers[i++]));
   return new QuantabandError(code, message, index);
 }
 

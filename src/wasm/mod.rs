@@ -19,7 +19,9 @@ mod error;
 mod opts;
 mod radiometry;
 mod stats;
+mod thermometry;
 
 pub use convert::*;
 pub use radiometry::*;
 pub use stats::*;
+pub use thermometry::*;

@@ -19,6 +19,7 @@ impl<'a> Opts<'a> {
     ///
     /// Errors: `UNSUPPORTED` (not an object, or an unknown key; the message lists the accepted
     /// keys).
+    #[inline(never)]
     pub(crate) fn new(
         value: &'a JsValue,
         what: &'static str,
@@ -55,6 +56,7 @@ impl<'a> Opts<'a> {
     }
 
     /// An optional number field (`undefined` → `None`). Any other non-number is `NON_FINITE`.
+    #[inline(never)]
     pub(crate) fn num(&self, key: &str) -> Result<Option<f64>, JsValue> {
         let v = self.get(key)?;
         if v.is_undefined() {
@@ -88,6 +90,7 @@ impl<'a> Opts<'a> {
     }
 
     /// An optional string field (`undefined` → `None`). A non-string is reported with `code`.
+    #[inline(never)]
     pub(crate) fn string(&self, key: &str, code: &'static str) -> Result<Option<String>, JsValue> {
         let v = self.get(key)?;
         if v.is_undefined() {
@@ -99,25 +102,6 @@ impl<'a> Opts<'a> {
                 code,
                 format!(
                     "{}.{key} must be a string (got a {})",
-                    self.what,
-                    type_name(&v)
-                ),
-            )),
-        }
-    }
-
-    /// An optional boolean field.
-    pub(crate) fn boolean(&self, key: &str) -> Result<Option<bool>, JsValue> {
-        let v = self.get(key)?;
-        if v.is_undefined() {
-            return Ok(None);
-        }
-        match v.as_bool() {
-            Some(b) => Ok(Some(b)),
-            None => Err(fail(
-                "UNSUPPORTED",
-                format!(
-                    "{}.{key} must be true or false (got a {})",
                     self.what,
                     type_name(&v)
                 ),
@@ -137,6 +121,7 @@ impl<'a> Opts<'a> {
 }
 
 /// A choice among fixed names: `Ok(index)` or `UNSUPPORTED` listing the choices.
+#[inline(never)]
 pub(crate) fn choose(what: &str, value: &str, choices: &[&str]) -> Result<usize, JsValue> {
     choices.iter().position(|c| *c == value).ok_or_else(|| {
         fail(

@@ -111,6 +111,7 @@ pub(crate) fn parse_c2(what: &str, s: Option<String>) -> Result<C2Convention, Js
 }
 
 /// Reads and validates a `SpectrumOptions` object.
+#[inline(never)]
 pub(crate) fn parse_spectrum(value: &JsValue) -> Result<Spec, JsValue> {
     let o = Opts::new(value, "SpectrumOptions", SPECTRUM_FIELDS)?;
     let unit_name = o.string("unit", "UNKNOWN_UNIT")?.ok_or_else(|| {
@@ -177,18 +178,18 @@ pub(crate) fn parse_spectrum(value: &JsValue) -> Result<Spec, JsValue> {
 
 impl Spec {
     /// A coordinate in the user's unit → SI of the spectrum's variable.
-    pub(crate) fn to_si(&self, arg: &'static str, x: f64) -> crate::Result<f64> {
+    pub(crate) fn user_to_si(&self, arg: &'static str, x: f64) -> crate::Result<f64> {
         convert_spectral(arg, x, self.unit, self.si)
     }
 
     /// A coordinate in SI of the spectrum's variable → the user's unit.
-    pub(crate) fn from_si(&self, arg: &'static str, x_si: f64) -> crate::Result<f64> {
+    pub(crate) fn si_to_user(&self, arg: &'static str, x_si: f64) -> crate::Result<f64> {
         convert_spectral(arg, x_si, self.si, self.unit)
     }
 }
 
 fn density(s: &Spec, x: f64, t: f64, dt: bool) -> crate::Result<f64> {
-    let xs = s.to_si("x", x)?;
+    let xs = s.user_to_si("x", x)?;
     if dt {
         s.spectrum.spectral_d_dt(xs, t)
     } else {
@@ -273,7 +274,7 @@ pub fn spectral_density_grid(
     let s = parse_spectrum(&options)?;
     let mut xs_si = Vec::with_capacity(xs.len());
     for (j, &x) in xs.iter().enumerate() {
-        xs_si.push(s.to_si("xs", x).map_err(|e| at(e, j))?);
+        xs_si.push(s.user_to_si("xs", x).map_err(|e| at(e, j))?);
     }
     for (i, &t) in temperatures_k.iter().enumerate() {
         core_error::temperature("temperaturesK", t).map_err(|e| at(e, i))?;
@@ -325,7 +326,7 @@ pub fn spectrum_peak(
 ) -> Result<f64, JsValue> {
     let s = parse_spectrum(&options)?;
     let p = s.spectrum.peak(temperature_k)?;
-    Ok(s.from_si("peak", p)?)
+    Ok(s.si_to_user("peak", p)?)
 }
 
 /// Plain-text SI unit labels of the results for these options (for axis labels and tables).

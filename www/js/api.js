@@ -18,9 +18,13 @@ function signalScale(model) {
   return model.kind === 'spectral' ? 1 / api.spectralToSi(1, model.unit) : 1;
 }
 
-/** The frame-conversion binding, once the package has one (null until then). */
+/** The frame-conversion binding as (curve, counts, gain, offset, cond, emissivityMap?) → frame. */
 function frameFn() {
-  return null;
+  if (!qb || typeof qb.convertFrame !== 'function') return null;
+  return (curve, counts, gain, offset, cond, emissivity) => {
+    const r = qb.convertFrame(curve, counts, { gain, offset, conditions: cond, ...(emissivity ? { emissivity } : {}) });
+    return { temperaturesK: r.temperaturesK, valid: r.valid, invalid: r.invalid, minK: r.minTemperatureK, maxK: r.maxTemperatureK };
+  };
 }
 
 /** Installs the initialised package. */
@@ -53,6 +57,10 @@ export const api = {
   spectralToSi(value, unit) {
     return fn('convertSpectral')(value, unit, SI_UNIT[api.spectralKind(unit)]);
   },
+  /** Converts an array of spectral coordinates between units (one call into the core). */
+  spectralArray(values, from, to) {
+    return fn('convertSpectralArray')(values, from, to);
+  },
   spectralKind(unit) {
     return fn('spectralUnitKind')(unit);
   },
@@ -66,9 +74,6 @@ export const api = {
   },
   spectralPeak(spec, temperatureK) {
     return fn('spectrumPeak')(spec, temperatureK);
-  },
-  total(spec, temperatureK) {
-    return fn('spectrumTotal')(spec, temperatureK);
   },
   band(spec, lo, hi, temperatureK) {
     return fn('bandIntegral')(spec, lo, hi, temperatureK);
@@ -182,7 +187,7 @@ export const api = {
   toKelvinArray(values, unit) {
     return fn('convertTemperatureArray')(values, unit, 'K');
   },
-  convertFrame(model, counts, gain, offset, cond) {
-    return frameFn()(instrument(model), counts, gain, offset, cond);
+  convertFrame(model, counts, gain, offset, cond, emissivityMap) {
+    return frameFn()(instrument(model), counts, gain, offset, cond, emissivityMap);
   },
 };

@@ -29,7 +29,7 @@ export function emberRamp(n = 256) {
   for (let i = 0; i < n; i++) {
     const t = i / (n - 1);
     const L = 8 + 89 * t;
-    const h = ((300 - 215 * t) * Math.PI) / 180; // 300° (violet) → 85° (yellow)
+    const h = (((300 + 145 * t) % 360) * Math.PI) / 180; // 300° violet → 0° red → 85° yellow
     let C = 20 + 70 * Math.sin(Math.PI * Math.min(1, t * 1.1));
     let rgb = labToSrgb(L, C * Math.cos(h), C * Math.sin(h));
     while (!inGamut(rgb) && C > 0) { // reduce chroma until the colour is displayable

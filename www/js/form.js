@@ -118,11 +118,6 @@ export function readKelvinList(id, unitId) {
   });
 }
 
-/** A spectral coordinate in its SI unit from control `id` in the unit chosen in `unitId`. */
-export function readSpectral(id, unitId) {
-  return tag(id, () => api.spectralToSi(parseNum(val(id)), val(unitId)));
-}
-
 /** Fills a temperature-unit <select>. */
 export function fillTemperatureUnits(sel) {
   const opts = [['K', 'K'], ['degC', '°C'], ['degF', '°F']];

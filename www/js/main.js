@@ -110,9 +110,24 @@ document.addEventListener('click', (ev) => {
   window.print();
 });
 window.addEventListener('afterprint', () => printSection(null));
+window.addEventListener('beforeprint', () => {
+  if (!document.body.dataset.printing) printSection(null); // whole-page print: refresh the copies
+});
 
 /** Marks which section the print stylesheet keeps (null = all). Exposed for the browser tests. */
 function printSection(id) {
+  // Text areas cannot grow on paper: print a copy of their full text instead.
+  for (const t of document.querySelectorAll('textarea')) {
+    let pre = document.getElementById(`${t.id}-print`);
+    if (!pre) {
+      pre = document.createElement('pre');
+      pre.className = 'print-mirror';
+      pre.id = `${t.id}-print`;
+      pre.setAttribute('aria-hidden', 'true');
+      t.after(pre);
+    }
+    pre.textContent = t.value;
+  }
   document.getElementById('print-link').textContent = location.href;
   for (const s of document.querySelectorAll('.calc')) s.classList.toggle('printing', s.id === id);
   if (id) document.body.dataset.printing = id;

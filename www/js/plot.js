@@ -179,14 +179,29 @@ export function drawPlot(figure, spec) {
       t.textContent = mk.label;
     }
   }
-  // legend
+  // legend: top right, or top left when the curves pass under the top-right corner
+  const lgW = 172;
+  const lgH = 8 + 16 * series.length;
+  const crowd = (x0) => {
+    let n = 0;
+    for (const s of series) for (let i = 0; i < s.x.length; i++) {
+      if (!Number.isFinite(s.x[i]) || !Number.isFinite(s.y[i]) || (xs.log && s.x[i] <= 0) || (ys.log && s.y[i] <= 0)) continue;
+      const px = fx(s.x[i]);
+      const py = fy(s.y[i]);
+      if (px >= x0 && px <= x0 + lgW && py >= m.t && py <= m.t + lgH) n++;
+    }
+    return n;
+  };
+  const right = W - m.r - lgW - 4;
+  const left = m.l + 4;
+  const lx = crowd(right) <= crowd(left) ? right : left;
   const lg = el('g', { class: 'legend' }, svg);
-  const lgBox = el('rect', { x: W - m.r - 156, y: m.t + 1, width: 152, height: 0, fill: 'rgba(255,255,255,0.88)', stroke: '#c9c4b8' }, lg);
+  const lgBox = el('rect', { x: lx, y: m.t + 1, width: lgW, height: 0, fill: 'rgba(255,255,255,0.88)', stroke: '#c9c4b8' }, lg);
   let ly = m.t + 12;
   series.forEach((s, k) => {
     const colour = s.colour || SERIES_COLOURS[k % SERIES_COLOURS.length];
-    el('line', { x1: W - m.r - 150, x2: W - m.r - 124, y1: ly, y2: ly, stroke: colour, 'stroke-width': 2.5, 'stroke-dasharray': s.dash ?? DASHES[k % DASHES.length] }, lg);
-    const t = el('text', { x: W - m.r - 118, y: ly + 4 }, lg);
+    el('line', { x1: lx + 6, x2: lx + 32, y1: ly, y2: ly, stroke: colour, 'stroke-width': 2.5, 'stroke-dasharray': s.dash ?? DASHES[k % DASHES.length] }, lg);
+    const t = el('text', { x: lx + 38, y: ly + 4 }, lg);
     t.textContent = s.label;
     ly += 16;
   });

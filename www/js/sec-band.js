@@ -84,11 +84,16 @@ export const bandSection = {
       csvRows.push([shown[i], temps[i], Ls[i], Ps[i], dLs[i], c]);
     }
     fillTable($('bd-table'), [`Temperature (${tLabel})`, `Band ${name} (${uL})`, `Photon ${name} (${uP})`, `dL/dT (${uL}·K⁻¹)`, 'Contrast (%/K)'], rows);
+    // The plot uses a fine grid over the same range (the table keeps the chosen steps).
+    const fine = new Float64Array(121);
+    for (let i = 0; i < fine.length; i++) fine[i] = t0 + ((t1 - t0) * i) / (fine.length - 1);
+    const fineL = api.bandOverTemperatures(eSpec, lo, hi, fine);
+    const fineShown = fine.map((tk) => api.fromKelvin(tk, tUnit));
     drawPlot($('bd-plot'), {
       title: `Band ${name} against temperature`,
       x: { label: `temperature (${tLabel})`, short: 'T', readoutUnit: tLabel },
       y: { label: `band ${name} (${uL})`, readoutUnit: uL },
-      series: [{ label: `${fmt(lo, 4)}–${fmt(hi, 4)} ${uLabel}`, x: shown, y: Ls }],
+      series: [{ label: `${fmt(lo, 4)}–${fmt(hi, 4)} ${uLabel}`, x: fineShown, y: fineL }],
       markers: [{ x: api.fromKelvin(t, tUnit), y: L, label: '' }],
       caption: 'The triangle marks the single temperature above.',
     });

@@ -90,7 +90,20 @@ export const calibSection = {
   build() {
     if (!api.hasFrame()) $('cf-frame-part').remove(); // this build of the core has no frame converter
   },
-  wire() {
+  wire(recompute) {
+    // "Load" buttons: read a local file into its text area (FileReader; nothing leaves the machine).
+    for (const input of this.el.querySelectorAll('input.loader')) {
+      input.addEventListener('change', () => {
+        const file = input.files && input.files[0];
+        if (!file) return;
+        const reader = new FileReader();
+        reader.onload = () => {
+          $(input.dataset.target).value = String(reader.result);
+          recompute();
+        };
+        reader.readAsText(file);
+      });
+    }
     if (!api.hasFrame()) return;
     const c = $('cf-canvas');
     c.addEventListener('pointermove', (ev) => {
@@ -181,7 +194,8 @@ export const calibSection = {
     const offset = 0;
     const counts = new Uint16Array(sceneSignal.length);
     for (let i = 0; i < counts.length; i++) counts[i] = scene.dead[i] ? 0 : Math.min(65535, Math.round((sceneSignal[i] - offset) / gain));
-    const out = api.convertFrame(model, counts, gain, offset, cond);
+    const emap = $('cf-emap').checked ? Float32Array.from(scene.emissivity) : null;
+    const out = api.convertFrame(model, counts, gain, offset, cond, emap);
     frame = { ...out, counts };
     const minShown = api.fromKelvin(out.minK, tUnit);
     const maxShown = api.fromKelvin(out.maxK, tUnit);

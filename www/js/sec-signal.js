@@ -25,7 +25,7 @@ export function fillBudget(table, budget, units) {
     INPUT_NAMES[e.input] || e.input,
     `${fmt(e.value, 6)} ${units[e.input] || ''}`.trim(),
     `${fmt(e.standardUncertainty, 3)} ${units[e.input] || ''}`.trim(),
-    `${fmt(e.sensitivity, 5)} K/${units[e.input] || '1'}`,
+    `${fmt(e.sensitivity, 5)} K/${/[·/]/.test(units[e.input] || '') ? `(${units[e.input]})` : units[e.input] || '1'}`,
     `${fmt(e.contributionK, 3)} K`,
     `${fmt(100 * e.varianceShare, 3)} %`,
   ]);
@@ -51,13 +51,21 @@ export function readConditions(p) {
   return { cond, u };
 }
 
+/** First-order combination of uncorrelated contributions (GUM eq. 10) for the ratio reading. */
+function combine(entries) {
+  const rows = entries.map((e) => ({ ...e, contributionK: Math.abs(e.sensitivity) * e.standardUncertainty }));
+  const variance = rows.reduce((a, e) => a + e.contributionK ** 2, 0);
+  for (const e of rows) e.varianceShare = variance > 0 ? e.contributionK ** 2 / variance : 0;
+  return { entries: rows, combinedK: Math.sqrt(variance) };
+}
+
 function showModes(mode) {
   for (const f of document.querySelectorAll('#sg-form [data-modes]')) f.hidden = !f.dataset.modes.split(' ').includes(mode);
 }
 
 export const signalSection = {
   id: 'signal',
-  available: () => api.hasThermometry() && api.hasRatio(),
+  available: () => api.hasThermometry() && api.hasRatio() && api.has('bandIntegral'),
   wire() {
     showModes($('sg-mode').value);
   },
@@ -67,17 +75,21 @@ export const signalSection = {
     const unit = $('sg-su').value;
     const tUnit = $('sg-tu').value;
     const tL = UNIT_LABEL[tUnit];
-    const signal = readNum('sg-sig');
     const uSigPct = readNum('sg-usig');
     const label = $('sg-sig-label');
     if (mode === 'ratio') {
-      label.textContent = 'Measured ratio (band 1 / band 2 radiance)';
+      const ratio = readNum('sg-ratio');
       const er = readNum('sg-er');
       const uEr = readNum('sg-uer');
-      const r = tag('sg-sig', () => api.ratioTemperature(unit, [readNum('sg-lo'), readNum('sg-hi')], [readNum('sg-lo2'), readNum('sg-hi2')], signal, er));
-      const uRatio = (Math.abs(signal) * uSigPct) / 100;
-      const budget = api.combine([
-        { input: 'ratio', value: signal, sensitivity: r.dTdRatio, standardUncertainty: uRatio },
+      const b1 = [readNum('sg-r1lo'), readNum('sg-r1hi')];
+      const b2 = [readNum('sg-r2lo'), readNum('sg-r2hi')];
+      tag('sg-r1lo', () => api.band({ unit }, b1[0], b1[1], 300));
+      tag('sg-r2lo', () => api.band({ unit }, b2[0], b2[1], 300));
+      const r = tag('sg-ratio', () => api.ratioTemperature(unit, b1, b2, ratio, er));
+      // Two uncorrelated inputs: the core gives the sensitivities, the page combines them
+      // by JCGM 100:2008 eq. (10): u_c² = Σ (∂T/∂x_i · u(x_i))².
+      const budget = combine([
+        { input: 'ratio', value: ratio, sensitivity: r.dTdRatio, standardUncertainty: (Math.abs(ratio) * uSigPct) / 100 },
         { input: 'emissivityRatio', value: er, sensitivity: r.dTdEmissivityRatio, standardUncertainty: uEr },
       ]);
       fillResults($('sg-res'), [
@@ -88,6 +100,7 @@ export const signalSection = {
       fillBudget($('sg-table'), budget, { ratio: '', emissivityRatio: '' });
       return;
     }
+    const signal = readNum('sg-sig');
     const model = mode === 'band'
       ? { kind: 'band', unit, lower: readNum('sg-lo'), upper: readNum('sg-hi') }
       : { kind: 'spectral', unit, wavelength: readNum('sg-x') };

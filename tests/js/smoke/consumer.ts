@@ -2,9 +2,10 @@
 // project and checked with `tsc --strict`, module/moduleResolution "nodenext"). It proves the
 // manifest's "types" condition resolves and that the declarations are real types, not `any`:
 // the smoke test also removes the @ts-expect-error line and expects tsc to fail.
-import init, { ERROR_CODES, QuantabandError, convertTemperature } from 'quantaband';
+import init, { ERROR_CODES, QuantabandError, convertTemperature, spectralDensity } from 'quantaband';
 
 const kelvin: number = convertTemperature(25, 'degC', 'K');
+const radiance: number = spectralDensity({ unit: 'um', emissivity: 0.95 }, 10, 300);
 const codes: readonly string[] = ERROR_CODES;
 const ready: Promise<unknown> = init();
 
@@ -15,4 +16,4 @@ function describe(e: unknown): string {
 // @ts-expect-error a temperature value must be a number, not a string
 convertTemperature('25', 'degC', 'K');
 
-export { codes, describe, kelvin, ready };
+export { codes, describe, kelvin, radiance, ready };

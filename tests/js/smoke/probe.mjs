@@ -13,6 +13,18 @@ export async function runProbe(m, ref) {
       umToPerCm: m.convertSpectral(10, 'um', 'cm-1'),
     },
   };
+  // Blackbody spectral radiance per wavelength (SI, wavelength given in metres).
+  const opts = { unit: 'm' };
+  out.radiance = ref.cases.map((c) => m.spectralDensity(opts, c.wavelength_m, c.temperature_k));
+  out.radianceArray = Array.from(
+    m.spectralDensityArray(opts, new Float64Array([ref.cases[0].wavelength_m]), ref.cases[0].temperature_k),
+  );
+  try {
+    m.spectralDensity(opts, ref.cases[0].wavelength_m, -1);
+    out.badTemperature = 'no error thrown for T = -1 K';
+  } catch (e) {
+    out.badTemperature = { instanceOfClass: e instanceof m.QuantabandError, code: e.code };
+  }
   try {
     m.convertTemperature(-300, 'degC', 'K');
     out.badInput = 'no error thrown for -300 degC';
@@ -31,5 +43,6 @@ export async function runProbe(m, ref) {
     out.badElement = { code: e.code, index: e.index };
   }
   out.afterError = m.convertTemperature(ref.units[0].celsius, 'degC', 'K');
+  out.radianceAfterError = m.spectralDensity(opts, ref.cases[0].wavelength_m, ref.cases[0].temperature_k);
   return out;
 }

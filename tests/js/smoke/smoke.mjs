@@ -48,6 +48,17 @@ function checkProbe(result, ref, coreCodes) {
   });
   assert.deepEqual(result.badElement, { code: 'NON_FINITE', index: 1 });
   assert.equal(result.afterError, result.units.degCToK[0], 'a call after an error must still work and agree');
+  // Planck spectral radiance against mpmath (reference.json); 1e-12 relative is far looser than the
+  // core's own accuracy statement and far tighter than any packaging or loading mistake.
+  assert.equal(result.radiance.length, ref.cases.length);
+  result.radiance.forEach((value, i) => {
+    const want = ref.cases[i].radiance_w_m2_sr_m;
+    const rel = Math.abs(value - want) / want;
+    assert.ok(rel <= 1e-12, `case ${i}: got ${value}, mpmath ${want}, relative error ${rel}`);
+  });
+  assert.deepEqual(result.radianceArray, [result.radiance[0]], 'array call must agree with the scalar call');
+  assert.deepEqual(result.badTemperature, { instanceOfClass: true, code: 'NON_POSITIVE_TEMPERATURE' });
+  assert.equal(result.radianceAfterError, result.radiance[0]);
 }
 
 let tgz;

@@ -1,0 +1,1175 @@
+//! Radiation-thermometry workflow for JavaScript: instrument signal models (one wavelength, a
+//! spectral-response table, a Sakuma–Hattori curve), the measurement equation and its inverse
+//! (scalar and bulk), calibration-curve fits, ITS-90 radiance ratios, ratio (two-colour)
+//! thermometry and GUM uncertainty budgets.
+//!
+//! Cautions (also in the TypeScript docs): these are calculations, not measurements; they do not
+//! replace calibrated instruments and standard procedures, must not be used for medical
+//! temperature screening or process-safety decisions, and defer to local codes and standards.
+
+use js_sys::{Array, Float32Array, Float64Array, Object, Reflect};
+use wasm_bindgen::prelude::*;
+use wasm_bindgen::JsCast;
+
+use super::error::{at, fail, map_indexed};
+use super::opts::{choose, Opts};
+use super::radiometry::parse_c2;
+use crate::constants::C2Convention;
+use crate::error::{finite, positive, temperature};
+use crate::thermometry::its90::{self, FixedPoint};
+use crate::thermometry::{
+    max_interpolation_error_k, measured_signal, object_temperature as core_object_temperature,
+    ratio_temperature as core_ratio_temperature, sensitivities as core_sensitivities,
+    two_colour_temperature as core_two_colour, uncertainty::BudgetInput,
+    uncertainty::StandardUncertainties, uncertainty_budget as core_budget, Conditions, FitReport,
+    RatioReading, Response, ResponseSignal, SakumaHattori, SignalModel, SpectralPoint, Window,
+};
+use crate::units::{convert_spectral, SpectralKind, SpectralUnit};
+use crate::Error;
+
+#[wasm_bindgen(typescript_custom_section)]
+const TS_THERMOMETRY: &str = r#"
+/** A wavelength unit (the wavelength spellings of SpectralUnit). */
+export type WavelengthUnit = "m" | "mm" | "um" | "µm" | "μm" | "micron" | "nm";
+
+/** An instrument that sees one wavelength (narrow-band): signal = spectral radiance L_λ, W·m⁻²·sr⁻¹·m⁻¹. */
+export interface SpectralPointModel {
+  kind: "spectralPoint";
+  /** Wavelength, in `unit`. */
+  wavelength: number;
+  unit: WavelengthUnit;
+  /** Default "codata2018". */
+  c2?: C2Convention;
+}
+
+/**
+ * An instrument with a relative spectral response R(λ) (piecewise linear between the points,
+ * zero outside): signal = ∫ R(λ)·L_λ(λ, T) dλ, W·m⁻²·sr⁻¹ times the unit of R.
+ */
+export interface ResponseModel {
+  kind: "response";
+  /** Strictly increasing wavelengths, in `unit` (at least 2). */
+  wavelengths: Float64Array | readonly number[];
+  /** Response values ≥ 0 (not all zero), same length as `wavelengths`. */
+  values: Float64Array | readonly number[];
+  unit: WavelengthUnit;
+  /** Default "codata2018". */
+  c2?: C2Convention;
+}
+
+/**
+ * A Sakuma–Hattori calibration curve S(T) = C / (exp(c2 / (A·T + B)) − 1), in the signal unit
+ * of C.
+ */
+export interface SakumaHattoriModel {
+  kind: "sakumaHattori";
+  /** A, m (> 0). */
+  aM: number;
+  /** B, m·K. */
+  bMK: number;
+  /** C, signal units (> 0). */
+  c: number;
+  /** Default "codata2018". */
+  c2?: C2Convention;
+}
+
+/** An instrument's blackbody signal S(T), strictly increasing in T. */
+export type InstrumentModel = SpectralPointModel | ResponseModel | SakumaHattoriModel;
+
+/** A window between scene and instrument (grey in the instrument's band). */
+export interface WindowConditions {
+  /** τ_w in (0, 1]. */
+  transmittance: number;
+  /** ρ_w (instrument side) in [0, 1), τ_w + ρ_w ≤ 1. Default 0. */
+  reflectance?: number;
+  /** Window temperature, K. */
+  temperatureK: number;
+  /** Temperature of what the window reflects into the instrument, K. Required when reflectance > 0. */
+  reflectedTemperatureK?: number;
+}
+
+/**
+ * Measurement conditions: signal = τ_w·{τ·[ε·S(T_obj) + (1 − ε)·S(T_refl)] + (1 − τ)·S(T_path)}
+ * + ρ_w·S(T_int) + (1 − τ_w − ρ_w)·S(T_w).
+ */
+export interface MeasurementConditions {
+  /** Object emissivity ε in (0, 1]. Default 1. */
+  emissivity?: number;
+  /** Reflected (surroundings) temperature, K. Required when emissivity < 1. */
+  reflectedTemperatureK?: number;
+  /** Path transmittance τ in (0, 1]. Default 1. */
+  pathTransmittance?: number;
+  /** Path temperature, K. Required when pathTransmittance < 1. */
+  pathTemperatureK?: number;
+  /** Optional window. */
+  window?: WindowConditions;
+}
+
+/** The measurement equation in affine form: signal = gain·S(T_obj) + background. */
+export interface AffineForm {
+  gain: number;
+  background: number;
+}
+
+/** Result of a Sakuma–Hattori least-squares fit. */
+export interface SakumaHattoriFit {
+  curve: SakumaHattoriModel;
+  /** RMS of T_curve(S_i) − T_i, K. */
+  rmsResidualK: number;
+  /** Largest |T_curve(S_i) − T_i|, K. */
+  maxAbsResidualK: number;
+  /** Levenberg–Marquardt iterations used. */
+  iterations: number;
+  /** T_curve(S_i) − T_i per point, K (sakumaHattoriFit only). */
+  residualsK?: Float64Array;
+}
+
+/** Largest interpolation error of a curve against an exact model. */
+export interface InterpolationError {
+  /** max |T_curve(S_exact(T)) − T|, K. */
+  maxErrorK: number;
+  /** Temperature where it occurs, K. */
+  atTemperatureK: number;
+}
+
+/** Response-weighted mean wavelength and spread (standard deviation), in the model's unit. */
+export interface ResponseMoments {
+  mean: number;
+  spread: number;
+}
+
+/** An ITS-90 fixed point used as radiance reference. */
+export type FixedPoint = "silver" | "gold" | "copper";
+
+/** Temperature of a radiance ratio with both values of c2. */
+export interface RatioTemperatures {
+  /** With c2 = 0.014388 m·K (ITS-90), K. */
+  t90K: number;
+  /** With c2 = hc/k (CODATA 2018), K. */
+  tCodataK: number;
+  /** tCodataK − t90K, K. */
+  differenceK: number;
+}
+
+/** A ratio (two-colour) reading with its sensitivities. */
+export interface RatioReading {
+  temperatureK: number;
+  /** ∂T/∂r, K per unit ratio. */
+  dTdRatio: number;
+  /** ∂T/∂(ε1/ε2), K per unit emissivity ratio. */
+  dTdEmissivityRatio: number;
+}
+
+/** Sensitivity coefficients ∂T_obj/∂x of the object temperature at a reading. */
+export interface Sensitivities {
+  /** Object temperature, K. */
+  temperatureK: number;
+  /** K per signal unit. */
+  signal: number;
+  /** K per unit emissivity. */
+  emissivity: number;
+  /** K per K of reflected temperature. */
+  reflectedTemperature: number;
+  /** K per unit path transmittance. */
+  pathTransmittance: number;
+  /** K per K of path temperature. */
+  pathTemperature: number;
+}
+
+/** Standard uncertainties of the inputs (all ≥ 0; omitted = 0). */
+export interface StandardUncertainties {
+  signal?: number;
+  emissivity?: number;
+  reflectedTemperatureK?: number;
+  pathTransmittance?: number;
+  pathTemperatureK?: number;
+}
+
+/** An input of the uncertainty budget. */
+export type BudgetInput =
+  | "signal"
+  | "emissivity"
+  | "reflectedTemperature"
+  | "pathTransmittance"
+  | "pathTemperature";
+
+/** One row of a GUM uncertainty budget. */
+export interface BudgetEntry {
+  input: BudgetInput;
+  /** ∂T/∂x. */
+  sensitivity: number;
+  /** u(x). */
+  standardUncertainty: number;
+  /** |∂T/∂x|·u(x), K. */
+  contributionK: number;
+  /** Share of the combined variance, 0…1. */
+  varianceShare: number;
+}
+
+/** A GUM (first-order, uncorrelated inputs) uncertainty budget of the object temperature. */
+export interface UncertaintyBudget {
+  temperatureK: number;
+  entries: BudgetEntry[];
+  /** Combined standard uncertainty u_c(T), K. */
+  combinedStandardUncertaintyK: number;
+}
+"#;
+
+// ---------------------------------------------------------------------------------------------
+// Parsing
+// ---------------------------------------------------------------------------------------------
+
+/// A parsed `InstrumentModel`, owning its data.
+pub(crate) enum Model {
+    Point(SpectralPoint),
+    Response {
+        wavelengths_m: Vec<f64>,
+        values: Vec<f64>,
+        c2: C2Convention,
+        unit: SpectralUnit,
+    },
+    Curve(SakumaHattori),
+}
+
+impl Model {
+    /// Calls `f` once with the model as a `SignalModel` (one non-generic function, so the
+    /// response-table set-up is not copied into every caller).
+    #[inline(never)]
+    fn with(&self, f: &mut dyn FnMut(&dyn SignalModel) -> crate::Result<()>) -> crate::Result<()> {
+        match self {
+            Model::Point(p) => f(p),
+            Model::Curve(c) => f(c),
+            Model::Response {
+                wavelengths_m,
+                values,
+                c2,
+                ..
+            } => {
+                let r = Response::new(wavelengths_m, values)?;
+                f(&ResponseSignal::new(r, *c2))
+            }
+        }
+    }
+
+    /// Runs `f` with the model as a `SignalModel` and returns its result.
+    pub(crate) fn run<R>(
+        &self,
+        f: impl FnOnce(&dyn SignalModel) -> crate::Result<R>,
+    ) -> crate::Result<R> {
+        let mut f = Some(f);
+        let mut out = None;
+        self.with(&mut |m| {
+            if let Some(f) = f.take() {
+                out = Some(f(m)?);
+            }
+            Ok(())
+        })?;
+        // `with` always calls the closure exactly once, so `out` is set; no panic path regardless.
+        out.ok_or(Error::Unsupported {
+            what: "internal: signal model was not evaluated",
+        })
+    }
+}
+
+/// A wavelength unit name (UNKNOWN_UNIT for unknown names, UNSUPPORTED for a non-wavelength unit).
+#[inline(never)]
+fn wavelength_unit(name: &str) -> Result<SpectralUnit, JsValue> {
+    let u = SpectralUnit::parse(name)?;
+    if u.kind() != SpectralKind::Wavelength {
+        return Err(fail(
+            "UNSUPPORTED",
+            format!("unit must be a wavelength unit (m, mm, um, nm), got \"{name}\""),
+        ));
+    }
+    Ok(u)
+}
+
+fn to_m(arg: &'static str, x: f64, unit: SpectralUnit) -> crate::Result<f64> {
+    convert_spectral(arg, x, unit, SpectralUnit::Metre)
+}
+
+fn from_m(arg: &'static str, x_m: f64, unit: SpectralUnit) -> crate::Result<f64> {
+    convert_spectral(arg, x_m, SpectralUnit::Metre, unit)
+}
+
+/// Reads an array field given as an Array of numbers or a Float64Array/Float32Array.
+#[inline(never)]
+fn number_array(what: &str, v: &JsValue) -> Result<Vec<f64>, JsValue> {
+    if let Some(a) = v.dyn_ref::<Float64Array>() {
+        return Ok(a.to_vec());
+    }
+    if let Some(a) = v.dyn_ref::<Float32Array>() {
+        return Ok(a.to_vec().into_iter().map(f64::from).collect());
+    }
+    if Array::is_array(v) {
+        let a: &Array = v.unchecked_ref();
+        let mut out = Vec::with_capacity(a.length() as usize);
+        for (i, x) in a.iter().enumerate() {
+            match x.as_f64() {
+                Some(x) => out.push(x),
+                None => {
+                    return Err(fail(
+                        "NON_FINITE",
+                        format!("{what}[{i}] must be a finite number (at index {i})"),
+                    ))
+                }
+            }
+        }
+        return Ok(out);
+    }
+    Err(fail(
+        "UNSUPPORTED",
+        format!("{what} must be a Float64Array or an array of numbers"),
+    ))
+}
+
+fn required_string(o: &Opts, key: &str, code: &'static str) -> Result<String, JsValue> {
+    o.string(key, code)?
+        .ok_or_else(|| fail(code, format!("{}.{key} is required", o.what())))
+}
+
+/// Reads and validates an `InstrumentModel`.
+#[inline(never)]
+pub(crate) fn parse_model(value: &JsValue) -> Result<Model, JsValue> {
+    let kind_v = if value.is_object() {
+        Reflect::get(value, &JsValue::from_str("kind"))?
+    } else {
+        JsValue::UNDEFINED
+    };
+    let kind = kind_v.as_string().unwrap_or_default();
+    let k = choose(
+        "InstrumentModel.kind",
+        &kind,
+        &["spectralPoint", "response", "sakumaHattori"],
+    )?;
+    match k {
+        0 => {
+            let o = Opts::new(
+                value,
+                "SpectralPointModel",
+                &["kind", "wavelength", "unit", "c2"],
+            )?;
+            let unit = wavelength_unit(&required_string(&o, "unit", "UNKNOWN_UNIT")?)?;
+            let c2 = parse_c2("SpectralPointModel.c2", o.string("c2", "UNSUPPORTED")?)?;
+            let wl = to_m("wavelength", o.req_num("wavelength")?, unit)?;
+            Ok(Model::Point(SpectralPoint::new(wl, c2)?))
+        }
+        1 => {
+            let o = Opts::new(
+                value,
+                "ResponseModel",
+                &["kind", "wavelengths", "values", "unit", "c2"],
+            )?;
+            let unit = wavelength_unit(&required_string(&o, "unit", "UNKNOWN_UNIT")?)?;
+            let c2 = parse_c2("ResponseModel.c2", o.string("c2", "UNSUPPORTED")?)?;
+            let wl = number_array("ResponseModel.wavelengths", &o.raw("wavelengths")?)?;
+            let values = number_array("ResponseModel.values", &o.raw("values")?)?;
+            let mut wavelengths_m = Vec::with_capacity(wl.len());
+            for (i, &x) in wl.iter().enumerate() {
+                wavelengths_m.push(to_m("wavelengths", x, unit).map_err(|e| at(e, i))?);
+            }
+            // Validate once here so every later call sees a good table.
+            Response::new(&wavelengths_m, &values)?;
+            Ok(Model::Response {
+                wavelengths_m,
+                values,
+                c2,
+                unit,
+            })
+        }
+        _ => {
+            let o = Opts::new(
+                value,
+                "SakumaHattoriModel",
+                &["kind", "aM", "bMK", "c", "c2"],
+            )?;
+            let c2 = parse_c2("SakumaHattoriModel.c2", o.string("c2", "UNSUPPORTED")?)?;
+            Ok(Model::Curve(SakumaHattori::new(
+                o.req_num("aM")?,
+                o.req_num("bMK")?,
+                o.req_num("c")?,
+                c2,
+            )?))
+        }
+    }
+}
+
+/// Reads `MeasurementConditions` (`undefined` → a blackbody in vacuum).
+#[inline(never)]
+pub(crate) fn parse_conditions(value: &JsValue) -> Result<Conditions, JsValue> {
+    if value.is_undefined() {
+        return Ok(Conditions::BLACKBODY);
+    }
+    let o = Opts::new(
+        value,
+        "MeasurementConditions",
+        &[
+            "emissivity",
+            "reflectedTemperatureK",
+            "pathTransmittance",
+            "pathTemperatureK",
+            "window",
+        ],
+    )?;
+    let emissivity = o.num("emissivity")?.unwrap_or(1.0);
+    let path_transmittance = o.num("pathTransmittance")?.unwrap_or(1.0);
+    // A temperature that matters must be given; one that does not (its weight is 0) defaults to
+    // the value the core uses for a blackbody (it then has no effect on any result).
+    let needed = |key: &str, needed: bool| -> Result<f64, JsValue> {
+        match o.num(key)? {
+            Some(t) => Ok(t),
+            None if !needed => Ok(Conditions::BLACKBODY.reflected_temperature_k),
+            None => Err(fail(
+                "NON_FINITE",
+                format!(
+                    "MeasurementConditions.{key} is required when {}",
+                    if key == "reflectedTemperatureK" {
+                        "emissivity < 1"
+                    } else {
+                        "pathTransmittance < 1"
+                    }
+                ),
+            )),
+        }
+    };
+    let reflected_temperature_k = needed("reflectedTemperatureK", emissivity != 1.0)?;
+    let path_temperature_k = needed("pathTemperatureK", path_transmittance != 1.0)?;
+    let wv = o.raw("window")?;
+    let window = if wv.is_undefined() {
+        None
+    } else {
+        let w = Opts::new(
+            &wv,
+            "WindowConditions",
+            &[
+                "transmittance",
+                "reflectance",
+                "temperatureK",
+                "reflectedTemperatureK",
+            ],
+        )?;
+        let reflectance = w.num("reflectance")?.unwrap_or(0.0);
+        let temperature_k = w.req_num("temperatureK")?;
+        let reflected = match w.num("reflectedTemperatureK")? {
+            Some(t) => t,
+            None if reflectance == 0.0 => temperature_k,
+            None => {
+                return Err(fail(
+                    "NON_FINITE",
+                    "WindowConditions.reflectedTemperatureK is required when reflectance > 0"
+                        .into(),
+                ))
+            }
+        };
+        Some(Window {
+            transmittance: w.req_num("transmittance")?,
+            reflectance,
+            temperature_k,
+            reflected_temperature_k: reflected,
+        })
+    };
+    let c = Conditions {
+        emissivity,
+        reflected_temperature_k,
+        path_transmittance,
+        path_temperature_k,
+        window,
+    };
+    c.validate()?;
+    Ok(c)
+}
+
+/// A plain object from (key, value) pairs.
+#[inline(never)]
+fn object(pairs: &[(&str, JsValue)]) -> JsValue {
+    let o = Object::new();
+    for (k, v) in pairs {
+        // Defining a data property on a fresh plain object cannot fail.
+        let _ = Reflect::set(&o, &JsValue::from_str(k), v);
+    }
+    o.into()
+}
+
+fn num(x: f64) -> JsValue {
+    JsValue::from_f64(x)
+}
+
+fn c2_name(c2_mk: f64) -> &'static str {
+    if c2_mk == C2Convention::Its90.c2() {
+        "its90"
+    } else {
+        "codata2018"
+    }
+}
+
+#[inline(never)]
+fn curve_object(c: &SakumaHattori) -> JsValue {
+    object(&[
+        ("kind", JsValue::from_str("sakumaHattori")),
+        ("aM", num(c.a_m())),
+        ("bMK", num(c.b_mk())),
+        ("c", num(c.c())),
+        ("c2", JsValue::from_str(c2_name(c.c2_mk()))),
+    ])
+}
+
+#[inline(never)]
+fn fit_object(r: &FitReport, residuals: Option<Vec<f64>>) -> JsValue {
+    let mut pairs = vec![
+        ("curve", curve_object(&r.curve)),
+        ("rmsResidualK", num(r.rms_residual_k)),
+        ("maxAbsResidualK", num(r.max_abs_residual_k)),
+        ("iterations", num(f64::from(r.iterations))),
+    ];
+    if let Some(res) = residuals {
+        pairs.push(("residualsK", Float64Array::from(res.as_slice()).into()));
+    }
+    object(&pairs)
+}
+
+fn ratio_object(r: &RatioReading) -> JsValue {
+    object(&[
+        ("temperatureK", num(r.temperature_k)),
+        ("dTdRatio", num(r.d_t_d_ratio)),
+        ("dTdEmissivityRatio", num(r.d_t_d_emissivity_ratio)),
+    ])
+}
+
+fn parse_fixed_point(name: &str) -> Result<FixedPoint, JsValue> {
+    Ok(
+        match choose("fixedPoint", name, &["silver", "gold", "copper"])? {
+            0 => FixedPoint::Silver,
+            1 => FixedPoint::Gold,
+            _ => FixedPoint::Copper,
+        },
+    )
+}
+
+fn c2_arg(c2: Option<String>) -> Result<C2Convention, JsValue> {
+    parse_c2("c2", c2)
+}
+
+/// `nPoints` as a count in [2, 1e7] (OUT_OF_RANGE otherwise, so no call can run for hours).
+fn count(arg: &'static str, n: f64) -> Result<usize, JsValue> {
+    finite(arg, n)?;
+    if n.fract() == 0.0 && (0.0..=1.0e7).contains(&n) {
+        // exact: an integer in [0, 1e7] converts without loss
+        Ok(n as usize)
+    } else {
+        Err(Error::OutOfRange {
+            arg,
+            value: n,
+            range: "integers in [0, 10000000]",
+        }
+        .into())
+    }
+}
+
+// ---------------------------------------------------------------------------------------------
+// Signal models
+// ---------------------------------------------------------------------------------------------
+
+/// Blackbody signal S(T) of an instrument model at `temperatureK` (in the model's signal unit).
+///
+/// @throws {QuantabandError} NON_FINITE, NON_POSITIVE_TEMPERATURE, model errors (UNKNOWN_UNIT,
+/// UNSUPPORTED, NON_POSITIVE_SPECTRAL, LENGTH_MISMATCH, TOO_FEW_POINTS, NOT_INCREASING,
+/// OUT_OF_RANGE, NON_POSITIVE).
+#[wasm_bindgen(js_name = modelSignal)]
+pub fn model_signal(
+    #[wasm_bindgen(unchecked_param_type = "InstrumentModel")] model: JsValue,
+    #[wasm_bindgen(js_name = temperatureK)] temperature_k: f64,
+) -> Result<f64, JsValue> {
+    Ok(parse_model(&model)?.run(|m| m.signal(temperature_k))?)
+}
+
+/// dS/dT of an instrument model at `temperatureK` (signal unit per K).
+///
+/// @throws {QuantabandError} as `modelSignal`.
+#[wasm_bindgen(js_name = modelSignalDT)]
+pub fn model_signal_dt(
+    #[wasm_bindgen(unchecked_param_type = "InstrumentModel")] model: JsValue,
+    #[wasm_bindgen(js_name = temperatureK)] temperature_k: f64,
+) -> Result<f64, JsValue> {
+    Ok(parse_model(&model)?.run(|m| m.d_signal_dt(temperature_k))?)
+}
+
+/// Blackbody temperature (K) at which the model gives `signal` (inverse of `modelSignal`).
+///
+/// @throws {QuantabandError} NON_FINITE, NON_POSITIVE (signal ≤ 0), NO_SOLUTION, NOT_CONVERGED,
+/// model errors.
+#[wasm_bindgen(js_name = modelTemperature)]
+pub fn model_temperature(
+    #[wasm_bindgen(unchecked_param_type = "InstrumentModel")] model: JsValue,
+    signal: f64,
+) -> Result<f64, JsValue> {
+    Ok(parse_model(&model)?.run(|m| m.temperature(signal))?)
+}
+
+/// `modelSignal` for every temperature of `temperaturesK` (K), one call.
+///
+/// @throws {QuantabandError} as `modelSignal`; `index` is the first bad temperature.
+#[wasm_bindgen(js_name = modelSignalArray)]
+pub fn model_signal_array(
+    #[wasm_bindgen(unchecked_param_type = "InstrumentModel")] model: JsValue,
+    #[wasm_bindgen(js_name = temperaturesK)] temperatures_k: &[f64],
+) -> Result<Vec<f64>, JsValue> {
+    let m = parse_model(&model)?;
+    let mut out = Ok(Vec::new());
+    m.run(|sm| {
+        out = map_indexed(temperatures_k, |t| sm.signal(t));
+        Ok(())
+    })?;
+    out
+}
+
+/// `modelTemperature` for every signal of `signals`, one call.
+///
+/// @throws {QuantabandError} as `modelTemperature`; `index` is the first bad signal.
+#[wasm_bindgen(js_name = modelTemperatureArray)]
+pub fn model_temperature_array(
+    #[wasm_bindgen(unchecked_param_type = "InstrumentModel")] model: JsValue,
+    signals: &[f64],
+) -> Result<Vec<f64>, JsValue> {
+    let m = parse_model(&model)?;
+    let mut out = Ok(Vec::new());
+    m.run(|sm| {
+        out = map_indexed(signals, |s| sm.temperature(s));
+        Ok(())
+    })?;
+    out
+}
+
+// ---------------------------------------------------------------------------------------------
+// Measurement equation
+// ---------------------------------------------------------------------------------------------
+
+/// The signal an instrument reads from an object at `objectTemperatureK` under `conditions`
+/// (emissivity, reflected surroundings, path, window). Omitted conditions = blackbody in vacuum.
+///
+/// @throws {QuantabandError} NON_FINITE, NON_POSITIVE_TEMPERATURE, OUT_OF_RANGE (ε, τ, window),
+/// UNSUPPORTED (unknown field), model errors.
+#[wasm_bindgen(js_name = measuredSignal)]
+pub fn measured_signal_js(
+    #[wasm_bindgen(unchecked_param_type = "InstrumentModel")] model: JsValue,
+    #[wasm_bindgen(js_name = objectTemperatureK)] object_temperature_k: f64,
+    #[wasm_bindgen(unchecked_optional_param_type = "MeasurementConditions")] conditions: JsValue,
+) -> Result<f64, JsValue> {
+    let m = parse_model(&model)?;
+    let c = parse_conditions(&conditions)?;
+    Ok(m.run(|sm| measured_signal(sm, object_temperature_k, &c))?)
+}
+
+/// Object temperature (K) that explains a reading `signal` under `conditions` — the inverse of
+/// the measurement equation.
+///
+/// @throws {QuantabandError} NO_PHYSICAL_SOLUTION (signal ≤ reflected + path contribution),
+/// NO_SOLUTION, NON_FINITE, OUT_OF_RANGE, model errors.
+#[wasm_bindgen(js_name = objectTemperature)]
+pub fn object_temperature(
+    #[wasm_bindgen(unchecked_param_type = "InstrumentModel")] model: JsValue,
+    signal: f64,
+    #[wasm_bindgen(unchecked_optional_param_type = "MeasurementConditions")] conditions: JsValue,
+) -> Result<f64, JsValue> {
+    let m = parse_model(&model)?;
+    let c = parse_conditions(&conditions)?;
+    Ok(m.run(|sm| core_object_temperature(sm, signal, &c))?)
+}
+
+/// `objectTemperature` for every reading of `signals` (e.g. the pixels of a frame already in
+/// signal units), one call; the affine form of the conditions is computed once.
+///
+/// @throws {QuantabandError} as `objectTemperature`; `index` is the first bad reading.
+#[wasm_bindgen(js_name = objectTemperatureArray)]
+pub fn object_temperature_array(
+    #[wasm_bindgen(unchecked_param_type = "InstrumentModel")] model: JsValue,
+    signals: &[f64],
+    #[wasm_bindgen(unchecked_optional_param_type = "MeasurementConditions")] conditions: JsValue,
+) -> Result<Vec<f64>, JsValue> {
+    let m = parse_model(&model)?;
+    let c = parse_conditions(&conditions)?;
+    let mut out = Ok(Vec::new());
+    m.run(|sm| {
+        let (gain, bg) = c.affine(sm)?;
+        out = map_indexed(signals, |s| {
+            // the same steps as thermometry::object_temperature, with the affine form hoisted
+            finite("signal", s)?;
+            let net = s - bg;
+            if net.is_nan() || net <= 0.0 {
+                return Err(Error::NoPhysicalSolution {
+                    signal: s,
+                    background: bg,
+                });
+            }
+            let s_obj = positive("signal", net / gain)?;
+            sm.temperature(s_obj)
+        });
+        Ok(())
+    })?;
+    out
+}
+
+/// `measuredSignal` for every object temperature of `objectTemperaturesK` (K), one call.
+///
+/// @throws {QuantabandError} as `measuredSignal`; `index` is the first bad temperature.
+#[wasm_bindgen(js_name = measuredSignalArray)]
+pub fn measured_signal_array(
+    #[wasm_bindgen(unchecked_param_type = "InstrumentModel")] model: JsValue,
+    #[wasm_bindgen(js_name = objectTemperaturesK)] object_temperatures_k: &[f64],
+    #[wasm_bindgen(unchecked_optional_param_type = "MeasurementConditions")] conditions: JsValue,
+) -> Result<Vec<f64>, JsValue> {
+    let m = parse_model(&model)?;
+    let c = parse_conditions(&conditions)?;
+    let mut out = Ok(Vec::new());
+    m.run(|sm| {
+        let (gain, bg) = c.affine(sm)?;
+        out = map_indexed(object_temperatures_k, |t| {
+            temperature("object_temperature_k", t)?;
+            Ok(gain * sm.signal(t)? + bg)
+        });
+        Ok(())
+    })?;
+    out
+}
+
+/// The measurement equation in affine form for a model: signal = gain·S(T_obj) + background.
+///
+/// @throws {QuantabandError} as `measuredSignal`.
+#[wasm_bindgen(js_name = measurementAffine, unchecked_return_type = "AffineForm")]
+pub fn measurement_affine(
+    #[wasm_bindgen(unchecked_param_type = "InstrumentModel")] model: JsValue,
+    #[wasm_bindgen(unchecked_optional_param_type = "MeasurementConditions")] conditions: JsValue,
+) -> Result<JsValue, JsValue> {
+    let m = parse_model(&model)?;
+    let c = parse_conditions(&conditions)?;
+    let (gain, bg) = m.run(|sm| c.affine(sm))?;
+    Ok(object(&[("gain", num(gain)), ("background", num(bg))]))
+}
+
+// ---------------------------------------------------------------------------------------------
+// Spectral responses
+// ---------------------------------------------------------------------------------------------
+
+/// Calls `f` once with the response model's `ResponseSignal` and coordinate unit (one
+/// non-generic function; UNSUPPORTED for another model kind).
+#[inline(never)]
+fn with_response_dyn(
+    model: &JsValue,
+    f: &mut dyn FnMut(&ResponseSignal<'_>, SpectralUnit) -> crate::Result<()>,
+) -> Result<(), JsValue> {
+    match parse_model(model)? {
+        Model::Response {
+            wavelengths_m,
+            values,
+            c2,
+            unit,
+        } => {
+            let r = Response::new(&wavelengths_m, &values)?;
+            Ok(f(&ResponseSignal::new(r, c2), unit)?)
+        }
+        _ => Err(fail(
+            "UNSUPPORTED",
+            "this function needs a ResponseModel (kind \"response\")".into(),
+        )),
+    }
+}
+
+fn with_response<R>(
+    model: &JsValue,
+    f: impl FnOnce(&ResponseSignal<'_>, SpectralUnit) -> crate::Result<R>,
+) -> Result<R, JsValue> {
+    let mut f = Some(f);
+    let mut out = None;
+    with_response_dyn(model, &mut |rs, unit| {
+        if let Some(f) = f.take() {
+            out = Some(f(rs, unit)?);
+        }
+        Ok(())
+    })?;
+    // `with_response_dyn` calls the closure exactly once on success; no panic path regardless.
+    out.ok_or_else(|| {
+        Error::Unsupported {
+            what: "internal: response model was not evaluated",
+        }
+        .into()
+    })
+}
+
+/// Mean wavelength and spread (standard deviation) of the response table itself, weighted by
+/// R(λ) alone, in the model's unit.
+///
+/// @throws {QuantabandError} model errors; UNSUPPORTED for a non-response model.
+#[wasm_bindgen(js_name = responseMoments, unchecked_return_type = "ResponseMoments")]
+pub fn response_moments(
+    #[wasm_bindgen(unchecked_param_type = "ResponseModel")] model: JsValue,
+) -> Result<JsValue, JsValue> {
+    let (m, s, unit) = with_response(&model, |rs, unit| {
+        let (m, s) = rs.response().mean_and_spread_m()?;
+        Ok((m, s, unit))
+    })?;
+    Ok(object(&[
+        ("mean", num(from_m("mean", m, unit)?)),
+        ("spread", num(s / unit.si_factor())),
+    ]))
+}
+
+/// Mean wavelength of the signal R(λ)·L_λ(λ, T) at `temperatureK`, and its spread, in the
+/// model's unit.
+///
+/// @throws {QuantabandError} NON_FINITE, NON_POSITIVE_TEMPERATURE, model errors.
+#[wasm_bindgen(js_name = signalMoments, unchecked_return_type = "ResponseMoments")]
+pub fn signal_moments(
+    #[wasm_bindgen(unchecked_param_type = "ResponseModel")] model: JsValue,
+    #[wasm_bindgen(js_name = temperatureK)] temperature_k: f64,
+) -> Result<JsValue, JsValue> {
+    let (m, s, unit) = with_response(&model, |rs, unit| {
+        let (m, s) = rs.mean_and_spread_m(temperature_k)?;
+        Ok((m, s, unit))
+    })?;
+    Ok(object(&[
+        ("mean", num(from_m("mean", m, unit)?)),
+        ("spread", num(s / unit.si_factor())),
+    ]))
+}
+
+/// Limiting effective wavelength λ_T = c2/(T²·d ln S/dT) at `temperatureK` — the wavelength of
+/// a Wien-law monochromatic thermometer with the same relative sensitivity — in the model's unit.
+///
+/// @throws {QuantabandError} NON_FINITE, NON_POSITIVE_TEMPERATURE, model errors.
+#[wasm_bindgen(js_name = limitingEffectiveWavelength)]
+pub fn limiting_effective_wavelength(
+    #[wasm_bindgen(unchecked_param_type = "ResponseModel")] model: JsValue,
+    #[wasm_bindgen(js_name = temperatureK)] temperature_k: f64,
+) -> Result<f64, JsValue> {
+    let (l, unit) = with_response(&model, |rs, unit| {
+        Ok((rs.limiting_effective_wavelength_m(temperature_k)?, unit))
+    })?;
+    Ok(from_m("wavelength", l, unit)?)
+}
+
+/// Effective wavelength λ_e = c2·(1/T1 − 1/T2)/ln(S(T2)/S(T1)) between `t1K` and `t2K` — the
+/// wavelength of a Wien-law thermometer giving the same signal ratio — in the model's unit.
+///
+/// @throws {QuantabandError} NON_FINITE, NON_POSITIVE_TEMPERATURE, model errors.
+#[wasm_bindgen(js_name = effectiveWavelength)]
+pub fn effective_wavelength(
+    #[wasm_bindgen(unchecked_param_type = "ResponseModel")] model: JsValue,
+    #[wasm_bindgen(js_name = t1K)] t1_k: f64,
+    #[wasm_bindgen(js_name = t2K)] t2_k: f64,
+) -> Result<f64, JsValue> {
+    let (l, unit) = with_response(&model, |rs, unit| {
+        Ok((rs.effective_wavelength_m(t1_k, t2_k)?, unit))
+    })?;
+    Ok(from_m("wavelength", l, unit)?)
+}
+
+/// Value of the response table at one wavelength (in the model's unit): linear interpolation,
+/// 0 outside the table.
+///
+/// @throws {QuantabandError} NON_FINITE, NON_POSITIVE_SPECTRAL, model errors.
+#[wasm_bindgen(js_name = responseValueAt)]
+pub fn response_value_at(
+    #[wasm_bindgen(unchecked_param_type = "ResponseModel")] model: JsValue,
+    wavelength: f64,
+) -> Result<f64, JsValue> {
+    with_response(&model, |rs, unit| {
+        rs.response()
+            .value_at(to_m("wavelength", wavelength, unit)?)
+    })
+}
+
+// ---------------------------------------------------------------------------------------------
+// Sakuma–Hattori curves
+// ---------------------------------------------------------------------------------------------
+
+/// Least-squares Sakuma–Hattori curve through calibration points (`temperaturesK`, K, and
+/// `signals`, same length, at least 3, signals increasing with temperature).
+///
+/// @throws {QuantabandError} LENGTH_MISMATCH, TOO_FEW_POINTS, NON_FINITE,
+/// NON_POSITIVE_TEMPERATURE, NON_POSITIVE, DEGENERATE_FIT, NOT_CONVERGED, UNSUPPORTED (c2).
+#[wasm_bindgen(js_name = sakumaHattoriFit, unchecked_return_type = "SakumaHattoriFit")]
+pub fn sakuma_hattori_fit(
+    #[wasm_bindgen(js_name = temperaturesK)] temperatures_k: &[f64],
+    signals: &[f64],
+    #[wasm_bindgen(unchecked_optional_param_type = "C2Convention")] c2: Option<String>,
+) -> Result<JsValue, JsValue> {
+    let c2 = c2_arg(c2)?;
+    let mut res = vec![0.0; temperatures_k.len()];
+    let r = SakumaHattori::fit(temperatures_k, signals, c2, Some(&mut res))?;
+    Ok(fit_object(&r, Some(res)))
+}
+
+/// Least-squares Sakuma–Hattori curve for an exact model over [`tMinK`, `tMaxK`] (16 points
+/// evenly spaced in 1/T).
+///
+/// @throws {QuantabandError} NON_FINITE, NON_POSITIVE_TEMPERATURE, DEGENERATE_FIT (tMinK ≥
+/// tMaxK), NOT_CONVERGED, model errors.
+#[wasm_bindgen(js_name = sakumaHattoriFitModel, unchecked_return_type = "SakumaHattoriFit")]
+pub fn sakuma_hattori_fit_model(
+    #[wasm_bindgen(unchecked_param_type = "InstrumentModel")] model: JsValue,
+    #[wasm_bindgen(js_name = tMinK)] t_min_k: f64,
+    #[wasm_bindgen(js_name = tMaxK)] t_max_k: f64,
+    #[wasm_bindgen(unchecked_optional_param_type = "C2Convention")] c2: Option<String>,
+) -> Result<JsValue, JsValue> {
+    let c2 = c2_arg(c2)?;
+    let m = parse_model(&model)?;
+    let r = m.run(|sm| SakumaHattori::fit_model(sm, t_min_k, t_max_k, c2))?;
+    Ok(fit_object(&r, None))
+}
+
+/// Sakuma–Hattori curve from the response table's moments (exact at `referenceTemperatureK`;
+/// a starting approximation, second order in spread/mean).
+///
+/// @throws {QuantabandError} NON_FINITE, NON_POSITIVE_TEMPERATURE, DEGENERATE_FIT, model errors.
+#[wasm_bindgen(js_name = sakumaHattoriFromResponse, unchecked_return_type = "SakumaHattoriModel")]
+pub fn sakuma_hattori_from_response(
+    #[wasm_bindgen(unchecked_param_type = "ResponseModel")] model: JsValue,
+    #[wasm_bindgen(js_name = referenceTemperatureK)] reference_temperature_k: f64,
+) -> Result<JsValue, JsValue> {
+    let c = with_response(&model, |rs, _| {
+        SakumaHattori::from_response(rs, reference_temperature_k)
+    })?;
+    Ok(curve_object(&c))
+}
+
+/// Largest interpolation error max |T_curve(S_exact(T)) − T| of `curve` against `exact` on
+/// `nPoints` temperatures evenly spaced in [`tMinK`, `tMaxK`].
+///
+/// @throws {QuantabandError} NON_FINITE, NON_POSITIVE_TEMPERATURE, TOO_FEW_POINTS,
+/// OUT_OF_RANGE (nPoints not an integer ≤ 1e7), DEGENERATE_FIT, model errors.
+#[wasm_bindgen(js_name = maxInterpolationError, unchecked_return_type = "InterpolationError")]
+pub fn max_interpolation_error(
+    #[wasm_bindgen(unchecked_param_type = "InstrumentModel")] curve: JsValue,
+    #[wasm_bindgen(unchecked_param_type = "InstrumentModel")] exact: JsValue,
+    #[wasm_bindgen(js_name = tMinK)] t_min_k: f64,
+    #[wasm_bindgen(js_name = tMaxK)] t_max_k: f64,
+    #[wasm_bindgen(js_name = nPoints)] n_points: f64,
+) -> Result<JsValue, JsValue> {
+    let n = count("nPoints", n_points)?;
+    let c = parse_model(&curve)?;
+    let e = parse_model(&exact)?;
+    let (err, at_t) =
+        c.run(|cm| e.run(|em| max_interpolation_error_k(cm, em, t_min_k, t_max_k, n)))?;
+    Ok(object(&[
+        ("maxErrorK", num(err)),
+        ("atTemperatureK", num(at_t)),
+    ]))
+}
+
+// ---------------------------------------------------------------------------------------------
+// ITS-90 and ratio thermometry
+// ---------------------------------------------------------------------------------------------
+
+/// Assigned ITS-90 temperature T90 of a fixed point, K (silver 1234.93, gold 1337.33, copper
+/// 1357.77).
+///
+/// @throws {QuantabandError} UNSUPPORTED (unknown fixed point).
+#[wasm_bindgen(js_name = fixedPointTemperature)]
+pub fn fixed_point_temperature(
+    #[wasm_bindgen(js_name = fixedPoint, unchecked_param_type = "FixedPoint")] fixed_point: &str,
+) -> Result<f64, JsValue> {
+    Ok(parse_fixed_point(fixed_point)?.temperature_k())
+}
+
+/// Temperature (K) whose spectral radiance at `wavelength` (in `unit`) is `ratio` times that at
+/// `referenceTemperatureK` (ITS-90 radiance-ratio equation, Planck form).
+///
+/// @throws {QuantabandError} NON_FINITE, NON_POSITIVE, NON_POSITIVE_SPECTRAL,
+/// NON_POSITIVE_TEMPERATURE, UNKNOWN_UNIT, UNSUPPORTED, NO_SOLUTION.
+#[wasm_bindgen(js_name = temperatureFromRatio)]
+pub fn temperature_from_ratio(
+    ratio: f64,
+    wavelength: f64,
+    #[wasm_bindgen(unchecked_param_type = "WavelengthUnit")] unit: &str,
+    #[wasm_bindgen(js_name = referenceTemperatureK)] reference_temperature_k: f64,
+    #[wasm_bindgen(unchecked_optional_param_type = "C2Convention")] c2: Option<String>,
+) -> Result<f64, JsValue> {
+    let u = wavelength_unit(unit)?;
+    let c2 = c2_arg(c2)?;
+    let wl = to_m("wavelength", wavelength, u)?;
+    Ok(its90::temperature_from_ratio(
+        ratio,
+        wl,
+        reference_temperature_k,
+        c2,
+    )?)
+}
+
+/// Spectral-radiance ratio L(λ, T)/L(λ, T_ref) at `wavelength` (in `unit`).
+///
+/// @throws {QuantabandError} NON_FINITE, NON_POSITIVE_SPECTRAL, NON_POSITIVE_TEMPERATURE,
+/// UNKNOWN_UNIT, UNSUPPORTED.
+#[wasm_bindgen(js_name = radianceRatio)]
+pub fn radiance_ratio(
+    #[wasm_bindgen(js_name = temperatureK)] temperature_k: f64,
+    wavelength: f64,
+    #[wasm_bindgen(unchecked_param_type = "WavelengthUnit")] unit: &str,
+    #[wasm_bindgen(js_name = referenceTemperatureK)] reference_temperature_k: f64,
+    #[wasm_bindgen(unchecked_optional_param_type = "C2Convention")] c2: Option<String>,
+) -> Result<f64, JsValue> {
+    let u = wavelength_unit(unit)?;
+    let c2 = c2_arg(c2)?;
+    let wl = to_m("wavelength", wavelength, u)?;
+    Ok(its90::radiance_ratio(
+        temperature_k,
+        wl,
+        reference_temperature_k,
+        c2,
+    )?)
+}
+
+/// T90 from a radiance ratio to an ITS-90 fixed point at `wavelength` (in `unit`), with the same
+/// equation evaluated with the CODATA 2018 c2 for comparison.
+///
+/// @throws {QuantabandError} as `temperatureFromRatio`; UNSUPPORTED (fixed point).
+#[wasm_bindgen(js_name = its90Temperature, unchecked_return_type = "RatioTemperatures")]
+pub fn its90_temperature(
+    ratio: f64,
+    wavelength: f64,
+    #[wasm_bindgen(unchecked_param_type = "WavelengthUnit")] unit: &str,
+    #[wasm_bindgen(js_name = fixedPoint, unchecked_param_type = "FixedPoint")] fixed_point: &str,
+) -> Result<JsValue, JsValue> {
+    let u = wavelength_unit(unit)?;
+    let fp = parse_fixed_point(fixed_point)?;
+    let wl = to_m("wavelength", wavelength, u)?;
+    let r = its90::its90_temperature(ratio, wl, fp)?;
+    Ok(object(&[
+        ("t90K", num(r.t90_k)),
+        ("tCodataK", num(r.t_codata_k)),
+        ("differenceK", num(r.difference_k)),
+    ]))
+}
+
+/// Temperature from a two-channel signal ratio S1/S2 and the emissivity ratio ε1/ε2, with
+/// sensitivities. Channel 1 must be the shorter-wavelength one. `guessK` starts the search.
+///
+/// @throws {QuantabandError} NON_FINITE, NON_POSITIVE, NON_POSITIVE_TEMPERATURE, UNSUPPORTED
+/// (channel order), NO_SOLUTION, model errors.
+#[wasm_bindgen(js_name = ratioTemperature, unchecked_return_type = "RatioReading")]
+pub fn ratio_temperature(
+    #[wasm_bindgen(unchecked_param_type = "InstrumentModel")] channel1: JsValue,
+    #[wasm_bindgen(unchecked_param_type = "InstrumentModel")] channel2: JsValue,
+    ratio: f64,
+    #[wasm_bindgen(js_name = emissivityRatio)] emissivity_ratio: f64,
+    #[wasm_bindgen(js_name = guessK)] guess_k: f64,
+) -> Result<JsValue, JsValue> {
+    let a = parse_model(&channel1)?;
+    let b = parse_model(&channel2)?;
+    let r =
+        a.run(|am| b.run(|bm| core_ratio_temperature(am, bm, ratio, emissivity_ratio, guess_k)))?;
+    Ok(ratio_object(&r))
+}
+
+/// Two-colour (Wien-free, Planck) temperature from a spectral-radiance ratio L(λ1)/L(λ2) at two
+/// wavelengths (in `unit`) and the emissivity ratio ε1/ε2.
+///
+/// @throws {QuantabandError} NON_FINITE, NON_POSITIVE, NON_POSITIVE_SPECTRAL, UNKNOWN_UNIT,
+/// UNSUPPORTED, NO_SOLUTION.
+#[wasm_bindgen(js_name = twoColourTemperature, unchecked_return_type = "RatioReading")]
+pub fn two_colour_temperature(
+    wavelength1: f64,
+    wavelength2: f64,
+    #[wasm_bindgen(unchecked_param_type = "WavelengthUnit")] unit: &str,
+    ratio: f64,
+    #[wasm_bindgen(js_name = emissivityRatio)] emissivity_ratio: f64,
+    #[wasm_bindgen(unchecked_optional_param_type = "C2Convention")] c2: Option<String>,
+) -> Result<JsValue, JsValue> {
+    let u = wavelength_unit(unit)?;
+    let c2 = c2_arg(c2)?;
+    let l1 = to_m("wavelength1", wavelength1, u)?;
+    let l2 = to_m("wavelength2", wavelength2, u)?;
+    Ok(ratio_object(&core_two_colour(
+        l1,
+        l2,
+        ratio,
+        emissivity_ratio,
+        c2,
+    )?))
+}
+
+// ---------------------------------------------------------------------------------------------
+// Uncertainty
+// ---------------------------------------------------------------------------------------------
+
+/// Sensitivity coefficients ∂T_obj/∂x of the object temperature at a reading `signal` under
+/// `conditions` (x = signal, emissivity, reflected temperature, path transmittance, path
+/// temperature).
+///
+/// @throws {QuantabandError} as `objectTemperature`.
+#[wasm_bindgen(js_name = sensitivities, unchecked_return_type = "Sensitivities")]
+pub fn sensitivities(
+    #[wasm_bindgen(unchecked_param_type = "InstrumentModel")] model: JsValue,
+    signal: f64,
+    #[wasm_bindgen(unchecked_optional_param_type = "MeasurementConditions")] conditions: JsValue,
+) -> Result<JsValue, JsValue> {
+    let m = parse_model(&model)?;
+    let c = parse_conditions(&conditions)?;
+    let s = m.run(|sm| core_sensitivities(sm, signal, &c))?;
+    Ok(object(&[
+        ("temperatureK", num(s.temperature_k)),
+        ("signal", num(s.signal)),
+        ("emissivity", num(s.emissivity)),
+        ("reflectedTemperature", num(s.reflected_temperature)),
+        ("pathTransmittance", num(s.path_transmittance)),
+        ("pathTemperature", num(s.path_temperature)),
+    ]))
+}
+
+/// GUM uncertainty budget (first order, uncorrelated inputs) of the object temperature at a
+/// reading `signal` under `conditions`, from the standard uncertainties of the inputs.
+///
+/// @throws {QuantabandError} as `objectTemperature`; NON_FINITE / OUT_OF_RANGE for a negative
+/// or non-finite uncertainty; UNSUPPORTED (unknown field).
+#[wasm_bindgen(js_name = uncertaintyBudget, unchecked_return_type = "UncertaintyBudget")]
+pub fn uncertainty_budget(
+    #[wasm_bindgen(unchecked_param_type = "InstrumentModel")] model: JsValue,
+    signal: f64,
+    #[wasm_bindgen(unchecked_param_type = "MeasurementConditions | undefined")] conditions: JsValue,
+    #[wasm_bindgen(unchecked_param_type = "StandardUncertainties")] uncertainties: JsValue,
+) -> Result<JsValue, JsValue> {
+    let m = parse_model(&model)?;
+    let c = parse_conditions(&conditions)?;
+    let o = Opts::new(
+        &uncertainties,
+        "StandardUncertainties",
+        &[
+            "signal",
+            "emissivity",
+            "reflectedTemperatureK",
+            "pathTransmittance",
+            "pathTemperatureK",
+        ],
+    )?;
+    let u = StandardUncertainties {
+        signal: o.num("signal")?.unwrap_or(0.0),
+        emissivity: o.num("emissivity")?.unwrap_or(0.0),
+        reflected_temperature_k: o.num("reflectedTemperatureK")?.unwrap_or(0.0),
+        path_transmittance: o.num("pathTransmittance")?.unwrap_or(0.0),
+        path_temperature_k: o.num("pathTemperatureK")?.unwrap_or(0.0),
+    };
+    let b = m.run(|sm| core_budget(sm, signal, &c, &u))?;
+    let entries = Array::new();
+    for e in b.entries.iter() {
+        let input = match e.input {
+            BudgetInput::Signal => "signal",
+            BudgetInput::Emissivity => "emissivity",
+            BudgetInput::ReflectedTemperature => "reflectedTemperature",
+            BudgetInput::PathTransmittance => "pathTransmittance",
+            BudgetInput::PathTemperature => "pathTemperature",
+        };
+        entries.push(&object(&[
+            ("input", JsValue::from_str(input)),
+            ("sensitivity", num(e.sensitivity)),
+            ("standardUncertainty", num(e.standard_uncertainty)),
+            ("contributionK", num(e.contribution_k)),
+            ("varianceShare", num(e.variance_share)),
+        ]));
+    }
+    Ok(object(&[
+        ("temperatureK", num(b.temperature_k)),
+        ("entries", entries.into()),
+        (
+            "combinedStandardUncertaintyK",
+            num(b.combined_standard_uncertainty_k),
+        ),
+    ]))
+}
