@@ -254,7 +254,7 @@ if (out.length) console.log("\nTargets (goals, not test assertions):\n" + out.jo
 
 if (machine) {
   console.log(
-    `\nMeasured ${machine.date} on ${machine.cpu} (${machine.nproc} cores visible, shared), ${machine.rustc}, Node ${machine.node}` +
+    `\nMeasured ${machine.date} on ${machine.cpu} (${machine.nproc} cores visible, shared; load average ${machine.load ?? "?"} at the start), ${machine.rustc}, Node ${machine.node}` +
       (meta.scipy ? `, Python ${meta.scipy.python} + SciPy ${meta.scipy.scipy}` : "") +
       ".",
   );
