@@ -444,14 +444,28 @@ fn energy_density_core(num: f64, den: f64, x: f64, temperature_k: f64, scale: f6
         return 0.0;
     }
     let q = num / den;
+    let normal = |a: f64| (f64::MIN_POSITIVE..=f64::MAX).contains(&a);
     if x < 1e-300 {
         // Rayleigh–Jeans: n̄ = 1/x to within x/2 ≈ 0, and q/x = kT/(hc).
-        return EIGHT_PI * scale * q * q * (K_OVER_HC * temperature_k);
+        let q2 = q * q;
+        let kt_hc = K_OVER_HC * temperature_k;
+        let v = EIGHT_PI * scale * q2 * kt_hc;
+        if normal(q2) && normal(kt_hc) && normal(v) {
+            return v;
+        }
+        // q² may underflow while kT/(hc) overflows (tiny E with T near f64::MAX): 0·∞ would be
+        // NaN although the product is representable, so go through logarithms.
+        let ln_q = float::ln(num) - float::ln(den);
+        return float::exp(
+            float::ln(EIGHT_PI * scale)
+                + 2.0 * ln_q
+                + float::ln(K_OVER_HC)
+                + float::ln(temperature_k),
+        );
     }
     let n = be_unchecked(x);
     let lead = EIGHT_PI * scale * q * q * q;
     let v = lead * n;
-    let normal = |a: f64| (f64::MIN_POSITIVE..=f64::MAX).contains(&a);
     if normal(lead) && normal(n) && normal(v) {
         return v;
     }

@@ -20,7 +20,16 @@ use crate::error::{positive, spectral, temperature};
 use crate::float::{exp, expm1, ln, ln_1p};
 use crate::{Error, Result};
 
-/// The ITS-90 freezing points used as references for radiation thermometry.
+/// The ITS-90 freezing points used as references for radiation thermometry (assigned values
+/// T90 in K from Preston-Thomas, Metrologia 27, 3 (1990), Table 1).
+///
+/// # Examples
+/// ```
+/// use quantaband::thermometry::its90::FixedPoint;
+/// // ITS-90 Table 1: Ag 1234.93 K, Cu 1357.77 K.
+/// assert_eq!(FixedPoint::Silver.temperature_k(), 1234.93);
+/// assert_eq!(FixedPoint::Copper.temperature_k(), 1357.77);
+/// ```
 #[derive(Debug, Clone, Copy, PartialEq, Eq)]
 pub enum FixedPoint {
     /// Freezing point of silver, T90 = 1234.93 K.
@@ -62,7 +71,16 @@ impl FixedPoint {
     }
 }
 
-/// The temperature of a radiance ratio computed with both values of c2.
+/// The temperature of a radiance ratio computed with both values of c2 (all fields in K),
+/// returned by [`its90_temperature`].
+///
+/// # Examples
+/// ```
+/// use quantaband::thermometry::its90::{its90_temperature, FixedPoint};
+/// // A ratio of 1 is the fixed point itself, whatever c2 (ITS-90 section 3.3 form).
+/// let r = its90_temperature(1.0, 650e-9, FixedPoint::Gold).unwrap();
+/// assert!((r.t90_k - 1337.33).abs() < 1e-9 && r.difference_k.abs() < 1e-9);
+/// ```
 #[derive(Debug, Clone, Copy, PartialEq)]
 pub struct RatioTemperatures {
     /// T90 with c2 = 0.014388 m·K (the ITS-90 value), K.
@@ -180,9 +198,32 @@ pub fn radiance_ratio(
     let x = c2v / (wavelength_m * temperature_k);
     let x_ref = c2v / (wavelength_m * reference_temperature_k);
     if x <= 30.0 && x_ref <= 30.0 {
-        return Ok(expm1(x_ref) / expm1(x));
+        if x >= f64::MIN_POSITIVE && x_ref >= f64::MIN_POSITIVE {
+            return Ok(expm1(x_ref) / expm1(x));
+        }
+        // λ·T so large that x or x_ref is subnormal or 0 (e.g. λ near f64::MAX): 0/0 would be
+        // NaN. Rayleigh–Jeans side: r = (T/T_ref)·h(x_ref)/h(x) with h(y) = (e^y − 1)/y → 1.
+        return Ok((temperature_k / reference_temperature_k) * (expm1_over(x_ref) / expm1_over(x)));
+    }
+    if x.is_infinite() || x_ref.is_infinite() {
+        // c2/(λT) overflowed (λ near the smallest subnormal): ln r = x_ref − x + (tiny
+        // corrections), with x_ref − x = (c2/λ)·(T − T_ref)/(T·T_ref) formed without ∞ − ∞
+        // (→ 0 or ∞ as the true value is, exactly 1 for T = T_ref).
+        let d = (temperature_k - reference_temperature_k) / temperature_k / reference_temperature_k;
+        let diff = c2v * d / wavelength_m;
+        let corr = ln_1p(-exp(-x_ref)) - ln_1p(-exp(-x));
+        return Ok(exp(diff + corr));
     }
     Ok(exp(ln_expm1(x_ref) - ln_expm1(x)))
+}
+
+/// (e^y − 1)/y for 0 ≤ y ≤ 30, with the limit 1 at y = 0.
+fn expm1_over(y: f64) -> f64 {
+    if y == 0.0 {
+        1.0
+    } else {
+        expm1(y) / y
+    }
 }
 
 /// T90 from a radiance `ratio` to a `fixed_point` blackbody at `wavelength_m`, together with

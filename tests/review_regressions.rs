@@ -1,0 +1,106 @@
+//! Regression tests for defects found in the independent review of the physics modules.
+//!
+//! Each test pins an extreme but valid input that used to give a spurious NaN or ∞. Expected
+//! values come from mpmath 1.3.0 at mp.dps = 50, evaluating the defining formula directly (no
+//! code of this crate); the one-line mpmath expression is given beside each value. Constants:
+//! SI 2019 exact h, c, k (CODATA 2018) and the ITS-90 c2 = 0.014388 m·K (Preston-Thomas,
+//! Metrologia 27, 3, 1990). `f64::MAX` is written M = 2^1024·(1 − 2^-53) in the mpmath
+//! expressions.
+
+use quantaband::constants::C2Convention;
+use quantaband::stats::{spectral_energy_density_energy, spectral_energy_density_frequency};
+use quantaband::thermometry::its90::radiance_ratio;
+
+fn rel(a: f64, b: f64) -> f64 {
+    (a / b - 1.0).abs()
+}
+
+/// The logarithmic route sums terms of magnitude up to ~750, so its relative error is about
+/// 750·2.2e-16 ≈ 2e-13 (common practice, no source: error of exp of a rounded sum).
+const LOG_ROUTE_TOL: f64 = 1e-12;
+
+// ---------------------------------------------------------------------------------------------
+// spectral_energy_density_*: the Rayleigh–Jeans branch multiplied q² (underflowed to 0) by
+// kT/(hc) (overflowed to ∞) for a tiny photon energy/frequency at a temperature near f64::MAX:
+// 0·∞ = NaN, or a finite q² times ∞ = ∞, where the true value is an ordinary number.
+
+#[test]
+fn energy_density_per_energy_tiny_energy_huge_temperature_is_finite() {
+    // mpmath: 8*pi*E**3/((h*c)**3*expm1(E/(k*M)))
+    let cases = [
+        (1e-300, f64::MAX, 7.958_083_748_126_432e-240),
+        (1e-310, f64::MAX, 7.958_083_748_126_432e-260),
+        (1e-300, 1e300, 4.426_831_027_941_783e-248),
+    ];
+    for (e, t, want) in cases {
+        let got = spectral_energy_density_energy(e, t).unwrap();
+        assert!(
+            rel(got, want) < LOG_ROUTE_TOL,
+            "u_E({e:e} J, {t:e} K) = {got:e}, mpmath {want:e}"
+        );
+    }
+}
+
+#[test]
+fn energy_density_per_frequency_tiny_frequency_huge_temperature_is_finite() {
+    // mpmath: 8*pi*h*f**3/(c**3*expm1(h*f/(k*M)))
+    let cases = [
+        (1e-100, 2.315_136_454_527_246_7e61),
+        (1e-150, 2.315_136_454_527_246_7e-39),
+    ];
+    for (f, want) in cases {
+        let got = spectral_energy_density_frequency(f, f64::MAX).unwrap();
+        assert!(
+            rel(got, want) < LOG_ROUTE_TOL,
+            "u_nu({f:e} Hz, f64::MAX) = {got:e}, mpmath {want:e}"
+        );
+    }
+    // mpmath gives 2.315e-339 at f = 1e-300 Hz: below the smallest subnormal, so exactly 0.
+    assert_eq!(
+        spectral_energy_density_frequency(1e-300, f64::MAX).unwrap(),
+        0.0
+    );
+}
+
+// ---------------------------------------------------------------------------------------------
+// its90::radiance_ratio: expm1(x_ref)/expm1(x) with x = x_ref = 0 (λ·T beyond f64::MAX) gave
+// 0/0 = NaN; ln_expm1(∞) − ln_expm1(∞) (λ near the smallest subnormal) gave ∞ − ∞ = NaN.
+
+#[test]
+fn radiance_ratio_at_huge_wavelength_is_the_rayleigh_jeans_ratio() {
+    let tref = 1337.33; // ITS-90 gold point (Preston-Thomas 1990, Table 1)
+                        // mpmath: expm1(c2/(M*Tref))/expm1(c2/(M*T)), c2 = 0.014388
+    let cases = [
+        (1.5, 1.121_637_890_423_455_7e-3),
+        (1e9, 7.477_585_936_156_371e5),
+    ];
+    for (t, want) in cases {
+        let got = radiance_ratio(t, f64::MAX, tref, C2Convention::Its90).unwrap();
+        assert!(
+            rel(got, want) < 1e-15,
+            "r({t} K, λ = f64::MAX) = {got:e}, mpmath {want:e}"
+        );
+    }
+}
+
+#[test]
+fn radiance_ratio_at_smallest_wavelength_is_zero_one_or_infinity() {
+    let tref = 1337.33;
+    let lam = f64::from_bits(1); // 4.9e-324 m, the smallest positive f64
+                                 // mpmath: log10(expm1(c2/(lam*Tref))/expm1(c2/(lam*1000))) = -3.19e317 → below the f64
+                                 // range, so exactly 0.
+    assert_eq!(
+        radiance_ratio(1000.0, lam, tref, C2Convention::Its90).unwrap(),
+        0.0
+    );
+    // The reciprocal situation (T above T_ref): 10^(+…e317), above f64::MAX, so +∞.
+    assert_eq!(
+        radiance_ratio(2000.0, lam, tref, C2Convention::Its90).unwrap(),
+        f64::INFINITY
+    );
+    // Identity: the ratio of a radiance to itself is 1 at any wavelength.
+    assert_eq!(
+        radiance_ratio(tref, lam, tref, C2Convention::Codata2018).unwrap(),
+        1.0
+    );
+}
