@@ -33,8 +33,41 @@ use crate::float;
 use crate::planck::Spectrum;
 
 /// Lower end of the temperature range searched by the band and ratio inverses, K.
+///
+/// [`temperature_from_band`] and [`temperature_from_band_ratio`] only look for a solution in
+/// [`T_MIN_K`, `T_MAX_K`]; a value that no temperature in that range explains returns
+/// `Error::NoSolution` rather than an extrapolated temperature. (The closed-form
+/// [`brightness_temperature`] has no such range.)
+///
+/// # Examples
+/// ```
+/// use quantaband::band::band;
+/// use quantaband::inverse::{temperature_from_band, T_MIN_K};
+/// use quantaband::planck::Spectrum;
+/// let s = Spectrum::BLACKBODY;
+/// // A band radiance below what T_MIN_K gives has no solution in the searched range (a
+/// // 0.1–1 m band, so that the value at 0.5 mK is still a normal f64).
+/// let cold = band(&s, 0.1, 1.0, 0.5 * T_MIN_K).unwrap();
+/// assert!(cold > 0.0);
+/// assert_eq!(temperature_from_band(&s, 0.1, 1.0, cold).unwrap_err().code(), "NO_SOLUTION");
+/// assert!((temperature_from_band(&s, 0.1, 1.0, band(&s, 0.1, 1.0, 2.0 * T_MIN_K).unwrap()).unwrap()
+///     / (2.0 * T_MIN_K) - 1.0).abs() < 1e-9);
+/// ```
 pub const T_MIN_K: f64 = 1e-3;
 /// Upper end of the temperature range searched by the band and ratio inverses, K.
+///
+/// See [`T_MIN_K`] for how the range is used.
+///
+/// # Examples
+/// ```
+/// use quantaband::band::band;
+/// use quantaband::inverse::{temperature_from_band, T_MAX_K};
+/// use quantaband::planck::Spectrum;
+/// let s = Spectrum::BLACKBODY;
+/// // A band radiance above what T_MAX_K gives has no solution in the searched range.
+/// let hot = band(&s, 8e-6, 14e-6, 2.0 * T_MAX_K).unwrap();
+/// assert_eq!(temperature_from_band(&s, 8e-6, 14e-6, hot).unwrap_err().code(), "NO_SOLUTION");
+/// ```
 pub const T_MAX_K: f64 = 1e7;
 
 /// Brightness temperature without validation; None when T is outside the f64 range.

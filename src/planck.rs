@@ -55,6 +55,23 @@ const K_ENERGY_FREQ: f64 = 2.0 * PLANCK_H / (SPEED_OF_LIGHT_C * SPEED_OF_LIGHT_C
 const K_PHOTON_FREQ: f64 = 2.0 / (SPEED_OF_LIGHT_C * SPEED_OF_LIGHT_C);
 
 /// The spectral variable a [`Spectrum`] is expressed in (all vacuum values, SI units).
+///
+/// A density per wavenumber and one per wavelength describe the same radiation:
+/// L_σ̃ = λ²·L_λ at σ̃ = 1/λ (and L_ν = (λ²/c₀)·L_λ at ν = c₀/λ).
+///
+/// # Examples
+/// ```
+/// use quantaband::planck::{SpectralVariable, Spectrum};
+/// let per_m = Spectrum::default().spectral(10e-6, 300.0).unwrap();
+/// let per_inv_m = Spectrum::default()
+///     .with_variable(SpectralVariable::Wavenumber)
+///     .spectral(1e5, 300.0)
+///     .unwrap();
+/// // 9.924 033 330 070 695e-4 W·m⁻²·sr⁻¹/m⁻¹ at σ̃ = 1e5 m⁻¹, 300 K (mpmath, 40 digits,
+/// // tests/data/gen_core.py); the identity L_σ̃ = λ² L_λ links the two.
+/// assert!((per_inv_m / 9.924_033_330_070_695e-4 - 1.0).abs() < 1e-14);
+/// assert!((per_inv_m / (per_m * 1e-10) - 1.0).abs() < 1e-14);
+/// ```
 #[derive(Debug, Clone, Copy, PartialEq, Eq, Default, Hash)]
 pub enum SpectralVariable {
     /// Vacuum wavelength λ in m; densities are per metre of wavelength.
@@ -98,6 +115,17 @@ impl SpectralVariable {
 }
 
 /// Whether a [`Spectrum`] counts energy (W) or photons (photons/s).
+///
+/// The photon quantity is the energy quantity divided by the photon energy hν = hc₀/λ.
+///
+/// # Examples
+/// ```
+/// use quantaband::planck::{Quantity, Spectrum};
+/// let e = Spectrum::default().spectral(10e-6, 300.0).unwrap();
+/// let p = Spectrum::default().with_quantity(Quantity::Photon).spectral(10e-6, 300.0).unwrap();
+/// // h and c₀ exact in the SI (CODATA 2018): photons × hc₀/λ = watts.
+/// assert!((p * 6.626_070_15e-34 * 299_792_458.0 / 10e-6 / e - 1.0).abs() < 1e-14);
+/// ```
 #[derive(Debug, Clone, Copy, PartialEq, Eq, Default, Hash)]
 pub enum Quantity {
     /// Radiant energy: W (per m², sr and spectral unit as applicable).
@@ -108,6 +136,17 @@ pub enum Quantity {
 }
 
 /// Whether a [`Spectrum`] gives radiance (per steradian) or hemispherical exitance.
+///
+/// For a Lambertian emitter the exitance is π sr × the radiance (Howell et al., Thermal
+/// Radiation Heat Transfer, 2020, ch. 1).
+///
+/// # Examples
+/// ```
+/// use quantaband::planck::{Geometry, Spectrum};
+/// let m = Spectrum::default().with_geometry(Geometry::Exitance).total(300.0).unwrap();
+/// // σT⁴ at 300 K = 459.300 327 953 938 8 W/m² (σ from CODATA 2018; mpmath, tests/data/gen_core.py).
+/// assert!((m / 459.300_327_953_938_8 - 1.0).abs() < 1e-14);
+/// ```
 #[derive(Debug, Clone, Copy, PartialEq, Eq, Default, Hash)]
 pub enum Geometry {
     /// Radiance, per steradian (W·m⁻²·sr⁻¹ or photons·s⁻¹·m⁻²·sr⁻¹, per spectral unit).

@@ -136,7 +136,23 @@ impl FrameOutput for f64 {
     }
 }
 
-/// Counts of a converted frame.
+/// Counts of a converted frame (pixel counts, and the temperature range of the valid pixels
+/// in K), returned by [`FrameConverter::convert`] and [`FrameConverter::convert_with_emissivity`].
+///
+/// # Examples
+/// ```
+/// use quantaband::thermometry::frame::FrameConverter;
+/// use quantaband::thermometry::measurement::Conditions;
+/// use quantaband::thermometry::sakuma_hattori::SakumaHattori;
+/// let curve = SakumaHattori::new(1.0e-5, 1.8e-4, 1.0e6, Default::default()).unwrap();
+/// let conv = FrameConverter::new(&curve, &Conditions::BLACKBODY, 1.0, 0.0).unwrap();
+/// let raw = [f64::NAN, 2.0e4, 3.0e4];
+/// let mut out = [0f64; 3];
+/// let sum = conv.convert(&raw, &mut out).unwrap();
+/// // every pixel is counted once; the range spans the valid pixels only
+/// assert_eq!((sum.valid, sum.invalid), (2, 1));
+/// assert_eq!((sum.min_temperature_k, sum.max_temperature_k), (out[1], out[2]));
+/// ```
 #[derive(Debug, Clone, Copy, PartialEq)]
 pub struct FrameSummary {
     /// Pixels converted to a temperature.
@@ -297,7 +313,18 @@ impl FrameConverter {
     }
 
     /// The background signal b (reflected, path and window terms) for the frame's scalar
-    /// emissivity, in the curve's unit.
+    /// emissivity, in the curve's unit (the signal unit of its parameter C).
+    ///
+    /// # Examples
+    /// ```
+    /// use quantaband::thermometry::frame::FrameConverter;
+    /// use quantaband::thermometry::measurement::Conditions;
+    /// use quantaband::thermometry::sakuma_hattori::SakumaHattori;
+    /// let curve = SakumaHattori::new(1.0e-5, 1.8e-4, 1.0e6, Default::default()).unwrap();
+    /// // a blackbody in vacuum has no reflected or path term
+    /// let conv = FrameConverter::new(&curve, &Conditions::BLACKBODY, 1.0, 0.0).unwrap();
+    /// assert_eq!(conv.background(), 0.0);
+    /// ```
     pub fn background(&self) -> f64 {
         self.background
     }

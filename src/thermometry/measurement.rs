@@ -39,7 +39,18 @@ use crate::error::{
 };
 use crate::{Error, Result};
 
-/// A window between the scene and the instrument (grey in the instrument's band).
+/// A window between the scene and the instrument (grey in the instrument's band):
+/// transmittance and reflectance (dimensionless) and two temperatures (K).
+///
+/// # Examples
+/// ```
+/// use quantaband::thermometry::measurement::{Conditions, Window};
+/// let w = Window { transmittance: 0.9, reflectance: 0.05, temperature_k: 300.0, reflected_temperature_k: 300.0 };
+/// assert!(Conditions { window: Some(w), ..Conditions::BLACKBODY }.validate().is_ok());
+/// // τ_w + ρ_w > 1 is rejected
+/// let bad = Window { reflectance: 0.2, ..w };
+/// assert!(Conditions { window: Some(bad), ..Conditions::BLACKBODY }.validate().is_err());
+/// ```
 #[derive(Debug, Clone, Copy, PartialEq)]
 pub struct Window {
     /// Transmittance τ_w, (0, 1].
@@ -54,7 +65,15 @@ pub struct Window {
 
 /// Conditions of a measurement: object emissivity, reflected surroundings, path and window (the
 /// symbols of the module docs' model; every function validates them with
-/// [`Conditions::validate`]).
+/// [`Conditions::validate`]). Emissivity and transmittance are dimensionless, temperatures in K.
+///
+/// # Examples
+/// ```
+/// use quantaband::thermometry::measurement::Conditions;
+/// let c = Conditions { emissivity: 0.8, reflected_temperature_k: 296.0, ..Conditions::BLACKBODY };
+/// assert!(c.validate().is_ok());
+/// assert_eq!(Conditions { emissivity: 0.0, ..c }.validate().unwrap_err().code(), "OUT_OF_RANGE");
+/// ```
 #[derive(Debug, Clone, Copy, PartialEq)]
 pub struct Conditions {
     /// Object emissivity ε in the instrument's band, (0, 1].

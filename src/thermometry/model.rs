@@ -223,6 +223,12 @@ impl SpectralPoint {
     }
 
     /// The wavelength, m.
+    ///
+    /// # Examples
+    /// ```
+    /// use quantaband::thermometry::model::SpectralPoint;
+    /// assert_eq!(SpectralPoint::new(650e-9, Default::default()).unwrap().wavelength_m(), 650e-9);
+    /// ```
     pub fn wavelength_m(&self) -> f64 {
         self.wavelength_m
     }

@@ -52,7 +52,19 @@ impl<A: SignalModel + ?Sized, B: SignalModel + ?Sized> SignalModel for RatioMode
     }
 }
 
-/// Result of a ratio measurement with its sensitivities.
+/// Result of a ratio measurement with its sensitivities (temperature in K; sensitivities in K
+/// per unit ratio), returned by [`ratio_temperature`] and [`two_colour_temperature`].
+///
+/// # Examples
+/// ```
+/// use quantaband::thermometry::ratio::two_colour_temperature;
+/// // mpmath (tests/data/gen_thermometry.py): T = 1500 K, ε1/ε2 = 1.03 gives r = 0.48564017377974
+/// let rd = two_colour_temperature(0.9e-6, 1.05e-6, 0.485_640_173_779_741_8, 1.03, Default::default()).unwrap();
+/// assert!((rd.temperature_k - 1500.0).abs() < 1e-8);
+/// // identity of the module docs: ∂T/∂ρ = −(r/ρ)·∂T/∂r
+/// let expect = -(0.485_640_173_779_741_8 / 1.03) * rd.d_t_d_ratio;
+/// assert!((rd.d_t_d_emissivity_ratio / expect - 1.0).abs() < 1e-9);
+/// ```
 #[derive(Debug, Clone, Copy, PartialEq)]
 pub struct RatioReading {
     /// Temperature, K.

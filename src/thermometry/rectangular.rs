@@ -76,6 +76,13 @@ impl RectangularBand {
     }
 
     /// The band limits (lower, upper), m.
+    ///
+    /// # Examples
+    /// ```
+    /// use quantaband::thermometry::rectangular::RectangularBand;
+    /// let b = RectangularBand::new(8e-6, 14e-6, Default::default()).unwrap();
+    /// assert_eq!(b.limits_m(), (8e-6, 14e-6));
+    /// ```
     pub fn limits_m(&self) -> (f64, f64) {
         (self.lower_m, self.upper_m)
     }

@@ -9,7 +9,7 @@
 //! R is linear on each table segment and L_λ is smooth, so each segment is split into
 //! geometric sub-intervals — each spans at most a factor e^0.3 in λ and at most 6 in
 //! x = c2/(λT) (the exponent of the Planck factor) — and each sub-interval is integrated with
-//! the 20-point Gauss–Legendre rule ([`super::gauss_legendre`]). On such a piece the integrand
+//! the 20-point Gauss–Legendre rule (the private `gauss_legendre` module). On such a piece the integrand
 //! is analytic in a Bernstein ellipse wide enough that the rule's error is far below 1e-15
 //! relative; the mpmath comparison measures it. On the short-wavelength side, the part of a
 //! segment where L_λ is below e⁻⁵⁰ of its maximum on the segment is skipped, so cold, wide bands
@@ -133,17 +133,28 @@ impl<'a> Response<'a> {
         })
     }
 
-    /// The wavelengths, m.
+    /// The tabulated wavelengths, m (strictly increasing).
+    ///
+    /// # Examples
+    /// ```
+    /// use quantaband::thermometry::response::Response;
+    /// let r = Response::new(&[1e-6, 2e-6, 3e-6], &[0.0, 1.0, 0.0]).unwrap();
+    /// assert_eq!(r.wavelengths_m(), &[1e-6, 2e-6, 3e-6]);
+    /// assert_eq!(r.values(), &[0.0, 1.0, 0.0]);
+    /// assert_eq!(r.support_m(), (1e-6, 3e-6));
+    /// ```
     pub fn wavelengths_m(&self) -> &'a [f64] {
         self.wavelengths_m
     }
 
-    /// The relative response values.
+    /// The relative response values (dimensionless, ≥ 0), one per wavelength; see
+    /// [`Response::wavelengths_m`] for an example.
     pub fn values(&self) -> &'a [f64] {
         self.values
     }
 
-    /// Shortest and longest tabulated wavelength, m.
+    /// Shortest and longest tabulated wavelength, m; see [`Response::wavelengths_m`] for an
+    /// example.
     pub fn support_m(&self) -> (f64, f64) {
         let n = self.wavelengths_m.len();
         // n ≥ 2 by construction.
@@ -365,12 +376,28 @@ impl<'a> ResponseSignal<'a> {
         }
     }
 
-    /// The response table.
+    /// The response table (wavelengths in m, relative values dimensionless).
+    ///
+    /// # Examples
+    /// ```
+    /// use quantaband::thermometry::response::{Response, ResponseSignal};
+    /// let s = ResponseSignal::new(Response::new(&[1e-6, 2e-6], &[1.0, 0.5]).unwrap(), Default::default());
+    /// assert_eq!(s.response().values(), &[1.0, 0.5]);
+    /// ```
     pub fn response(&self) -> Response<'a> {
         self.response
     }
 
     /// The value of c2 in use, m·K.
+    ///
+    /// # Examples
+    /// ```
+    /// use quantaband::constants::C2Convention;
+    /// use quantaband::thermometry::response::{Response, ResponseSignal};
+    /// let s = ResponseSignal::new(Response::new(&[1e-6, 2e-6], &[1.0, 1.0]).unwrap(), C2Convention::Its90);
+    /// // ITS-90 c2 = 0.014388 m·K (Preston-Thomas, Metrologia 27, 3, 1990)
+    /// assert_eq!(s.c2_mk(), 0.014388);
+    /// ```
     pub fn c2_mk(&self) -> f64 {
         self.c2_mk
     }

@@ -66,7 +66,21 @@ pub struct SakumaHattori {
     c2_mk: f64,
 }
 
-/// Result of a Sakuma–Hattori fit.
+/// Result of a Sakuma–Hattori fit: the curve, its temperature residuals (K) at the fitted
+/// points and the iteration count, returned by [`SakumaHattori::fit`] and
+/// [`SakumaHattori::fit_model`].
+///
+/// # Examples
+/// ```
+/// use quantaband::thermometry::model::SignalModel;
+/// use quantaband::thermometry::sakuma_hattori::SakumaHattori;
+/// // Points taken from a known curve are fitted back with (near) zero residual.
+/// let truth = SakumaHattori::new(3.9e-6, 2e-8, 5e4, Default::default()).unwrap();
+/// let t = [600.0, 800.0, 1000.0, 1200.0];
+/// let s = t.map(|t| truth.signal(t).unwrap());
+/// let rep = SakumaHattori::fit(&t, &s, Default::default(), None).unwrap();
+/// assert!(rep.max_abs_residual_k < 1e-6 && rep.rms_residual_k <= rep.max_abs_residual_k);
+/// ```
 #[derive(Debug, Clone, Copy, PartialEq)]
 pub struct FitReport {
     /// The fitted curve.
@@ -123,18 +137,28 @@ impl SakumaHattori {
     }
 
     /// Parameter A, m.
+    ///
+    /// # Examples
+    /// ```
+    /// use quantaband::constants::C2Convention;
+    /// use quantaband::thermometry::sakuma_hattori::SakumaHattori;
+    /// let sh = SakumaHattori::new(10e-6, 1e-9, 1e3, C2Convention::Its90).unwrap();
+    /// assert_eq!((sh.a_m(), sh.b_mk(), sh.c()), (10e-6, 1e-9, 1e3));
+    /// // ITS-90 c2 = 0.014388 m·K (Preston-Thomas, Metrologia 27, 3, 1990)
+    /// assert_eq!(sh.c2_mk(), 0.014388);
+    /// ```
     pub fn a_m(&self) -> f64 {
         self.a_m
     }
-    /// Parameter B, m·K.
+    /// Parameter B, m·K; see [`SakumaHattori::a_m`] for an example.
     pub fn b_mk(&self) -> f64 {
         self.b_mk
     }
-    /// Parameter C, signal units.
+    /// Parameter C, signal units; see [`SakumaHattori::a_m`] for an example.
     pub fn c(&self) -> f64 {
         self.c
     }
-    /// c2 in use, m·K.
+    /// c2 in use, m·K; see [`SakumaHattori::a_m`] for an example.
     pub fn c2_mk(&self) -> f64 {
         self.c2_mk
     }

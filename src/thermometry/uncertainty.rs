@@ -22,7 +22,19 @@ use super::model::SignalModel;
 use crate::error::finite;
 use crate::{Error, Result};
 
-/// Sensitivity coefficients ∂T_obj/∂p of the object temperature at a measured signal.
+/// Sensitivity coefficients ∂T_obj/∂p of the object temperature at a measured signal (each
+/// field in K per unit of its input), returned by [`sensitivities`].
+///
+/// # Examples
+/// ```
+/// use quantaband::thermometry::measurement::Conditions;
+/// use quantaband::thermometry::model::SpectralPoint;
+/// use quantaband::thermometry::uncertainty::sensitivities;
+/// let m = SpectralPoint::new(10e-6, Default::default()).unwrap();
+/// let s = sensitivities(&m, 8.0e6, &Conditions::BLACKBODY).unwrap();
+/// // a blackbody in vacuum: the reflected and path terms carry no weight
+/// assert_eq!((s.reflected_temperature, s.path_temperature), (0.0, 0.0));
+/// ```
 #[derive(Debug, Clone, Copy, PartialEq)]
 pub struct Sensitivities {
     /// The object temperature the signal gives, K.
@@ -104,7 +116,8 @@ pub fn sensitivities<M: SignalModel + ?Sized>(
     })
 }
 
-/// Standard uncertainties of the inputs (uncorrelated), in the inputs' units.
+/// Standard uncertainties of the inputs (uncorrelated), in the inputs' units (signal units,
+/// dimensionless, K); `Default` is all zeros. See [`uncertainty_budget`] for an example.
 #[derive(Debug, Clone, Copy, PartialEq, Default)]
 pub struct StandardUncertainties {
     /// u(signal), signal units.
@@ -119,7 +132,19 @@ pub struct StandardUncertainties {
     pub path_temperature_k: f64,
 }
 
-/// Which input a budget line belongs to.
+/// Which input a budget line belongs to; [`UncertaintyBudget::entries`] lists them in
+/// declaration order.
+///
+/// # Examples
+/// ```
+/// use quantaband::thermometry::measurement::Conditions;
+/// use quantaband::thermometry::model::SpectralPoint;
+/// use quantaband::thermometry::uncertainty::{uncertainty_budget, BudgetInput, StandardUncertainties};
+/// let m = SpectralPoint::new(10e-6, Default::default()).unwrap();
+/// let b = uncertainty_budget(&m, 8.0e6, &Conditions::BLACKBODY, &StandardUncertainties::default()).unwrap();
+/// assert_eq!(b.entries[0].input, BudgetInput::Signal);
+/// assert_eq!(b.entries[4].input, BudgetInput::PathTemperature);
+/// ```
 #[derive(Debug, Clone, Copy, PartialEq, Eq)]
 pub enum BudgetInput {
     /// The measured signal.
@@ -134,7 +159,8 @@ pub enum BudgetInput {
     PathTemperature,
 }
 
-/// One line of an uncertainty budget.
+/// One line of an uncertainty budget (sensitivity in K per input unit, contribution in K).
+/// See [`uncertainty_budget`] for an example.
 #[derive(Debug, Clone, Copy, PartialEq)]
 pub struct BudgetEntry {
     /// The input.
@@ -149,7 +175,8 @@ pub struct BudgetEntry {
     pub variance_share: f64,
 }
 
-/// An uncertainty budget for the object temperature.
+/// An uncertainty budget for the object temperature (temperatures and uncertainties in K),
+/// returned by [`uncertainty_budget`], which shows an example.
 #[derive(Debug, Clone, Copy, PartialEq)]
 pub struct UncertaintyBudget {
     /// The object temperature, K.
