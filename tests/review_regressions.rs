@@ -104,3 +104,27 @@ fn radiance_ratio_at_smallest_wavelength_is_zero_one_or_infinity() {
         1.0
     );
 }
+
+// ---------------------------------------------------------------------------------------------
+// ResponseSignal at very low temperature: the sub-interval march advanced λ by a factor e^h with
+// h below one ulp once x = c2/(λT) > 5e16, so it spun through its 100 000-step guard on empty
+// pieces (about 1 s per call in a release build, measured once by hand, not here). It now stops
+// when no progress is possible. The values must stay what Planck's law gives: L_λ ∝ e^{−x} with
+// x ≥ c2/(1.5e-6 m · 1e-20 K) ≈ 1e24, far below the smallest subnormal, so exactly 0 (Planck
+// 1901 / Howell et al. 2020 ch. 1 for the form; the underflow is plain arithmetic).
+
+#[test]
+fn response_signal_at_tiny_temperature_is_exactly_zero() {
+    use quantaband::thermometry::model::SignalModel;
+    use quantaband::thermometry::response::{Response, ResponseSignal};
+    let wl = [1e-6, 1.2e-6, 1.5e-6];
+    let r = [0.0, 1.0, 0.5];
+    let s = ResponseSignal::new(Response::new(&wl, &r).unwrap(), C2Convention::Its90);
+    for t in [1e-20, 1e-300, f64::from_bits(1)] {
+        assert_eq!(s.signal(t).unwrap(), 0.0, "S({t:e} K)");
+        assert_eq!(s.d_signal_dt(t).unwrap(), 0.0, "dS/dT({t:e} K)");
+    }
+    // Just above the underflow the early stop must not drop signal: at 30 K the response-
+    // weighted integral is tiny but representable and positive.
+    assert!(s.signal(30.0).unwrap() > 0.0);
+}

@@ -419,6 +419,13 @@ impl<'a> ResponseSignal<'a> {
                 }
                 let h = step_ln(lo, temperature_k, c2);
                 let mut hi = lo * crate::float::exp(h);
+                if !(hi > lo) {
+                    // No progress: h is below one ulp, i.e. x = c2/(λT) > 6/1.1e-16 ≈ 5e16 at lo
+                    // and beyond on this segment. There L_λ ≤ 2hc²λ⁻⁵e⁻ˣ with ln(2hc²λ⁻⁵) < 3800
+                    // for any positive f64 λ, so the rest of the segment is far below the f64
+                    // range: skip it instead of spinning through the guard on empty pieces.
+                    break;
+                }
                 if hi * crate::float::exp(0.5 * h) >= b {
                     hi = b; // merge a short remainder into this piece
                 }
