@@ -592,6 +592,9 @@ struct Pref {
     k: f64,
     power: i32,
     r: f64,
+    /// c₂ in m·K: ln r is formed as ln T − ln c₂, since r = T/c₂ itself overflows for
+    /// T > c₂·f64::MAX ≈ 2.6e306 K (valid input whose band value may be ordinary).
+    c2: f64,
     t: f64,
     d_dt: bool,
 }
@@ -600,7 +603,8 @@ impl Pref {
     fn of(spec: &Spectrum, t: f64, d_dt: bool) -> Self {
         let (k0, power) = spec.band_coefficient_unscaled();
         let k = spec.scale() * k0;
-        let r = t / spec.c2.c2();
+        let c2 = spec.c2.c2();
+        let r = t / c2;
         let mut p = k * float::powi(r, power);
         if d_dt {
             p /= t;
@@ -615,6 +619,7 @@ impl Pref {
             k,
             power,
             r,
+            c2,
             t,
             d_dt,
         }
@@ -625,7 +630,12 @@ impl Pref {
         } else {
             self.ln_k
         };
-        let mut l = lk + f64::from(self.power) * float::ln(self.r);
+        let ln_r = if self.r.is_finite() {
+            float::ln(self.r)
+        } else {
+            float::ln(self.t) - float::ln(self.c2)
+        };
+        let mut l = lk + f64::from(self.power) * ln_r;
         if self.d_dt {
             l -= float::ln(self.t);
         }

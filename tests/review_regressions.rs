@@ -128,3 +128,29 @@ fn response_signal_at_tiny_temperature_is_exactly_zero() {
     // weighted integral is tiny but representable and positive.
     assert!(s.signal(30.0).unwrap() > 0.0);
 }
+
+// ---------------------------------------------------------------------------------------------
+// band(): the prefactor's logarithmic fallback used ln(T/c2), and T/c2 overflows to ∞ for
+// T > c2·f64::MAX ≈ 2.6e306 K, so band values that are ordinary numbers came out as +∞ (and
+// values below the f64 range as +∞ instead of 0).
+
+#[test]
+fn band_at_temperature_near_f64_max_is_finite() {
+    use quantaband::band::band;
+    use quantaband::planck::{SpectralVariable, Spectrum};
+    // mpmath: quad(lambda nu: 2*h*nu**3/c**2/expm1(h*nu/(k*M)), [1e6, 2e6])
+    let s = Spectrum::BLACKBODY.with_variable(SpectralVariable::Frequency);
+    let got = band(&s, 1e6, 2e6, f64::MAX).unwrap();
+    let want = 1.288_736_763_449_514_9e287;
+    assert!(rel(got, want) < LOG_ROUTE_TOL, "{got:e} vs mpmath {want:e}");
+    // mpmath: quad(lambda lam: 2*h*c**2/lam**5/expm1(c2/(lam*M)), [1e-6, 2e-6]) = 4.3404658e311,
+    // times ε = 1e-30.
+    let s = Spectrum::BLACKBODY.with_emissivity(1e-30);
+    let got = band(&s, 1e-6, 2e-6, f64::MAX).unwrap();
+    let want = 4.340_465_808_717_807_5e281;
+    assert!(rel(got, want) < LOG_ROUTE_TOL, "{got:e} vs mpmath {want:e}");
+    // A band whose true value (≈5.0e-607, the Rayleigh–Jeans integral 2ckT∫λ⁻⁴dλ over
+    // [1e300 m, f64::MAX]) is below the f64 range: exactly 0, not ∞.
+    let got = band(&Spectrum::BLACKBODY, 1e300, f64::MAX, f64::MAX).unwrap();
+    assert_eq!(got, 0.0);
+}
