@@ -154,3 +154,34 @@ fn band_at_temperature_near_f64_max_is_finite() {
     let got = band(&Spectrum::BLACKBODY, 1e300, f64::MAX, f64::MAX).unwrap();
     assert_eq!(got, 0.0);
 }
+
+// ---------------------------------------------------------------------------------------------
+// ResponseSignal at T ≳ 1e295 K: L_λ at the quadrature nodes overflowed although the integral
+// is an ordinary number, so S came out +∞ and the signal-weighted moments ∞/∞ = NaN. The
+// integrand is now scaled by an exact power of two when the Rayleigh–Jeans bound requires it.
+
+#[test]
+fn response_signal_at_huge_temperature_is_finite() {
+    use quantaband::thermometry::model::SignalModel;
+    use quantaband::thermometry::response::{Response, ResponseSignal};
+    let wl = [1e-6, 1.2e-6, 1.5e-6];
+    let r = [0.0, 1.0, 0.5];
+    let s = ResponseSignal::new(Response::new(&wl, &r).unwrap(), C2Convention::Its90);
+    let t = 1e300;
+    // mpmath: quad(lambda l: R(l)*c1/l**5/expm1(c2/(l*T)), [1e-6, 1.2e-6, 1.5e-6]),
+    // c1 = 2hc², c2 = 0.014388, R the table above (linear between points).
+    let want = 1.124_176_928_679_341_2e303;
+    let got = s.signal(t).unwrap();
+    assert!(rel(got, want) < 1e-12, "S = {got:e}, mpmath {want:e}");
+    // mpmath: the same quadrature with an extra factor l in the numerator, divided by S.
+    let want = 1.227_272_727_272_727_3e-6;
+    let got = s.mean_wavelength_m(t).unwrap();
+    assert!(rel(got, want) < 1e-12, "mean λ = {got:e}, mpmath {want:e}");
+    // mpmath: c2*(1/T1 - 1/T2)/log(S(T2)/S(T1)) with T1 = 1e300, T2 = 2e300.
+    let want = 1.037_874_812_415_520_3e-302;
+    let got = s.effective_wavelength_m(t, 2.0 * t).unwrap();
+    assert!(rel(got, want) < 1e-10, "λ_e = {got:e}, mpmath {want:e}");
+    // Rayleigh–Jeans regime: S ∝ T, so λ_T = c2·S/(T²·S′) = c2/T (Planck's law, x ≈ 1e-296).
+    let got = s.limiting_effective_wavelength_m(t).unwrap();
+    assert!(rel(got, 0.014388 / t) < 1e-10, "λ_T = {got:e}");
+}

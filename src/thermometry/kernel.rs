@@ -24,13 +24,38 @@ pub(crate) fn radiance_and_dt(
     ))
 }
 
-/// L_λ alone, W·m⁻³·sr⁻¹.
+/// (ε·L_λ, ε·∂L_λ/∂T) for a scale factor ε in (0, 1] (an exact power of two chosen by the
+/// caller so that the values stay below the f64 overflow threshold at extreme temperatures).
 ///
 /// # Errors
 /// Those of [`Spectrum::spectral`].
 #[inline]
-pub(crate) fn radiance(wavelength_m: f64, temperature_k: f64, c2: C2Convention) -> Result<f64> {
+pub(crate) fn scaled_radiance_and_dt(
+    wavelength_m: f64,
+    temperature_k: f64,
+    c2: C2Convention,
+    scale: f64,
+) -> Result<(f64, f64)> {
+    let s = Spectrum::BLACKBODY.with_c2(c2).with_emissivity(scale);
+    Ok((
+        s.spectral(wavelength_m, temperature_k)?,
+        s.spectral_d_dt(wavelength_m, temperature_k)?,
+    ))
+}
+
+/// ε·L_λ for a scale factor ε in (0, 1] (see [`scaled_radiance_and_dt`]), W·m⁻³·sr⁻¹.
+///
+/// # Errors
+/// Those of [`Spectrum::spectral`].
+#[inline]
+pub(crate) fn scaled_radiance(
+    wavelength_m: f64,
+    temperature_k: f64,
+    c2: C2Convention,
+    scale: f64,
+) -> Result<f64> {
     Spectrum::BLACKBODY
         .with_c2(c2)
+        .with_emissivity(scale)
         .spectral(wavelength_m, temperature_k)
 }

@@ -438,36 +438,85 @@ impl<'a> ResponseSignal<'a> {
 
     /// S and dS/dT (one pass, no moments).
     fn signal_pair(&self, temperature_k: f64) -> Result<(f64, f64)> {
+        let (s, ds, k) = self.scaled_signal_pair(temperature_k)?;
+        let up = crate::float::powi(2.0, k);
+        Ok((s * up, ds * up))
+    }
+
+    /// Exponent k (0 ≤ k ≤ 1000) such that 2⁻ᵏ·L_λ stays below ~1e300 on the whole table.
+    /// Planck's L_λ never exceeds its Rayleigh–Jeans value (c1/c2)·T/λ⁴ (x/(eˣ − 1) ≤ 1), and
+    /// that bound is largest at the shortest tabulated wavelength. k > 0 only for T ≳ 1e290 K
+    /// at micrometre wavelengths, where the nodes' L_λ would overflow although the integrals
+    /// (and their ratios) are ordinary numbers; k is 0 for every ordinary temperature, leaving
+    /// the arithmetic unchanged.
+    fn node_scale_exp(&self, temperature_k: f64) -> i32 {
+        let lam0 = self.response.support_m().0;
+        let ln_bound = crate::float::ln(crate::constants::C1L / self.c2_mk)
+            + crate::float::ln(temperature_k)
+            - 4.0 * crate::float::ln(lam0);
+        let excess = ln_bound - 690.0; // ln 1e300 ≈ 690.8
+        if excess > 0.0 {
+            // Finite: T and λ are finite and positive, so |ln_bound| < 4000.
+            // excess/ln 2 > 0 here, so truncation + 1 rounds up (one spare factor of 2 at most).
+            let k = excess / core::f64::consts::LN_2;
+            if k >= 999.0 {
+                1000
+            } else {
+                k as i32 + 1
+            }
+        } else {
+            0
+        }
+    }
+
+    /// (2⁻ᵏ·S, 2⁻ᵏ·dS/dT, k) with k from [`Self::node_scale_exp`].
+    fn scaled_signal_pair(&self, temperature_k: f64) -> Result<(f64, f64, i32)> {
         temperature("temperature_k", temperature_k)?;
         let conv = self.c2;
+        let k = self.node_scale_exp(temperature_k);
+        let scale = crate::float::powi(2.0, -k);
         let (mut s, mut ds) = (0.0, 0.0);
         self.march(temperature_k, |lo, hi, a, ra, slope| {
             let [p0, p1] = integrate(lo, hi, |w| {
                 let r = ra + slope * (w - a);
-                let (l, dl) = super::kernel::radiance_and_dt(w, temperature_k, conv)?;
+                let (l, dl) = super::kernel::scaled_radiance_and_dt(w, temperature_k, conv, scale)?;
                 Ok([r * l, r * dl])
             })?;
             s += p0;
             ds += p1;
             Ok(())
         })?;
-        Ok((s, ds))
+        Ok((s, ds, k))
+    }
+
+    /// ln S(T), formed from the scaled integral so that it stays finite where S overflows.
+    fn ln_signal(&self, temperature_k: f64) -> Result<f64> {
+        let (s, k) = self.scaled_signal_only(temperature_k)?;
+        Ok(crate::float::ln(s) + f64::from(k) * core::f64::consts::LN_2)
     }
 
     /// S alone (one Planck evaluation per node).
     fn signal_only(&self, temperature_k: f64) -> Result<f64> {
+        let (s, k) = self.scaled_signal_only(temperature_k)?;
+        Ok(s * crate::float::powi(2.0, k))
+    }
+
+    /// (2⁻ᵏ·S, k) with k from [`Self::node_scale_exp`].
+    fn scaled_signal_only(&self, temperature_k: f64) -> Result<(f64, i32)> {
         temperature("temperature_k", temperature_k)?;
         let conv = self.c2;
+        let k = self.node_scale_exp(temperature_k);
+        let scale = crate::float::powi(2.0, -k);
         let mut s = 0.0;
         self.march(temperature_k, |lo, hi, a, ra, slope| {
             let [p0] = integrate(lo, hi, |w| {
                 let r = ra + slope * (w - a);
-                Ok([r * super::kernel::radiance(w, temperature_k, conv)?])
+                Ok([r * super::kernel::scaled_radiance(w, temperature_k, conv, scale)?])
             })?;
             s += p0;
             Ok(())
         })?;
-        Ok(s)
+        Ok((s, k))
     }
 
     /// [S, dS/dT, λ̄, σ²] in one pass. Each sub-interval's weight, mean and second central moment
@@ -477,13 +526,15 @@ impl<'a> ResponseSignal<'a> {
     fn moments(&self, temperature_k: f64) -> Result<[f64; 4]> {
         temperature("temperature_k", temperature_k)?;
         let conv = self.c2;
+        let k = self.node_scale_exp(temperature_k);
+        let scale = crate::float::powi(2.0, -k);
         let (mut s_tot, mut ds_tot) = (0.0, 0.0);
         let (mut weight, mut mean, mut m2) = (0.0f64, 0.0f64, 0.0f64);
         self.march(temperature_k, |lo, hi, a, ra, slope| {
             let centre = 0.5 * (lo + hi);
             let [p0, p1, pm1, pm2] = integrate(lo, hi, |w| {
                 let r = ra + slope * (w - a);
-                let (l, dl) = super::kernel::radiance_and_dt(w, temperature_k, conv)?;
+                let (l, dl) = super::kernel::scaled_radiance_and_dt(w, temperature_k, conv, scale)?;
                 let rl = r * l;
                 let d = w - centre;
                 Ok([rl, r * dl, rl * d, rl * d * d])
@@ -502,10 +553,12 @@ impl<'a> ResponseSignal<'a> {
             }
             Ok(())
         })?;
+        // The scale cancels in the mean and variance; S and dS/dT get it back.
+        let up = crate::float::powi(2.0, k);
         if weight > 0.0 {
-            Ok([s_tot, ds_tot, mean, (m2 / weight).max(0.0)])
+            Ok([s_tot * up, ds_tot * up, mean, (m2 / weight).max(0.0)])
         } else {
-            Ok([s_tot, ds_tot, f64::NAN, f64::NAN])
+            Ok([s_tot * up, ds_tot * up, f64::NAN, f64::NAN])
         }
     }
 
@@ -612,14 +665,16 @@ impl<'a> ResponseSignal<'a> {
     /// Practical Temperature Scale above 1063 °C", Metrologia 2, 150 (1966); P. Saunders,
     /// D. R. White, Metrologia 40, 195 (2003) — definitions from memory.
     pub fn limiting_effective_wavelength_m(&self, temperature_k: f64) -> Result<f64> {
-        let (s0, s1) = self.signal_pair(temperature_k)?;
+        // The common scale 2⁻ᵏ cancels in S/S′ (both stay finite where S would overflow).
+        let (s0, s1, _) = self.scaled_signal_pair(temperature_k)?;
         let m = [s0, s1];
         if !(m[0] > 0.0 && m[1] > 0.0) {
             return Err(Error::NoSolution {
                 what: "signal underflows at this temperature",
             });
         }
-        Ok(self.c2_mk * m[0] / (temperature_k * temperature_k * m[1]))
+        // (S/S′)/T/T rather than S/(T²·S′): T² overflows above 1.3e154 K.
+        Ok(self.c2_mk * (m[0] / m[1]) / temperature_k / temperature_k)
     }
 
     /// Effective wavelength λ_e between two temperatures, m: the wavelength of a Wien-law
@@ -663,7 +718,13 @@ impl<'a> ResponseSignal<'a> {
                 what: "signal underflows at this temperature",
             });
         }
-        Ok(self.c2_mk * (1.0 / t1_k - 1.0 / t2_k) / crate::float::ln(s2 / s1))
+        let ln_ratio = if s1.is_finite() && s2.is_finite() {
+            crate::float::ln(s2 / s1)
+        } else {
+            // A signal beyond f64::MAX (T ≳ 1e295 K): the ratio from the scaled logarithms.
+            self.ln_signal(t2_k)? - self.ln_signal(t1_k)?
+        };
+        Ok(self.c2_mk * (1.0 / t1_k - 1.0 / t2_k) / ln_ratio)
     }
 
     /// Starting temperature for the numerical inverse: Wien's law at the response's
