@@ -499,7 +499,8 @@ fn energy_density_core(num: f64, den: f64, x: f64, temperature_k: f64, scale: f6
 /// # Accuracy
 /// Maximum relative error 2.6e-16 × max(1, E/kT) against mpmath at 50 digits on the 6
 /// reference rows (`tests/stats_reference.rs`); in the extreme region where E³ or n̄ leave the
-/// normal f64 range the logarithmic route is ≈ 1e-13 relative.
+/// normal f64 range the logarithmic route is ≈ 1e-13 relative (tiny E with T near f64::MAX
+/// checked to 1e-12 against mpmath in `tests/review_regressions.rs`).
 ///
 /// # Examples
 /// ```

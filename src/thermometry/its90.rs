@@ -172,7 +172,10 @@ pub fn temperature_from_ratio(
 ///
 /// # Accuracy
 /// A few ulp; evaluated as exp(ln(expm1(x_X)) − ln(expm1(x))) so it overflows to ∞ or
-/// underflows to 0 only where the true ratio is outside the f64 range.
+/// underflows to 0 only where the true ratio is outside the f64 range. When λ·T is so large
+/// that x underflows the Rayleigh–Jeans form (T/T_X)·h(x_X)/h(x), h(y) = (eʸ − 1)/y, is used,
+/// and when x overflows the exponent x_X − x is formed as (c2/λ)·(T − T_X)/(T·T_X); both
+/// extremes are checked against mpmath in `tests/review_regressions.rs`.
 ///
 /// # Examples
 /// ```

@@ -9,13 +9,23 @@
 //! R is linear on each table segment and L_λ is smooth, so each segment is split into
 //! geometric sub-intervals — each spans at most a factor e^0.3 in λ and at most 6 in
 //! x = c2/(λT) (the exponent of the Planck factor) — and each sub-interval is integrated with
-//! the 20-point Gauss–Legendre rule (the private `gauss_legendre` module). On such a piece the integrand
-//! is analytic in a Bernstein ellipse wide enough that the rule's error is far below 1e-15
-//! relative; the mpmath comparison measures it. On the short-wavelength side, the part of a
-//! segment where L_λ is below e⁻⁵⁰ of its maximum on the segment is skipped, so cold, wide bands
-//! need few sub-intervals. Segments where R is zero at both ends are skipped. Measured against mpmath `quad` at 60 digits
-//! (`tests/data/gen_thermometry.py`): relative error ≤ 3e-13 on the 17 reference cases
-//! (`tests/thermometry_reference.rs`).
+//! the 20-point Gauss–Legendre rule (the private `gauss_legendre` module). On such a piece the
+//! integrand is analytic in a Bernstein ellipse wide enough that the rule's error is far below
+//! 1e-15 relative; the mpmath comparison measures it. On the short-wavelength side, the part of
+//! a segment where L_λ is below e⁻⁵⁰ of its maximum on the segment is skipped, so cold, wide
+//! bands need few sub-intervals. Segments where R is zero at both ends are skipped, and so is
+//! the rest of a segment once a step can no longer advance λ (x > 5e16 there: L_λ is far below
+//! the f64 range).
+//!
+//! At temperatures so high that L_λ at the nodes would exceed f64::MAX (T ≳ 1e290 K at
+//! micrometre wavelengths, judged from the Rayleigh–Jeans bound L_λ ≤ (c1/c2)·T/λ⁴ at the
+//! shortest tabulated wavelength) the integrand is scaled by an exact power of two and the
+//! scale restored at the end, so S is +∞ only where the true value is, and the signal-weighted
+//! moments stay finite.
+//!
+//! Measured against mpmath `quad` at 60 digits (`tests/data/gen_thermometry.py`): relative
+//! error ≤ 3e-13 on the 17 reference cases (`tests/thermometry_reference.rs`); extreme
+//! temperatures (1e-300 K, 1e300 K) in `tests/review_regressions.rs`.
 #![forbid(unsafe_code)]
 
 use super::gauss_legendre::integrate;
