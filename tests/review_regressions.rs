@@ -184,3 +184,30 @@ fn response_signal_at_huge_temperature_is_finite() {
     let got = s.limiting_effective_wavelength_m(t).unwrap();
     assert!(rel(got, 0.014388 / t) < 1e-10, "λ_T = {got:e}");
 }
+
+// ---------------------------------------------------------------------------------------------
+// ResponseSignal::mean_and_spread_m: the merge of per-piece moments formed weight·p0 (and
+// pm1²), which overflows once the piece weights pass ~1e154 (T ≳ 1e150 K for a micrometre
+// table), so σ came out +∞ although the mean was right.
+
+#[test]
+fn response_spread_at_very_high_temperature_is_finite() {
+    use quantaband::thermometry::response::{Response, ResponseSignal};
+    let wl = [1e-6, 1.2e-6, 1.5e-6];
+    let r = [0.0, 1.0, 0.5];
+    let s = ResponseSignal::new(Response::new(&wl, &r).unwrap(), C2Convention::Its90);
+    // mpmath at T = 1e200 K: mean = quad(l*R*L)/quad(R*L) = 1.2272727272727272727e-6,
+    // σ = sqrt(quad((l − mean)²*R*L)/quad(R*L)) = 1.1586404884074987833e-7 (L Planck's L_λ with
+    // c2 = 0.014388, same quadrature as above).
+    for t in [1e200, 1e250] {
+        let (m, sd) = s.mean_and_spread_m(t).unwrap();
+        assert!(
+            rel(m, 1.227_272_727_272_727e-6) < 1e-12,
+            "mean {m:e} at {t:e} K"
+        );
+        assert!(
+            rel(sd, 1.158_640_488_407_498_8e-7) < 1e-10,
+            "σ {sd:e} at {t:e} K"
+        );
+    }
+}

@@ -554,11 +554,13 @@ impl<'a> ResponseSignal<'a> {
             if p0 > 0.0 {
                 // piece: weight p0, mean centre + pm1/p0, M2 = pm2 − pm1²/p0; merge (Chan).
                 let mean_p = centre + pm1 / p0;
-                let m2_p = (pm2 - pm1 * pm1 / p0).max(0.0);
+                let m2_p = (pm2 - pm1 * (pm1 / p0)).max(0.0);
                 let total = weight + p0;
                 let delta = mean_p - mean;
                 mean += delta * (p0 / total);
-                m2 += m2_p + delta * delta * (weight * p0 / total);
+                // weight·(p0/total), not weight·p0/total: the product overflows for weights
+                // above ~1e154 (T ≳ 1e150 K), which made σ = ∞.
+                m2 += m2_p + delta * delta * (weight * (p0 / total));
                 weight = total;
             }
             Ok(())
