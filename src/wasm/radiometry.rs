@@ -247,6 +247,7 @@ pub fn spectral_density_array(
 /// ∂/∂T of the spectral density at every point of `xs`, one temperature (K).
 ///
 /// @throws {QuantabandError} as `spectralDensityArray`.
+#[cfg(feature = "wasm-full")]
 #[wasm_bindgen(js_name = spectralDensityDTArray)]
 pub fn spectral_density_dt_array(
     #[wasm_bindgen(unchecked_param_type = "SpectrumOptions")] options: JsValue,
@@ -332,6 +333,7 @@ pub fn spectrum_peak(
 /// Plain-text SI unit labels of the results for these options (for axis labels and tables).
 ///
 /// @throws {QuantabandError} option errors.
+#[cfg(feature = "wasm-full")]
 #[wasm_bindgen(js_name = spectrumUnits, unchecked_return_type = "SpectrumUnits")]
 pub fn spectrum_units(
     #[wasm_bindgen(unchecked_param_type = "SpectrumOptions")] options: JsValue,
