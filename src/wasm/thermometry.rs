@@ -23,9 +23,10 @@ use crate::thermometry::{
     sensitivities as core_sensitivities, two_colour_temperature as core_two_colour, RatioReading,
 };
 use crate::thermometry::{
-    measured_signal, object_temperature as core_object_temperature, uncertainty::BudgetInput,
-    uncertainty::StandardUncertainties, uncertainty_budget as core_budget, Conditions, FitReport,
-    FrameConverter, Response, ResponseSignal, SakumaHattori, SignalModel, SpectralPoint, Window,
+    measured_signal as core_measured_signal, object_temperature as core_object_temperature,
+    uncertainty::BudgetInput, uncertainty::StandardUncertainties,
+    uncertainty_budget as core_budget, Conditions, FitReport, FrameConverter, Response,
+    ResponseSignal, SakumaHattori, SignalModel, SpectralPoint, Window,
 };
 use crate::units::{convert_spectral, SpectralKind, SpectralUnit};
 use crate::Error;
@@ -689,14 +690,14 @@ pub fn model_temperature_array(
 /// @throws {QuantabandError} NON_FINITE, NON_POSITIVE_TEMPERATURE, OUT_OF_RANGE (ε, τ, window),
 /// UNSUPPORTED (unknown field), model errors.
 #[wasm_bindgen(js_name = measuredSignal)]
-pub fn measured_signal_js(
+pub fn measured_signal(
     #[wasm_bindgen(unchecked_param_type = "InstrumentModel")] model: JsValue,
     #[wasm_bindgen(js_name = objectTemperatureK)] object_temperature_k: f64,
     #[wasm_bindgen(unchecked_optional_param_type = "MeasurementConditions")] conditions: JsValue,
 ) -> Result<f64, JsValue> {
     let m = parse_model(&model)?;
     let c = parse_conditions(&conditions)?;
-    Ok(m.run(|sm| measured_signal(sm, object_temperature_k, &c))?)
+    Ok(m.run(|sm| core_measured_signal(sm, object_temperature_k, &c))?)
 }
 
 /// Object temperature (K) that explains a reading `signal` under `conditions` — the inverse of
