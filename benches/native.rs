@@ -163,13 +163,49 @@ mod cases {
     use quantaband::constants::C2Convention;
     use quantaband::planck::{self, Spectrum};
     use quantaband::stats::{self, BoseOrder, FdOrder};
-    use quantaband::thermometry::{Response, ResponseSignal, SakumaHattori, SignalModel};
+    use quantaband::thermometry::{
+        Conditions, FrameConverter, Response, ResponseSignal, SakumaHattori, SignalModel,
+    };
+    use quantaband::{band, inverse};
 
     /// Invented Sakuma–Hattori calibration of the benchmark camera (A in m, B in m·K, C in
     /// signal units), the same as `benches/py/gen_bench_reference.py` and `benches/js/scene.mjs`.
     const SH_A: f64 = 1.05e-5;
     const SH_B: f64 = 1.5e-4;
     const SH_C: f64 = 2.0e4;
+
+    const WIDTH: usize = 640;
+    const HEIGHT: usize = 512;
+    const EMISSIVITY: f64 = 0.95;
+    const T_REFLECTED_K: f64 = 293.15;
+
+    /// The invented benchmark scene (same formulas as `benches/js/scene.mjs`): f32 measured
+    /// signals and the exact object temperatures of those f32 signals (closed-form inverse in
+    /// f64).
+    fn scene(sh: &SakumaHattori) -> (Vec<f32>, Vec<f64>) {
+        let s = |t: f64| sh.c() / (sh.c2_mk() / (sh.a_m() * t + sh.b_mk())).exp_m1();
+        let background = (1.0 - EMISSIVITY) * s(T_REFLECTED_K);
+        let mut signals = Vec::with_capacity(WIDTH * HEIGHT);
+        for y in 0..HEIGHT {
+            for x in 0..WIDTH {
+                let (xf, yf) = (x as f64, y as f64);
+                let (dx, dy) = (xf - 400.0, yf - 200.0);
+                let t = 285.0
+                    + 40.0 * xf / (WIDTH - 1) as f64
+                    + 20.0 * yf / (HEIGHT - 1) as f64
+                    + 120.0 * (-(dx * dx + dy * dy) / 3200.0).exp();
+                signals.push((EMISSIVITY * s(t) + background) as f32);
+            }
+        }
+        let exact = signals
+            .iter()
+            .map(|&v| {
+                let so = (f64::from(v) - background) / EMISSIVITY;
+                (sh.c2_mk() / (sh.c() / so).ln_1p() - sh.b_mk()) / sh.a_m()
+            })
+            .collect();
+        (signals, exact)
+    }
 
     /// `Ok(v)` as `v`, an error as NaN (the table then shows the case as wrong, not fast).
     fn val(r: quantaband::Result<f64>) -> f64 {
@@ -200,7 +236,7 @@ mod cases {
         let lambdas: Vec<f64> = (0..n).map(|i| first + i as f64 * step).collect();
         let mut out = vec![0.0; n];
         let spec = Spectrum::BLACKBODY;
-        let mut spectrum = |out: &mut [f64]| {
+        let spectrum = |out: &mut [f64]| {
             let t = black_box(1000.0);
             for (o, &l) in out.iter_mut().zip(black_box(&lambdas)) {
                 *o = val(spec.spectral(l, t));
@@ -215,6 +251,47 @@ mod cases {
             || spectrum(&mut buf),
             Extra {
                 sample_values: Some(samples),
+                ..Extra::default()
+            },
+        );
+        // Band radiances.
+        for (case, lo, hi, t) in [
+            ("band_8_14_300", 8e-6, 14e-6, 300.0),
+            ("band_1_2_1500", 1e-6, 2e-6, 1500.0),
+        ] {
+            let f = || {
+                val(band::band(
+                    &spec,
+                    black_box(lo),
+                    black_box(hi),
+                    black_box(t),
+                ))
+            };
+            r.run(
+                case,
+                f,
+                Extra {
+                    value: Some(f()),
+                    ..Extra::default()
+                },
+            );
+        }
+
+        // Band inverse: the f64 band radiance of a 350 K blackbody in 8–14 µm.
+        let radiance = 106.444_466_095_305_23;
+        let f = || {
+            val(inverse::temperature_from_band(
+                &spec,
+                black_box(8e-6),
+                black_box(14e-6),
+                black_box(radiance),
+            ))
+        };
+        r.run(
+            "band_inverse_8_14",
+            f,
+            Extra {
+                value: Some(f()),
                 ..Extra::default()
             },
         );
@@ -256,6 +333,48 @@ mod cases {
                 );
             }
             Err(e) => r.skip("sh_inverse", e.code()),
+        }
+
+        // Whole-frame conversion, 640×512 f32 signals → f32 temperatures, the invented scene of
+        // benches/js/scene.mjs (same formulas), emissivity 0.95, reflected 293.15 K.
+        match SakumaHattori::new(SH_A, SH_B, SH_C, C2Convention::Codata2018) {
+            Ok(sh) => {
+                let cond = Conditions {
+                    emissivity: EMISSIVITY,
+                    reflected_temperature_k: T_REFLECTED_K,
+                    ..Conditions::BLACKBODY
+                };
+                let (signals, exact) = scene(&sh);
+                match FrameConverter::new(&sh, &cond, 1.0, 0.0) {
+                    Ok(conv) => {
+                        let mut out = vec![0f32; signals.len()];
+                        let err = match conv.convert(&signals, &mut out) {
+                            Ok(_) => out
+                                .iter()
+                                .zip(&exact)
+                                .map(|(&o, &e)| (f64::from(o) - e).abs())
+                                .fold(
+                                    0.0,
+                                    |m: f64, e| if e.is_nan() { f64::INFINITY } else { m.max(e) },
+                                ),
+                            Err(_) => f64::INFINITY,
+                        };
+                        let mut buf = vec![0f32; signals.len()];
+                        r.run(
+                            "frame_640x512",
+                            || conv.convert(black_box(&signals), &mut buf).map(|s| s.valid),
+                            Extra {
+                                max_abs_err_k: Some(err),
+                                pixels: Some(signals.len()),
+                                note: Some("f32 signals in, f32 temperatures out"),
+                                ..Extra::default()
+                            },
+                        );
+                    }
+                    Err(e) => r.skip("frame_640x512", e.code()),
+                }
+            }
+            Err(e) => r.skip("frame_640x512", e.code()),
         }
     }
 

@@ -42,10 +42,11 @@ say() { printf '\n== %s\n' "$*" >&2; }
 
 # ---- machine description ----------------------------------------------------------------------
 CPU=$(lscpu 2>/dev/null | sed -n 's/^Model name:[[:space:]]*//p' | head -n1)
+LOAD=$(cut -d' ' -f1-3 /proc/loadavg 2>/dev/null || echo unknown)
 node -e '
-const [date, cpu, nproc, rustc, node] = process.argv.slice(1);
-console.log(JSON.stringify({ date, cpu, nproc, rustc, node }));
-' "$(date -u '+%Y-%m-%d %H:%M UTC')" "${CPU:-unknown CPU}" "$(nproc)" "$(rustc --version)" "$(node --version)" \
+const [date, cpu, nproc, rustc, node, load] = process.argv.slice(1);
+console.log(JSON.stringify({ date, cpu, nproc, rustc, node, load }));
+' "$(date -u '+%Y-%m-%d %H:%M UTC')" "${CPU:-unknown CPU}" "$(nproc)" "$(rustc --version)" "$(node --version)" "$LOAD" \
   >"$OUT/machine.json"
 
 # ---- native Rust ------------------------------------------------------------------------------

@@ -68,8 +68,9 @@ pub const ZETA_3: f64 = 1.202_056_903_159_594_3;
 /// Which value of the second radiation constant c2 a calculation uses.
 ///
 /// Physics uses c2 = hc/k (CODATA 2018). Radiation thermometry under ITS-90 uses c2 = 0.014388 m·K
-/// exactly; the two differ by 8.5 ppm, which is about 0.025 K at 2000 K and 0.06 K at 3000 K for a
-/// temperature inferred from a radiance ratio to a fixed point.
+/// exactly; the two differ by 16.07 ppm. For a temperature T inferred from a radiance ratio to a
+/// fixed point T_X, the shift is δT ≈ T·(T/T_X − 1)·δc2/c2 (Wien approximation): relative to the
+/// gold point (1337.33 K) about 0.016 K at 2000 K and 0.060 K at 3000 K.
 #[derive(Debug, Clone, Copy, PartialEq, Eq, Default)]
 pub enum C2Convention {
     /// c2 = hc/k from CODATA 2018 ([`C2`]).

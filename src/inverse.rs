@@ -39,15 +39,15 @@ pub const T_MAX_K: f64 = 1e7;
 
 /// Brightness temperature without validation; None when T is outside the f64 range.
 fn brightness_unchecked(spec: &Spectrum, v: f64, value: f64) -> Option<f64> {
-    let (k, p, q, inverse) = spec.density_params();
+    let (k, p, q, inverse, ln_k) = spec.density_params();
     let vp = float::powi(v, p);
     let r = k * vp / value;
     // X = ln(1 + r) is the reduced variable x at the brightness temperature.
-    let (x, lnx) = if vp.is_normal() && r.is_normal() && r < 1e300 {
+    let (x, lnx) = if k.is_normal() && vp.is_normal() && r.is_normal() && r < 1e300 {
         let x = float::ln_1p(r);
         (x, float::ln(x))
     } else {
-        let lnr = float::ln(k) + f64::from(p) * float::ln(v) - float::ln(value);
+        let lnr = ln_k + f64::from(p) * float::ln(v) - float::ln(value);
         if lnr > 36.0 {
             let x = lnr + float::ln_1p(float::exp(-lnr));
             (x, float::ln(x))
@@ -95,8 +95,9 @@ fn brightness_unchecked(spec: &Spectrum, v: f64, value: f64) -> Option<f64> {
 /// range.
 ///
 /// # Accuracy
-/// Relative ≤ 1e-14 in T for the round trip T → spectral → T from 1 K to 1e5 K (property test
-/// `tests/core_properties.rs`), and against mpmath values in the reference table.
+/// Round trip T → spectral → T: max relative error 4.4e-16 over a grid of 6426 points
+/// (T from 1 K to 1e5 K, x from 0.01 to 200, all variables and quantities; measured with a
+/// scratch program, not a test); the property test `tests/core_properties.rs` asserts 1e-10.
 ///
 /// # Examples
 /// ```
@@ -132,8 +133,8 @@ pub fn brightness_temperature(spec: &Spectrum, x: f64, value: f64) -> Result<f64
 /// [`T_MIN_K`] and [`T_MAX_K`]; `NotConverged` (not observed) if the iteration stalls.
 ///
 /// # Accuracy
-/// Relative ≤ 1e-12 in T for the round trip from 1 K to 1e5 K (property test), typically a few
-/// ulp.
+/// Round trip T → band → T: max relative error 8.0e-15 over the same 6426-point grid (bands
+/// [λ, 1.5λ]); the property test asserts 1e-10.
 ///
 /// # Examples
 /// ```
@@ -196,8 +197,10 @@ pub fn temperature_from_band(spec: &Spectrum, lower: f64, upper: f64, value: f64
 /// `NotConverged` (not observed) if the iteration stalls.
 ///
 /// # Accuracy
-/// Relative ≤ 1e-10 in T for the round trip from 1 K to 1e5 K (property test); the attainable
-/// accuracy falls as the ratio flattens (Rayleigh–Jeans regime, T ≫ c₂/λ).
+/// Round trip T → ratio → T: max relative error 1.8e-13 over the grid above restricted to
+/// 0.3 < x < 100 (adjacent bands [λ, 1.2λ], [1.2λ, 1.5λ]); the property test asserts 1e-10.
+/// The attainable accuracy falls as the ratio flattens (Rayleigh–Jeans regime, x ≪ 1), where
+/// the sensitivity d ln R/d ln T tends to 0.
 ///
 /// # Examples
 /// ```
@@ -278,6 +281,20 @@ pub fn temperature_from_band_ratio(
             what: "band ratio outside the range the two bands give between 1e-3 K and 1e7 K",
         });
     }
-    let u = solve_monotone(g, ulo, uhi, Some(float::ln(1000.0)), increasing, false)?;
+    // Initial guess from the Wien approximation at the band centres:
+    // ln R ≈ ln(v₁ᵖ w₁ / (v₂ᵖ w₂)) − (a₁ − a₂)/T with x = a/T (a = q/v or q·v).
+    let (_, p, q, inverse, _) = spec.density_params();
+    let centre = |b: (f64, f64)| 0.5 * (b.0 + b.1);
+    let (v1, v2) = (centre(band1), centre(band2));
+    let a = |v: f64| if inverse { q / v } else { q * v };
+    let lead = f64::from(p) * (float::ln(v1) - float::ln(v2)) + float::ln(band1.1 - band1.0)
+        - float::ln(band2.1 - band2.0);
+    let t0 = (a(v1) - a(v2)) / (lead - target);
+    let x0 = if t0.is_finite() && t0 > T_MIN_K && t0 < T_MAX_K {
+        Some(float::ln(t0))
+    } else {
+        Some(float::ln(1000.0))
+    };
+    let u = solve_monotone(g, ulo, uhi, x0, increasing, false)?;
     Ok(float::exp(u))
 }

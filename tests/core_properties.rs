@@ -238,3 +238,59 @@ fn far_tail_keeps_relative_accuracy() {
     let parts = band(&s, 1e-6, 1.4e-6, 300.0).unwrap() + band(&s, 1.4e-6, 2e-6, 300.0).unwrap();
     assert!(whole > 0.0 && rel(parts, whole) < 1e-14);
 }
+
+proptest! {
+    #[test]
+    fn arbitrary_bit_patterns_never_panic_or_give_nan(
+        a in any::<f64>(), b in any::<f64>(), c in any::<f64>(), d in any::<f64>(),
+        var in variable(), q in quantity(), exitance in any::<bool>(), eps in any::<f64>(),
+    ) {
+        // Any f64 (NaN, ±∞, negative, subnormal, huge) in any argument: a value that is not NaN
+        // or a typed error, never a panic (common practice, no source: robustness fuzzing).
+        use quantaband::band::*;
+        use quantaband::inverse::*;
+        use quantaband::planck::*;
+        let g = if exitance { Geometry::Exitance } else { Geometry::Radiance };
+        let s = Spectrum::new(var, q, g).with_emissivity(eps.abs().min(1.0));
+        let ok = |r: quantaband::Result<f64>| r.map(|v| !v.is_nan()).unwrap_or(true);
+        prop_assert!(ok(s.spectral(a, b)));
+        prop_assert!(ok(s.spectral_d_dt(a, b)));
+        prop_assert!(ok(s.total(a)));
+        prop_assert!(ok(s.peak(a)));
+        prop_assert!(ok(band(&s, a, b, c)));
+        prop_assert!(ok(band_d_dt(&s, a, b, c)));
+        prop_assert!(ok(band_fraction(&s, a, b, c)));
+        prop_assert!(ok(fraction_below(a)));
+        prop_assert!(ok(photon_fraction_below(a)));
+        prop_assert!(ok(lambda_t_at_fraction(a)));
+        prop_assert!(ok(photon_lambda_t_at_fraction(a)));
+        prop_assert!(ok(planck_integral(PlanckKernel::EnergyDerivative, a, b)));
+        prop_assert!(ok(planck_integral_upper(PlanckKernel::Photon, a)));
+        prop_assert!(ok(planck_integral_lower(PlanckKernel::Energy, a)));
+        prop_assert!(ok(brightness_temperature(&s, a, b)));
+        prop_assert!(ok(temperature_from_band(&s, a, b, c)));
+        prop_assert!(ok(temperature_from_band_ratio(&s, (a, b), (c, d), a.abs(), b.abs())));
+        prop_assert!(ok(total_exitance(a)));
+        prop_assert!(ok(photon_number_density(a)));
+        prop_assert!(ok(mean_photon_energy_j(a)));
+    }
+
+    #[test]
+    fn plausible_but_extreme_inputs_never_panic_or_give_nan(
+        a in log_uniform(1e-300, 1e300), r in log_uniform(1.0 + 1e-12, 1e12),
+        c in log_uniform(1e-300, 1e300), v in log_uniform(1e-300, 1e300),
+        var in variable(), q in quantity(),
+    ) {
+        use quantaband::band::*;
+        use quantaband::inverse::*;
+        let s = Spectrum::new(var, q, Geometry::Radiance);
+        let b = (a * r).min(f64::MAX);
+        prop_assume!(b > a);
+        let ok = |r: quantaband::Result<f64>| r.map(|v| !v.is_nan()).unwrap_or(true);
+        prop_assert!(ok(band_fraction(&s, a, b, c)));
+        prop_assert!(ok(brightness_temperature(&s, a, v)));
+        prop_assert!(ok(temperature_from_band(&s, a, b, v)));
+        let m = (a * r.sqrt()).max(a * (1.0 + 1e-13));
+        prop_assert!(ok(temperature_from_band_ratio(&s, (a, m), (m, b), v, 1.0)));
+    }
+}

@@ -5,6 +5,8 @@
 // Inputs are given in SI units (`unit: "m"`) so they are bit-identical to the native and
 // reference inputs; the per-call cost includes reading the options object, as a user pays it.
 
+import { EMISSIVITY, PIXELS, SH, T_REFLECTED_K, maxAbsError } from "./scene.mjs";
+
 const has = (pkg, ...names) => names.every((n) => typeof pkg[n] === "function");
 const SI = Object.freeze({ unit: "m" });
 
@@ -75,6 +77,23 @@ const CASES = [
       const i = ref.sh_inverse.inputs;
       const model = { kind: "sakumaHattori", aM: i.a_m, bMK: i.b_m_k, c: i.c };
       return scalar(() => pkg.modelTemperature(model, i.signal));
+    },
+  ],
+  [
+    "frame_640x512",
+    (pkg, { frame }) => {
+      if (!has(pkg, "convertFrame")) return null;
+      const curve = { kind: "sakumaHattori", aM: SH.a, bMK: SH.b, c: SH.c };
+      const options = { conditions: { emissivity: EMISSIVITY, reflectedTemperatureK: T_REFLECTED_K } };
+      const call = () => pkg.convertFrame(curve, frame.signals, options);
+      return {
+        fn: () => call().valid,
+        extra: () => ({
+          pixels: PIXELS,
+          max_abs_err_k: maxAbsError(call().temperaturesK, frame.exact),
+          note: "Float32Array in, Float32Array out (convertFrame, result object)",
+        }),
+      };
     },
   ],
   ["be_occupancy", (pkg) => (has(pkg, "boseEinstein") ? scalar(() => pkg.boseEinstein(2.0)) : null)],

@@ -139,7 +139,9 @@ function speed(rec) {
 function ratio(num, den) {
   if (!num || !den) return "–";
   const r = num.ns_median / den.ns_median;
-  return r >= 10 ? `${r.toFixed(0)}×` : `${r.toFixed(2)}×`;
+  if (r >= 10) return `${r.toFixed(0)}×`;
+  if (r >= 0.1) return `${r.toFixed(2)}×`;
+  return `${r.toPrecision(2)}×`;
 }
 
 const lines = [];
@@ -151,10 +153,10 @@ const header = [
   "package error",
   "Baseline A/C plain JS",
   "A/C error",
-  "A/C ÷ wasm",
+  "A/C time ÷ wasm time",
   "SciPy",
   "SciPy error",
-  "SciPy ÷ wasm",
+  "SciPy time ÷ wasm time",
 ];
 lines.push(`| ${header.join(" | ")} |`);
 lines.push(`|${header.map(() => "---").join("|")}|`);
@@ -196,16 +198,33 @@ if (meta.wasm && meta.wasm.skipped) console.log(`\nwasm package not measured: ${
 // Target checklist (goals of the issue; never asserted in tests).
 const out = [];
 const mark = (ok) => (ok === undefined ? "not measured" : ok ? "met" : "MISSED");
+// Accuracy verdict: errors both ≤ 1e-15 relative (about 4.5 ulp) are a tie at the f64 rounding
+// level; otherwise the smaller error wins.
+const ULP_LEVEL = 1e-15;
+function accVerdict(pkg, other) {
+  if (!pkg || !other) return "not measured";
+  if (pkg.kind === "rel" && pkg.value <= ULP_LEVEL && other.value <= ULP_LEVEL) {
+    return "tie: both at the f64 rounding level (≤ 1e-15)";
+  }
+  return pkg.value <= other.value ? "equal or better" : "WORSE";
+}
+const times = (a, b) => (a && b && Number.isFinite(a.ns_median) && Number.isFinite(b.ns_median) ? a.ns_median / b.ns_median : undefined);
+const fx = (x) => (x === undefined ? "not measured" : `${x >= 10 ? x.toFixed(0) : x.toFixed(2)}×`);
+const goal = (x, thr) => (x === undefined ? "not measured" : `${fx(x)} (${mark(x >= thr)})`);
 function bandTarget(kase) {
   const r = results[kase];
-  if (!r || !r.w) return;
-  const vsS = r.s ? r.s.ns_median / r.w.ns_median : undefined;
-  const vsA = r.a ? r.a.ns_median / r.w.ns_median : undefined;
-  const accS = r.s && r.pkgErr && r.sErr ? r.pkgErr.value <= r.sErr.value : undefined;
-  const accA = r.a && r.pkgErr && r.aErr ? r.pkgErr.value <= r.aErr.value : undefined;
+  if (!r) return;
+  const wS = times(r.s, r.w);
+  const nS = times(r.s, r.n);
+  const wA = times(r.a, r.w);
+  const nA = times(r.a, r.n);
   out.push(
-    `- ${kase}: wasm ${vsS === undefined ? "?" : vsS.toFixed(0)}× faster than SciPy (≥ 100×: ${mark(vsS === undefined ? undefined : vsS >= 100)}; accuracy package ${fmtErr(r.pkgErr)} vs SciPy ${fmtErr(r.sErr)}: ${accS === undefined ? "?" : accS ? "equal or better" : "WORSE"}), ` +
-      `${vsA === undefined ? "?" : vsA.toFixed(0)}× faster than Baseline A (≥ 20×: ${mark(vsA === undefined ? undefined : vsA >= 20)}; accuracy package ${fmtErr(r.pkgErr)} vs A ${fmtErr(r.aErr)}: ${accA === undefined ? "?" : accA ? "equal or better" : "WORSE"})`,
+    `- ${kase} vs SciPy quad (goal ≥ 100×): wasm ${goal(wS, 100)}, native ${goal(nS, 100)}; ` +
+      `errors: package ${fmtErr(r.pkgErr)}, SciPy ${fmtErr(r.sErr)} → ${accVerdict(r.pkgErr, r.sErr)}`,
+  );
+  out.push(
+    `- ${kase} vs Baseline A (goal ≥ 20×): wasm ${goal(wA, 20)}, native ${goal(nA, 20)}; ` +
+      `errors: package ${fmtErr(r.pkgErr)}, A ${fmtErr(r.aErr)} → ${accVerdict(r.pkgErr, r.aErr)}`,
   );
 }
 bandTarget("band_8_14_300");
@@ -235,7 +254,7 @@ if (out.length) console.log("\nTargets (goals, not test assertions):\n" + out.jo
 
 if (machine) {
   console.log(
-    `\nMeasured ${machine.date} on ${machine.cpu} (${machine.nproc} cores visible, shared), ${machine.rustc}, Node ${machine.node}` +
+    `\nMeasured ${machine.date} on ${machine.cpu} (${machine.nproc} cores visible, shared; load average ${machine.load ?? "?"} at the start), ${machine.rustc}, Node ${machine.node}` +
       (meta.scipy ? `, Python ${meta.scipy.python} + SciPy ${meta.scipy.scipy}` : "") +
       ".",
   );

@@ -258,6 +258,22 @@ for var, lo, hi, T, note in band_cases:
                 add(kind="band_fraction", variable=var, quantity=q, lower=lo, upper=hi,
                     temperature_k=T, c2="codata2018", note=note, expected=val / total)
 
+# 3b. ITS-90 second radiation constant (c2 = 0.014388 m K in the exponent, prefactor unchanged).
+for var, lo, hi, T, note in [
+    ("wavelength", "0.645e-6", "0.655e-6", "1337.33", "ITS-90 c2, narrow red band at the gold point"),
+    ("wavelength", "0.8e-6", "1.1e-6", "1800", "ITS-90 c2, silicon-detector band"),
+    ("frequency", "2.14e13", "3.75e13", "300", "ITS-90 c2, 8-14 um as frequency"),
+]:
+    for q in ("energy", "photon"):
+        for d_dt in (False, True):
+            xa, xb = sorted([reduced(var, lo, T, C2_ITS90), reduced(var, hi, T, C2_ITS90)])
+            val = quad_band(var, q, lo, hi, T, C2_ITS90, d_dt)
+            pl = polylog_band(var, q, lo, hi, T, C2_ITS90, d_dt)
+            assert abs(val / pl - 1) < mpf("1e-25"), (var, lo, hi, T, q, d_dt)
+            add(kind="band_d_dt" if d_dt else "band", variable=var, quantity=q, lower=lo,
+                upper=hi, temperature_k=T, c2="its90", reduced_lower=xa, reduced_upper=xb,
+                note=note, expected=val)
+
 # 4. Dimensionless kernels: upper tails, lower heads, intervals.
 for kern in ("photon", "energy", "photon_derivative", "energy_derivative"):
     for x in ("1e-6", "0.01", "0.5", "1", "1.9", "2", "2.1", "3", "5", "10", "30", "50", "100",
@@ -274,6 +290,52 @@ for kern in ("photon", "energy", "photon_derivative", "energy_derivative"):
                  ("1e-3", "1.000001e-3"), ("100", "100.25")):
         val = nquad(lambda t: kernel_integrand(kern, t), [f64(a), f64(b)])
         add(kind="planck_integral", kernel=kern, x_lower=a, x_upper=b, expected=val)
+
+# 4b. Seeded random intervals of the dimensionless kernels, crossing the library's internal
+#     switch points (x = 2, the narrow-interval rule) many times.
+import random  # noqa: E402
+
+rng = random.Random(20261201)
+for kern in ("photon", "energy", "photon_derivative", "energy_derivative"):
+    for _ in range(40):
+        a = 10 ** rng.uniform(-3, 2.5)
+        b = a * (1 + 10 ** rng.uniform(-6, 0.5))
+        a_s, b_s = repr(a), repr(b)
+        av, bv = f64(a_s), f64(b_s)
+        if bv <= av:
+            continue
+        val = nquad(lambda t: kernel_integrand(kern, t), [av, (av + bv) / 2, bv])
+        if (bv - av) / (av + bv) > mpf("1e-3"):
+            ref = kernel_upper(kern, av) - kernel_upper(kern, bv)
+            assert abs(val / ref - 1) < mpf("1e-25"), (kern, a_s, b_s)
+        add(kind="planck_integral", kernel=kern, x_lower=a_s, x_upper=b_s, expected=val)
+
+# 4c. Totals (Stefan-Boltzmann and photon analogues, as mp.quad of the density over all x) and
+#     peak locations (mp.findroot of the numerical derivative mp.diff of ln density).
+for T in ("1e-3", "2.725", "300", "1500", "5772", "1e6"):
+    Tv = f64(T)
+    for q in ("energy", "photon"):
+        n = 3 if q == "energy" else 2
+        integral = nquad(lambda t: t**n / mp.expm1(t), [mpf("1e-30"), 1, 4, 16, 64, 256, 1024])
+        k = C1L if q == "energy" else 2 * C
+        radiance = k * (Tv / C2_CODATA) ** (n + 1) * integral
+        add(kind="total", quantity=q, geometry="radiance", temperature_k=T, expected=radiance)
+        add(kind="total", quantity=q, geometry="exitance", temperature_k=T,
+            expected=mp.pi * radiance)
+    add(kind="photon_number_density", temperature_k=T,
+        expected=2 * mp.zeta(3) / mp.pi**2 * (K * Tv / (H / (2 * mp.pi) * C)) ** 3)
+    add(kind="mean_photon_energy", temperature_k=T,
+        expected=(C1L * (Tv / C2_CODATA) ** 4 * mp.pi**4 / 15)
+        / (2 * C * (Tv / C2_CODATA) ** 3 * 2 * mp.zeta(3)))
+for T in ("300", "5772"):
+    Tv = f64(T)
+    for var, guess in (("wavelength", C2_CODATA / (4 * Tv)), ("wavenumber", 2 * Tv / C2_CODATA),
+                       ("frequency", 2 * C * Tv / C2_CODATA)):
+        for q in ("energy", "photon"):
+            # d ln f / d ln v = 0, in u = ln(v/guess) so that the numbers are O(1).
+            g = lambda u: mp.log(density(var, q, guess * mp.exp(u), T, C2_CODATA)[0])
+            vmax = guess * mp.exp(mp.findroot(lambda u: mp.diff(g, u), mpf(0)))
+            add(kind="peak", variable=var, quantity=q, temperature_k=T, expected=vmax)
 
 # 5. Inverse blackbody fraction: lambda T at which F(0 -> lambda T) = f.
 for frac in ("1e-12", "0.01", "0.1", "0.25", "0.5", "0.75", "0.9", "0.99", "0.999999"):
