@@ -262,6 +262,7 @@ pub fn brightness_temperature(
 /// `brightnessTemperature` for every density value of `values` at one point `x`, one call.
 ///
 /// @throws {QuantabandError} as `brightnessTemperature`; `index` is the first bad value.
+#[cfg(feature = "wasm-full")]
 #[wasm_bindgen(js_name = brightnessTemperatureArray)]
 pub fn brightness_temperature_array(
     #[wasm_bindgen(unchecked_param_type = "SpectrumOptions")] options: JsValue,

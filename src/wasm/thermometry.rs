@@ -648,6 +648,7 @@ pub fn model_temperature(
 /// `modelSignal` for every temperature of `temperaturesK` (K), one call.
 ///
 /// @throws {QuantabandError} as `modelSignal`; `index` is the first bad temperature.
+#[cfg(feature = "wasm-full")]
 #[wasm_bindgen(js_name = modelSignalArray)]
 pub fn model_signal_array(
     #[wasm_bindgen(unchecked_param_type = "InstrumentModel")] model: JsValue,

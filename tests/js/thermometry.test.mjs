@@ -167,7 +167,7 @@ test('two-colour and ratio thermometry (mpmath findroot and diff)', FULL_ONLY, (
 test('Sakuma–Hattori fits', () => {
   const truth = { kind: 'sakumaHattori', aM: 3.9e-6, bMK: 2e-8, c: 5e4 };
   const t = new Float64Array([400, 600, 900, 1200, 1500]);
-  const s = qb.modelSignalArray(truth, t);
+  const s = t.map((x) => qb.modelSignal(truth, x));
   const fit = qb.sakumaHattoriFit(t, s);
   assert.equal(fit.curve.kind, 'sakumaHattori');
   assert.equal(fit.curve.c2, 'codata2018');
@@ -190,7 +190,7 @@ test('bulk thermometry over a million readings', () => {
   const m = { kind: 'sakumaHattori', aM: 1e-5, bMK: 1.8e-4, c: 1e6 };
   const n = 1_000_000;
   const temps = new Float64Array(n).map((_, i) => 260 + (i % 1000) * 0.5);
-  const s = qb.modelSignalArray(m, temps);
+  const s = qb.measuredSignalArray(m, temps); // no conditions: a blackbody, signal = S(T)
   const obj = qb.objectTemperatureArray(m, s, { emissivity: 0.95, reflectedTemperatureK: 293.15 });
   assert.equal(obj.length, n);
   const bb = qb.objectTemperatureArray(m, s);

@@ -16,7 +16,7 @@ import {
   spectralDensityGrid,
   bandIntegral,
   bandIntegralArray,
-  brightnessTemperatureArray,
+  temperatureFromBandArray,
   boseEinstein,
   fermiDiracIntegral,
   boseEinsteinIntegral,
@@ -101,7 +101,7 @@ const d3: Float64Array = spectralDensityGrid({ unit: 'GHz' }, new Float64Array([
 const b1: number = bandIntegral({ unit: 'um' }, 8, 14, 300);
 const b2: Float64Array = bandIntegralArray({ unit: 'um' }, 8, 14, new Float64Array([300, 400]));
 const band: Band = { lower: 0.9, upper: 1.0 };
-const b4: Float64Array = brightnessTemperatureArray({ unit: 'um' }, 10, new Float64Array([1e6]));
+const b4: Float64Array = temperatureFromBandArray({ unit: 'um' }, 8, 14, new Float64Array([50]));
 // @ts-expect-error the spectral unit is required
 spectralDensity({ quantity: 'energy' }, 10, 300);
 // @ts-expect-error misspelt option field
