@@ -158,12 +158,28 @@ pub(crate) fn fail(code: &'static str, message: String) -> JsValue {
     make_error(code, &message, &[], None)
 }
 
+/// An empty vector with room for `n` values, or an `OUT_OF_RANGE` error when that much memory
+/// cannot be had (instead of the allocation failure that would abort the wasm instance).
+#[inline(never)]
+pub(crate) fn with_room<T>(n: usize) -> Result<Vec<T>, JsValue> {
+    let mut v = Vec::new();
+    if v.try_reserve_exact(n).is_err() {
+        return Err(Error::OutOfRange {
+            arg: "result length",
+            value: n as f64,
+            range: "what the WebAssembly memory can hold",
+        }
+        .into());
+    }
+    Ok(v)
+}
+
 /// Maps `f` over `xs`, stopping at the first error and reporting its index.
 pub(crate) fn map_indexed<T: Copy>(
     xs: &[T],
     mut f: impl FnMut(T) -> crate::Result<f64>,
 ) -> Result<Vec<f64>, JsValue> {
-    let mut out = Vec::with_capacity(xs.len());
+    let mut out = with_room(xs.len())?;
     for (i, &x) in xs.iter().enumerate() {
         out.push(f(x).map_err(|e| at(e, i))?);
     }

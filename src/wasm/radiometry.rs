@@ -6,7 +6,7 @@
 
 use wasm_bindgen::prelude::*;
 
-use super::error::{at, fail, map_indexed};
+use super::error::{at, fail, map_indexed, with_room};
 use super::opts::{choose, Opts};
 use crate::constants::C2Convention;
 use crate::error as core_error;
@@ -273,14 +273,14 @@ pub fn spectral_density_grid(
     #[wasm_bindgen(js_name = temperaturesK)] temperatures_k: &[f64],
 ) -> Result<Vec<f64>, JsValue> {
     let s = parse_spectrum(&options)?;
-    let mut xs_si = Vec::with_capacity(xs.len());
+    let mut xs_si = with_room(xs.len())?;
     for (j, &x) in xs.iter().enumerate() {
         xs_si.push(s.user_to_si("xs", x).map_err(|e| at(e, j))?);
     }
     for (i, &t) in temperatures_k.iter().enumerate() {
         core_error::temperature("temperaturesK", t).map_err(|e| at(e, i))?;
     }
-    let mut out = Vec::with_capacity(xs.len().saturating_mul(temperatures_k.len()));
+    let mut out = with_room(xs.len().saturating_mul(temperatures_k.len()))?;
     for &t in temperatures_k {
         for (j, &x) in xs_si.iter().enumerate() {
             out.push(s.spectrum.spectral(x, t).map_err(|e| at(e, j))?);

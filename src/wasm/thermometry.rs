@@ -11,7 +11,7 @@ use js_sys::{Array, Float32Array, Float64Array, Object, Reflect, Uint16Array};
 use wasm_bindgen::prelude::*;
 use wasm_bindgen::JsCast;
 
-use super::error::{at, fail, map_indexed};
+use super::error::{at, fail, map_indexed, with_room};
 use super::opts::{choose, Opts};
 use super::radiometry::parse_c2;
 use crate::constants::C2Convention;
@@ -340,7 +340,7 @@ fn number_array(what: &str, v: &JsValue) -> Result<Vec<f64>, JsValue> {
     }
     if Array::is_array(v) {
         let a: &Array = v.unchecked_ref();
-        let mut out = Vec::with_capacity(a.length() as usize);
+        let mut out = with_room(a.length() as usize)?;
         for (i, x) in a.iter().enumerate() {
             match x.as_f64() {
                 Some(x) => out.push(x),
@@ -940,7 +940,8 @@ pub fn sakuma_hattori_fit(
     #[wasm_bindgen(unchecked_optional_param_type = "C2Convention")] c2: Option<String>,
 ) -> Result<JsValue, JsValue> {
     let c2 = c2_arg(c2)?;
-    let mut res = vec![0.0; temperatures_k.len()];
+    let mut res = with_room(temperatures_k.len())?;
+    res.resize(temperatures_k.len(), 0.0);
     let r = SakumaHattori::fit(temperatures_k, signals, c2, Some(&mut res))?;
     Ok(fit_object(&r, Some(res)))
 }
@@ -1311,7 +1312,8 @@ pub fn convert_frame(
         Some(v) => choose("FrameOptions.output", &v, &["float32", "float64"])? == 1,
     };
     let conv = FrameConverter::new(&sh, &conditions, gain, offset)?;
-    let mut out = vec![0.0f64; pixels.len()];
+    let mut out = with_room(pixels.len())?;
+    out.resize(pixels.len(), 0.0f64);
     let sum = match eps.as_deref() {
         None => conv.convert(&pixels, &mut out)?,
         Some(e) => conv.convert_with_emissivity(&pixels, e, &mut out)?,
@@ -1325,7 +1327,8 @@ pub fn convert_frame(
     } else {
         // Rounding to f32 is monotone, so the extremes of the rounded frame are the rounded
         // extremes (identical to the core's f32 output path).
-        let out32: Vec<f32> = out.iter().map(|&t| t as f32).collect();
+        let mut out32: Vec<f32> = with_room(out.len())?;
+        out32.extend(out.iter().map(|&t| t as f32));
         (
             Float32Array::from(out32.as_slice()).into(),
             f64::from(sum.min_temperature_k as f32),

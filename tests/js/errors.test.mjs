@@ -65,3 +65,11 @@ test('a thousand errors in a row leave the module healthy', () => {
   const big = qb.spectralDensityArray(um, new Float64Array(200_000).fill(10), 300);
   assert.equal(big[199_999], qb.spectralDensity(um, 10, 300));
 });
+
+test('results too large for WebAssembly memory are an error, not an abort', () => {
+  const xs = new Float64Array(200_000).fill(10);
+  const ts = new Float64Array(200_000).fill(300); // a 4e10-element grid (320 GB)
+  throwsCode(() => qb.spectralDensityGrid(um, xs, ts), 'OUT_OF_RANGE');
+  // a sparse JS array claiming 2^31 elements
+  throwsCode(() => qb.modelSignal({ kind: 'response', wavelengths: new Array(2 ** 31), values: [1, 1], unit: 'um' }, 300), 'OUT_OF_RANGE');
+});
