@@ -69,6 +69,15 @@ TARGET_DIR="${CARGO_TARGET_DIR:-$ROOT/target}"
 RAW_WASM="$TARGET_DIR/wasm32-unknown-unknown/release/$NAME.wasm"
 STAGE="$TARGET_DIR/pkg-stage"
 
+# One build at a time per work tree (teammates may share one): pkg/ and the staging folder are
+# replaced as a whole.
+mkdir -p "$TARGET_DIR"
+exec 9>"$TARGET_DIR/.pkg-build.lock"
+if ! flock -n 9; then
+  say "waiting for another build.sh in this work tree to finish"
+  flock 9
+fi
+
 t="$(now)"
 say "cargo build --release --lib --target wasm32-unknown-unknown --features $FEATURES_CARGO (simd128: $([ "$SIMD" = 1 ] && echo on || echo off), opt-level ${CARGO_PROFILE_RELEASE_OPT_LEVEL:-from Cargo.toml})"
 cargo build --release --lib --target wasm32-unknown-unknown --features "$FEATURES_CARGO"

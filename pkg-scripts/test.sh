@@ -5,9 +5,10 @@
 #   bash pkg-scripts/test.sh [--only=REGEX] [--skip=REGEX] [--list]
 #
 # --only / --skip select steps by name (extended regex), for local iteration; CI runs them all.
-# Each step's full output is kept in target/test-logs/NN-STEP.log. The closing lines give a table
-# of steps with timings and one line "tests: N passed, M failed", the sum of the counts reported
-# by cargo test, wasm-bindgen-test-runner and node's test runner.
+# Each step's full output is kept in target/test-logs/run-*/NN-STEP.log (the newest run is
+# target/test-logs/latest). The closing lines give a table of steps with timings and one line
+# "tests: N passed, M failed", the sum of the counts reported by cargo test,
+# wasm-bindgen-test-runner and node's test runner.
 set -euo pipefail
 cd "$(dirname "${BASH_SOURCE[0]}")/.."
 ROOT="$(pwd)"
@@ -31,9 +32,14 @@ export NO_COLOR=1
 # The browser suites of wasm-bindgen-test and large-array tests in debug builds can be slow.
 export WASM_BINDGEN_TEST_TIMEOUT="${WASM_BINDGEN_TEST_TIMEOUT:-300}"
 
-LOGDIR="$ROOT/target/test-logs"
+# A log folder per run (teammates sharing a work tree may run tests at the same time);
+# target/test-logs/latest points at the newest.
+LOGDIR="$ROOT/target/test-logs/run-$(date +%Y%m%d-%H%M%S)-$$"
 mkdir -p "$LOGDIR"
-rm -f "$LOGDIR"/*.log
+ln -sfn "$LOGDIR" "$ROOT/target/test-logs/latest"
+# Keep the ten newest runs.
+find "$ROOT/target/test-logs" -maxdepth 1 -name 'run-*' -type d -printf '%T@ %p\n' | sort -rn | tail -n +11 \
+  | cut -d' ' -f2- | while read -r old; do rm -rf -- "$old"; done
 
 now() { date +%s.%N; }
 secs() { awk -v a="$1" -v b="$2" 'BEGIN { printf "%.1f", b - a }'; }
