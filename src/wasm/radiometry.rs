@@ -199,7 +199,8 @@ fn density(s: &Spec, x: f64, t: f64, dt: bool) -> crate::Result<f64> {
 
 /// Spectral density of a (grey-body) Planck spectrum at one point `x` (in `options.unit`) and
 /// temperature `temperatureK` (K). Result in SI per the SI unit of `options.variable`, e.g.
-/// W·m⁻²·sr⁻¹·m⁻¹ for energy radiance per wavelength (see `spectrumUnits`).
+/// W·m⁻²·sr⁻¹·m⁻¹ for energy radiance per wavelength (README "Conventions"; `spectrumUnits` in the
+/// wasm-full build).
 ///
 /// Example: `spectralDensity({ unit: "um" }, 10, 300)` → 9.924e6 W·m⁻²·sr⁻¹·m⁻¹.
 ///
