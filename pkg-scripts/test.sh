@@ -141,6 +141,9 @@ step clippy-host cargo clippy --all-targets -- -D warnings
 step clippy-no-std env RUSTC_WORKSPACE_WRAPPER="$(command -v clippy-driver)" \
   cargo rustc --lib --crate-type rlib --no-default-features --profile check -- -D warnings
 step clippy-wasm cargo clippy --lib --features wasm --target wasm32-unknown-unknown -- -D warnings
+if grep -q '^wasm-full *=' Cargo.toml; then
+  step clippy-wasm-full cargo clippy --lib --features wasm-full --target wasm32-unknown-unknown -- -D warnings
+fi
 step no-std-thumbv7em cargo rustc --lib --crate-type rlib --no-default-features --target thumbv7em-none-eabihf
 step no-std-wasm32 cargo rustc --lib --crate-type rlib --no-default-features --target wasm32-unknown-unknown
 step cargo-test cargo test
@@ -158,6 +161,19 @@ if [ -f tests/wasm_browser.rs ]; then
     cargo test --target wasm32-unknown-unknown --features wasm --test wasm_browser
 else
   skipped wasm-test-browser "tests/wasm_browser.rs absent"
+fi
+
+# The bindings behind the `wasm-full` feature (outside the default package's size budget) are
+# tested from a full build first; the default build below then replaces pkg/ for the rest.
+if grep -q '^wasm-full *=' Cargo.toml; then
+  step build-full bash pkg-scripts/build.sh --features=wasm-full --no-page
+  if compgen -G 'tests/js/*.test.mjs' >/dev/null; then
+    step js-node-test-full "node --test --test-reporter=spec tests/js/*.test.mjs"
+  fi
+  if [ -f www/build.mjs ] && compgen -G 'tests/page/*.test.mjs' >/dev/null; then
+    step page-test-full "node www/build.mjs --pkg pkg --out target/quantaband-full.html \
+      && QB_PAGE=target/quantaband-full.html node --test --test-reporter=spec tests/page/*.test.mjs"
+  fi
 fi
 
 step build bash pkg-scripts/build.sh
