@@ -7,7 +7,7 @@
 # --only / --skip select steps by name (extended regex), for local iteration; CI runs them all.
 # Each step's full output is kept in target/test-logs/run-*/NN-STEP.log (the newest run is
 # target/test-logs/latest). The closing lines give a table of steps with timings and one line
-# "tests: N passed, M failed", the sum of the counts reported by cargo test,
+# "tests: N passed, M failed, K skipped", the sums of the counts reported by cargo test,
 # wasm-bindgen-test-runner and node's test runner.
 set -euo pipefail
 cd "$(dirname "${BASH_SOURCE[0]}")/.."
@@ -48,10 +48,12 @@ T0="$(now)"
 N=0
 PASSED=0
 FAILED=0
+SKIPPED=0
 SUMMARY=()
 
 # Sums the test counts a step printed: cargo test / wasm-bindgen-test-runner
-# ("test result: ok. 12 passed; 0 failed; ...") and node --test ("ℹ pass 12" / "# pass 12").
+# ("test result: ok. 12 passed; 0 failed; 1 ignored; ...") and node --test ("ℹ pass 12",
+# "ℹ skipped 1", or "# pass 12" in TAP). Prints "PASSED FAILED SKIPPED".
 count_tests() {
   local log="$1"
   awk '
@@ -59,11 +61,13 @@ count_tests() {
       for (i = 1; i <= NF; i++) {
         if ($(i) ~ /^passed;?$/) p += $(i - 1)
         if ($(i) ~ /^failed;?$/) f += $(i - 1)
+        if ($(i) ~ /^ignored;?$/) s += $(i - 1)
       }
     }
     /^(ℹ|#) pass [0-9]+$/ { p += $3 }
     /^(ℹ|#) (fail|cancelled) [0-9]+$/ { f += $3 }
-    END { printf "%d %d\n", p, f }
+    /^(ℹ|#) (skipped|todo) [0-9]+$/ { s += $3 }
+    END { printf "%d %d %d\n", p, f, s }
   ' "$log"
 }
 
@@ -74,7 +78,7 @@ print_summary() {
   printf '%s\n' "${SUMMARY[@]}"
   echo "total time: $(secs "$T0" "$(now)") s; logs: $LOGDIR"
   echo "steps: $status"
-  echo "tests: $PASSED passed, $FAILED failed"
+  echo "tests: $PASSED passed, $FAILED failed, $SKIPPED skipped"
 }
 
 # step NAME COMMAND...   runs COMMAND (through bash -c when it is a single string).
@@ -98,13 +102,16 @@ step() {
   fi
   rc="${PIPESTATUS[0]}"
   set -e
-  local dt p f
+  local dt p f sk
   dt="$(secs "$t" "$(now)")"
-  read -r p f < <(count_tests "$log")
+  read -r p f sk < <(count_tests "$log")
   PASSED=$((PASSED + p))
   FAILED=$((FAILED + f))
+  SKIPPED=$((SKIPPED + sk))
   local counts=""
-  if [ "$p" -gt 0 ] || [ "$f" -gt 0 ]; then counts="  ($p passed, $f failed)"; fi
+  if [ "$p" -gt 0 ] || [ "$f" -gt 0 ]; then
+    if [ "$sk" -gt 0 ]; then counts="  ($p passed, $f failed, $sk skipped)"; else counts="  ($p passed, $f failed)"; fi
+  fi
   if [ "$rc" -ne 0 ]; then
     SUMMARY+=("$(printf 'FAIL  %-22s %7s s%s  exit %d' "$name" "$dt" "$counts" "$rc")")
     [ "$f" -gt 0 ] || FAILED=$((FAILED + 1))
