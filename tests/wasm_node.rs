@@ -36,25 +36,47 @@ fn rel(a: f64, b: f64) -> f64 {
 
 #[wasm_bindgen_test]
 fn spectral_conversion_definitions() {
-    assert_eq!(qb::convert_spectral(10.0, "um", "cm-1").unwrap(), 1000.0);
-    assert_eq!(qb::convert_spectral(500.0, "nm", "\u{b5}m").unwrap(), 0.5);
+    assert_eq!(
+        qb::convert_spectral(10.0, "um".into(), "cm-1".into()).unwrap(),
+        1000.0
+    );
+    assert_eq!(
+        qb::convert_spectral(500.0, "nm".into(), "\u{b5}m".into()).unwrap(),
+        0.5
+    );
     // c exact: 1 µm ↔ 299.792458 THz; CODATA 2018 hc/e = 1.239 841 984…e-6 eV·m.
-    assert!(rel(qb::convert_spectral(1.0, "um", "THz").unwrap(), 299.792_458) < 1e-15);
     assert!(
         rel(
-            qb::convert_spectral(1.0, "eV", "nm").unwrap(),
+            qb::convert_spectral(1.0, "um".into(), "THz".into()).unwrap(),
+            299.792_458
+        ) < 1e-15
+    );
+    assert!(
+        rel(
+            qb::convert_spectral(1.0, "eV".into(), "nm".into()).unwrap(),
             1239.841_984_332_002_6
         ) < 1e-15
     );
-    assert_eq!(qb::spectral_unit_kind("meV").unwrap(), "photonEnergy");
+    assert_eq!(
+        qb::spectral_unit_kind("meV".into()).unwrap(),
+        "photonEnergy"
+    );
 }
 
 #[wasm_bindgen_test]
 fn temperature_conversion_definitions() {
-    assert_eq!(qb::convert_temperature(0.0, "degC", "K").unwrap(), 273.15);
-    assert!(rel(qb::convert_temperature(212.0, "degF", "K").unwrap(), 373.15) < 1e-15);
     assert_eq!(
-        qb::convert_temperature_difference(9.0, "degF", "K").unwrap(),
+        qb::convert_temperature(0.0, "degC".into(), "K".into()).unwrap(),
+        273.15
+    );
+    assert!(
+        rel(
+            qb::convert_temperature(212.0, "degF".into(), "K".into()).unwrap(),
+            373.15
+        ) < 1e-15
+    );
+    assert_eq!(
+        qb::convert_temperature_difference(9.0, "degF".into(), "K".into()).unwrap(),
         5.0
     );
 }
@@ -62,33 +84,37 @@ fn temperature_conversion_definitions() {
 #[wasm_bindgen_test]
 fn errors_are_quantaband_errors_with_codes() {
     assert_eq!(
-        code_of(qb::convert_spectral(1.0, "furlong", "nm").unwrap_err()),
+        code_of(qb::convert_spectral(1.0, "furlong".into(), "nm".into()).unwrap_err()),
         "UNKNOWN_UNIT"
     );
     assert_eq!(
-        code_of(qb::convert_spectral(0.0, "nm", "um").unwrap_err()),
+        code_of(qb::convert_spectral(0.0, "nm".into(), "um".into()).unwrap_err()),
         "NON_POSITIVE_SPECTRAL"
     );
     assert_eq!(
-        code_of(qb::convert_spectral(f64::NAN, "nm", "um").unwrap_err()),
+        code_of(qb::convert_spectral(f64::NAN, "nm".into(), "um".into()).unwrap_err()),
         "NON_FINITE"
     );
     assert_eq!(
-        code_of(qb::convert_temperature(-300.0, "degC", "K").unwrap_err()),
+        code_of(qb::convert_temperature(-300.0, "degC".into(), "K".into()).unwrap_err()),
         "NON_POSITIVE_TEMPERATURE"
     );
     // still working afterwards
-    assert_eq!(qb::convert_spectral(10.0, "um", "cm-1").unwrap(), 1000.0);
+    assert_eq!(
+        qb::convert_spectral(10.0, "um".into(), "cm-1".into()).unwrap(),
+        1000.0
+    );
 }
 
 #[wasm_bindgen_test]
 fn bulk_errors_carry_the_index() {
-    let err = qb::convert_spectral_array(&[1.0, 2.0, -1.0, 0.0], "um", "nm").unwrap_err();
+    let err =
+        qb::convert_spectral_array(&[1.0, 2.0, -1.0, 0.0], "um".into(), "nm".into()).unwrap_err();
     assert_eq!(index_of(&err), Some(2.0));
     let msg = String::from(err.dyn_ref::<js_sys::Error>().unwrap().message());
     assert!(msg.contains("index 2"), "{msg}");
     assert_eq!(code_of(err), "NON_POSITIVE_SPECTRAL");
-    let ok = qb::convert_spectral_array(&[1.0, 2.0, 4.0], "um", "cm-1").unwrap();
+    let ok = qb::convert_spectral_array(&[1.0, 2.0, 4.0], "um".into(), "cm-1".into()).unwrap();
     assert_eq!(ok, vec![10_000.0, 5_000.0, 2_500.0]);
 }
 
@@ -233,4 +259,61 @@ fn thermometry_measurement_and_frame() {
     assert!(temps.get_index(2).is_nan());
     let not_frame = qb::convert_frame(curve, js_sys::Array::new().into(), JsValue::UNDEFINED);
     assert_eq!(code_of(not_frame.unwrap_err()), "UNSUPPORTED");
+}
+
+/// The JavaScript message templates (src/wasm/error.js) reproduce the core's `Display` text for
+/// every variant (numbers chosen so that Rust's and JavaScript's number formatting agree).
+#[wasm_bindgen_test]
+fn js_messages_match_the_core_display() {
+    use quantaband::Error;
+    let all = [
+        Error::NonFinite {
+            arg: "a",
+            value: 2.5,
+        },
+        Error::NonPositiveTemperature {
+            arg: "t",
+            value: -3.0,
+        },
+        Error::NonPositiveSpectral {
+            arg: "x",
+            value: 0.0,
+        },
+        Error::NonPositive {
+            arg: "s",
+            value: -0.5,
+        },
+        Error::OutOfRange {
+            arg: "e",
+            value: 1.5,
+            range: "(0, 1]",
+        },
+        Error::InvalidBand {
+            lower: 14.0,
+            upper: 8.0,
+        },
+        Error::NoSolution { what: "w" },
+        Error::NoPhysicalSolution {
+            signal: 1.25,
+            background: 2.0,
+        },
+        Error::DivergentOccupation { x: -1.0 },
+        Error::LengthMismatch {
+            expected: 3,
+            got: 2,
+        },
+        Error::TooFewPoints { needed: 3, got: 1 },
+        Error::NotIncreasing { arg: "w", index: 4 },
+        Error::DegenerateFit { reason: "r" },
+        Error::NotConverged { what: "n" },
+        Error::UnknownUnit { expected: "u" },
+        Error::Unsupported { what: "x" },
+    ];
+    assert_eq!(all.len(), Error::ALL_CODES.len());
+    for e in all {
+        let js = JsValue::from(e);
+        let msg = String::from(js.dyn_ref::<js_sys::Error>().unwrap().message());
+        assert_eq!(msg, e.to_string(), "{e:?}");
+        assert_eq!(code_of(js), e.code());
+    }
 }

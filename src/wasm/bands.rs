@@ -5,7 +5,7 @@ use wasm_bindgen::prelude::*;
 
 use super::error::map_indexed;
 #[cfg(feature = "wasm-full")]
-use super::opts::{choose, Opts};
+use super::opts::{choose, js_string, Opts};
 use super::radiometry::parse_spectrum;
 use super::radiometry::Spec;
 use crate::band;
@@ -192,10 +192,11 @@ fn parse_kernel(name: &str) -> Result<PlanckKernel, JsValue> {
 #[cfg(feature = "wasm-full")]
 #[wasm_bindgen(js_name = planckIntegral)]
 pub fn planck_integral(
-    #[wasm_bindgen(unchecked_param_type = "PlanckKernel")] kernel: &str,
+    #[wasm_bindgen(unchecked_param_type = "PlanckKernel")] kernel: JsValue,
     #[wasm_bindgen(js_name = xLower)] x_lower: f64,
     #[wasm_bindgen(js_name = xUpper)] x_upper: f64,
 ) -> Result<f64, JsValue> {
+    let kernel = &js_string(&kernel, "kernel", "UNSUPPORTED")?;
     Ok(band::planck_integral(
         parse_kernel(kernel)?,
         x_lower,
@@ -209,9 +210,10 @@ pub fn planck_integral(
 #[cfg(feature = "wasm-full")]
 #[wasm_bindgen(js_name = planckIntegralUpper)]
 pub fn planck_integral_upper(
-    #[wasm_bindgen(unchecked_param_type = "PlanckKernel")] kernel: &str,
+    #[wasm_bindgen(unchecked_param_type = "PlanckKernel")] kernel: JsValue,
     x: f64,
 ) -> Result<f64, JsValue> {
+    let kernel = &js_string(&kernel, "kernel", "UNSUPPORTED")?;
     Ok(band::planck_integral_upper(parse_kernel(kernel)?, x)?)
 }
 
@@ -221,9 +223,10 @@ pub fn planck_integral_upper(
 #[cfg(feature = "wasm-full")]
 #[wasm_bindgen(js_name = planckIntegralLower)]
 pub fn planck_integral_lower(
-    #[wasm_bindgen(unchecked_param_type = "PlanckKernel")] kernel: &str,
+    #[wasm_bindgen(unchecked_param_type = "PlanckKernel")] kernel: JsValue,
     x: f64,
 ) -> Result<f64, JsValue> {
+    let kernel = &js_string(&kernel, "kernel", "UNSUPPORTED")?;
     Ok(band::planck_integral_lower(parse_kernel(kernel)?, x)?)
 }
 
@@ -233,8 +236,9 @@ pub fn planck_integral_lower(
 #[cfg(feature = "wasm-full")]
 #[wasm_bindgen(js_name = planckIntegralTotal)]
 pub fn planck_integral_total(
-    #[wasm_bindgen(unchecked_param_type = "PlanckKernel")] kernel: &str,
+    #[wasm_bindgen(unchecked_param_type = "PlanckKernel")] kernel: JsValue,
 ) -> Result<f64, JsValue> {
+    let kernel = &js_string(&kernel, "kernel", "UNSUPPORTED")?;
     Ok(parse_kernel(kernel)?.total())
 }
 

@@ -13,6 +13,7 @@ use wasm_bindgen::JsCast;
 
 use super::error::{at, fail, map_indexed, with_room};
 use super::opts::{choose, Opts};
+use super::opts::{js_string, opt_js_string};
 use super::radiometry::parse_c2;
 use crate::constants::C2Convention;
 use crate::error::{finite, positive, temperature};
@@ -937,8 +938,9 @@ pub fn response_value_at(
 pub fn sakuma_hattori_fit(
     #[wasm_bindgen(js_name = temperaturesK)] temperatures_k: &[f64],
     signals: &[f64],
-    #[wasm_bindgen(unchecked_optional_param_type = "C2Convention")] c2: Option<String>,
+    #[wasm_bindgen(unchecked_optional_param_type = "C2Convention")] c2: JsValue,
 ) -> Result<JsValue, JsValue> {
+    let c2 = opt_js_string(&c2, "c2", "UNSUPPORTED")?;
     let c2 = c2_arg(c2)?;
     let mut res = with_room(temperatures_k.len())?;
     res.resize(temperatures_k.len(), 0.0);
@@ -957,8 +959,9 @@ pub fn sakuma_hattori_fit_model(
     #[wasm_bindgen(unchecked_param_type = "InstrumentModel")] model: JsValue,
     #[wasm_bindgen(js_name = tMinK)] t_min_k: f64,
     #[wasm_bindgen(js_name = tMaxK)] t_max_k: f64,
-    #[wasm_bindgen(unchecked_optional_param_type = "C2Convention")] c2: Option<String>,
+    #[wasm_bindgen(unchecked_optional_param_type = "C2Convention")] c2: JsValue,
 ) -> Result<JsValue, JsValue> {
+    let c2 = opt_js_string(&c2, "c2", "UNSUPPORTED")?;
     let c2 = c2_arg(c2)?;
     let m = parse_model(&model)?;
     let r = m.run(|sm| SakumaHattori::fit_model(sm, t_min_k, t_max_k, c2))?;
@@ -1015,8 +1018,9 @@ pub fn max_interpolation_error(
 /// @throws {QuantabandError} UNSUPPORTED (unknown fixed point).
 #[wasm_bindgen(js_name = fixedPointTemperature)]
 pub fn fixed_point_temperature(
-    #[wasm_bindgen(js_name = fixedPoint, unchecked_param_type = "FixedPoint")] fixed_point: &str,
+    #[wasm_bindgen(js_name = fixedPoint, unchecked_param_type = "FixedPoint")] fixed_point: JsValue,
 ) -> Result<f64, JsValue> {
+    let fixed_point = &js_string(&fixed_point, "fixed_point", "UNSUPPORTED")?;
     Ok(parse_fixed_point(fixed_point)?.temperature_k())
 }
 
@@ -1030,10 +1034,12 @@ pub fn fixed_point_temperature(
 pub fn temperature_from_ratio(
     ratio: f64,
     wavelength: f64,
-    #[wasm_bindgen(unchecked_param_type = "WavelengthUnit")] unit: &str,
+    #[wasm_bindgen(unchecked_param_type = "WavelengthUnit")] unit: JsValue,
     #[wasm_bindgen(js_name = referenceTemperatureK)] reference_temperature_k: f64,
-    #[wasm_bindgen(unchecked_optional_param_type = "C2Convention")] c2: Option<String>,
+    #[wasm_bindgen(unchecked_optional_param_type = "C2Convention")] c2: JsValue,
 ) -> Result<f64, JsValue> {
+    let unit = &js_string(&unit, "unit", "UNKNOWN_UNIT")?;
+    let c2 = opt_js_string(&c2, "c2", "UNSUPPORTED")?;
     let u = wavelength_unit(unit)?;
     let c2 = c2_arg(c2)?;
     let wl = to_m("wavelength", wavelength, u)?;
@@ -1054,10 +1060,12 @@ pub fn temperature_from_ratio(
 pub fn radiance_ratio(
     #[wasm_bindgen(js_name = temperatureK)] temperature_k: f64,
     wavelength: f64,
-    #[wasm_bindgen(unchecked_param_type = "WavelengthUnit")] unit: &str,
+    #[wasm_bindgen(unchecked_param_type = "WavelengthUnit")] unit: JsValue,
     #[wasm_bindgen(js_name = referenceTemperatureK)] reference_temperature_k: f64,
-    #[wasm_bindgen(unchecked_optional_param_type = "C2Convention")] c2: Option<String>,
+    #[wasm_bindgen(unchecked_optional_param_type = "C2Convention")] c2: JsValue,
 ) -> Result<f64, JsValue> {
+    let unit = &js_string(&unit, "unit", "UNKNOWN_UNIT")?;
+    let c2 = opt_js_string(&c2, "c2", "UNSUPPORTED")?;
     let u = wavelength_unit(unit)?;
     let c2 = c2_arg(c2)?;
     let wl = to_m("wavelength", wavelength, u)?;
@@ -1077,9 +1085,11 @@ pub fn radiance_ratio(
 pub fn its90_temperature(
     ratio: f64,
     wavelength: f64,
-    #[wasm_bindgen(unchecked_param_type = "WavelengthUnit")] unit: &str,
-    #[wasm_bindgen(js_name = fixedPoint, unchecked_param_type = "FixedPoint")] fixed_point: &str,
+    #[wasm_bindgen(unchecked_param_type = "WavelengthUnit")] unit: JsValue,
+    #[wasm_bindgen(js_name = fixedPoint, unchecked_param_type = "FixedPoint")] fixed_point: JsValue,
 ) -> Result<JsValue, JsValue> {
+    let unit = &js_string(&unit, "unit", "UNKNOWN_UNIT")?;
+    let fixed_point = &js_string(&fixed_point, "fixed_point", "UNSUPPORTED")?;
     let u = wavelength_unit(unit)?;
     let fp = parse_fixed_point(fixed_point)?;
     let wl = to_m("wavelength", wavelength, u)?;
@@ -1122,11 +1132,13 @@ pub fn ratio_temperature(
 pub fn two_colour_temperature(
     wavelength1: f64,
     wavelength2: f64,
-    #[wasm_bindgen(unchecked_param_type = "WavelengthUnit")] unit: &str,
+    #[wasm_bindgen(unchecked_param_type = "WavelengthUnit")] unit: JsValue,
     ratio: f64,
     #[wasm_bindgen(js_name = emissivityRatio)] emissivity_ratio: f64,
-    #[wasm_bindgen(unchecked_optional_param_type = "C2Convention")] c2: Option<String>,
+    #[wasm_bindgen(unchecked_optional_param_type = "C2Convention")] c2: JsValue,
 ) -> Result<JsValue, JsValue> {
+    let unit = &js_string(&unit, "unit", "UNKNOWN_UNIT")?;
+    let c2 = opt_js_string(&c2, "c2", "UNSUPPORTED")?;
     let u = wavelength_unit(unit)?;
     let c2 = c2_arg(c2)?;
     let l1 = to_m("wavelength1", wavelength1, u)?;

@@ -73,3 +73,13 @@ test('results too large for WebAssembly memory are an error, not an abort', () =
   // a sparse JS array claiming 2^31 elements
   throwsCode(() => qb.modelSignal({ kind: 'response', wavelengths: new Array(2 ** 31), values: [1, 1], unit: 'um' }, 300), 'OUT_OF_RANGE');
 });
+
+test('arguments of the wrong JavaScript type throw, they never trap the module', () => {
+  throwsCode(() => qb.convertSpectral(1, { unit: 'nm' }, 'um'), 'UNKNOWN_UNIT');
+  throwsCode(() => qb.convertTemperature(300, 'K', 42), 'UNKNOWN_UNIT');
+  throwsCode(() => qb.its90Temperature(10, 650, ['nm'], 'gold'), 'UNKNOWN_UNIT');
+  throwsCode(() => qb.its90Temperature(10, 650, 'nm', {}), 'UNSUPPORTED');
+  throwsCode(() => qb.sakumaHattoriFit(new Float64Array([300, 400, 500]), new Float64Array([1, 2, 3]), 7), 'UNSUPPORTED');
+  throwsCode(() => qb.spectralDensity('um', 10, 300), 'UNSUPPORTED');
+  throwsCode(() => qb.objectTemperature({ kind: 'sakumaHattori', aM: 1e-5, bMK: 1.8e-4, c: 1e6 }, 1e4, 'blackbody'), 'UNSUPPORTED');
+});
