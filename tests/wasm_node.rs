@@ -54,7 +54,7 @@ fn spectral_conversion_definitions() {
     assert!(
         rel(
             qb::convert_spectral(1.0, "eV".into(), "nm".into()).unwrap(),
-            1239.841_984_332_002_6
+            1_239.841_984_332_002_6
         ) < 1e-15
     );
     assert_eq!(
