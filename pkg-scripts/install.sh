@@ -9,7 +9,8 @@
 #     crate's pinned wasm-bindgen version exactly (~4 min to compile on 2 cores the first time)
 #   - the dev npm packages of package-lock.json (typescript, playwright-core, binaryen's wasm-opt)
 #     via `npm ci`, skipped when node_modules already matches the lockfile
-#   - Debian's chromium and chromium-driver (headless browser tests), and Node.js/npm if absent
+#   - Debian's chromium, chromium-driver and fonts-liberation (headless browser tests), and
+#     Node.js/npm if absent
 # Works as root with no standard input (CI=true). Set QB_SKIP_APT=1 to skip the Debian packages.
 set -euo pipefail
 cd "$(dirname "${BASH_SOURCE[0]}")/.."
@@ -88,11 +89,20 @@ else
   printf '%s\n' "$lock_sum" > "$stamp"
 fi
 
-# 5. Headless Chromium and its WebDriver from Debian (never a browser download).
-if [ -x /usr/bin/chromium ] && [ -x /usr/bin/chromedriver ]; then
-  say "chromium + chromedriver: present"
+# 5. Headless Chromium and its WebDriver from Debian (never a browser download), with the fonts
+#    the page tests lay text out with (fonts-liberation is what chromium recommends; the rest of
+#    its recommendations are desktop services a headless run does not use).
+need=()
+[ -x /usr/bin/chromium ] || need+=(chromium)
+[ -x /usr/bin/chromedriver ] || need+=(chromium-driver)
+if command -v dpkg-query >/dev/null 2>&1 \
+   && [ "$(dpkg-query -W -f='${Status}' fonts-liberation 2>/dev/null)" != "install ok installed" ]; then
+  need+=(fonts-liberation)
+fi
+if [ ${#need[@]} -eq 0 ]; then
+  say "chromium + chromedriver + fonts: present"
 else
-  apt_install chromium chromium-driver
+  apt_install "${need[@]}"
 fi
 [ -x /usr/bin/chromium ] && [ -x /usr/bin/chromedriver ] || die "chromium/chromedriver missing after install"
 

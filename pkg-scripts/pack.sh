@@ -6,7 +6,10 @@ set -euo pipefail
 cd "$(dirname "${BASH_SOURCE[0]}")/.."
 ROOT="$(pwd)"
 [ -f pkg/package.json ] || { echo "[pack] pkg/package.json missing: run bash pkg-scripts/build.sh first" >&2; exit 1; }
-mkdir -p dist
+mkdir -p dist target
+# Not while build.sh replaces pkg/ (same lock).
+exec 9>"${CARGO_TARGET_DIR:-$ROOT/target}/.pkg-build.lock"
+flock 9
 json="$(npm pack ./pkg --pack-destination dist --json --loglevel=error </dev/null)"
 file="$(node -e 'const r = JSON.parse(process.argv[1]); process.stdout.write(r[0].filename)' "$json")"
 node -e '

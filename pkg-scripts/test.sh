@@ -5,9 +5,10 @@
 #   bash pkg-scripts/test.sh [--only=REGEX] [--skip=REGEX] [--list]
 #
 # --only / --skip select steps by name (extended regex), for local iteration; CI runs them all.
-# Each step's full output is kept in target/test-logs/NN-STEP.log. The closing lines give a table
-# of steps with timings and one line "tests: N passed, M failed", the sum of the counts reported
-# by cargo test, wasm-bindgen-test-runner and node's test runner.
+# Each step's full output is kept in target/test-logs/run-*/NN-STEP.log (the newest run is
+# target/test-logs/latest). The closing lines give a table of steps with timings and one line
+# "tests: N passed, M failed, K skipped", the sums of the counts reported by cargo test,
+# wasm-bindgen-test-runner and node's test runner.
 set -euo pipefail
 cd "$(dirname "${BASH_SOURCE[0]}")/.."
 ROOT="$(pwd)"
@@ -31,9 +32,14 @@ export NO_COLOR=1
 # The browser suites of wasm-bindgen-test and large-array tests in debug builds can be slow.
 export WASM_BINDGEN_TEST_TIMEOUT="${WASM_BINDGEN_TEST_TIMEOUT:-300}"
 
-LOGDIR="$ROOT/target/test-logs"
+# A log folder per run (teammates sharing a work tree may run tests at the same time);
+# target/test-logs/latest points at the newest.
+LOGDIR="$ROOT/target/test-logs/run-$(date +%Y%m%d-%H%M%S)-$$"
 mkdir -p "$LOGDIR"
-rm -f "$LOGDIR"/*.log
+ln -sfn "$LOGDIR" "$ROOT/target/test-logs/latest"
+# Keep the ten newest runs.
+find "$ROOT/target/test-logs" -maxdepth 1 -name 'run-*' -type d -printf '%T@ %p\n' | sort -rn | tail -n +11 \
+  | cut -d' ' -f2- | while read -r old; do rm -rf -- "$old"; done
 
 now() { date +%s.%N; }
 secs() { awk -v a="$1" -v b="$2" 'BEGIN { printf "%.1f", b - a }'; }
@@ -42,10 +48,12 @@ T0="$(now)"
 N=0
 PASSED=0
 FAILED=0
+SKIPPED=0
 SUMMARY=()
 
 # Sums the test counts a step printed: cargo test / wasm-bindgen-test-runner
-# ("test result: ok. 12 passed; 0 failed; ...") and node --test ("ℹ pass 12" / "# pass 12").
+# ("test result: ok. 12 passed; 0 failed; 1 ignored; ...") and node --test ("ℹ pass 12",
+# "ℹ skipped 1", or "# pass 12" in TAP). Prints "PASSED FAILED SKIPPED".
 count_tests() {
   local log="$1"
   awk '
@@ -53,11 +61,13 @@ count_tests() {
       for (i = 1; i <= NF; i++) {
         if ($(i) ~ /^passed;?$/) p += $(i - 1)
         if ($(i) ~ /^failed;?$/) f += $(i - 1)
+        if ($(i) ~ /^ignored;?$/) s += $(i - 1)
       }
     }
     /^(ℹ|#) pass [0-9]+$/ { p += $3 }
     /^(ℹ|#) (fail|cancelled) [0-9]+$/ { f += $3 }
-    END { printf "%d %d\n", p, f }
+    /^(ℹ|#) (skipped|todo) [0-9]+$/ { s += $3 }
+    END { printf "%d %d %d\n", p, f, s }
   ' "$log"
 }
 
@@ -68,7 +78,7 @@ print_summary() {
   printf '%s\n' "${SUMMARY[@]}"
   echo "total time: $(secs "$T0" "$(now)") s; logs: $LOGDIR"
   echo "steps: $status"
-  echo "tests: $PASSED passed, $FAILED failed"
+  echo "tests: $PASSED passed, $FAILED failed, $SKIPPED skipped"
 }
 
 # step NAME COMMAND...   runs COMMAND (through bash -c when it is a single string).
@@ -92,13 +102,16 @@ step() {
   fi
   rc="${PIPESTATUS[0]}"
   set -e
-  local dt p f
+  local dt p f sk
   dt="$(secs "$t" "$(now)")"
-  read -r p f < <(count_tests "$log")
+  read -r p f sk < <(count_tests "$log")
   PASSED=$((PASSED + p))
   FAILED=$((FAILED + f))
+  SKIPPED=$((SKIPPED + sk))
   local counts=""
-  if [ "$p" -gt 0 ] || [ "$f" -gt 0 ]; then counts="  ($p passed, $f failed)"; fi
+  if [ "$p" -gt 0 ] || [ "$f" -gt 0 ]; then
+    if [ "$sk" -gt 0 ]; then counts="  ($p passed, $f failed, $sk skipped)"; else counts="  ($p passed, $f failed)"; fi
+  fi
   if [ "$rc" -ne 0 ]; then
     SUMMARY+=("$(printf 'FAIL  %-22s %7s s%s  exit %d' "$name" "$dt" "$counts" "$rc")")
     [ "$f" -gt 0 ] || FAILED=$((FAILED + 1))
@@ -135,6 +148,9 @@ step clippy-host cargo clippy --all-targets -- -D warnings
 step clippy-no-std env RUSTC_WORKSPACE_WRAPPER="$(command -v clippy-driver)" \
   cargo rustc --lib --crate-type rlib --no-default-features --profile check -- -D warnings
 step clippy-wasm cargo clippy --lib --features wasm --target wasm32-unknown-unknown -- -D warnings
+if grep -q '^wasm-full *=' Cargo.toml; then
+  step clippy-wasm-full cargo clippy --lib --features wasm-full --target wasm32-unknown-unknown -- -D warnings
+fi
 step no-std-thumbv7em cargo rustc --lib --crate-type rlib --no-default-features --target thumbv7em-none-eabihf
 step no-std-wasm32 cargo rustc --lib --crate-type rlib --no-default-features --target wasm32-unknown-unknown
 step cargo-test cargo test
@@ -152,6 +168,19 @@ if [ -f tests/wasm_browser.rs ]; then
     cargo test --target wasm32-unknown-unknown --features wasm --test wasm_browser
 else
   skipped wasm-test-browser "tests/wasm_browser.rs absent"
+fi
+
+# The bindings behind the `wasm-full` feature (outside the default package's size budget) are
+# tested from a full build first; the default build below then replaces pkg/ for the rest.
+if grep -q '^wasm-full *=' Cargo.toml; then
+  step build-full bash pkg-scripts/build.sh --features=wasm-full --no-page
+  if compgen -G 'tests/js/*.test.mjs' >/dev/null; then
+    step js-node-test-full "node --test --test-reporter=spec tests/js/*.test.mjs"
+  fi
+  if [ -f www/build.mjs ] && compgen -G 'tests/page/*.test.mjs' >/dev/null; then
+    step page-test-full "node www/build.mjs --pkg pkg --out target/quantaband-full.html \
+      && QB_PAGE=target/quantaband-full.html node --test --test-reporter=spec tests/page/*.test.mjs"
+  fi
 fi
 
 step build bash pkg-scripts/build.sh

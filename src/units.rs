@@ -136,7 +136,7 @@ impl SpectralKind {
         }
     }
 
-    /// The SI base unit of this kind, as plain ASCII (`"m"`, `"m-1"`, `"Hz"`, `"J"`).
+    /// The SI base unit of this kind (metre, reciprocal metre, hertz, joule).
     pub const fn si_unit(self) -> SpectralUnit {
         match self {
             SpectralKind::Wavelength => SpectralUnit::Metre,

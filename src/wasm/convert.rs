@@ -3,6 +3,8 @@
 use js_sys::{Object, Reflect};
 use wasm_bindgen::prelude::*;
 
+use super::opts::js_string;
+
 use super::error::map_indexed;
 use crate::constants as k;
 use crate::units::{
@@ -84,9 +86,11 @@ export interface Constants {
 #[wasm_bindgen(js_name = convertSpectral)]
 pub fn convert_spectral(
     value: f64,
-    #[wasm_bindgen(unchecked_param_type = "SpectralUnit")] from: &str,
-    #[wasm_bindgen(unchecked_param_type = "SpectralUnit")] to: &str,
+    #[wasm_bindgen(unchecked_param_type = "SpectralUnit")] from: JsValue,
+    #[wasm_bindgen(unchecked_param_type = "SpectralUnit")] to: JsValue,
 ) -> Result<f64, JsValue> {
+    let from = &js_string(&from, "from", "UNKNOWN_UNIT")?;
+    let to = &js_string(&to, "to", "UNKNOWN_UNIT")?;
     let (f, t) = (SpectralUnit::parse(from)?, SpectralUnit::parse(to)?);
     Ok(conv_spectral("value", value, f, t)?)
 }
@@ -98,9 +102,11 @@ pub fn convert_spectral(
 #[wasm_bindgen(js_name = convertSpectralArray)]
 pub fn convert_spectral_array(
     values: &[f64],
-    #[wasm_bindgen(unchecked_param_type = "SpectralUnit")] from: &str,
-    #[wasm_bindgen(unchecked_param_type = "SpectralUnit")] to: &str,
+    #[wasm_bindgen(unchecked_param_type = "SpectralUnit")] from: JsValue,
+    #[wasm_bindgen(unchecked_param_type = "SpectralUnit")] to: JsValue,
 ) -> Result<Vec<f64>, JsValue> {
+    let from = &js_string(&from, "from", "UNKNOWN_UNIT")?;
+    let to = &js_string(&to, "to", "UNKNOWN_UNIT")?;
     let (f, t) = (SpectralUnit::parse(from)?, SpectralUnit::parse(to)?);
     map_indexed(values, |v| conv_spectral("value", v, f, t))
 }
@@ -110,8 +116,9 @@ pub fn convert_spectral_array(
 /// @throws {QuantabandError} `UNKNOWN_UNIT`.
 #[wasm_bindgen(js_name = spectralUnitKind, unchecked_return_type = "SpectralKind")]
 pub fn spectral_unit_kind(
-    #[wasm_bindgen(unchecked_param_type = "SpectralUnit")] unit: &str,
+    #[wasm_bindgen(unchecked_param_type = "SpectralUnit")] unit: JsValue,
 ) -> Result<String, JsValue> {
+    let unit = &js_string(&unit, "unit", "UNKNOWN_UNIT")?;
     Ok(SpectralUnit::parse(unit)?.kind().name().into())
 }
 
@@ -125,9 +132,11 @@ pub fn spectral_unit_kind(
 #[wasm_bindgen(js_name = convertTemperature)]
 pub fn convert_temperature(
     value: f64,
-    #[wasm_bindgen(unchecked_param_type = "TemperatureUnit")] from: &str,
-    #[wasm_bindgen(unchecked_param_type = "TemperatureUnit")] to: &str,
+    #[wasm_bindgen(unchecked_param_type = "TemperatureUnit")] from: JsValue,
+    #[wasm_bindgen(unchecked_param_type = "TemperatureUnit")] to: JsValue,
 ) -> Result<f64, JsValue> {
+    let from = &js_string(&from, "from", "UNKNOWN_UNIT")?;
+    let to = &js_string(&to, "to", "UNKNOWN_UNIT")?;
     let (f, t) = (TemperatureUnit::parse(from)?, TemperatureUnit::parse(to)?);
     Ok(conv_temperature("temperature", value, f, t)?)
 }
@@ -138,9 +147,11 @@ pub fn convert_temperature(
 #[wasm_bindgen(js_name = convertTemperatureArray)]
 pub fn convert_temperature_array(
     values: &[f64],
-    #[wasm_bindgen(unchecked_param_type = "TemperatureUnit")] from: &str,
-    #[wasm_bindgen(unchecked_param_type = "TemperatureUnit")] to: &str,
+    #[wasm_bindgen(unchecked_param_type = "TemperatureUnit")] from: JsValue,
+    #[wasm_bindgen(unchecked_param_type = "TemperatureUnit")] to: JsValue,
 ) -> Result<Vec<f64>, JsValue> {
+    let from = &js_string(&from, "from", "UNKNOWN_UNIT")?;
+    let to = &js_string(&to, "to", "UNKNOWN_UNIT")?;
     let (f, t) = (TemperatureUnit::parse(from)?, TemperatureUnit::parse(to)?);
     map_indexed(values, |v| conv_temperature("temperature", v, f, t))
 }
@@ -152,9 +163,11 @@ pub fn convert_temperature_array(
 #[wasm_bindgen(js_name = convertTemperatureDifference)]
 pub fn convert_temperature_difference(
     value: f64,
-    #[wasm_bindgen(unchecked_param_type = "TemperatureUnit")] from: &str,
-    #[wasm_bindgen(unchecked_param_type = "TemperatureUnit")] to: &str,
+    #[wasm_bindgen(unchecked_param_type = "TemperatureUnit")] from: JsValue,
+    #[wasm_bindgen(unchecked_param_type = "TemperatureUnit")] to: JsValue,
 ) -> Result<f64, JsValue> {
+    let from = &js_string(&from, "from", "UNKNOWN_UNIT")?;
+    let to = &js_string(&to, "to", "UNKNOWN_UNIT")?;
     let (f, t) = (TemperatureUnit::parse(from)?, TemperatureUnit::parse(to)?);
     Ok(conv_difference("difference", value, f, t)?)
 }

@@ -15,10 +15,12 @@ extern "C" {
     fn quantaband_error_class();
     #[wasm_bindgen(reexport = "ERROR_CODES", skip_typescript, js_name = ERROR_CODES)]
     fn error_codes_array();
-    /// Builds the error; each U+0001 in `template` is replaced by the next element of `numbers`
-    /// formatted by JavaScript's `String(number)`.
-    #[wasm_bindgen(js_name = qbMakeError)]
-    fn make_error(code: &str, template: &str, numbers: &[f64], index: Option<u32>) -> JsValue;
+    /// Builds the error of a core `Error` from its fields (message template in error.js).
+    #[wasm_bindgen(js_name = qbCoreError)]
+    fn core_error(code: &str, s0: &str, s1: &str, numbers: &[f64], index: Option<u32>) -> JsValue;
+    /// Builds an error found by the binding layer, with a ready message.
+    #[wasm_bindgen(js_name = qbBindingError)]
+    fn binding_error(code: &str, message: &str) -> JsValue;
 }
 
 #[wasm_bindgen(typescript_custom_section)]
@@ -68,94 +70,67 @@ export class QuantabandError extends Error {
 }
 "#;
 
-/// Placeholder for a number in a message template (filled in by JavaScript).
-const NUM: char = '\u{1}';
-
-/// The core's `Display` text of `e`, with every floating-point value replaced by [`NUM`] and
-/// collected in order. JavaScript formats the numbers, so the module does not carry Rust's
-/// float formatter (about 20 KB of wasm); the wording is the core's (the host test below
-/// checks it against `Display` for every variant).
-fn describe(e: &Error) -> (String, Vec<f64>) {
-    let n = NUM;
+/// The text fields and the numbers of `e`, in declaration order (the JavaScript templates in
+/// error.js put them into the core's `Display` wording).
+fn fields(e: &Error) -> (&'static str, &'static str, [f64; 2]) {
     match *e {
-        Error::NonFinite { arg, value } => {
-            (format!("{arg} must be a finite number (got {n})"), vec![value])
+        Error::NonFinite { arg, value }
+        | Error::NonPositiveTemperature { arg, value }
+        | Error::NonPositiveSpectral { arg, value }
+        | Error::NonPositive { arg, value } => (arg, "", [value, 0.0]),
+        Error::OutOfRange { arg, value, range } => (arg, range, [value, 0.0]),
+        Error::InvalidBand { lower, upper } => ("", "", [lower, upper]),
+        Error::NoSolution { what } | Error::NotConverged { what } | Error::Unsupported { what } => {
+            (what, "", [0.0; 2])
         }
-        Error::NonPositiveTemperature { arg, value } => {
-            (format!("{arg} must be > 0 K (got {n} K)"), vec![value])
-        }
-        Error::NonPositiveSpectral { arg, value } => {
-            (format!("{arg} must be > 0 (got {n})"), vec![value])
-        }
-        Error::NonPositive { arg, value } => (format!("{arg} must be > 0 (got {n})"), vec![value]),
-        Error::OutOfRange { arg, value, range } => {
-            (format!("{arg} must lie in {range} (got {n})"), vec![value])
-        }
-        Error::InvalidBand { lower, upper } => (
-            format!("band limits must satisfy lower < upper (got lower = {n}, upper = {n})"),
-            vec![lower, upper],
-        ),
-        Error::NoSolution { what } => (format!("no solution: {what}"), vec![]),
-        Error::NoPhysicalSolution { signal, background } => (
-            format!(
-                "no physical solution: signal {n} must exceed the reflected and path \
-                 contribution {n}"
-            ),
-            vec![signal, background],
-        ),
-        Error::DivergentOccupation { x } => (
-            format!("Bose-Einstein occupancy needs E > mu, i.e. x = (E - mu)/kT > 0 (got x = {n})"),
-            vec![x],
-        ),
-        Error::LengthMismatch { expected, got } => (
-            format!("array lengths must match (expected {expected}, got {got})"),
-            vec![],
-        ),
-        Error::TooFewPoints { needed, got } => (
-            format!("at least {needed} points are needed (got {got})"),
-            vec![],
-        ),
-        Error::NotIncreasing { arg, index } => (
-            format!(
-                "{arg} must be strictly increasing (element {index} is not larger than the one before)"
-            ),
-            vec![],
-        ),
-        Error::DegenerateFit { reason } => (format!("degenerate fit: {reason}"), vec![]),
-        Error::NotConverged { what } => (format!("did not converge: {what}"), vec![]),
-        Error::UnknownUnit { expected } => {
-            (format!("unknown unit; expected a {expected}"), vec![])
-        }
-        Error::Unsupported { what } => (format!("unsupported: {what}"), vec![]),
+        Error::NoPhysicalSolution { signal, background } => ("", "", [signal, background]),
+        Error::DivergentOccupation { x } => ("", "", [x, 0.0]),
+        Error::LengthMismatch { expected, got } => ("", "", [expected as f64, got as f64]),
+        Error::TooFewPoints { needed, got } => ("", "", [needed as f64, got as f64]),
+        Error::NotIncreasing { arg, index } => (arg, "", [index as f64, 0.0]),
+        Error::DegenerateFit { reason } => (reason, "", [0.0; 2]),
+        Error::UnknownUnit { expected } => (expected, "", [0.0; 2]),
     }
+}
+
+fn to_js(e: Error, index: Option<u32>) -> JsValue {
+    let (s0, s1, n) = fields(&e);
+    core_error(e.code(), s0, s1, &n, index)
 }
 
 impl From<Error> for JsValue {
     #[inline(never)]
     fn from(e: Error) -> JsValue {
-        let (template, numbers) = describe(&e);
-        make_error(e.code(), &template, &numbers, None)
+        to_js(e, None)
     }
 }
 
 /// The error `e`, raised by element `index` of a bulk call.
 #[inline(never)]
 pub(crate) fn at(e: Error, index: usize) -> JsValue {
-    let (mut template, numbers) = describe(&e);
-    template.push_str(&format!(" (at index {index})"));
-    make_error(
-        e.code(),
-        &template,
-        &numbers,
-        Some(u32::try_from(index).unwrap_or(u32::MAX)),
-    )
+    to_js(e, Some(u32::try_from(index).unwrap_or(u32::MAX)))
 }
 
 /// An error detected by the binding layer itself (malformed options), with a core code.
-/// `message` must not contain U+0001.
 #[inline(never)]
 pub(crate) fn fail(code: &'static str, message: String) -> JsValue {
-    make_error(code, &message, &[], None)
+    binding_error(code, &message)
+}
+
+/// An empty vector with room for `n` values, or an `OUT_OF_RANGE` error when that much memory
+/// cannot be had (instead of the allocation failure that would abort the wasm instance).
+#[inline(never)]
+pub(crate) fn with_room<T>(n: usize) -> Result<Vec<T>, JsValue> {
+    let mut v = Vec::new();
+    if v.try_reserve_exact(n).is_err() {
+        return Err(Error::OutOfRange {
+            arg: "result length",
+            value: n as f64,
+            range: "what the WebAssembly memory can hold",
+        }
+        .into());
+    }
+    Ok(v)
 }
 
 /// Maps `f` over `xs`, stopping at the first error and reporting its index.
@@ -163,82 +138,9 @@ pub(crate) fn map_indexed<T: Copy>(
     xs: &[T],
     mut f: impl FnMut(T) -> crate::Result<f64>,
 ) -> Result<Vec<f64>, JsValue> {
-    let mut out = Vec::with_capacity(xs.len());
+    let mut out = with_room(xs.len())?;
     for (i, &x) in xs.iter().enumerate() {
         out.push(f(x).map_err(|e| at(e, i))?);
     }
     Ok(out)
-}
-
-#[cfg(all(test, not(target_arch = "wasm32")))]
-mod tests {
-    use super::*;
-
-    /// Rust's `{}` for the f64 values used below equals JavaScript's `String(x)` (integers and
-    /// short decimals), so substituting them must give the core's `Display` text exactly.
-    fn fill(template: &str, numbers: &[f64]) -> String {
-        let mut out = String::new();
-        let mut it = numbers.iter();
-        for ch in template.chars() {
-            if ch == NUM {
-                out.push_str(&it.next().expect("a number per placeholder").to_string());
-            } else {
-                out.push(ch);
-            }
-        }
-        assert!(it.next().is_none(), "unused numbers");
-        out
-    }
-
-    #[test]
-    fn messages_match_the_core_display_for_every_variant() {
-        let all = [
-            Error::NonFinite {
-                arg: "a",
-                value: 2.5,
-            },
-            Error::NonPositiveTemperature {
-                arg: "t",
-                value: -3.0,
-            },
-            Error::NonPositiveSpectral {
-                arg: "x",
-                value: 0.0,
-            },
-            Error::NonPositive {
-                arg: "s",
-                value: -0.5,
-            },
-            Error::OutOfRange {
-                arg: "e",
-                value: 1.5,
-                range: "(0, 1]",
-            },
-            Error::InvalidBand {
-                lower: 14.0,
-                upper: 8.0,
-            },
-            Error::NoSolution { what: "w" },
-            Error::NoPhysicalSolution {
-                signal: 1.25,
-                background: 2.0,
-            },
-            Error::DivergentOccupation { x: -1.0 },
-            Error::LengthMismatch {
-                expected: 3,
-                got: 2,
-            },
-            Error::TooFewPoints { needed: 3, got: 1 },
-            Error::NotIncreasing { arg: "w", index: 4 },
-            Error::DegenerateFit { reason: "r" },
-            Error::NotConverged { what: "n" },
-            Error::UnknownUnit { expected: "u" },
-            Error::Unsupported { what: "x" },
-        ];
-        assert_eq!(all.len(), Error::ALL_CODES.len());
-        for e in all {
-            let (t, n) = describe(&e);
-            assert_eq!(fill(&t, &n), e.to_string(), "{e:?}");
-        }
-    }
 }

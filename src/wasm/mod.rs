@@ -14,14 +14,18 @@
 // The wasm-bindgen macros expand to `unsafe` blocks; the physics modules keep `forbid`.
 #![allow(unsafe_code)]
 
+mod bands;
 mod convert;
 mod error;
 mod opts;
+mod photon_gas;
 mod radiometry;
 mod stats;
 mod thermometry;
 
+pub use bands::*;
 pub use convert::*;
+pub use photon_gas::*;
 pub use radiometry::*;
 pub use stats::*;
 pub use thermometry::*;

@@ -134,6 +134,31 @@ pub(crate) fn choose(what: &str, value: &str, choices: &[&str]) -> Result<usize,
     })
 }
 
+/// A string argument (unit names, choices). Taken as a `JsValue` rather than `&str`: the
+/// generated glue would otherwise try to encode a non-string argument and can trap.
+#[inline(never)]
+pub(crate) fn js_string(v: &JsValue, what: &str, code: &'static str) -> Result<String, JsValue> {
+    v.as_string().ok_or_else(|| {
+        fail(
+            code,
+            format!("{what} must be a string (got a {})", type_name(v)),
+        )
+    })
+}
+
+/// An optional string argument (`undefined` or `null` → `None`).
+pub(crate) fn opt_js_string(
+    v: &JsValue,
+    what: &str,
+    code: &'static str,
+) -> Result<Option<String>, JsValue> {
+    if v.is_undefined() || v.is_null() {
+        Ok(None)
+    } else {
+        js_string(v, what, code).map(Some)
+    }
+}
+
 /// `typeof`-style name of a JS value for messages.
 pub(crate) fn type_name(v: &JsValue) -> &'static str {
     if v.is_null() {

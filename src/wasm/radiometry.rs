@@ -6,7 +6,7 @@
 
 use wasm_bindgen::prelude::*;
 
-use super::error::{at, fail, map_indexed};
+use super::error::{at, fail, map_indexed, with_room};
 use super::opts::{choose, Opts};
 use crate::constants::C2Convention;
 use crate::error as core_error;
@@ -199,7 +199,8 @@ fn density(s: &Spec, x: f64, t: f64, dt: bool) -> crate::Result<f64> {
 
 /// Spectral density of a (grey-body) Planck spectrum at one point `x` (in `options.unit`) and
 /// temperature `temperatureK` (K). Result in SI per the SI unit of `options.variable`, e.g.
-/// W·m⁻²·sr⁻¹·m⁻¹ for energy radiance per wavelength (see `spectrumUnits`).
+/// W·m⁻²·sr⁻¹·m⁻¹ for energy radiance per wavelength (README "Conventions"; `spectrumUnits` in the
+/// wasm-full build).
 ///
 /// Example: `spectralDensity({ unit: "um" }, 10, 300)` → 9.924e6 W·m⁻²·sr⁻¹·m⁻¹.
 ///
@@ -247,6 +248,7 @@ pub fn spectral_density_array(
 /// ∂/∂T of the spectral density at every point of `xs`, one temperature (K).
 ///
 /// @throws {QuantabandError} as `spectralDensityArray`.
+#[cfg(feature = "wasm-full")]
 #[wasm_bindgen(js_name = spectralDensityDTArray)]
 pub fn spectral_density_dt_array(
     #[wasm_bindgen(unchecked_param_type = "SpectrumOptions")] options: JsValue,
@@ -272,14 +274,14 @@ pub fn spectral_density_grid(
     #[wasm_bindgen(js_name = temperaturesK)] temperatures_k: &[f64],
 ) -> Result<Vec<f64>, JsValue> {
     let s = parse_spectrum(&options)?;
-    let mut xs_si = Vec::with_capacity(xs.len());
+    let mut xs_si = with_room(xs.len())?;
     for (j, &x) in xs.iter().enumerate() {
         xs_si.push(s.user_to_si("xs", x).map_err(|e| at(e, j))?);
     }
     for (i, &t) in temperatures_k.iter().enumerate() {
         core_error::temperature("temperaturesK", t).map_err(|e| at(e, i))?;
     }
-    let mut out = Vec::with_capacity(xs.len().saturating_mul(temperatures_k.len()));
+    let mut out = with_room(xs.len().saturating_mul(temperatures_k.len()))?;
     for &t in temperatures_k {
         for (j, &x) in xs_si.iter().enumerate() {
             out.push(s.spectrum.spectral(x, t).map_err(|e| at(e, j))?);
@@ -332,6 +334,7 @@ pub fn spectrum_peak(
 /// Plain-text SI unit labels of the results for these options (for axis labels and tables).
 ///
 /// @throws {QuantabandError} option errors.
+#[cfg(feature = "wasm-full")]
 #[wasm_bindgen(js_name = spectrumUnits, unchecked_return_type = "SpectrumUnits")]
 pub fn spectrum_units(
     #[wasm_bindgen(unchecked_param_type = "SpectrumOptions")] options: JsValue,

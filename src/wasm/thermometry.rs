@@ -7,22 +7,27 @@
 //! replace calibrated instruments and standard procedures, must not be used for medical
 //! temperature screening or process-safety decisions, and defer to local codes and standards.
 
-use js_sys::{Array, Float32Array, Float64Array, Object, Reflect};
+use js_sys::{Array, Float32Array, Float64Array, Object, Reflect, Uint16Array};
 use wasm_bindgen::prelude::*;
 use wasm_bindgen::JsCast;
 
-use super::error::{at, fail, map_indexed};
+use super::error::{at, fail, map_indexed, with_room};
 use super::opts::{choose, Opts};
+use super::opts::{js_string, opt_js_string};
 use super::radiometry::parse_c2;
 use crate::constants::C2Convention;
 use crate::error::{finite, positive, temperature};
 use crate::thermometry::its90::{self, FixedPoint};
+#[cfg(feature = "wasm-full")]
 use crate::thermometry::{
-    max_interpolation_error_k, measured_signal, object_temperature as core_object_temperature,
-    ratio_temperature as core_ratio_temperature, sensitivities as core_sensitivities,
-    two_colour_temperature as core_two_colour, uncertainty::BudgetInput,
-    uncertainty::StandardUncertainties, uncertainty_budget as core_budget, Conditions, FitReport,
-    RatioReading, Response, ResponseSignal, SakumaHattori, SignalModel, SpectralPoint, Window,
+    max_interpolation_error_k, ratio_temperature as core_ratio_temperature,
+    sensitivities as core_sensitivities, two_colour_temperature as core_two_colour, RatioReading,
+};
+use crate::thermometry::{
+    measured_signal as core_measured_signal, object_temperature as core_object_temperature,
+    uncertainty::BudgetInput, uncertainty::StandardUncertainties,
+    uncertainty_budget as core_budget, Conditions, FitReport, FrameConverter, Response,
+    ResponseSignal, SakumaHattori, SignalModel, SpectralPoint, Window,
 };
 use crate::units::{convert_spectral, SpectralKind, SpectralUnit};
 use crate::Error;
@@ -213,6 +218,39 @@ export interface UncertaintyBudget {
   /** Combined standard uncertainty u_c(T), K. */
   combinedStandardUncertaintyK: number;
 }
+
+/** Options of `convertFrame`. */
+export interface FrameOptions {
+  /** signal = gain·raw + offset (signal in the curve's unit). Default 1. Must be > 0. */
+  gain?: number;
+  /** Default 0. */
+  offset?: number;
+  /** Per-frame measurement conditions (scalar emissivity etc.). Default: blackbody in vacuum. */
+  conditions?: MeasurementConditions;
+  /**
+   * Per-pixel emissivity map (same length as the frame), replacing conditions.emissivity.
+   * Pixels with ε outside (0, 1] become NaN.
+   */
+  emissivity?: Float32Array | Float64Array;
+  /** Element type of the returned temperatures. Default "float32". */
+  output?: "float32" | "float64";
+}
+
+/** A converted frame: temperatures in K (NaN for invalid pixels) and counts. */
+export interface FrameResult<T extends Float32Array | Float64Array = Float32Array | Float64Array> {
+  /** Object temperature per pixel, K, row-major like the input; NaN where invalid. */
+  temperaturesK: T;
+  /** Pixels converted. */
+  valid: number;
+  /** Pixels set to NaN (non-finite input, at or below the background, bad emissivity). */
+  invalid: number;
+  /** Smallest valid temperature, K (NaN when none). */
+  minTemperatureK: number;
+  /** Largest valid temperature, K (NaN when none). */
+  maxTemperatureK: number;
+  /** Background signal (reflected, path and window terms) for the scalar emissivity. */
+  backgroundSignal: number;
+}
 "#;
 
 // ---------------------------------------------------------------------------------------------
@@ -303,7 +341,7 @@ fn number_array(what: &str, v: &JsValue) -> Result<Vec<f64>, JsValue> {
     }
     if Array::is_array(v) {
         let a: &Array = v.unchecked_ref();
-        let mut out = Vec::with_capacity(a.length() as usize);
+        let mut out = with_room(a.length() as usize)?;
         for (i, x) in a.iter().enumerate() {
             match x.as_f64() {
                 Some(x) => out.push(x),
@@ -527,6 +565,7 @@ fn fit_object(r: &FitReport, residuals: Option<Vec<f64>>) -> JsValue {
     object(&pairs)
 }
 
+#[cfg(feature = "wasm-full")]
 fn ratio_object(r: &RatioReading) -> JsValue {
     object(&[
         ("temperatureK", num(r.temperature_k)),
@@ -549,6 +588,7 @@ fn c2_arg(c2: Option<String>) -> Result<C2Convention, JsValue> {
     parse_c2("c2", c2)
 }
 
+#[cfg(feature = "wasm-full")]
 /// `nPoints` as a count in [2, 1e7] (OUT_OF_RANGE otherwise, so no call can run for hours).
 fn count(arg: &'static str, n: f64) -> Result<usize, JsValue> {
     finite(arg, n)?;
@@ -585,6 +625,7 @@ pub fn model_signal(
 /// dS/dT of an instrument model at `temperatureK` (signal unit per K).
 ///
 /// @throws {QuantabandError} as `modelSignal`.
+#[cfg(feature = "wasm-full")]
 #[wasm_bindgen(js_name = modelSignalDT)]
 pub fn model_signal_dt(
     #[wasm_bindgen(unchecked_param_type = "InstrumentModel")] model: JsValue,
@@ -608,6 +649,7 @@ pub fn model_temperature(
 /// `modelSignal` for every temperature of `temperaturesK` (K), one call.
 ///
 /// @throws {QuantabandError} as `modelSignal`; `index` is the first bad temperature.
+#[cfg(feature = "wasm-full")]
 #[wasm_bindgen(js_name = modelSignalArray)]
 pub fn model_signal_array(
     #[wasm_bindgen(unchecked_param_type = "InstrumentModel")] model: JsValue,
@@ -625,6 +667,7 @@ pub fn model_signal_array(
 /// `modelTemperature` for every signal of `signals`, one call.
 ///
 /// @throws {QuantabandError} as `modelTemperature`; `index` is the first bad signal.
+#[cfg(feature = "wasm-full")]
 #[wasm_bindgen(js_name = modelTemperatureArray)]
 pub fn model_temperature_array(
     #[wasm_bindgen(unchecked_param_type = "InstrumentModel")] model: JsValue,
@@ -649,14 +692,14 @@ pub fn model_temperature_array(
 /// @throws {QuantabandError} NON_FINITE, NON_POSITIVE_TEMPERATURE, OUT_OF_RANGE (ε, τ, window),
 /// UNSUPPORTED (unknown field), model errors.
 #[wasm_bindgen(js_name = measuredSignal)]
-pub fn measured_signal_js(
+pub fn measured_signal(
     #[wasm_bindgen(unchecked_param_type = "InstrumentModel")] model: JsValue,
     #[wasm_bindgen(js_name = objectTemperatureK)] object_temperature_k: f64,
     #[wasm_bindgen(unchecked_optional_param_type = "MeasurementConditions")] conditions: JsValue,
 ) -> Result<f64, JsValue> {
     let m = parse_model(&model)?;
     let c = parse_conditions(&conditions)?;
-    Ok(m.run(|sm| measured_signal(sm, object_temperature_k, &c))?)
+    Ok(m.run(|sm| core_measured_signal(sm, object_temperature_k, &c))?)
 }
 
 /// Object temperature (K) that explains a reading `signal` under `conditions` — the inverse of
@@ -734,6 +777,7 @@ pub fn measured_signal_array(
 /// The measurement equation in affine form for a model: signal = gain·S(T_obj) + background.
 ///
 /// @throws {QuantabandError} as `measuredSignal`.
+#[cfg(feature = "wasm-full")]
 #[wasm_bindgen(js_name = measurementAffine, unchecked_return_type = "AffineForm")]
 pub fn measurement_affine(
     #[wasm_bindgen(unchecked_param_type = "InstrumentModel")] model: JsValue,
@@ -816,6 +860,7 @@ pub fn response_moments(
 /// model's unit.
 ///
 /// @throws {QuantabandError} NON_FINITE, NON_POSITIVE_TEMPERATURE, model errors.
+#[cfg(feature = "wasm-full")]
 #[wasm_bindgen(js_name = signalMoments, unchecked_return_type = "ResponseMoments")]
 pub fn signal_moments(
     #[wasm_bindgen(unchecked_param_type = "ResponseModel")] model: JsValue,
@@ -835,6 +880,7 @@ pub fn signal_moments(
 /// a Wien-law monochromatic thermometer with the same relative sensitivity — in the model's unit.
 ///
 /// @throws {QuantabandError} NON_FINITE, NON_POSITIVE_TEMPERATURE, model errors.
+#[cfg(feature = "wasm-full")]
 #[wasm_bindgen(js_name = limitingEffectiveWavelength)]
 pub fn limiting_effective_wavelength(
     #[wasm_bindgen(unchecked_param_type = "ResponseModel")] model: JsValue,
@@ -850,6 +896,7 @@ pub fn limiting_effective_wavelength(
 /// wavelength of a Wien-law thermometer giving the same signal ratio — in the model's unit.
 ///
 /// @throws {QuantabandError} NON_FINITE, NON_POSITIVE_TEMPERATURE, model errors.
+#[cfg(feature = "wasm-full")]
 #[wasm_bindgen(js_name = effectiveWavelength)]
 pub fn effective_wavelength(
     #[wasm_bindgen(unchecked_param_type = "ResponseModel")] model: JsValue,
@@ -866,6 +913,7 @@ pub fn effective_wavelength(
 /// 0 outside the table.
 ///
 /// @throws {QuantabandError} NON_FINITE, NON_POSITIVE_SPECTRAL, model errors.
+#[cfg(feature = "wasm-full")]
 #[wasm_bindgen(js_name = responseValueAt)]
 pub fn response_value_at(
     #[wasm_bindgen(unchecked_param_type = "ResponseModel")] model: JsValue,
@@ -890,10 +938,12 @@ pub fn response_value_at(
 pub fn sakuma_hattori_fit(
     #[wasm_bindgen(js_name = temperaturesK)] temperatures_k: &[f64],
     signals: &[f64],
-    #[wasm_bindgen(unchecked_optional_param_type = "C2Convention")] c2: Option<String>,
+    #[wasm_bindgen(unchecked_optional_param_type = "C2Convention")] c2: JsValue,
 ) -> Result<JsValue, JsValue> {
+    let c2 = opt_js_string(&c2, "c2", "UNSUPPORTED")?;
     let c2 = c2_arg(c2)?;
-    let mut res = vec![0.0; temperatures_k.len()];
+    let mut res = with_room(temperatures_k.len())?;
+    res.resize(temperatures_k.len(), 0.0);
     let r = SakumaHattori::fit(temperatures_k, signals, c2, Some(&mut res))?;
     Ok(fit_object(&r, Some(res)))
 }
@@ -903,13 +953,15 @@ pub fn sakuma_hattori_fit(
 ///
 /// @throws {QuantabandError} NON_FINITE, NON_POSITIVE_TEMPERATURE, DEGENERATE_FIT (tMinK ≥
 /// tMaxK), NOT_CONVERGED, model errors.
+#[cfg(feature = "wasm-full")]
 #[wasm_bindgen(js_name = sakumaHattoriFitModel, unchecked_return_type = "SakumaHattoriFit")]
 pub fn sakuma_hattori_fit_model(
     #[wasm_bindgen(unchecked_param_type = "InstrumentModel")] model: JsValue,
     #[wasm_bindgen(js_name = tMinK)] t_min_k: f64,
     #[wasm_bindgen(js_name = tMaxK)] t_max_k: f64,
-    #[wasm_bindgen(unchecked_optional_param_type = "C2Convention")] c2: Option<String>,
+    #[wasm_bindgen(unchecked_optional_param_type = "C2Convention")] c2: JsValue,
 ) -> Result<JsValue, JsValue> {
+    let c2 = opt_js_string(&c2, "c2", "UNSUPPORTED")?;
     let c2 = c2_arg(c2)?;
     let m = parse_model(&model)?;
     let r = m.run(|sm| SakumaHattori::fit_model(sm, t_min_k, t_max_k, c2))?;
@@ -936,6 +988,7 @@ pub fn sakuma_hattori_from_response(
 ///
 /// @throws {QuantabandError} NON_FINITE, NON_POSITIVE_TEMPERATURE, TOO_FEW_POINTS,
 /// OUT_OF_RANGE (nPoints not an integer ≤ 1e7), DEGENERATE_FIT, model errors.
+#[cfg(feature = "wasm-full")]
 #[wasm_bindgen(js_name = maxInterpolationError, unchecked_return_type = "InterpolationError")]
 pub fn max_interpolation_error(
     #[wasm_bindgen(unchecked_param_type = "InstrumentModel")] curve: JsValue,
@@ -965,8 +1018,9 @@ pub fn max_interpolation_error(
 /// @throws {QuantabandError} UNSUPPORTED (unknown fixed point).
 #[wasm_bindgen(js_name = fixedPointTemperature)]
 pub fn fixed_point_temperature(
-    #[wasm_bindgen(js_name = fixedPoint, unchecked_param_type = "FixedPoint")] fixed_point: &str,
+    #[wasm_bindgen(js_name = fixedPoint, unchecked_param_type = "FixedPoint")] fixed_point: JsValue,
 ) -> Result<f64, JsValue> {
+    let fixed_point = &js_string(&fixed_point, "fixed_point", "UNSUPPORTED")?;
     Ok(parse_fixed_point(fixed_point)?.temperature_k())
 }
 
@@ -975,14 +1029,17 @@ pub fn fixed_point_temperature(
 ///
 /// @throws {QuantabandError} NON_FINITE, NON_POSITIVE, NON_POSITIVE_SPECTRAL,
 /// NON_POSITIVE_TEMPERATURE, UNKNOWN_UNIT, UNSUPPORTED, NO_SOLUTION.
+#[cfg(feature = "wasm-full")]
 #[wasm_bindgen(js_name = temperatureFromRatio)]
 pub fn temperature_from_ratio(
     ratio: f64,
     wavelength: f64,
-    #[wasm_bindgen(unchecked_param_type = "WavelengthUnit")] unit: &str,
+    #[wasm_bindgen(unchecked_param_type = "WavelengthUnit")] unit: JsValue,
     #[wasm_bindgen(js_name = referenceTemperatureK)] reference_temperature_k: f64,
-    #[wasm_bindgen(unchecked_optional_param_type = "C2Convention")] c2: Option<String>,
+    #[wasm_bindgen(unchecked_optional_param_type = "C2Convention")] c2: JsValue,
 ) -> Result<f64, JsValue> {
+    let unit = &js_string(&unit, "unit", "UNKNOWN_UNIT")?;
+    let c2 = opt_js_string(&c2, "c2", "UNSUPPORTED")?;
     let u = wavelength_unit(unit)?;
     let c2 = c2_arg(c2)?;
     let wl = to_m("wavelength", wavelength, u)?;
@@ -998,14 +1055,17 @@ pub fn temperature_from_ratio(
 ///
 /// @throws {QuantabandError} NON_FINITE, NON_POSITIVE_SPECTRAL, NON_POSITIVE_TEMPERATURE,
 /// UNKNOWN_UNIT, UNSUPPORTED.
+#[cfg(feature = "wasm-full")]
 #[wasm_bindgen(js_name = radianceRatio)]
 pub fn radiance_ratio(
     #[wasm_bindgen(js_name = temperatureK)] temperature_k: f64,
     wavelength: f64,
-    #[wasm_bindgen(unchecked_param_type = "WavelengthUnit")] unit: &str,
+    #[wasm_bindgen(unchecked_param_type = "WavelengthUnit")] unit: JsValue,
     #[wasm_bindgen(js_name = referenceTemperatureK)] reference_temperature_k: f64,
-    #[wasm_bindgen(unchecked_optional_param_type = "C2Convention")] c2: Option<String>,
+    #[wasm_bindgen(unchecked_optional_param_type = "C2Convention")] c2: JsValue,
 ) -> Result<f64, JsValue> {
+    let unit = &js_string(&unit, "unit", "UNKNOWN_UNIT")?;
+    let c2 = opt_js_string(&c2, "c2", "UNSUPPORTED")?;
     let u = wavelength_unit(unit)?;
     let c2 = c2_arg(c2)?;
     let wl = to_m("wavelength", wavelength, u)?;
@@ -1025,9 +1085,11 @@ pub fn radiance_ratio(
 pub fn its90_temperature(
     ratio: f64,
     wavelength: f64,
-    #[wasm_bindgen(unchecked_param_type = "WavelengthUnit")] unit: &str,
-    #[wasm_bindgen(js_name = fixedPoint, unchecked_param_type = "FixedPoint")] fixed_point: &str,
+    #[wasm_bindgen(unchecked_param_type = "WavelengthUnit")] unit: JsValue,
+    #[wasm_bindgen(js_name = fixedPoint, unchecked_param_type = "FixedPoint")] fixed_point: JsValue,
 ) -> Result<JsValue, JsValue> {
+    let unit = &js_string(&unit, "unit", "UNKNOWN_UNIT")?;
+    let fixed_point = &js_string(&fixed_point, "fixed_point", "UNSUPPORTED")?;
     let u = wavelength_unit(unit)?;
     let fp = parse_fixed_point(fixed_point)?;
     let wl = to_m("wavelength", wavelength, u)?;
@@ -1044,6 +1106,7 @@ pub fn its90_temperature(
 ///
 /// @throws {QuantabandError} NON_FINITE, NON_POSITIVE, NON_POSITIVE_TEMPERATURE, UNSUPPORTED
 /// (channel order), NO_SOLUTION, model errors.
+#[cfg(feature = "wasm-full")]
 #[wasm_bindgen(js_name = ratioTemperature, unchecked_return_type = "RatioReading")]
 pub fn ratio_temperature(
     #[wasm_bindgen(unchecked_param_type = "InstrumentModel")] channel1: JsValue,
@@ -1064,15 +1127,18 @@ pub fn ratio_temperature(
 ///
 /// @throws {QuantabandError} NON_FINITE, NON_POSITIVE, NON_POSITIVE_SPECTRAL, UNKNOWN_UNIT,
 /// UNSUPPORTED, NO_SOLUTION.
+#[cfg(feature = "wasm-full")]
 #[wasm_bindgen(js_name = twoColourTemperature, unchecked_return_type = "RatioReading")]
 pub fn two_colour_temperature(
     wavelength1: f64,
     wavelength2: f64,
-    #[wasm_bindgen(unchecked_param_type = "WavelengthUnit")] unit: &str,
+    #[wasm_bindgen(unchecked_param_type = "WavelengthUnit")] unit: JsValue,
     ratio: f64,
     #[wasm_bindgen(js_name = emissivityRatio)] emissivity_ratio: f64,
-    #[wasm_bindgen(unchecked_optional_param_type = "C2Convention")] c2: Option<String>,
+    #[wasm_bindgen(unchecked_optional_param_type = "C2Convention")] c2: JsValue,
 ) -> Result<JsValue, JsValue> {
+    let unit = &js_string(&unit, "unit", "UNKNOWN_UNIT")?;
+    let c2 = opt_js_string(&c2, "c2", "UNSUPPORTED")?;
     let u = wavelength_unit(unit)?;
     let c2 = c2_arg(c2)?;
     let l1 = to_m("wavelength1", wavelength1, u)?;
@@ -1095,6 +1161,7 @@ pub fn two_colour_temperature(
 /// temperature).
 ///
 /// @throws {QuantabandError} as `objectTemperature`.
+#[cfg(feature = "wasm-full")]
 #[wasm_bindgen(js_name = sensitivities, unchecked_return_type = "Sensitivities")]
 pub fn sensitivities(
     #[wasm_bindgen(unchecked_param_type = "InstrumentModel")] model: JsValue,
@@ -1171,5 +1238,121 @@ pub fn uncertainty_budget(
             "combinedStandardUncertaintyK",
             num(b.combined_standard_uncertainty_k),
         ),
+    ]))
+}
+
+// ---------------------------------------------------------------------------------------------
+// Frames
+// ---------------------------------------------------------------------------------------------
+
+/// Reads a frame's pixels into f64 (one copy out of JS memory, widening u16/f32 exactly), so
+/// that only the f64 instantiation of the core's pixel loop is compiled into the module.
+#[inline(never)]
+fn frame_pixels(raw: &JsValue) -> Result<Vec<f64>, JsValue> {
+    if let Some(a) = raw.dyn_ref::<Uint16Array>() {
+        Ok(a.to_vec().into_iter().map(f64::from).collect())
+    } else if let Some(a) = raw.dyn_ref::<Float32Array>() {
+        Ok(a.to_vec().into_iter().map(f64::from).collect())
+    } else if let Some(a) = raw.dyn_ref::<Float64Array>() {
+        Ok(a.to_vec())
+    } else {
+        Err(fail(
+            "UNSUPPORTED",
+            "raw must be a Uint16Array, Float32Array or Float64Array".into(),
+        ))
+    }
+}
+
+/// Converts a whole frame of raw values (camera counts as a Uint16Array, or signals as a
+/// Float32Array/Float64Array; row-major, any shape) to object temperatures through a
+/// Sakuma–Hattori calibration curve and the measurement equation, in one call. signal =
+/// gain·raw + offset. Invalid pixels (non-finite, at or below the background, emissivity outside
+/// (0, 1]) become NaN and are counted; they do not throw.
+///
+/// Caution: a thermal image converted this way is a calculation from the given emissivity and
+/// conditions, not a substitute for a calibrated instrument; never use it for medical or fever
+/// screening.
+///
+/// @throws {QuantabandError} UNSUPPORTED (raw not a Uint16Array/Float32Array/Float64Array,
+/// unknown option), LENGTH_MISMATCH (emissivity map), NON_POSITIVE (gain), NON_FINITE,
+/// OUT_OF_RANGE (conditions), NO_SOLUTION (constants overflow), curve errors.
+#[wasm_bindgen(js_name = convertFrame, unchecked_return_type = "FrameResult")]
+pub fn convert_frame(
+    #[wasm_bindgen(unchecked_param_type = "SakumaHattoriModel")] curve: JsValue,
+    #[wasm_bindgen(unchecked_param_type = "Uint16Array | Float32Array | Float64Array")]
+    raw: JsValue,
+    #[wasm_bindgen(unchecked_optional_param_type = "FrameOptions")] options: JsValue,
+) -> Result<JsValue, JsValue> {
+    let sh = match parse_model(&curve)? {
+        Model::Curve(c) => c,
+        _ => return Err(fail(
+            "UNSUPPORTED",
+            "convertFrame needs a SakumaHattoriModel curve (fit one with sakumaHattoriFitModel)"
+                .into(),
+        )),
+    };
+    let pixels = frame_pixels(&raw)?;
+    let empty = JsValue::from(Object::new());
+    let ov = if options.is_undefined() {
+        &empty
+    } else {
+        &options
+    };
+    let o = Opts::new(
+        ov,
+        "FrameOptions",
+        &["gain", "offset", "conditions", "emissivity", "output"],
+    )?;
+    let gain = o.num("gain")?.unwrap_or(1.0);
+    let offset = o.num("offset")?.unwrap_or(0.0);
+    let conditions = parse_conditions(&o.raw("conditions")?)?;
+    let ev = o.raw("emissivity")?;
+    let eps = if ev.is_undefined() {
+        None
+    } else if let Some(a) = ev.dyn_ref::<Float32Array>() {
+        Some(a.to_vec().into_iter().map(f64::from).collect::<Vec<f64>>())
+    } else if let Some(a) = ev.dyn_ref::<Float64Array>() {
+        Some(a.to_vec())
+    } else {
+        return Err(fail(
+            "UNSUPPORTED",
+            "FrameOptions.emissivity must be a Float32Array or Float64Array".into(),
+        ));
+    };
+    let f64_out = match o.string("output", "UNSUPPORTED")? {
+        None => false,
+        Some(v) => choose("FrameOptions.output", &v, &["float32", "float64"])? == 1,
+    };
+    let conv = FrameConverter::new(&sh, &conditions, gain, offset)?;
+    let mut out = with_room(pixels.len())?;
+    out.resize(pixels.len(), 0.0f64);
+    let sum = match eps.as_deref() {
+        None => conv.convert(&pixels, &mut out)?,
+        Some(e) => conv.convert_with_emissivity(&pixels, e, &mut out)?,
+    };
+    let (temps, lo, hi): (JsValue, f64, f64) = if f64_out {
+        (
+            Float64Array::from(out.as_slice()).into(),
+            sum.min_temperature_k,
+            sum.max_temperature_k,
+        )
+    } else {
+        // Rounding to f32 is monotone, so the extremes of the rounded frame are the rounded
+        // extremes (identical to the core's f32 output path).
+        let mut out32: Vec<f32> = with_room(out.len())?;
+        out32.extend(out.iter().map(|&t| t as f32));
+        (
+            Float32Array::from(out32.as_slice()).into(),
+            f64::from(sum.min_temperature_k as f32),
+            f64::from(sum.max_temperature_k as f32),
+        )
+    };
+    Ok(object(&[
+        ("temperaturesK", temps),
+        ("valid", num(sum.valid as f64)),
+        ("invalid", num(sum.invalid as f64)),
+        ("minTemperatureK", num(lo)),
+        ("maxTemperatureK", num(hi)),
+        ("backgroundSignal", num(conv.background())),
     ]))
 }

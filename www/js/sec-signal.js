@@ -65,7 +65,14 @@ function showModes(mode) {
 
 export const signalSection = {
   id: 'signal',
-  available: () => api.hasThermometry() && api.hasRatio() && api.has('bandIntegral'),
+  available: () => api.hasThermometry() && api.has('bandIntegral'),
+  build() {
+    // The ratio reading needs ratioTemperature, which some builds of the package leave out.
+    if (!api.hasRatio()) {
+      $('sg-mode').querySelector('option[value="ratio"]').remove();
+      for (const f of this.el.querySelectorAll('[data-modes="ratio"]')) f.remove();
+    }
+  },
   wire() {
     showModes($('sg-mode').value);
   },
