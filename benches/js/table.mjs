@@ -181,7 +181,7 @@ for (const [kase, label] of ROWS) {
 const wm = meta.wasm ?? {};
 if (wm.wasm_bytes) {
   lines.push(
-    `| .wasm size raw / gzip -9 | – | ${(wm.wasm_bytes / 1024).toFixed(1)} KiB / ${(wm.wasm_gzip_bytes / 1024).toFixed(1)} KiB | | | | | | | | |`,
+    `| .wasm size raw / gzip -9 | – | ${wm.wasm_bytes} B / ${wm.wasm_gzip_bytes} B (${(wm.wasm_bytes / 1000).toFixed(1)} kB / ${(wm.wasm_gzip_bytes / 1000).toFixed(1)} kB) | | | | | | | | |`,
   );
 }
 const inst = meta.instantiate;
@@ -193,6 +193,7 @@ if (inst && inst.ns_median) {
 
 console.log(lines.join("\n"));
 if (skipped.length) console.log(`\nNot measured in this run: ${skipped.join("; ")}.`);
+if (meta.build && meta.build.warning) console.log(`\nBuild warning: ${meta.build.warning}.`);
 if (meta.wasm && meta.wasm.skipped) console.log(`\nwasm package not measured: ${meta.wasm.skipped}.`);
 
 // Target checklist (goals of the issue; never asserted in tests).
