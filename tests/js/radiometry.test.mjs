@@ -62,6 +62,7 @@ test('every core reference case through the JS API', (t) => {
         bucket = 'spectral';
         break;
       case 'spectral_d_dt':
+        if (!FULL) continue; // wasm-full binding
         got = qb.spectralDensityDT(spec, Number(c.x), Number(c.temperature_k));
         tol = 1e-13;
         bucket = 'spectral';
@@ -152,7 +153,7 @@ test('totals, peaks and grey bodies', () => {
   const sigma = 5.670374419e-8; // CODATA 2018 (NIST table, 10 digits)
   close(qb.spectrumTotal({ unit: 'um', geometry: 'exitance' }, 300), sigma * 300 ** 4, 1e-9, 'σT⁴');
   close(qb.spectrumTotal({ unit: 'um' }, 300), (sigma * 300 ** 4) / Math.PI, 1e-9, 'σT⁴/π');
-  close(qb.spectrumTotalDT({ unit: 'um', geometry: 'exitance' }, 300), 4 * sigma * 300 ** 3, 1e-9, '4σT³');
+  if (FULL) close(qb.spectrumTotalDT({ unit: 'um', geometry: 'exitance' }, 300), 4 * sigma * 300 ** 3, 1e-9, '4σT³');
   close(qb.spectrumTotal({ unit: 'um', geometry: 'exitance', emissivity: 0.5 }, 300), 0.5 * sigma * 300 ** 4, 1e-9, 'εσT⁴');
   close(qb.spectrumTotal({ unit: 'um', geometry: 'exitance', refractiveIndex: 1.5 }, 300), 2.25 * sigma * 300 ** 4, 1e-9, 'n²σT⁴');
   // Wien displacement b = 2.897771955e-3 m·K (CODATA 2018): peak at 5000 K in µm.

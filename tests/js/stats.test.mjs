@@ -17,8 +17,6 @@ const BINDINGS = {
   fermi_dirac_integral: [(j, eta) => qb.fermiDiracIntegral(j, eta), 1e-13],
   bose_einstein_integral: [(s, z) => qb.boseEinsteinIntegral(s, z), 1e-14],
   zeta: [(s) => qb.boseEinsteinIntegral(s, 1), 1e-14],
-  photon_entropy_density: [(t) => qb.photonEntropyDensity(t), 1e-13],
-  photon_pressure: [(t) => qb.photonPressure(t), 1e-13],
   rayleigh_jeans_temperature: [(f, t) => qb.rayleighJeansBrightnessTemperature(f, t), 1e-13],
   quantum_noise_temperature: [(f, t) => qb.quantumNoiseTemperature(f, t), 1e-13],
   // Same quantities as the planck module's cavity functions (bound once, from planck.rs).
@@ -32,6 +30,8 @@ if (FULL) {
     bose_critical_temperature_u: [(n, a) => qb.boseCriticalTemperature(n, a * C.atomicMassU), 1e-13],
     bose_critical_temperature_me: [(n) => qb.boseCriticalTemperature(n, C.electronMass), 1e-13],
     photon_density_of_states: [(e) => qb.photonDensityOfStates(e), 1e-13],
+    photon_entropy_density: [(t) => qb.photonEntropyDensity(t), 1e-13],
+    photon_pressure: [(t) => qb.photonPressure(t), 1e-13],
     spectral_energy_density_energy: [(e, t) => qb.spectralEnergyDensityEnergy(e, t), 1e-13],
   });
 }
@@ -104,10 +104,6 @@ test('stats errors carry their codes and the module recovers', () => {
 });
 
 test('noise temperatures and photon-gas relations', () => {
-  // P = u/3 and s = 4u/(3T) for isotropic blackbody radiation (thermodynamic identities)
-  close(qb.photonPressure(1000), qb.energyDensity(1000) / 3, 1e-13, 'P = u/3');
-  close(qb.photonEntropyDensity(1000), (4 * qb.energyDensity(1000)) / 3000, 1e-13, 's = 4u/3T');
-  throwsCode(() => qb.photonPressure(0), 'NON_POSITIVE_TEMPERATURE');
   const h = 6.62607015e-34;
   const k = 1.380649e-23;
   // P/Δf = k·T_RJ, and with zero point = k·T_n (closed forms, exact constants SI 2019)
@@ -134,4 +130,8 @@ test('wasm-full: inverse F_1/2, Bose critical temperature, bulk MB/FD-integral, 
   throwsCode(() => qb.inverseFermiDiracHalf(0), 'NON_POSITIVE');
   throwsCode(() => qb.boseCriticalTemperature(-1, 1e-26), 'NON_POSITIVE');
   throwsCode(() => qb.physicalTemperatureFromRayleighJeans(1e9, NaN), 'NON_FINITE');
+  // P = u/3 and s = 4u/(3T) for isotropic blackbody radiation (thermodynamic identities)
+  close(qb.photonPressure(1000), qb.energyDensity(1000) / 3, 1e-13, 'P = u/3');
+  close(qb.photonEntropyDensity(1000), (4 * qb.energyDensity(1000)) / 3000, 1e-13, 's = 4u/3T');
+  throwsCode(() => qb.photonPressure(0), 'NON_POSITIVE_TEMPERATURE');
 });
