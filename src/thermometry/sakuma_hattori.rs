@@ -447,7 +447,8 @@ impl SakumaHattori {
         let mut ss = [0.0; N];
         let (u0, u1) = (1.0 / t_max_k, 1.0 / t_min_k);
         for i in 0..N {
-            let c = crate::float::cos(core::f64::consts::PI * i as f64 / (N - 1) as f64);
+            // cos(π·i/(N − 1)), i.e. 2π·i/(2N − 2) in turns.
+            let c = crate::stats::sin_cos_turns(i as f64 / (2 * (N - 1)) as f64).1;
             let u = u0 + (u1 - u0) * (1.0 - c) * 0.5;
             ts[i] = 1.0 / u;
             ss[i] = model.signal(ts[i])?;
