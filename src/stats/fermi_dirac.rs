@@ -277,8 +277,9 @@ fn fd_trapezoid_all(eta: f64) -> [f64; 3] {
             break;
         }
         let mag = float::exp(-decay);
-        let theta = 2.0 * PI * sr / h;
-        let (wr, wi) = (mag * float::cos(theta), mag * float::sin(theta));
+        // θ = 2π·sr/h, taken in turns so that the range reduction is exact.
+        let (sin_t, cos_t) = sin_cos_turns(sr / h);
+        let (wr, wi) = (mag * cos_t, mag * sin_t);
         // q = w/(1 − w)
         let (dr, di) = (1.0 - wr, -wi);
         let dd = dr * dr + di * di;
@@ -299,6 +300,35 @@ fn fd_trapezoid_all(eta: f64) -> [f64; 3] {
         total[1] * FdOrder::Half.inv_gamma_j1(),
         total[2] * FdOrder::ThreeHalves.inv_gamma_j1(),
     ]
+}
+
+/// (sin 2πt, cos 2πt) for finite t (an angle in turns).
+///
+/// t − round(t) and the split into quarter turns are exact in f64 (Sterbenz), so only the
+/// reduced angle x = 2π·r, |r| ≤ 1/8, is rounded; sin x and cos x then come from their Taylor
+/// series in nested (Horner) form through x¹⁷ and x¹⁶, whose first omitted terms are below
+/// 2·10⁻¹⁸ relative for |x| ≤ π/4. This avoids the general-purpose sin/cos with their
+/// large-argument reduction, which the callers here never need.
+pub(crate) fn sin_cos_turns(t: f64) -> (f64, f64) {
+    let f = t - float::round(t);
+    let q = float::round(4.0 * f);
+    let x = 2.0 * PI * (f - 0.25 * q);
+    let x2 = x * x;
+    let (mut s, mut c) = (1.0, 1.0);
+    let mut k = 8.0;
+    while k > 0.5 {
+        s = 1.0 - x2 / ((2.0 * k) * (2.0 * k + 1.0)) * s;
+        c = 1.0 - x2 / ((2.0 * k - 1.0) * (2.0 * k)) * c;
+        k -= 1.0;
+    }
+    s *= x;
+    // q ∈ {−2, −1, 0, 1, 2}: the angle is x + q·π/2.
+    match (q as i32) & 3 {
+        0 => (s, c),
+        1 => (c, -s),
+        2 => (-s, -c),
+        _ => (-c, s),
+    }
 }
 
 /// Principal square root of a + ib for b > 0, computed without cancellation.
@@ -470,7 +500,9 @@ pub fn inverse_fermi_dirac_half(reduced_density: f64) -> Result<f64> {
     } else {
         // Γ(5/2)^{2/3} · y^{2/3}, kept separate so that y near f64::MAX does not overflow.
         const GAMMA_5_2_POW_2_3: f64 = 1.208_993_965_512_352_2; // (3√π/4)^{2/3}
-        let x = GAMMA_5_2_POW_2_3 * float::powf(y, 2.0 / 3.0);
+                                                                // y^{2/3} = exp(⅔·ln y): a starting guess only, and it spares the module the general
+                                                                // power function.
+        let x = GAMMA_5_2_POW_2_3 * float::exp(ln_y * (2.0 / 3.0));
         x * (1.0 - PI * PI / (12.0 * x * x))
     };
     let mut prev_step = f64::INFINITY;
@@ -517,6 +549,22 @@ mod tests {
             let d = fd_asymptotic(order, 37.0);
             assert!((c / d - 1.0).abs() < 1e-15, "{order:?}: {c} vs {d}");
         }
+    }
+
+    #[test]
+    fn sin_cos_turns_matches_std() {
+        // Reference: the platform's sin/cos (std), common practice, no source.
+        let mut t = -3.7;
+        while t < 3.7 {
+            let (s, c) = sin_cos_turns(t);
+            let a = 2.0 * PI * t;
+            assert!((s - a.sin()).abs() < 4e-15, "sin at t = {t}");
+            assert!((c - a.cos()).abs() < 4e-15, "cos at t = {t}");
+            t += 0.0137;
+        }
+        assert_eq!(sin_cos_turns(0.0), (0.0, 1.0));
+        let (s, c) = sin_cos_turns(0.25);
+        assert!((s - 1.0).abs() < 1e-16 && c.abs() < 1e-16);
     }
 
     #[test]

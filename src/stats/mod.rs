@@ -45,6 +45,7 @@ mod photon_gas;
 mod tables;
 
 pub use bose_einstein::{bose_critical_temperature, bose_einstein_integral, BoseOrder};
+pub(crate) use fermi_dirac::sin_cos_turns;
 pub use fermi_dirac::{fermi_dirac_integral, inverse_fermi_dirac_half, FdOrder};
 pub use occupancy::{
     bose_einstein, bose_einstein_energy, fermi_dirac, fermi_dirac_energy, maxwell_boltzmann,

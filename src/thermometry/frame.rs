@@ -275,7 +275,10 @@ impl FrameConverter {
     ) -> Result<Self> {
         crate::error::positive("gain", gain)?;
         finite("offset", offset)?;
-        let (a, b) = conditions.affine(curve)?;
+        // The background terms through the trait object: the same compiled code as for any
+        // other signal model (once per frame, not per pixel).
+        let model: &dyn SignalModel = curve;
+        let (a, b) = conditions.affine(model)?;
         let c = curve.c();
         let alpha = gain / (c * a);
         let beta = (offset - b) / (c * a);
@@ -286,8 +289,8 @@ impl FrameConverter {
             emissivity: 1.0,
             ..*conditions
         };
-        let (k_gain, _) = unit_eps.affine(curve)?; // = τ_w·τ
-        let s_r = curve.signal(conditions.reflected_temperature_k)?;
+        let (k_gain, _) = unit_eps.affine(model)?; // = τ_w·τ
+        let s_r = model.signal(conditions.reflected_temperature_k)?;
         let b0 = b + a * s_r; // b(ε) = b0 − K·ε·S_r, and a = K·ε
         let ck = c * k_gain;
         let ks_r = k_gain * s_r;

@@ -94,6 +94,16 @@ pub fn invert_monotone<M: SignalModel + ?Sized>(
     signal: f64,
     guess_k: f64,
 ) -> Result<f64> {
+    invert_with(&|t| model.signal_and_derivative(t), signal, guess_k)
+}
+
+/// The body of [`invert_monotone`], with the model as a trait object so that it is compiled
+/// once for every model type (it keeps the wasm module small).
+fn invert_with(
+    signal_and_derivative: &dyn Fn(f64) -> Result<(f64, f64)>,
+    signal: f64,
+    guess_k: f64,
+) -> Result<f64> {
     positive("signal", signal)?;
     temperature("guess_k", guess_k)?;
     let target = crate::float::ln(signal);
@@ -102,7 +112,7 @@ pub fn invert_monotone<M: SignalModel + ?Sized>(
     let mut t_hi: Option<f64> = None;
     let mut t = guess_k.clamp(MIN_TEMPERATURE_K, MAX_TEMPERATURE_K);
     for _ in 0..300 {
-        let (s, ds) = model.signal_and_derivative(t)?;
+        let (s, ds) = signal_and_derivative(t)?;
         let mut newton = f64::NAN;
         if s > 0.0 {
             let g = crate::float::ln(s) - target;

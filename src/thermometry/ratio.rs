@@ -196,5 +196,7 @@ pub fn two_colour_temperature(
     } else {
         1e4
     };
-    ratio_temperature(&ch1, &ch2, ratio, emissivity_ratio, guess)
+    // As trait objects: the same instance of the solver as for any other pair of models.
+    let (m1, m2): (&dyn SignalModel, &dyn SignalModel) = (&ch1, &ch2);
+    ratio_temperature(m1, m2, ratio, emissivity_ratio, guess)
 }

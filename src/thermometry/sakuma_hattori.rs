@@ -365,11 +365,11 @@ impl SakumaHattori {
             let (fv, da, db) = shape.ln_shape(p[0], p[1], t);
             Some((p[2] + fv - ln(s), [da, db, 1.0]))
         };
-        let (p1, it1) = levenberg_marquardt([a, b, lnc], n, t_scale, stage1)?;
+        let (p1, it1) = levenberg_marquardt([a, b, lnc], n, t_scale, &stage1)?;
         // Stage 2: residuals in temperature, T_curve(S_i) − T_i, which is what a calibration is
         // judged by: T = (c2/L − B)/A, L = ln(1 + C/S).
         let stage2 = |p: &[f64; 3], i: usize| t_residual(c2v, p, temperatures_k[i], signals[i]);
-        let (p2, it2) = levenberg_marquardt(p1, n, t_scale, stage2)?;
+        let (p2, it2) = levenberg_marquardt(p1, n, t_scale, &stage2)?;
         let (a, b, lnc) = (p2[0], p2[1], p2[2]);
         let iterations = it1 + it2;
         let curve = SakumaHattori::new(a, b, exp(lnc), c2).map_err(|_| Error::DegenerateFit {
@@ -447,7 +447,8 @@ impl SakumaHattori {
         let mut ss = [0.0; N];
         let (u0, u1) = (1.0 / t_max_k, 1.0 / t_min_k);
         for i in 0..N {
-            let c = crate::float::cos(core::f64::consts::PI * i as f64 / (N - 1) as f64);
+            // cos(π·i/(N − 1)), i.e. 2π·i/(2N − 2) in turns.
+            let c = crate::stats::sin_cos_turns(i as f64 / (2 * (N - 1)) as f64).1;
             let u = u0 + (u1 - u0) * (1.0 - c) * 0.5;
             ts[i] = 1.0 / u;
             ss[i] = model.signal(ts[i])?;
@@ -481,7 +482,7 @@ impl SakumaHattori {
                 let sw = crate::float::sqrt(w[i]);
                 Some((r * sw, [g[0] * sw, g[1] * sw, g[2] * sw]))
             };
-            let Ok((np, it)) = levenberg_marquardt(p, N, t_scale, weighted) else {
+            let Ok((np, it)) = levenberg_marquardt(p, N, t_scale, &weighted) else {
                 break;
             };
             iterations += it;
@@ -569,13 +570,19 @@ fn t_residual(c2v: f64, p: &[f64; 3], t: f64, s: f64) -> Option<(f64, [f64; 3])>
     Some((tm - t, [-tm / p[0], -1.0 / p[0], dl]))
 }
 
+/// Residual i and its gradient at parameters p, `None` outside the model's domain.
+type Residual<'a> = dyn Fn(&[f64; 3], usize) -> Option<(f64, [f64; 3])> + 'a;
+
 /// Levenberg–Marquardt with Marquardt's diagonal scaling for three parameters: `resid(p, i)`
 /// gives residual i and its gradient, or `None` where p is outside the model's domain. Returns
-/// the parameters and the iteration count.
-fn levenberg_marquardt<F>(p0: [f64; 3], n: usize, t_scale: f64, resid: F) -> Result<([f64; 3], u32)>
-where
-    F: Fn(&[f64; 3], usize) -> Option<(f64, [f64; 3])>,
-{
+/// the parameters and the iteration count. `resid` is a trait object so that the solver is
+/// compiled once for its three callers (a cold path; this keeps the wasm module small).
+fn levenberg_marquardt(
+    p0: [f64; 3],
+    n: usize,
+    t_scale: f64,
+    resid: &Residual<'_>,
+) -> Result<([f64; 3], u32)> {
     let cost = |p: &[f64; 3]| -> f64 {
         let mut c = 0.0;
         for i in 0..n {
