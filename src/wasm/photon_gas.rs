@@ -83,7 +83,6 @@ pub fn available_noise_power_density_with_zero_point(
 /// Entropy density of blackbody radiation, J·K⁻¹·m⁻³, at `temperatureK`.
 ///
 /// @throws {QuantabandError} NON_FINITE, NON_POSITIVE_TEMPERATURE.
-#[cfg(feature = "wasm-full")]
 #[wasm_bindgen(js_name = photonEntropyDensity)]
 pub fn photon_entropy_density(
     #[wasm_bindgen(js_name = temperatureK)] temperature_k: f64,
@@ -94,7 +93,6 @@ pub fn photon_entropy_density(
 /// Radiation pressure of isotropic blackbody radiation, Pa, at `temperatureK`.
 ///
 /// @throws {QuantabandError} NON_FINITE, NON_POSITIVE_TEMPERATURE.
-#[cfg(feature = "wasm-full")]
 #[wasm_bindgen(js_name = photonPressure)]
 pub fn photon_pressure(
     #[wasm_bindgen(js_name = temperatureK)] temperature_k: f64,

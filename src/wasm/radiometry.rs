@@ -220,7 +220,6 @@ pub fn spectral_density(
 /// ∂/∂T of `spectralDensity` (density unit per kelvin).
 ///
 /// @throws {QuantabandError} as `spectralDensity`.
-#[cfg(feature = "wasm-full")]
 #[wasm_bindgen(js_name = spectralDensityDT)]
 pub fn spectral_density_dt(
     #[wasm_bindgen(unchecked_param_type = "SpectrumOptions")] options: JsValue,
@@ -307,7 +306,6 @@ pub fn spectrum_total(
 /// ∂/∂T of `spectrumTotal` (per kelvin).
 ///
 /// @throws {QuantabandError} as `spectrumTotal`.
-#[cfg(feature = "wasm-full")]
 #[wasm_bindgen(js_name = spectrumTotalDT)]
 pub fn spectrum_total_dt(
     #[wasm_bindgen(unchecked_param_type = "SpectrumOptions")] options: JsValue,

@@ -19,15 +19,15 @@ use crate::constants::C2Convention;
 use crate::error::{finite, positive, temperature};
 use crate::thermometry::its90::{self, FixedPoint};
 #[cfg(feature = "wasm-full")]
-use crate::thermometry::{
-    max_interpolation_error_k, ratio_temperature as core_ratio_temperature,
-    sensitivities as core_sensitivities, two_colour_temperature as core_two_colour, RatioReading,
-};
+use crate::thermometry::{max_interpolation_error_k, two_colour_temperature as core_two_colour};
 use crate::thermometry::{
     measured_signal as core_measured_signal, object_temperature as core_object_temperature,
     uncertainty::BudgetInput, uncertainty::StandardUncertainties,
     uncertainty_budget as core_budget, Conditions, FitReport, FrameConverter, Response,
     ResponseSignal, SakumaHattori, SignalModel, SpectralPoint, Window,
+};
+use crate::thermometry::{
+    ratio_temperature as core_ratio_temperature, sensitivities as core_sensitivities, RatioReading,
 };
 use crate::units::{convert_spectral, SpectralKind, SpectralUnit};
 use crate::Error;
@@ -565,7 +565,6 @@ fn fit_object(r: &FitReport, residuals: Option<Vec<f64>>) -> JsValue {
     object(&pairs)
 }
 
-#[cfg(feature = "wasm-full")]
 fn ratio_object(r: &RatioReading) -> JsValue {
     object(&[
         ("temperatureK", num(r.temperature_k)),
@@ -1106,7 +1105,6 @@ pub fn its90_temperature(
 ///
 /// @throws {QuantabandError} NON_FINITE, NON_POSITIVE, NON_POSITIVE_TEMPERATURE, UNSUPPORTED
 /// (channel order), NO_SOLUTION, model errors.
-#[cfg(feature = "wasm-full")]
 #[wasm_bindgen(js_name = ratioTemperature, unchecked_return_type = "RatioReading")]
 pub fn ratio_temperature(
     #[wasm_bindgen(unchecked_param_type = "InstrumentModel")] channel1: JsValue,
@@ -1161,7 +1159,6 @@ pub fn two_colour_temperature(
 /// temperature).
 ///
 /// @throws {QuantabandError} as `objectTemperature`.
-#[cfg(feature = "wasm-full")]
 #[wasm_bindgen(js_name = sensitivities, unchecked_return_type = "Sensitivities")]
 pub fn sensitivities(
     #[wasm_bindgen(unchecked_param_type = "InstrumentModel")] model: JsValue,
