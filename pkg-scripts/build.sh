@@ -10,16 +10,19 @@
 #                see DEVELOPERS.md, "Build, package and test matrix")
 #   --rust-opt=L rustc opt-level for this build only (default: the release profile's, 3); `z` trades
 #                speed for size (CARGO_PROFILE_RELEASE_OPT_LEVEL, Cargo.toml untouched)
-#   --features=LIST  cargo features of the package build (default: wasm). The size budget is
-#                enforced for the default package only; with other features it is reported
+#   --features=LIST  cargo features of the package build (default: wasm-full, the whole API).
+#                `--features=wasm` builds the lite package (a subset of the exports). Size checks
+#                (tests/size/check.mjs): the lite package must meet the budget of
+#                150 KB raw / 60 KB gzip; the full package is not yet within that budget, so it is
+#                held to a no-growth ceiling and its distance from the budget is printed
 #   --no-page    skip `node www/build.mjs`
 #   --size-report  print where the .wasm bytes go (largest functions, bytes per module); also
 #                printed automatically when the size budget is exceeded
 #   --serve      after building, serve dist/ on http://127.0.0.1:PORT/ (default 8765) until Ctrl-C
 #
-# Steps: install.sh -> cargo build --release (wasm32, --features wasm) -> wasm-bindgen --target web
+# Steps: install.sh -> cargo build --release (wasm32, --features wasm-full) -> wasm-bindgen --target web
 # -> wasm-opt (binaryen from node_modules, with exactly the features the module declares) ->
-# pkg/package.json + Node entry -> size budget (fails when over) -> load check in Node ->
+# pkg/package.json + Node entry -> size check (fails when over) -> load check in Node ->
 # node www/build.mjs (the page) -> prints the paths.
 # Environment: QB_SKIP_INSTALL=1 skips install.sh (test.sh sets it after running it once).
 set -euo pipefail
@@ -30,7 +33,7 @@ SIMD=1
 OPT=-Oz
 PAGE=1
 SIZE_REPORT=0
-FEATURES_CARGO=wasm
+FEATURES_CARGO=wasm-full
 SERVE=""
 for arg in "$@"; do
   case "$arg" in
@@ -42,7 +45,7 @@ for arg in "$@"; do
     --features=*) FEATURES_CARGO="${arg#--features=}" ;;
     --serve) SERVE=8765 ;;
     --serve=*) SERVE="${arg#--serve=}" ;;
-    -h|--help) sed -n '2,28p' "$0"; exit 0 ;;
+    -h|--help) sed -n '2,31p' "$0"; exit 0 ;;
     *) echo "build.sh: unknown argument '$arg' (try --help)" >&2; exit 2 ;;
   esac
 done
@@ -112,14 +115,18 @@ size_report() {
   node_modules/.bin/wasm-opt "$OPT" -g "${FEATURES[@]}" "$d/${NAME}_bg.wasm" -o "$d/named.wasm"
   node tests/size/breakdown.mjs "$d/named.wasm" 25
 }
-if ! node tests/size/check.mjs pkg/${NAME}_bg.wasm; then
-  if [ "$FEATURES_CARGO" != wasm ]; then
-    say "size budget not enforced for --features=$FEATURES_CARGO (it applies to the default package)"
-  else
-    size_report
-    echo "[build] ERROR: pkg/${NAME}_bg.wasm is over the size budget (see the breakdown above)" >&2
-    exit 1
-  fi
+case "$FEATURES_CARGO" in
+  wasm) SIZE_PROFILE=lite ;;
+  wasm-full) SIZE_PROFILE=full ;;
+  *) SIZE_PROFILE="" ;;
+esac
+if [ -z "$SIZE_PROFILE" ]; then
+  node tests/size/check.mjs --report-only pkg/${NAME}_bg.wasm
+  say "size not enforced for --features=$FEATURES_CARGO"
+elif ! node tests/size/check.mjs --profile="$SIZE_PROFILE" pkg/${NAME}_bg.wasm; then
+  size_report
+  echo "[build] ERROR: pkg/${NAME}_bg.wasm is over its size limit (see the breakdown above)" >&2
+  exit 1
 fi
 if [ "$SIZE_REPORT" = 1 ]; then size_report; fi
 
