@@ -17,6 +17,7 @@ use super::opts::{js_string, opt_js_string};
 use super::radiometry::parse_c2;
 use crate::constants::C2Convention;
 use crate::error::{finite, positive, temperature};
+use crate::thermometry::frame::{FrameInput, FrameOutput};
 use crate::thermometry::its90::{self, FixedPoint};
 #[cfg(feature = "wasm-full")]
 use crate::thermometry::{
@@ -26,8 +27,8 @@ use crate::thermometry::{
 use crate::thermometry::{
     measured_signal as core_measured_signal, object_temperature as core_object_temperature,
     uncertainty::BudgetInput, uncertainty::StandardUncertainties,
-    uncertainty_budget as core_budget, Conditions, FitReport, FrameConverter, Response,
-    ResponseSignal, SakumaHattori, SignalModel, SpectralPoint, Window,
+    uncertainty_budget as core_budget, Conditions, FitReport, FrameConverter, FrameSummary,
+    Response, ResponseSignal, SakumaHattori, SignalModel, SpectralPoint, Window,
 };
 use crate::units::{convert_spectral, SpectralKind, SpectralUnit};
 use crate::Error;
@@ -1245,22 +1246,89 @@ pub fn uncertainty_budget(
 // Frames
 // ---------------------------------------------------------------------------------------------
 
-/// Reads a frame's pixels into f64 (one copy out of JS memory, widening u16/f32 exactly), so
-/// that only the f64 instantiation of the core's pixel loop is compiled into the module.
+/// A frame's pixels, copied once out of JS memory in their own type (no widening pass).
+enum Pixels {
+    U16(Vec<u16>),
+    F32(Vec<f32>),
+    F64(Vec<f64>),
+}
+
 #[inline(never)]
-fn frame_pixels(raw: &JsValue) -> Result<Vec<f64>, JsValue> {
+fn frame_pixels(raw: &JsValue) -> Result<Pixels, JsValue> {
     if let Some(a) = raw.dyn_ref::<Uint16Array>() {
-        Ok(a.to_vec().into_iter().map(f64::from).collect())
+        Ok(Pixels::U16(a.to_vec()))
     } else if let Some(a) = raw.dyn_ref::<Float32Array>() {
-        Ok(a.to_vec().into_iter().map(f64::from).collect())
+        Ok(Pixels::F32(a.to_vec()))
     } else if let Some(a) = raw.dyn_ref::<Float64Array>() {
-        Ok(a.to_vec())
+        Ok(Pixels::F64(a.to_vec()))
     } else {
         Err(fail(
             "UNSUPPORTED",
             "raw must be a Uint16Array, Float32Array or Float64Array".into(),
         ))
     }
+}
+
+/// Runs the core's pixel loop from `raw` into a new vector of the output type (the core rounds
+/// each temperature to `O` itself and takes the extremes over the written values).
+#[inline(never)]
+fn convert_into<I: FrameInput, O: FrameOutput + Default>(
+    conv: &FrameConverter,
+    raw: &[I],
+    eps: Option<&[f64]>,
+) -> Result<(Vec<O>, FrameSummary), JsValue> {
+    let mut out: Vec<O> = with_room(raw.len())?;
+    out.resize(raw.len(), O::default());
+    let sum = match eps {
+        None => conv.convert(raw, &mut out)?,
+        Some(e) => conv.convert_with_emissivity(raw, e, &mut out)?,
+    };
+    Ok((out, sum))
+}
+
+/// Converts a frame into the typed array returned to JS.
+///
+/// Each instantiation of the core's vectorised pixel loop costs about 2 KB of the size budget,
+/// so only the most common case, camera counts to the default Float32Array without an
+/// emissivity map, runs straight from the input type to the output type. Every other case
+/// widens its input to f64 and runs the f64 loop (narrowing to f32 afterwards when asked):
+/// identical results, one or two more passes over the frame.
+fn convert_pixels(
+    conv: &FrameConverter,
+    pixels: &Pixels,
+    eps: Option<&[f64]>,
+    f64_out: bool,
+) -> Result<(JsValue, FrameSummary), JsValue> {
+    if let (Pixels::U16(p), None, false) = (pixels, eps, f64_out) {
+        let (out, sum) = convert_into::<u16, f32>(conv, p, None)?;
+        return Ok((Float32Array::from(out.as_slice()).into(), sum));
+    }
+    let widened: Vec<f64>;
+    let p: &[f64] = match pixels {
+        Pixels::F64(p) => p,
+        Pixels::U16(p) => {
+            widened = p.iter().map(|&x| f64::from(x)).collect();
+            &widened
+        }
+        Pixels::F32(p) => {
+            widened = p.iter().map(|&x| f64::from(x)).collect();
+            &widened
+        }
+    };
+    let (out, sum) = convert_into::<f64, f64>(conv, p, eps)?;
+    if f64_out {
+        return Ok((Float64Array::from(out.as_slice()).into(), sum));
+    }
+    // Rounding to f32 is monotone, so the extremes of the rounded frame are the rounded
+    // extremes (identical to the core's f32 output path).
+    let mut out32: Vec<f32> = with_room(out.len())?;
+    out32.extend(out.iter().map(|&t| t as f32));
+    let sum = FrameSummary {
+        min_temperature_k: f64::from(sum.min_temperature_k as f32),
+        max_temperature_k: f64::from(sum.max_temperature_k as f32),
+        ..sum
+    };
+    Ok((Float32Array::from(out32.as_slice()).into(), sum))
 }
 
 /// Converts a whole frame of raw values (camera counts as a Uint16Array, or signals as a
@@ -1324,29 +1392,9 @@ pub fn convert_frame(
         Some(v) => choose("FrameOptions.output", &v, &["float32", "float64"])? == 1,
     };
     let conv = FrameConverter::new(&sh, &conditions, gain, offset)?;
-    let mut out = with_room(pixels.len())?;
-    out.resize(pixels.len(), 0.0f64);
-    let sum = match eps.as_deref() {
-        None => conv.convert(&pixels, &mut out)?,
-        Some(e) => conv.convert_with_emissivity(&pixels, e, &mut out)?,
-    };
-    let (temps, lo, hi): (JsValue, f64, f64) = if f64_out {
-        (
-            Float64Array::from(out.as_slice()).into(),
-            sum.min_temperature_k,
-            sum.max_temperature_k,
-        )
-    } else {
-        // Rounding to f32 is monotone, so the extremes of the rounded frame are the rounded
-        // extremes (identical to the core's f32 output path).
-        let mut out32: Vec<f32> = with_room(out.len())?;
-        out32.extend(out.iter().map(|&t| t as f32));
-        (
-            Float32Array::from(out32.as_slice()).into(),
-            f64::from(sum.min_temperature_k as f32),
-            f64::from(sum.max_temperature_k as f32),
-        )
-    };
+    let eps = eps.as_deref();
+    let (temps, sum) = convert_pixels(&conv, &pixels, eps, f64_out)?;
+    let (lo, hi) = (sum.min_temperature_k, sum.max_temperature_k);
     Ok(object(&[
         ("temperaturesK", temps),
         ("valid", num(sum.valid as f64)),
