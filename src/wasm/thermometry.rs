@@ -12,12 +12,11 @@ use wasm_bindgen::prelude::*;
 use wasm_bindgen::JsCast;
 
 use super::error::{at, fail, map_indexed, with_room};
-use super::opts::{choose, Opts};
+use super::opts::{choose, Opts, Schema};
 use super::opts::{js_string, opt_js_string};
 use super::radiometry::parse_c2;
 use crate::constants::C2Convention;
 use crate::error::{finite, positive, temperature};
-use crate::thermometry::frame::{FrameInput, FrameOutput};
 use crate::thermometry::its90::{self, FixedPoint};
 #[cfg(feature = "wasm-full")]
 use crate::thermometry::{
@@ -27,11 +26,12 @@ use crate::thermometry::{
 use crate::thermometry::{
     measured_signal as core_measured_signal, object_temperature as core_object_temperature,
     uncertainty::BudgetInput, uncertainty::StandardUncertainties,
-    uncertainty_budget as core_budget, Conditions, FitReport, FrameConverter, FrameSummary,
-    Response, ResponseSignal, SakumaHattori, SignalModel, SpectralPoint, Window,
+    uncertainty_budget as core_budget, Conditions, FitReport, FrameConverter, Response,
+    ResponseSignal, SakumaHattori, SignalModel, SpectralPoint, Window,
 };
 use crate::units::{convert_spectral, SpectralKind, SpectralUnit};
 use crate::Error;
+use std::borrow::Cow;
 
 #[wasm_bindgen(typescript_custom_section)]
 const TS_THERMOMETRY: &str = r#"
@@ -362,14 +362,77 @@ fn number_array(what: &str, v: &JsValue) -> Result<Vec<f64>, JsValue> {
     ))
 }
 
-fn required_string(o: &Opts, key: &str, code: &'static str) -> Result<String, JsValue> {
+fn required_string(o: &Opts, key: &str, code: &'static str) -> Result<Cow<'static, str>, JsValue> {
     o.string(key, code)?
         .ok_or_else(|| fail(code, format!("{}.{key} is required", o.what())))
+}
+
+const POINT_FIELDS: &[&str] = &["kind", "wavelength", "unit", "c2"];
+const CURVE_FIELDS: &[&str] = &["kind", "aM", "bMK", "c", "c2"];
+
+/// `POINT_FIELDS` for the one-call reader, in the order `point_model` reads them.
+static POINT_SCHEMA: Schema = Schema {
+    id: 1,
+    fields: &[
+        ("kind", &["spectralPoint"]),
+        ("unit", &["m", "mm", "um", "nm"]),
+        ("c2", &["codata2018", "its90"]),
+        ("wavelength", &[]),
+    ],
+};
+
+/// `CURVE_FIELDS` for the one-call reader, in the order `curve_model` reads them.
+static CURVE_SCHEMA: Schema = Schema {
+    id: 2,
+    fields: &[
+        ("kind", &["sakumaHattori"]),
+        ("c2", &["codata2018", "its90"]),
+        ("aM", &[]),
+        ("bMK", &[]),
+        ("c", &[]),
+    ],
+};
+
+#[inline(never)]
+fn point_model(o: &Opts) -> Result<Model, JsValue> {
+    let unit = wavelength_unit(&required_string(o, "unit", "UNKNOWN_UNIT")?)?;
+    let c2 = parse_c2(
+        "SpectralPointModel.c2",
+        o.string("c2", "UNSUPPORTED")?.as_deref(),
+    )?;
+    let wl = to_m("wavelength", o.req_num("wavelength")?, unit)?;
+    Ok(Model::Point(SpectralPoint::new(wl, c2)?))
+}
+
+#[inline(never)]
+fn curve_model(o: &Opts) -> Result<Model, JsValue> {
+    let c2 = parse_c2(
+        "SakumaHattoriModel.c2",
+        o.string("c2", "UNSUPPORTED")?.as_deref(),
+    )?;
+    Ok(Model::Curve(SakumaHattori::new(
+        o.req_num("aM")?,
+        o.req_num("bMK")?,
+        o.req_num("c")?,
+        c2,
+    )?))
 }
 
 /// Reads and validates an `InstrumentModel`.
 #[inline(never)]
 pub(crate) fn parse_model(value: &JsValue) -> Result<Model, JsValue> {
+    // A well-formed curve or spectral-point model is read in one call into JavaScript; anything
+    // else (a response model, a malformed object) field by field below.
+    if let Some(o) = Opts::fast_only(value, "SakumaHattoriModel", &CURVE_SCHEMA) {
+        if o.string("kind", "UNSUPPORTED")?.is_some() {
+            return curve_model(&o);
+        }
+    }
+    if let Some(o) = Opts::fast_only(value, "SpectralPointModel", &POINT_SCHEMA) {
+        if o.string("kind", "UNSUPPORTED")?.is_some() {
+            return point_model(&o);
+        }
+    }
     let kind_v = if value.is_object() {
         Reflect::get(value, &JsValue::from_str("kind"))?
     } else {
@@ -382,17 +445,7 @@ pub(crate) fn parse_model(value: &JsValue) -> Result<Model, JsValue> {
         &["spectralPoint", "response", "sakumaHattori"],
     )?;
     match k {
-        0 => {
-            let o = Opts::new(
-                value,
-                "SpectralPointModel",
-                &["kind", "wavelength", "unit", "c2"],
-            )?;
-            let unit = wavelength_unit(&required_string(&o, "unit", "UNKNOWN_UNIT")?)?;
-            let c2 = parse_c2("SpectralPointModel.c2", o.string("c2", "UNSUPPORTED")?)?;
-            let wl = to_m("wavelength", o.req_num("wavelength")?, unit)?;
-            Ok(Model::Point(SpectralPoint::new(wl, c2)?))
-        }
+        0 => point_model(&Opts::new(value, "SpectralPointModel", POINT_FIELDS)?),
         1 => {
             let o = Opts::new(
                 value,
@@ -400,7 +453,10 @@ pub(crate) fn parse_model(value: &JsValue) -> Result<Model, JsValue> {
                 &["kind", "wavelengths", "values", "unit", "c2"],
             )?;
             let unit = wavelength_unit(&required_string(&o, "unit", "UNKNOWN_UNIT")?)?;
-            let c2 = parse_c2("ResponseModel.c2", o.string("c2", "UNSUPPORTED")?)?;
+            let c2 = parse_c2(
+                "ResponseModel.c2",
+                o.string("c2", "UNSUPPORTED")?.as_deref(),
+            )?;
             let wl = number_array("ResponseModel.wavelengths", &o.raw("wavelengths")?)?;
             let values = number_array("ResponseModel.values", &o.raw("values")?)?;
             let mut wavelengths_m = Vec::with_capacity(wl.len());
@@ -416,20 +472,7 @@ pub(crate) fn parse_model(value: &JsValue) -> Result<Model, JsValue> {
                 unit,
             })
         }
-        _ => {
-            let o = Opts::new(
-                value,
-                "SakumaHattoriModel",
-                &["kind", "aM", "bMK", "c", "c2"],
-            )?;
-            let c2 = parse_c2("SakumaHattoriModel.c2", o.string("c2", "UNSUPPORTED")?)?;
-            Ok(Model::Curve(SakumaHattori::new(
-                o.req_num("aM")?,
-                o.req_num("bMK")?,
-                o.req_num("c")?,
-                c2,
-            )?))
-        }
+        _ => curve_model(&Opts::new(value, "SakumaHattoriModel", CURVE_FIELDS)?),
     }
 }
 
@@ -586,7 +629,7 @@ fn parse_fixed_point(name: &str) -> Result<FixedPoint, JsValue> {
 }
 
 fn c2_arg(c2: Option<String>) -> Result<C2Convention, JsValue> {
-    parse_c2("c2", c2)
+    parse_c2("c2", c2.as_deref())
 }
 
 #[cfg(feature = "wasm-full")]
@@ -1246,89 +1289,22 @@ pub fn uncertainty_budget(
 // Frames
 // ---------------------------------------------------------------------------------------------
 
-/// A frame's pixels, copied once out of JS memory in their own type (no widening pass).
-enum Pixels {
-    U16(Vec<u16>),
-    F32(Vec<f32>),
-    F64(Vec<f64>),
-}
-
+/// Reads a frame's pixels into f64 (one copy out of JS memory, widening u16/f32 exactly), so
+/// that only the f64 instantiation of the core's pixel loop is compiled into the module.
 #[inline(never)]
-fn frame_pixels(raw: &JsValue) -> Result<Pixels, JsValue> {
+fn frame_pixels(raw: &JsValue) -> Result<Vec<f64>, JsValue> {
     if let Some(a) = raw.dyn_ref::<Uint16Array>() {
-        Ok(Pixels::U16(a.to_vec()))
+        Ok(a.to_vec().into_iter().map(f64::from).collect())
     } else if let Some(a) = raw.dyn_ref::<Float32Array>() {
-        Ok(Pixels::F32(a.to_vec()))
+        Ok(a.to_vec().into_iter().map(f64::from).collect())
     } else if let Some(a) = raw.dyn_ref::<Float64Array>() {
-        Ok(Pixels::F64(a.to_vec()))
+        Ok(a.to_vec())
     } else {
         Err(fail(
             "UNSUPPORTED",
             "raw must be a Uint16Array, Float32Array or Float64Array".into(),
         ))
     }
-}
-
-/// Runs the core's pixel loop from `raw` into a new vector of the output type (the core rounds
-/// each temperature to `O` itself and takes the extremes over the written values).
-#[inline(never)]
-fn convert_into<I: FrameInput, O: FrameOutput + Default>(
-    conv: &FrameConverter,
-    raw: &[I],
-    eps: Option<&[f64]>,
-) -> Result<(Vec<O>, FrameSummary), JsValue> {
-    let mut out: Vec<O> = with_room(raw.len())?;
-    out.resize(raw.len(), O::default());
-    let sum = match eps {
-        None => conv.convert(raw, &mut out)?,
-        Some(e) => conv.convert_with_emissivity(raw, e, &mut out)?,
-    };
-    Ok((out, sum))
-}
-
-/// Converts a frame into the typed array returned to JS.
-///
-/// Each instantiation of the core's vectorised pixel loop costs about 2 KB of the size budget,
-/// so only the most common case, camera counts to the default Float32Array without an
-/// emissivity map, runs straight from the input type to the output type. Every other case
-/// widens its input to f64 and runs the f64 loop (narrowing to f32 afterwards when asked):
-/// identical results, one or two more passes over the frame.
-fn convert_pixels(
-    conv: &FrameConverter,
-    pixels: &Pixels,
-    eps: Option<&[f64]>,
-    f64_out: bool,
-) -> Result<(JsValue, FrameSummary), JsValue> {
-    if let (Pixels::U16(p), None, false) = (pixels, eps, f64_out) {
-        let (out, sum) = convert_into::<u16, f32>(conv, p, None)?;
-        return Ok((Float32Array::from(out.as_slice()).into(), sum));
-    }
-    let widened: Vec<f64>;
-    let p: &[f64] = match pixels {
-        Pixels::F64(p) => p,
-        Pixels::U16(p) => {
-            widened = p.iter().map(|&x| f64::from(x)).collect();
-            &widened
-        }
-        Pixels::F32(p) => {
-            widened = p.iter().map(|&x| f64::from(x)).collect();
-            &widened
-        }
-    };
-    let (out, sum) = convert_into::<f64, f64>(conv, p, eps)?;
-    if f64_out {
-        return Ok((Float64Array::from(out.as_slice()).into(), sum));
-    }
-    // Rounding to f32 is monotone, so the extremes of the rounded frame are the rounded
-    // extremes (identical to the core's f32 output path).
-    let mut out32: Vec<f32> = with_room(out.len())?;
-    out32.extend(out.iter().map(|&t| t as f32));
-    let sum = FrameSummary {
-        min_temperature_k: f64::from(sum.min_temperature_k as f32),
-        max_temperature_k: f64::from(sum.max_temperature_k as f32),
-        ..sum
-    };
-    Ok((Float32Array::from(out32.as_slice()).into(), sum))
 }
 
 /// Converts a whole frame of raw values (camera counts as a Uint16Array, or signals as a
@@ -1392,9 +1368,29 @@ pub fn convert_frame(
         Some(v) => choose("FrameOptions.output", &v, &["float32", "float64"])? == 1,
     };
     let conv = FrameConverter::new(&sh, &conditions, gain, offset)?;
-    let eps = eps.as_deref();
-    let (temps, sum) = convert_pixels(&conv, &pixels, eps, f64_out)?;
-    let (lo, hi) = (sum.min_temperature_k, sum.max_temperature_k);
+    let mut out = with_room(pixels.len())?;
+    out.resize(pixels.len(), 0.0f64);
+    let sum = match eps.as_deref() {
+        None => conv.convert(&pixels, &mut out)?,
+        Some(e) => conv.convert_with_emissivity(&pixels, e, &mut out)?,
+    };
+    let (temps, lo, hi): (JsValue, f64, f64) = if f64_out {
+        (
+            Float64Array::from(out.as_slice()).into(),
+            sum.min_temperature_k,
+            sum.max_temperature_k,
+        )
+    } else {
+        // Rounding to f32 is monotone, so the extremes of the rounded frame are the rounded
+        // extremes (identical to the core's f32 output path).
+        let mut out32: Vec<f32> = with_room(out.len())?;
+        out32.extend(out.iter().map(|&t| t as f32));
+        (
+            Float32Array::from(out32.as_slice()).into(),
+            f64::from(sum.min_temperature_k as f32),
+            f64::from(sum.max_temperature_k as f32),
+        )
+    };
     Ok(object(&[
         ("temperaturesK", temps),
         ("valid", num(sum.valid as f64)),
