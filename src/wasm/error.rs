@@ -25,9 +25,10 @@ extern "C" {
     #[wasm_bindgen(js_name = qbDefineOptions)]
     pub(crate) fn define_options(id: u32, spec: &str);
     /// Reads an options object against schema `id` in one crossing: field values into `out`,
-    /// returns the mask of present fields or -1 (then read it field by field).
-    #[wasm_bindgen(js_name = qbReadOptions)]
-    pub(crate) fn read_options(obj: &JsValue, id: u32, out: &mut [f64]) -> f64;
+    /// returns the mask of present fields or -1 (then read it field by field). Caught: a
+    /// throwing getter or proxy trap never unwinds through WebAssembly frames.
+    #[wasm_bindgen(catch, js_name = qbReadOptions)]
+    pub(crate) fn read_options(obj: &JsValue, id: u32, out: &mut [f64]) -> Result<f64, JsValue>;
 }
 
 #[wasm_bindgen(typescript_custom_section)]

@@ -66,7 +66,9 @@ fn read_fast(value: &JsValue, schema: &'static Schema) -> Option<Fast> {
         DEFINED.fetch_or(bit, Ordering::Relaxed);
     }
     let mut vals = [0.0; MAX_FIELDS];
-    let mask = read_options(value, schema.id, &mut vals[..n]);
+    // A throw (a getter or proxy trap) also means field by field, which meets it again and
+    // reports it as before.
+    let mask = read_options(value, schema.id, &mut vals[..n]).unwrap_or(-1.0);
     // -1 (or anything that is not a mask of n bits): read field by field.
     if !(mask >= 0.0 && mask < f64::from(1u32 << n)) {
         return None;

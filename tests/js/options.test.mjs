@@ -95,3 +95,14 @@ test('options: instrument models by both paths', () => {
   throwsCode(() => qb.modelTemperature({ ...point, unit: 'cm-1' }, sp), 'UNSUPPORTED');
   throwsCode(() => qb.modelTemperature({ ...point, c2: 'its-90' }, sp), 'UNSUPPORTED');
 });
+
+test('options: a throwing getter surfaces its own error and the module keeps working', () => {
+  const boom = new Error('getter failed');
+  const o = { unit: 'um' };
+  Object.defineProperty(o, 'emissivity', { enumerable: true, get() { throw boom; } });
+  assert.throws(() => qb.bandIntegral(o, 8, 14, 300), (e) => e === boom);
+  const p = new Proxy({ unit: 'um' }, { get(t, k) { if (k === 'c2') throw boom; return t[k]; } });
+  assert.throws(() => qb.spectralDensity(p, 10, 300), (e) => e === boom);
+  assert.ok(qb.bandIntegral({ unit: 'um' }, 8, 14, 300) > 0);
+  assert.ok(qb.spectralDensity({ unit: 'um' }, 10, 300) > 0);
+});
