@@ -54,6 +54,59 @@ export function qbBindingError(code, message) {
   return new QuantabandError(code, message);
 }
 
+/**
+ * Options schemas for `qbReadOptions`, by id (defined once from Rust through `qbDefineOptions`):
+ * `names` (a Set of the accepted keys) and `fields`, each `[key, choices]` with `choices` null for
+ * a number field or the array of accepted strings of a string field.
+ */
+const OPTION_SCHEMAS = [];
+
+/**
+ * Defines options schema `id` from `spec`: fields separated by ";", each a key alone (a number
+ * field) or "key=choice|choice|…" (a string field that must be one of the choices).
+ */
+export function qbDefineOptions(id, spec) {
+  const fields = spec.split(';').map(function (f) {
+    const eq = f.indexOf('=');
+    return eq < 0 ? [f, null] : [f.slice(0, eq), f.slice(eq + 1).split('|')];
+  });
+  OPTION_SCHEMAS[id] = { names: new Set(fields.map(function (f) { return f[0]; })), fields: fields };
+}
+
+/**
+ * Reads an options object against schema `id` in one call from WebAssembly (instead of one
+ * call per field). Writes field i to `out[i]`: the number, or the index of the string among the
+ * field's choices. Returns the bit mask of the fields present (bit i set when field i is not
+ * undefined), or -1 when anything is unusual: not a plain object, an unknown key, a number
+ * field holding a non-number, a string field holding a non-string or a string not among its
+ * choices. Rust then reads the object field by field, which reports the exact error (or
+ * accepts a spelling outside the choices, such as a unit alias).
+ */
+export function qbReadOptions(obj, id, out) {
+  if (typeof obj !== 'object' || obj === null || Array.isArray(obj)) return -1;
+  const schema = OPTION_SCHEMAS[id];
+  const keys = Object.keys(obj);
+  for (let i = 0; i < keys.length; i++) if (!schema.names.has(keys[i])) return -1;
+  const fields = schema.fields;
+  let mask = 0;
+  for (let i = 0; i < fields.length; i++) {
+    const v = obj[fields[i][0]];
+    if (v === undefined) continue;
+    const choices = fields[i][1];
+    if (choices === null) {
+      if (typeof v !== 'number') return -1;
+      out[i] = v;
+    } else {
+      if (typeof v !== 'string') return -1;
+      const j = choices.indexOf(v);
+      if (j < 0) return -1;
+      out[i] = j;
+    }
+    mask |= 1 << i;
+  }
+  return mask;
+}
+
 /** Every stable error code, in the order of the Rust `Error::ALL_CODES`. */
 export const ERROR_CODES = Object.freeze([
   'NON_FINITE',

@@ -21,6 +21,14 @@ extern "C" {
     /// Builds an error found by the binding layer, with a ready message.
     #[wasm_bindgen(js_name = qbBindingError)]
     fn binding_error(code: &str, message: &str) -> JsValue;
+    /// Defines options schema `id` (see `opts::Schema`) on the JavaScript side, once.
+    #[wasm_bindgen(js_name = qbDefineOptions)]
+    pub(crate) fn define_options(id: u32, spec: &str);
+    /// Reads an options object against schema `id` in one crossing: field values into `out`,
+    /// returns the mask of present fields or -1 (then read it field by field). Caught: a
+    /// throwing getter or proxy trap never unwinds through WebAssembly frames.
+    #[wasm_bindgen(catch, js_name = qbReadOptions)]
+    pub(crate) fn read_options(obj: &JsValue, id: u32, out: &mut [f64]) -> Result<f64, JsValue>;
 }
 
 #[wasm_bindgen(typescript_custom_section)]

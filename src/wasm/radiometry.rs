@@ -7,7 +7,7 @@
 use wasm_bindgen::prelude::*;
 
 use super::error::{at, fail, map_indexed, with_room};
-use super::opts::{choose, Opts};
+use super::opts::{choose, Opts, Schema};
 use crate::constants::C2Convention;
 use crate::error as core_error;
 use crate::planck::{self, Geometry, Quantity, SpectralVariable, Spectrum};
@@ -83,6 +83,28 @@ const SPECTRUM_FIELDS: &[&str] = &[
     "c2",
 ];
 
+/// `SPECTRUM_FIELDS` for the one-call reader, in the order `parse_spectrum` reads them. The unit
+/// choices are the canonical names of `SpectralUnit::ALL` (an alias such as "µm" takes the
+/// field-by-field path).
+static SPECTRUM_SCHEMA: Schema = Schema {
+    id: 0,
+    fields: &[
+        (
+            "unit",
+            &[
+                "m", "mm", "um", "nm", "m-1", "cm-1", "Hz", "kHz", "MHz", "GHz", "THz", "J", "eV",
+                "meV",
+            ],
+        ),
+        ("variable", &["wavelength", "wavenumber", "frequency"]),
+        ("quantity", &["energy", "photon"]),
+        ("geometry", &["radiance", "exitance"]),
+        ("c2", &["codata2018", "its90"]),
+        ("emissivity", &[]),
+        ("refractiveIndex", &[]),
+    ],
+};
+
 /// A parsed `SpectrumOptions`: the core spectrum plus the user's coordinate unit.
 pub(crate) struct Spec {
     pub(crate) spectrum: Spectrum,
@@ -100,8 +122,8 @@ pub(crate) fn variable_kind(v: SpectralVariable) -> SpectralKind {
 }
 
 /// Reads a `C2Convention` string.
-pub(crate) fn parse_c2(what: &str, s: Option<String>) -> Result<C2Convention, JsValue> {
-    Ok(match s.as_deref() {
+pub(crate) fn parse_c2(what: &str, s: Option<&str>) -> Result<C2Convention, JsValue> {
+    Ok(match s {
         None => C2Convention::Codata2018,
         Some(s) => match choose(what, s, &["codata2018", "its90"])? {
             0 => C2Convention::Codata2018,
@@ -113,7 +135,7 @@ pub(crate) fn parse_c2(what: &str, s: Option<String>) -> Result<C2Convention, Js
 /// Reads and validates a `SpectrumOptions` object.
 #[inline(never)]
 pub(crate) fn parse_spectrum(value: &JsValue) -> Result<Spec, JsValue> {
-    let o = Opts::new(value, "SpectrumOptions", SPECTRUM_FIELDS)?;
+    let o = Opts::with_schema(value, "SpectrumOptions", SPECTRUM_FIELDS, &SPECTRUM_SCHEMA)?;
     let unit_name = o.string("unit", "UNKNOWN_UNIT")?.ok_or_else(|| {
         fail(
             "UNKNOWN_UNIT",
@@ -159,7 +181,10 @@ pub(crate) fn parse_spectrum(value: &JsValue) -> Result<Spec, JsValue> {
             _ => Geometry::Exitance,
         },
     };
-    let c2 = parse_c2("SpectrumOptions.c2", o.string("c2", "UNSUPPORTED")?)?;
+    let c2 = parse_c2(
+        "SpectrumOptions.c2",
+        o.string("c2", "UNSUPPORTED")?.as_deref(),
+    )?;
     let spectrum = Spectrum {
         variable,
         quantity,

@@ -12,7 +12,7 @@ use wasm_bindgen::prelude::*;
 use wasm_bindgen::JsCast;
 
 use super::error::{at, fail, map_indexed, with_room};
-use super::opts::{choose, Opts};
+use super::opts::{choose, Opts, Schema};
 use super::opts::{js_string, opt_js_string};
 use super::radiometry::parse_c2;
 use crate::constants::C2Convention;
@@ -31,6 +31,7 @@ use crate::thermometry::{
 };
 use crate::units::{convert_spectral, SpectralKind, SpectralUnit};
 use crate::Error;
+use std::borrow::Cow;
 
 #[wasm_bindgen(typescript_custom_section)]
 const TS_THERMOMETRY: &str = r#"
@@ -361,14 +362,77 @@ fn number_array(what: &str, v: &JsValue) -> Result<Vec<f64>, JsValue> {
     ))
 }
 
-fn required_string(o: &Opts, key: &str, code: &'static str) -> Result<String, JsValue> {
+fn required_string(o: &Opts, key: &str, code: &'static str) -> Result<Cow<'static, str>, JsValue> {
     o.string(key, code)?
         .ok_or_else(|| fail(code, format!("{}.{key} is required", o.what())))
+}
+
+const POINT_FIELDS: &[&str] = &["kind", "wavelength", "unit", "c2"];
+const CURVE_FIELDS: &[&str] = &["kind", "aM", "bMK", "c", "c2"];
+
+/// `POINT_FIELDS` for the one-call reader, in the order `point_model` reads them.
+static POINT_SCHEMA: Schema = Schema {
+    id: 1,
+    fields: &[
+        ("kind", &["spectralPoint"]),
+        ("unit", &["m", "mm", "um", "nm"]),
+        ("c2", &["codata2018", "its90"]),
+        ("wavelength", &[]),
+    ],
+};
+
+/// `CURVE_FIELDS` for the one-call reader, in the order `curve_model` reads them.
+static CURVE_SCHEMA: Schema = Schema {
+    id: 2,
+    fields: &[
+        ("kind", &["sakumaHattori"]),
+        ("c2", &["codata2018", "its90"]),
+        ("aM", &[]),
+        ("bMK", &[]),
+        ("c", &[]),
+    ],
+};
+
+#[inline(never)]
+fn point_model(o: &Opts) -> Result<Model, JsValue> {
+    let unit = wavelength_unit(&required_string(o, "unit", "UNKNOWN_UNIT")?)?;
+    let c2 = parse_c2(
+        "SpectralPointModel.c2",
+        o.string("c2", "UNSUPPORTED")?.as_deref(),
+    )?;
+    let wl = to_m("wavelength", o.req_num("wavelength")?, unit)?;
+    Ok(Model::Point(SpectralPoint::new(wl, c2)?))
+}
+
+#[inline(never)]
+fn curve_model(o: &Opts) -> Result<Model, JsValue> {
+    let c2 = parse_c2(
+        "SakumaHattoriModel.c2",
+        o.string("c2", "UNSUPPORTED")?.as_deref(),
+    )?;
+    Ok(Model::Curve(SakumaHattori::new(
+        o.req_num("aM")?,
+        o.req_num("bMK")?,
+        o.req_num("c")?,
+        c2,
+    )?))
 }
 
 /// Reads and validates an `InstrumentModel`.
 #[inline(never)]
 pub(crate) fn parse_model(value: &JsValue) -> Result<Model, JsValue> {
+    // A well-formed curve or spectral-point model is read in one call into JavaScript; anything
+    // else (a response model, a malformed object) field by field below.
+    if let Some(o) = Opts::fast_only(value, "SakumaHattoriModel", &CURVE_SCHEMA) {
+        if o.string("kind", "UNSUPPORTED")?.is_some() {
+            return curve_model(&o);
+        }
+    }
+    if let Some(o) = Opts::fast_only(value, "SpectralPointModel", &POINT_SCHEMA) {
+        if o.string("kind", "UNSUPPORTED")?.is_some() {
+            return point_model(&o);
+        }
+    }
     let kind_v = if value.is_object() {
         Reflect::get(value, &JsValue::from_str("kind"))?
     } else {
@@ -381,17 +445,7 @@ pub(crate) fn parse_model(value: &JsValue) -> Result<Model, JsValue> {
         &["spectralPoint", "response", "sakumaHattori"],
     )?;
     match k {
-        0 => {
-            let o = Opts::new(
-                value,
-                "SpectralPointModel",
-                &["kind", "wavelength", "unit", "c2"],
-            )?;
-            let unit = wavelength_unit(&required_string(&o, "unit", "UNKNOWN_UNIT")?)?;
-            let c2 = parse_c2("SpectralPointModel.c2", o.string("c2", "UNSUPPORTED")?)?;
-            let wl = to_m("wavelength", o.req_num("wavelength")?, unit)?;
-            Ok(Model::Point(SpectralPoint::new(wl, c2)?))
-        }
+        0 => point_model(&Opts::new(value, "SpectralPointModel", POINT_FIELDS)?),
         1 => {
             let o = Opts::new(
                 value,
@@ -399,7 +453,10 @@ pub(crate) fn parse_model(value: &JsValue) -> Result<Model, JsValue> {
                 &["kind", "wavelengths", "values", "unit", "c2"],
             )?;
             let unit = wavelength_unit(&required_string(&o, "unit", "UNKNOWN_UNIT")?)?;
-            let c2 = parse_c2("ResponseModel.c2", o.string("c2", "UNSUPPORTED")?)?;
+            let c2 = parse_c2(
+                "ResponseModel.c2",
+                o.string("c2", "UNSUPPORTED")?.as_deref(),
+            )?;
             let wl = number_array("ResponseModel.wavelengths", &o.raw("wavelengths")?)?;
             let values = number_array("ResponseModel.values", &o.raw("values")?)?;
             let mut wavelengths_m = Vec::with_capacity(wl.len());
@@ -415,20 +472,7 @@ pub(crate) fn parse_model(value: &JsValue) -> Result<Model, JsValue> {
                 unit,
             })
         }
-        _ => {
-            let o = Opts::new(
-                value,
-                "SakumaHattoriModel",
-                &["kind", "aM", "bMK", "c", "c2"],
-            )?;
-            let c2 = parse_c2("SakumaHattoriModel.c2", o.string("c2", "UNSUPPORTED")?)?;
-            Ok(Model::Curve(SakumaHattori::new(
-                o.req_num("aM")?,
-                o.req_num("bMK")?,
-                o.req_num("c")?,
-                c2,
-            )?))
-        }
+        _ => curve_model(&Opts::new(value, "SakumaHattoriModel", CURVE_FIELDS)?),
     }
 }
 
@@ -584,7 +628,7 @@ fn parse_fixed_point(name: &str) -> Result<FixedPoint, JsValue> {
 }
 
 fn c2_arg(c2: Option<String>) -> Result<C2Convention, JsValue> {
-    parse_c2("c2", c2)
+    parse_c2("c2", c2.as_deref())
 }
 
 #[cfg(feature = "wasm-full")]
