@@ -72,9 +72,25 @@ pub trait FrameOutput: Copy + sealed::Sealed {
 }
 
 mod sealed {
-    pub trait Sealed {}
-    impl Sealed for u16 {}
-    impl Sealed for f32 {}
+    /// Private dispatch: the `u16` → `f32` pair takes the single-precision pixel loop.
+    pub trait Sealed: Sized {
+        fn as_counts(_s: &[Self]) -> Option<&[u16]> {
+            None
+        }
+        fn as_f32_mut(_s: &mut [Self]) -> Option<&mut [f32]> {
+            None
+        }
+    }
+    impl Sealed for u16 {
+        fn as_counts(s: &[Self]) -> Option<&[u16]> {
+            Some(s)
+        }
+    }
+    impl Sealed for f32 {
+        fn as_f32_mut(s: &mut [Self]) -> Option<&mut [f32]> {
+            Some(s)
+        }
+    }
     impl Sealed for f64 {}
 }
 
@@ -228,6 +244,79 @@ pub struct FrameConverter {
     o_minus_b0: f64,
     ks_r: f64,
     background: f64,
+    // single-precision form for u16 counts → f32 (see `Fast32`); None when the constants do not
+    // fit its preconditions
+    fast32: Option<Fast32>,
+}
+
+/// Per-frame constants of the single-precision pixel loop: v = ia/((raw − r0_hi) − r0_lo),
+/// T = k1/ln(1 + v) − k0, with r0 = −β/α the count at which the signal equals the background.
+#[derive(Debug, Clone, Copy, PartialEq)]
+struct Fast32 {
+    r0_hi: f32,
+    r0_lo: f32,
+    ia: f32,
+    k1: f32,
+    k0: f32,
+    /// Smallest ln(1 + v) taken in f32: T + k0 ≤ [`F32_SUM_LIMIT_K`] and v ≥ 1.
+    l_min: f32,
+}
+
+/// Largest T + k0 (K) converted in f32; hotter pixels fall back to f64 (see the module docs).
+const F32_SUM_LIMIT_K: f64 = 1200.0;
+/// Largest |k0| (K) for which the f32 loop is used.
+const F32_K0_LIMIT_K: f64 = 100.0;
+/// Pixels with |raw − r0| below this (counts) fall back to f64 (sign and precision).
+const F32_MIN_MARGIN: f32 = 0.0625;
+/// Output bits marking a pixel for the f64 fallback pass (a NaN other than the one written for
+/// invalid pixels).
+const MARK_BITS: u32 = 0x7fc0_0001;
+const NAN32_BITS: u32 = 0x7fc0_0000;
+/// √½ as f32 bits, and ln 2 split so that k·LN2_HI32 is exact for |k| < 128 (fdlibm's split).
+const SQRT_HALF_BITS32: u32 = 0x3f35_04f3;
+const LN2_HI32: f32 = f32::from_bits(0x3f31_7180);
+const LN2_LO32: f32 = f32::from_bits(0x3717_f7d1);
+
+/// Single-precision ln for w ≥ 1 (finite, w < 2¹²⁸): 2^k·m split, ln m = 2·atanh(s) to z⁴/9.
+#[inline(always)]
+fn ln32(w: f32) -> f32 {
+    let bits = w.to_bits();
+    let k = (bits.wrapping_sub(SQRT_HALF_BITS32) as i32) >> 23;
+    let m = f32::from_bits(bits.wrapping_sub((k as u32) << 23));
+    let kf = k as f32;
+    let f = m - 1.0;
+    let s = f / (2.0 + f);
+    let z = s * s;
+    let p = z * (1.0 / 3.0 + z * (1.0 / 5.0 + z * (1.0 / 7.0 + z * (1.0 / 9.0))));
+    // 2s + 2s·p keeps the leading term exact-ish; the split ln 2 avoids its rounding.
+    let two_s = s + s;
+    kf * LN2_HI32 + (two_s + (two_s * p + kf * LN2_LO32))
+}
+
+impl Fast32 {
+    fn new(alpha: f64, beta: f64, k1: f64, k0: f64) -> Option<Fast32> {
+        let r0 = -beta / alpha;
+        let ia = 1.0 / alpha;
+        // Counts are < 2¹⁶: with r0_hi a multiple of 2⁻⁶ and |r0_hi| < 2¹⁷, raw − r0_hi is exact.
+        if !(r0.abs() < 131_072.0) || !(k0.abs() <= F32_K0_LIMIT_K) {
+            return None;
+        }
+        let r0_hi = crate::float::round(r0 * 64.0) / 64.0;
+        let r0_lo = r0 - r0_hi;
+        let ok32 = |v: f64| v.is_finite() && v.abs() < 1e30 && (v == 0.0 || v.abs() > 1e-30);
+        if !(ok32(ia) && ia > 0.0 && ok32(k1) && ok32(k0) && k1 > 0.0) {
+            return None;
+        }
+        Some(Fast32 {
+            r0_hi: r0_hi as f32,
+            r0_lo: r0_lo as f32,
+            ia: ia as f32,
+            k1: k1 as f32,
+            k0: k0 as f32,
+            // and ln(1 + v) ≥ ln 2 (v ≥ 1), so rounding 1 + v costs ≤ 1.45 u of L
+            l_min: (k1 / F32_SUM_LIMIT_K).max(0.6932) as f32,
+        })
+    }
 }
 
 impl FrameConverter {
@@ -312,6 +401,7 @@ impl FrameConverter {
             o_minus_b0: offset - b0,
             ks_r,
             background: b,
+            fast32: Fast32::new(alpha, beta, k1, k0),
         })
     }
 
@@ -372,17 +462,75 @@ impl FrameConverter {
                 got: out_k.len(),
             });
         }
+        if let (Some(counts), Some(out)) = (I::as_counts(raw), O::as_f32_mut(out_k)) {
+            if let Some(sum) = self.convert_counts_f32(counts, out) {
+                return Ok(sum);
+            }
+        }
         let n = raw.len();
-        Ok(drive(
-            out_k,
-            |i| {
-                let den = self.alpha * raw[i].to_f64() + self.beta;
-                // den below the normal range means S_obj ≤ 2.2e-308·C: treated as no signal.
-                let ok = (den >= f64::MIN_POSITIVE) & (den < f64::INFINITY);
-                self.finish(1.0, den, ok)
-            },
-            n,
-        ))
+        Ok(drive(out_k, |i| self.pixel64(raw[i].to_f64()), n))
+    }
+
+    /// The f64 pixel of [`FrameConverter::convert`].
+    #[inline(always)]
+    fn pixel64(&self, raw: f64) -> (f64, bool) {
+        let den = self.alpha * raw + self.beta;
+        // den below the normal range means S_obj ≤ 2.2e-308·C: treated as no signal.
+        let ok = (den >= f64::MIN_POSITIVE) & (den < f64::INFINITY);
+        self.finish(1.0, den, ok)
+    }
+
+    /// u16 counts → f32 kelvin in single precision (4 lanes of simd128); pixels outside the
+    /// f32 path's proven range are marked and redone in f64 (module docs). `None` (nothing
+    /// written) when the frame constants do not suit the f32 loop; the caller then takes the
+    /// f64 loop. Slices of unequal length are cut to the shorter.
+    #[inline(never)]
+    pub(crate) fn convert_counts_f32(&self, raw: &[u16], out: &mut [f32]) -> Option<FrameSummary> {
+        let f = self.fast32?;
+        let m = raw.len().min(out.len());
+        let (raw, out) = (&raw[..m], &mut out[..m]);
+        let mut valid = 0usize;
+        let mut redo = 0usize;
+        let (mut lo, mut hi) = (u32::MAX, 0u32);
+        for (o, &r) in out.iter_mut().zip(raw) {
+            let d = (f32::from(r) - f.r0_hi) - f.r0_lo;
+            let v = f.ia / d;
+            let l = ln32(1.0 + v);
+            let t = f.k1 / l - f.k0;
+            let bad = d <= -F32_MIN_MARGIN;
+            let good =
+                (d >= F32_MIN_MARGIN) & (v >= 1e-30) & (v <= 1e30) & (l >= f.l_min) & (t >= 1.0);
+            let bits = if good {
+                t.to_bits()
+            } else if bad {
+                NAN32_BITS
+            } else {
+                MARK_BITS
+            };
+            *o = f32::from_bits(bits);
+            valid += usize::from(good);
+            redo += usize::from(!good & !bad);
+            // positive floats order like their bits; the NaNs are above +∞ (module docs)
+            lo = lo.min(bits);
+            hi = hi.max(if good { bits } else { 0 });
+        }
+        if redo > 0 {
+            for (o, &r) in out.iter_mut().zip(raw) {
+                if o.to_bits() == MARK_BITS {
+                    let (t, ok) = self.pixel64(f64::from(r));
+                    let bits = if ok { (t as f32).to_bits() } else { NAN32_BITS };
+                    *o = f32::from_bits(bits);
+                    valid += usize::from(ok);
+                    lo = lo.min(bits);
+                    hi = hi.max(if ok { bits } else { 0 });
+                }
+            }
+        }
+        if valid == 0 {
+            return Some(summary(m, 0, f64::NAN, f64::NAN));
+        }
+        let (lo, hi) = (f32::from_bits(lo), f32::from_bits(hi));
+        Some(summary(m, valid, f64::from(lo), f64::from(hi)))
     }
 
     /// Converts a frame with a per-pixel emissivity map (`emissivity`, same length as `raw`)
@@ -468,15 +616,23 @@ fn drive<O: FrameOutput, F: Fn(usize) -> (f64, bool)>(
     let m = n.min(out.len());
     let out = &mut out[..m];
     let mut valid = 0usize;
+    let (mut lo, mut hi) = (u64::MAX, 0u64);
     for (i, o) in out.iter_mut().enumerate() {
         let (t, ok) = pixel(i);
         *o = O::from_f64(if ok { t } else { f64::NAN });
         valid += usize::from(ok);
+        // valid t are positive: they order like their bits (fused into this loop)
+        let b = t.to_bits();
+        lo = lo.min(if ok { b } else { u64::MAX });
+        hi = hi.max(if ok { b } else { 0 });
     }
     if valid == 0 {
         return summary(m, 0, f64::NAN, f64::NAN);
     }
-    let (lo, hi) = O::min_max(out);
+    // rounding to the output type is monotone: the extremes of the output are the rounded
+    // extremes, read back as f64 through `min_max`
+    let (lo, _) = O::min_max(&[O::from_f64(f64::from_bits(lo))]);
+    let (_, hi) = O::min_max(&[O::from_f64(f64::from_bits(hi))]);
     summary(m, valid, lo, hi)
 }
 
