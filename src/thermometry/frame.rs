@@ -35,11 +35,48 @@
 //! against the closed-form f64 inverse. With f32 output the final rounding (≤ 6e-8·T)
 //! dominates.
 //!
+//! Single-precision loop (u16 counts → f32 output, no emissivity map). The output is f32
+//! anyway, so these frames are evaluated in f32, four pixels per simd128 operation:
+//!
+//! ```text
+//! d = (raw − r0_hi) − r0_lo     r0 = −β/α (the count at the background), r0_hi = r0 rounded
+//!                               to a multiple of 2⁻⁶, r0_lo = r0 − r0_hi as f32
+//! v = ia/d                      ia = 1/α as f32  (v = num/den of the scalar form)
+//! L = ln32(1 + v)               2^k·m split as in fast_ln; ln m = 2s(1 + z/3 + z²/5 + z³/7 + z⁴/9);
+//!                               ln 2 split (fdlibm's hi/lo), so k·ln2_hi is exact
+//! T = k1/L − k0                 k1, k0 as f32
+//! ```
+//!
+//! Error bound (u = 2⁻²⁴, first order; products of two error terms are below 1e-13
+//! relative). raw < 2¹⁶ and |r0_hi| < 2¹⁷ are multiples of 2⁻⁶, so raw − r0_hi is exact; with
+//! |d| ≥ 1/16 the rounded r0_lo (≤ 2⁻⁷·u absolute) and the last subtraction give ≤ 1.13 u
+//! relative in d, and the f64 r0 itself ≤ 2e-10 u. v: + ia's rounding + the division, δv ≤
+//! 3.13 u. Since v/((1 + v)·ln(1 + v)) ≤ 1, δv passes to L at most unchanged; rounding 1 + v
+//! costs ≤ u absolute in L, ≤ 1.45 u relative because the loop takes only v ≥ 1 (L ≥ ln 2);
+//! the kernel (s to 2 u, the three additions, truncation z⁵/11 ≤ 0.03 u) ≤ 2.6 u relative for
+//! L ≥ ln 2 (measured 1.76 u by the unit test below). So δL ≤ 7.2 u, k1/L adds k1's rounding and the division (≤ 9.2 u relative on
+//! T + k0), and the subtraction of k0 adds u·|k0| and the final rounding u·T:
+//!
+//! ```text
+//! |ΔT| ≤ 9.2 u·(T + k0) + u·|k0| + u·T
+//! ```
+//!
+//! The loop is used only where T + k0 ≤ 1200 K and |k0| ≤ 100 K, which caps this at
+//! (11 040 + 100 + 1300)·u = 0.74 mK. Pixels outside that range (hotter, v < 1, |d| < 1/16 —
+//! where the valid/invalid decision is close — v outside [1e-30, 1e30], or T < 1 K) are
+//! marked in the loop and redone with the f64 pixel above, so the frame as a whole stays
+//! within 1 mK; frames whose constants do not fit (|r0| ≥ 2¹⁷, |k0| > 100 K, constants outside
+//! the normal f32 range) take the f64 loop. Invalid pixels (d ≤ −1/16: at or below the
+//! background) are decided as in the f64 loop. The sweep test `frame_f32_path_error_bound_sweep`
+//! (every count 0..=65535, an 8–14 µm curve over 200–1500 K and a 0.65 µm curve over
+//! 500–3500 K, background counts inside, near and outside the count range) measured a maximum
+//! of 0.23 mK against the exact closed-form inverse.
+//!
 //! The loop is branch-free (invalid pixels are computed on a substitute value and replaced by
 //! NaN with a select) so LLVM can vectorise it, including to wasm simd128. The summary's minimum
-//! and maximum come from a second pass over the output on the integer bit patterns (positive
-//! floats order like their bits; NaN sorts above +∞), which vectorises where float min/max
-//! reductions do not.
+//! and maximum are taken in the same loop on the integer bit patterns (positive floats order
+//! like their bits; NaN sorts above +∞), which vectorises where float min/max reductions do
+//! not.
 //!
 //! Invalid pixels — a non-finite input, a signal at or below the background the reflected,
 //! path and window terms give (no physical solution), an emissivity outside (0, 1], or a result
@@ -443,8 +480,8 @@ impl FrameConverter {
     ///
     /// # Accuracy
     /// |ΔT| ≤ 1e-10·(T + B/A) for x = c2/(A·T + B) ≥ 0.05, plus the output rounding (module
-    /// docs);
-    /// measured in `tests/thermometry_frame.rs`.
+    /// docs); u16 counts into f32 take the single-precision loop, |ΔT| ≤ 0.74 mK (module docs;
+    /// measured maximum 0.23 mK). Both measured in `tests/thermometry_frame.rs`.
     ///
     /// # Examples
     /// See [`FrameConverter::new`].
@@ -642,5 +679,28 @@ fn summary(n: usize, valid: usize, lo: f64, hi: f64) -> FrameSummary {
         invalid: n - valid,
         min_temperature_k: lo,
         max_temperature_k: hi,
+    }
+}
+
+#[cfg(all(test, feature = "std"))]
+mod tests {
+    use super::ln32;
+
+    /// The f32 kernel against the platform f64 logarithm (`f64::ln`, an outside implementation,
+    /// correctly rounded to within an ulp) for w ≥ 2, the only range the f32 loop uses: every
+    /// 5th f32 in [2, 16), every 101st above up to 1e30. Bound from the module docs: 2.6 u.
+    #[test]
+    fn ln32_relative_error_within_bound() {
+        let u = 2f64.powi(-24);
+        let mut worst: f64 = 0.0;
+        let mut b = 2f32.to_bits();
+        while f32::from_bits(b) < 1e30 {
+            let w = f32::from_bits(b);
+            let e = (f64::from(ln32(w)) / f64::from(w).ln() - 1.0).abs() / u;
+            worst = worst.max(e);
+            b += if w < 16.0 { 5 } else { 101 };
+        }
+        std::println!("ln32: max relative error {worst} u");
+        assert!(worst <= 2.6, "{worst} u");
     }
 }
