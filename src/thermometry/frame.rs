@@ -62,21 +62,22 @@
 //! ```
 //!
 //! The loop is used only where T + k0 ≤ 1200 K and |k0| ≤ 100 K, which caps this at
-//! (11 040 + 100 + 1300)·u = 0.74 mK. Pixels outside that range (hotter, v < 1, |d| < 1/16 —
-//! where the valid/invalid decision is close — v outside [1e-30, 1e30], or T < 1 K) are
-//! marked in the loop and redone with the f64 pixel above, so the frame as a whole stays
-//! within 1 mK; frames whose constants do not fit (|r0| ≥ 2¹⁷, |k0| > 100 K, constants outside
-//! the normal f32 range) take the f64 loop. Invalid pixels (d ≤ −1/16: at or below the
-//! background) are decided as in the f64 loop. The sweep test `frame_f32_path_error_bound_sweep`
+//! (11 040 + 100 + 1300)·u = 0.74 mK. If any pixel is outside that range (hotter, v < 1,
+//! |d| < 1/16 — where the valid/invalid decision is close — or T < 1 K), the whole frame is
+//! converted again by the f64 loop (one pass; cheaper in code than redoing single pixels), so
+//! the frame stays within 1 mK; frames whose constants do not fit (|r0| ≥ 2¹⁷, |k0| > 100 K,
+//! constants outside the normal f32 range) take the f64 loop directly. Invalid pixels
+//! (d ≤ −1/16: at or below the background) are decided as in the f64 loop. The sweep test `frame_f32_path_error_bound_sweep`
 //! (every count 0..=65535, an 8–14 µm curve over 200–1500 K and a 0.65 µm curve over
-//! 500–3500 K, background counts inside, near and outside the count range) measured a maximum
-//! of 0.23 mK against the exact closed-form inverse.
+//! 500–3500 K in several gains, background counts inside, near and outside the count range) measured a maximum
+//! of 0.21 mK against the exact closed-form inverse.
 //!
 //! The loop is branch-free (invalid pixels are computed on a substitute value and replaced by
 //! NaN with a select) so LLVM can vectorise it, including to wasm simd128. The summary's minimum
-//! and maximum are taken in the same loop on the integer bit patterns (positive floats order
-//! like their bits; NaN sorts above +∞), which vectorises where float min/max reductions do
-//! not.
+//! and maximum come from a second pass over the output on the integer bit patterns (positive
+//! floats order like their bits; NaN sorts above +∞), which vectorises where float min/max
+//! reductions do not (the single-precision loop below takes them in the same loop, on i32
+//! lanes).
 //!
 //! Invalid pixels — a non-finite input, a signal at or below the background the reflected,
 //! path and window terms give (no physical solution), an emissivity outside (0, 1], or a result
@@ -305,9 +306,6 @@ const F32_SUM_LIMIT_K: f64 = 1200.0;
 const F32_K0_LIMIT_K: f64 = 100.0;
 /// Pixels with |raw − r0| below this (counts) fall back to f64 (sign and precision).
 const F32_MIN_MARGIN: f32 = 0.0625;
-/// Output bits marking a pixel for the f64 fallback pass (a NaN other than the one written for
-/// invalid pixels).
-const MARK_BITS: u32 = 0x7fc0_0001;
 const NAN32_BITS: u32 = 0x7fc0_0000;
 /// √½ as f32 bits, and ln 2 split so that k·LN2_HI32 is exact for |k| < 128 (fdlibm's split).
 const SQRT_HALF_BITS32: u32 = 0x3f35_04f3;
@@ -481,7 +479,7 @@ impl FrameConverter {
     /// # Accuracy
     /// |ΔT| ≤ 1e-10·(T + B/A) for x = c2/(A·T + B) ≥ 0.05, plus the output rounding (module
     /// docs); u16 counts into f32 take the single-precision loop, |ΔT| ≤ 0.74 mK (module docs;
-    /// measured maximum 0.23 mK). Both measured in `tests/thermometry_frame.rs`.
+    /// measured maximum 0.21 mK). Both measured in `tests/thermometry_frame.rs`.
     ///
     /// # Examples
     /// See [`FrameConverter::new`].
@@ -505,7 +503,11 @@ impl FrameConverter {
             }
         }
         let n = raw.len();
-        Ok(drive(out_k, |i| self.pixel64(raw[i].to_f64()), n))
+        Ok(drive::<O, _, false>(
+            out_k,
+            |i| self.pixel64(raw[i].to_f64()),
+            n,
+        ))
     }
 
     /// The f64 pixel of [`FrameConverter::convert`].
@@ -517,51 +519,37 @@ impl FrameConverter {
         self.finish(1.0, den, ok)
     }
 
-    /// u16 counts → f32 kelvin in single precision (4 lanes of simd128); pixels outside the
-    /// f32 path's proven range are marked and redone in f64 (module docs). `None` (nothing
-    /// written) when the frame constants do not suit the f32 loop; the caller then takes the
-    /// f64 loop. Slices of unequal length are cut to the shorter.
+    /// u16 counts → f32 kelvin in single precision (4 lanes of simd128), when every pixel is
+    /// inside the f32 loop's proven range (module docs). `None` (the output then holds nothing
+    /// usable) when the frame constants do not suit the f32 loop or a pixel needs f64; the
+    /// caller then takes the f64 loop. Slices of unequal length are cut to the shorter.
     #[inline(never)]
     pub(crate) fn convert_counts_f32(&self, raw: &[u16], out: &mut [f32]) -> Option<FrameSummary> {
         let f = self.fast32?;
         let m = raw.len().min(out.len());
         let (raw, out) = (&raw[..m], &mut out[..m]);
         let mut valid = 0usize;
-        let mut redo = 0usize;
         let (mut lo, mut hi) = (u32::MAX, 0u32);
+        let mut redo = false;
         for (o, &r) in out.iter_mut().zip(raw) {
             let d = (f32::from(r) - f.r0_hi) - f.r0_lo;
             let v = f.ia / d;
             let l = ln32(1.0 + v);
             let t = f.k1 / l - f.k0;
             let bad = d <= -F32_MIN_MARGIN;
-            let good =
-                (d >= F32_MIN_MARGIN) & (v >= 1e-30) & (v <= 1e30) & (l >= f.l_min) & (t >= 1.0);
-            let bits = if good {
-                t.to_bits()
-            } else if bad {
-                NAN32_BITS
-            } else {
-                MARK_BITS
-            };
+            // (v ≥ 1 follows from l ≥ l_min, and v < 2e31 from d ≥ 1/16, ia < 1e30)
+            let good = (d >= F32_MIN_MARGIN) & (l >= f.l_min) & (t >= 1.0);
+            let bits = if good { t.to_bits() } else { NAN32_BITS };
             *o = f32::from_bits(bits);
             valid += usize::from(good);
-            redo += usize::from(!good & !bad);
-            // positive floats order like their bits; the NaNs are above +∞ (module docs)
+            redo |= !good & !bad;
+            // positive floats order like their bits; the NaN is above +∞ (module docs)
             lo = lo.min(bits);
             hi = hi.max(if good { bits } else { 0 });
         }
-        if redo > 0 {
-            for (o, &r) in out.iter_mut().zip(raw) {
-                if o.to_bits() == MARK_BITS {
-                    let (t, ok) = self.pixel64(f64::from(r));
-                    let bits = if ok { (t as f32).to_bits() } else { NAN32_BITS };
-                    *o = f32::from_bits(bits);
-                    valid += usize::from(ok);
-                    lo = lo.min(bits);
-                    hi = hi.max(if ok { bits } else { 0 });
-                }
-            }
+        // a pixel outside the f32 loop's range: the f64 loop takes the frame
+        if redo {
+            return None;
         }
         if valid == 0 {
             return Some(summary(m, 0, f64::NAN, f64::NAN));
@@ -624,7 +612,7 @@ impl FrameConverter {
             });
         }
         let n = raw.len();
-        Ok(drive(
+        Ok(drive::<O, _, true>(
             out_k,
             |i| {
                 let eps = emissivity[i].to_f64();
@@ -645,7 +633,7 @@ impl FrameConverter {
 /// Runs `pixel` over indices 0..n (n = out.len(), the inputs already checked to be as long),
 /// writing T or NaN and counting valid pixels; then takes min/max in a second pass.
 #[inline(always)]
-fn drive<O: FrameOutput, F: Fn(usize) -> (f64, bool)>(
+fn drive<O: FrameOutput, F: Fn(usize) -> (f64, bool), const FUSED: bool>(
     out: &mut [O],
     pixel: F,
     n: usize,
@@ -658,13 +646,19 @@ fn drive<O: FrameOutput, F: Fn(usize) -> (f64, bool)>(
         let (t, ok) = pixel(i);
         *o = O::from_f64(if ok { t } else { f64::NAN });
         valid += usize::from(ok);
-        // valid t are positive: they order like their bits (fused into this loop)
-        let b = t.to_bits();
-        lo = lo.min(if ok { b } else { u64::MAX });
-        hi = hi.max(if ok { b } else { 0 });
+        if FUSED {
+            // valid t are positive: they order like their bits
+            let b = t.to_bits();
+            lo = lo.min(if ok { b } else { u64::MAX });
+            hi = hi.max(if ok { b } else { 0 });
+        }
     }
     if valid == 0 {
         return summary(m, 0, f64::NAN, f64::NAN);
+    }
+    if !FUSED {
+        let (lo, hi) = O::min_max(out);
+        return summary(m, valid, lo, hi);
     }
     // rounding to the output type is monotone: the extremes of the output are the rounded
     // extremes, read back as f64 through `min_max`
