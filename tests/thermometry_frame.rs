@@ -241,3 +241,80 @@ fn full_frame_summary() {
         (f64::from(lo), f64::from(hi))
     );
 }
+
+/// The single-precision loop (u16 counts → f32) against the exact closed-form f64 inverse
+/// (`object_temperature`), every count 0..=65535, for an LWIR curve over 200–1500 K and a
+/// 0.65 µm curve over 500–3500 K, with count scalings that put the background count (where
+/// ln(1 + v) → ∞ and w → 1 at the far end) inside the range, near an integer from either side,
+/// and below zero. Bound from the module docs: ≤ 1 mK (the f32 loop's own bound ≤ 0.74 mK at its
+/// T + B/A ≤ 1200 K limit; a frame with a hotter pixel or one within 1/16 count of the
+/// background goes through the f64 loop). Validity (NaN or not) must match the exact inverse pixel for pixel.
+#[test]
+fn frame_f32_path_error_bound_sweep() {
+    let (lwir, cond) = lwir_setup();
+    let sw = SakumaHattori::new(0.65e-6, 3e-10, 2.0e9, C2Convention::Its90).unwrap();
+    let sw_cond = Conditions {
+        emissivity: 0.8,
+        reflected_temperature_k: 600.0,
+        ..Conditions::BLACKBODY
+    };
+    let mut overall: f64 = 0.0;
+    // (lo, hi) sub-ranges: counts 300..65000 span S(lo)..S(hi); a 0.65 µm signal changes by
+    // e^38 over 500–3500 K, far more than 16 bits hold, so that curve is swept gain by gain.
+    // (a frame with any pixel outside the f32 loop's range, e.g. above T + B/A = 1200 K, goes
+    // whole through the f64 loop, so the first range of each curve stays below that)
+    let lwir_ranges = [(200.0, 1150.0), (200.0, 1500.0)];
+    let sw_ranges = [
+        (500.0, 620.0),
+        (600.0, 800.0),
+        (780.0, 1100.0),
+        (1050.0, 1600.0),
+        (1500.0, 3500.0),
+    ];
+    for (name, curve, cond, ranges) in [
+        ("LWIR 8-14 um", lwir, cond, &lwir_ranges[..]),
+        ("0.65 um", sw, sw_cond, &sw_ranges[..]),
+    ] {
+        let (a, b) = cond.affine(&curve).unwrap();
+        let sig = |t: f64| a * curve.signal(t).unwrap() + b;
+        // signal = gain·count + offset; r0 = (b − offset)/gain is the background count
+        let mut scalings = Vec::new();
+        for &(lo, hi) in ranges {
+            let g = (sig(hi) - sig(lo)) / 64_700.0;
+            scalings.push((g, sig(lo) - 300.0 * g));
+        }
+        let (_, hi) = ranges[0];
+        let span = sig(hi) - b;
+        for r0 in [1000.01, 999.99, 37.5, -20_000.0] {
+            let g = span / (65_535.0 - r0);
+            scalings.push((g, b - g * r0));
+        }
+        let counts: Vec<u16> = (0..=u16::MAX).collect();
+        for (gain, offset) in scalings {
+            let conv = FrameConverter::new(&curve, &cond, gain, offset).unwrap();
+            let mut out = vec![0f32; counts.len()];
+            let sum = conv.convert(&counts, &mut out).unwrap();
+            let mut worst: f64 = 0.0;
+            let mut valid = 0;
+            for (&c, &t) in counts.iter().zip(&out) {
+                let s = gain * f64::from(c) + offset;
+                match object_temperature(&curve, s, &cond) {
+                    Ok(exact) if exact < 1e4 => {
+                        valid += 1;
+                        assert!(!t.is_nan(), "{name}: count {c}");
+                        worst = worst.max((f64::from(t) - exact).abs());
+                    }
+                    Ok(_) => valid += 1,
+                    Err(_) => assert!(t.is_nan(), "{name}: count {c} gave {t}"),
+                }
+            }
+            assert_eq!(sum.valid, valid, "{name}");
+            println!(
+                "f32 loop {name}, gain {gain:.4e}, offset {offset:.4e}: {valid} valid, max |dT| = {worst:e} K"
+            );
+            overall = overall.max(worst);
+            assert!(worst <= 0.74e-3, "{name}: {worst}");
+        }
+    }
+    println!("f32 loop: overall max |dT| = {overall:e} K");
+}

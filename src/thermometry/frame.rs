@@ -35,11 +35,49 @@
 //! against the closed-form f64 inverse. With f32 output the final rounding (≤ 6e-8·T)
 //! dominates.
 //!
+//! Single-precision loop (u16 counts → f32 output, no emissivity map). The output is f32
+//! anyway, so these frames are evaluated in f32, four pixels per simd128 operation:
+//!
+//! ```text
+//! d = (raw − r0_hi) − r0_lo     r0 = −β/α (the count at the background), r0_hi = r0 rounded
+//!                               to a multiple of 2⁻⁶, r0_lo = r0 − r0_hi as f32
+//! v = ia/d                      ia = 1/α as f32  (v = num/den of the scalar form)
+//! L = ln32(1 + v)               2^k·m split as in fast_ln; ln m = 2s(1 + z/3 + z²/5 + z³/7 + z⁴/9);
+//!                               ln 2 split (fdlibm's hi/lo), so k·ln2_hi is exact
+//! T = k1/L − k0                 k1, k0 as f32
+//! ```
+//!
+//! Error bound (u = 2⁻²⁴, first order; products of two error terms are below 1e-13
+//! relative). raw < 2¹⁶ and |r0_hi| < 2¹⁷ are multiples of 2⁻⁶, so raw − r0_hi is exact; with
+//! |d| ≥ 1/16 the rounded r0_lo (≤ 2⁻⁷·u absolute) and the last subtraction give ≤ 1.13 u
+//! relative in d, and the f64 r0 itself ≤ 2e-10 u. v: + ia's rounding + the division, δv ≤
+//! 3.13 u. Since v/((1 + v)·ln(1 + v)) ≤ 1, δv passes to L at most unchanged; rounding 1 + v
+//! costs ≤ u absolute in L, ≤ 1.45 u relative because the loop takes only v ≥ 1 (L ≥ ln 2);
+//! the kernel (s to 2 u, the three additions, truncation z⁵/11 ≤ 0.03 u) ≤ 2.6 u relative for
+//! L ≥ ln 2 (measured 1.76 u by the unit test below). So δL ≤ 7.2 u, k1/L adds k1's rounding and the division (≤ 9.2 u relative on
+//! T + k0), and the subtraction of k0 adds u·|k0| and the final rounding u·T:
+//!
+//! ```text
+//! |ΔT| ≤ 9.2 u·(T + k0) + u·|k0| + u·T
+//! ```
+//!
+//! The loop is used only where T + k0 ≤ 1200 K and |k0| ≤ 100 K, which caps this at
+//! (11 040 + 100 + 1300)·u = 0.74 mK. If any pixel is outside that range (hotter, v < 1,
+//! |d| < 1/16 — where the valid/invalid decision is close — or T < 1 K), the whole frame is
+//! converted again by the f64 loop (one pass; cheaper in code than redoing single pixels), so
+//! the frame stays within 1 mK; frames whose constants do not fit (|r0| ≥ 2¹⁷, |k0| > 100 K,
+//! constants outside the normal f32 range) take the f64 loop directly. Invalid pixels
+//! (d ≤ −1/16: at or below the background) are decided as in the f64 loop. The sweep test `frame_f32_path_error_bound_sweep`
+//! (every count 0..=65535, an 8–14 µm curve over 200–1500 K and a 0.65 µm curve over
+//! 500–3500 K in several gains, background counts inside, near and outside the count range) measured a maximum
+//! of 0.21 mK against the exact closed-form inverse.
+//!
 //! The loop is branch-free (invalid pixels are computed on a substitute value and replaced by
 //! NaN with a select) so LLVM can vectorise it, including to wasm simd128. The summary's minimum
 //! and maximum come from a second pass over the output on the integer bit patterns (positive
 //! floats order like their bits; NaN sorts above +∞), which vectorises where float min/max
-//! reductions do not.
+//! reductions do not (the single-precision loop below takes them in the same loop, on i32
+//! lanes).
 //!
 //! Invalid pixels — a non-finite input, a signal at or below the background the reflected,
 //! path and window terms give (no physical solution), an emissivity outside (0, 1], or a result
@@ -72,9 +110,25 @@ pub trait FrameOutput: Copy + sealed::Sealed {
 }
 
 mod sealed {
-    pub trait Sealed {}
-    impl Sealed for u16 {}
-    impl Sealed for f32 {}
+    /// Private dispatch: the `u16` → `f32` pair takes the single-precision pixel loop.
+    pub trait Sealed: Sized {
+        fn as_counts(_s: &[Self]) -> Option<&[u16]> {
+            None
+        }
+        fn as_f32_mut(_s: &mut [Self]) -> Option<&mut [f32]> {
+            None
+        }
+    }
+    impl Sealed for u16 {
+        fn as_counts(s: &[Self]) -> Option<&[u16]> {
+            Some(s)
+        }
+    }
+    impl Sealed for f32 {
+        fn as_f32_mut(s: &mut [Self]) -> Option<&mut [f32]> {
+            Some(s)
+        }
+    }
     impl Sealed for f64 {}
 }
 
@@ -228,6 +282,76 @@ pub struct FrameConverter {
     o_minus_b0: f64,
     ks_r: f64,
     background: f64,
+    // single-precision form for u16 counts → f32 (see `Fast32`); None when the constants do not
+    // fit its preconditions
+    fast32: Option<Fast32>,
+}
+
+/// Per-frame constants of the single-precision pixel loop: v = ia/((raw − r0_hi) − r0_lo),
+/// T = k1/ln(1 + v) − k0, with r0 = −β/α the count at which the signal equals the background.
+#[derive(Debug, Clone, Copy, PartialEq)]
+struct Fast32 {
+    r0_hi: f32,
+    r0_lo: f32,
+    ia: f32,
+    k1: f32,
+    k0: f32,
+    /// Smallest ln(1 + v) taken in f32: T + k0 ≤ [`F32_SUM_LIMIT_K`] and v ≥ 1.
+    l_min: f32,
+}
+
+/// Largest T + k0 (K) converted in f32; hotter pixels fall back to f64 (see the module docs).
+const F32_SUM_LIMIT_K: f64 = 1200.0;
+/// Largest |k0| (K) for which the f32 loop is used.
+const F32_K0_LIMIT_K: f64 = 100.0;
+/// Pixels with |raw − r0| below this (counts) fall back to f64 (sign and precision).
+const F32_MIN_MARGIN: f32 = 0.0625;
+const NAN32_BITS: u32 = 0x7fc0_0000;
+/// √½ as f32 bits, and ln 2 split so that k·LN2_HI32 is exact for |k| < 128 (fdlibm's split).
+const SQRT_HALF_BITS32: u32 = 0x3f35_04f3;
+const LN2_HI32: f32 = f32::from_bits(0x3f31_7180);
+const LN2_LO32: f32 = f32::from_bits(0x3717_f7d1);
+
+/// Single-precision ln for w ≥ 1 (finite, w < 2¹²⁸): 2^k·m split, ln m = 2·atanh(s) to z⁴/9.
+#[inline(always)]
+fn ln32(w: f32) -> f32 {
+    let bits = w.to_bits();
+    let k = (bits.wrapping_sub(SQRT_HALF_BITS32) as i32) >> 23;
+    let m = f32::from_bits(bits.wrapping_sub((k as u32) << 23));
+    let kf = k as f32;
+    let f = m - 1.0;
+    let s = f / (2.0 + f);
+    let z = s * s;
+    let p = z * (1.0 / 3.0 + z * (1.0 / 5.0 + z * (1.0 / 7.0 + z * (1.0 / 9.0))));
+    // 2s + 2s·p keeps the leading term exact-ish; the split ln 2 avoids its rounding.
+    let two_s = s + s;
+    kf * LN2_HI32 + (two_s + (two_s * p + kf * LN2_LO32))
+}
+
+impl Fast32 {
+    fn new(alpha: f64, beta: f64, k1: f64, k0: f64) -> Option<Fast32> {
+        let r0 = -beta / alpha;
+        let ia = 1.0 / alpha;
+        // Counts are < 2¹⁶: with r0_hi a multiple of 2⁻⁶ and |r0_hi| < 2¹⁷, raw − r0_hi is exact.
+        if !(r0.abs() < 131_072.0) || !(k0.abs() <= F32_K0_LIMIT_K) {
+            return None;
+        }
+        let r0_hi = crate::float::round(r0 * 64.0) / 64.0;
+        let r0_lo = r0 - r0_hi;
+        let ok32 = |v: f64| v.is_finite() && v.abs() < 1e30 && (v == 0.0 || v.abs() > 1e-30);
+        if !(ok32(ia) && ia > 0.0 && ok32(k1) && ok32(k0) && k1 > 0.0) {
+            return None;
+        }
+        Some(Fast32 {
+            r0_hi: r0_hi as f32,
+            r0_lo: r0_lo as f32,
+            ia: ia as f32,
+            k1: k1 as f32,
+            k0: k0 as f32,
+            // and ln(1 + v) ≥ ln 2 (v ≥ 1), so rounding 1 + v costs ≤ 1.45 u of L
+            l_min: (k1 / F32_SUM_LIMIT_K).max(0.6932) as f32,
+        })
+    }
 }
 
 impl FrameConverter {
@@ -312,6 +436,7 @@ impl FrameConverter {
             o_minus_b0: offset - b0,
             ks_r,
             background: b,
+            fast32: Fast32::new(alpha, beta, k1, k0),
         })
     }
 
@@ -353,8 +478,8 @@ impl FrameConverter {
     ///
     /// # Accuracy
     /// |ΔT| ≤ 1e-10·(T + B/A) for x = c2/(A·T + B) ≥ 0.05, plus the output rounding (module
-    /// docs);
-    /// measured in `tests/thermometry_frame.rs`.
+    /// docs); u16 counts into f32 take the single-precision loop, |ΔT| ≤ 0.74 mK (module docs;
+    /// measured maximum 0.21 mK). Both measured in `tests/thermometry_frame.rs`.
     ///
     /// # Examples
     /// See [`FrameConverter::new`].
@@ -372,17 +497,65 @@ impl FrameConverter {
                 got: out_k.len(),
             });
         }
+        if let (Some(counts), Some(out)) = (I::as_counts(raw), O::as_f32_mut(out_k)) {
+            if let Some(sum) = self.convert_counts_f32(counts, out) {
+                return Ok(sum);
+            }
+        }
         let n = raw.len();
-        Ok(drive(
+        Ok(drive::<O, _, false>(
             out_k,
-            |i| {
-                let den = self.alpha * raw[i].to_f64() + self.beta;
-                // den below the normal range means S_obj ≤ 2.2e-308·C: treated as no signal.
-                let ok = (den >= f64::MIN_POSITIVE) & (den < f64::INFINITY);
-                self.finish(1.0, den, ok)
-            },
+            |i| self.pixel64(raw[i].to_f64()),
             n,
         ))
+    }
+
+    /// The f64 pixel of [`FrameConverter::convert`].
+    #[inline(always)]
+    fn pixel64(&self, raw: f64) -> (f64, bool) {
+        let den = self.alpha * raw + self.beta;
+        // den below the normal range means S_obj ≤ 2.2e-308·C: treated as no signal.
+        let ok = (den >= f64::MIN_POSITIVE) & (den < f64::INFINITY);
+        self.finish(1.0, den, ok)
+    }
+
+    /// u16 counts → f32 kelvin in single precision (4 lanes of simd128), when every pixel is
+    /// inside the f32 loop's proven range (module docs). `None` (the output then holds nothing
+    /// usable) when the frame constants do not suit the f32 loop or a pixel needs f64; the
+    /// caller then takes the f64 loop. Slices of unequal length are cut to the shorter.
+    #[inline(never)]
+    pub(crate) fn convert_counts_f32(&self, raw: &[u16], out: &mut [f32]) -> Option<FrameSummary> {
+        let f = self.fast32?;
+        let m = raw.len().min(out.len());
+        let (raw, out) = (&raw[..m], &mut out[..m]);
+        let mut valid = 0usize;
+        let (mut lo, mut hi) = (u32::MAX, 0u32);
+        let mut redo = false;
+        for (o, &r) in out.iter_mut().zip(raw) {
+            let d = (f32::from(r) - f.r0_hi) - f.r0_lo;
+            let v = f.ia / d;
+            let l = ln32(1.0 + v);
+            let t = f.k1 / l - f.k0;
+            let bad = d <= -F32_MIN_MARGIN;
+            // (v ≥ 1 follows from l ≥ l_min, and v < 2e31 from d ≥ 1/16, ia < 1e30)
+            let good = (d >= F32_MIN_MARGIN) & (l >= f.l_min) & (t >= 1.0);
+            let bits = if good { t.to_bits() } else { NAN32_BITS };
+            *o = f32::from_bits(bits);
+            valid += usize::from(good);
+            redo |= !good & !bad;
+            // positive floats order like their bits; the NaN is above +∞ (module docs)
+            lo = lo.min(bits);
+            hi = hi.max(if good { bits } else { 0 });
+        }
+        // a pixel outside the f32 loop's range: the f64 loop takes the frame
+        if redo {
+            return None;
+        }
+        if valid == 0 {
+            return Some(summary(m, 0, f64::NAN, f64::NAN));
+        }
+        let (lo, hi) = (f32::from_bits(lo), f32::from_bits(hi));
+        Some(summary(m, valid, f64::from(lo), f64::from(hi)))
     }
 
     /// Converts a frame with a per-pixel emissivity map (`emissivity`, same length as `raw`)
@@ -439,7 +612,7 @@ impl FrameConverter {
             });
         }
         let n = raw.len();
-        Ok(drive(
+        Ok(drive::<O, _, true>(
             out_k,
             |i| {
                 let eps = emissivity[i].to_f64();
@@ -460,7 +633,7 @@ impl FrameConverter {
 /// Runs `pixel` over indices 0..n (n = out.len(), the inputs already checked to be as long),
 /// writing T or NaN and counting valid pixels; then takes min/max in a second pass.
 #[inline(always)]
-fn drive<O: FrameOutput, F: Fn(usize) -> (f64, bool)>(
+fn drive<O: FrameOutput, F: Fn(usize) -> (f64, bool), const FUSED: bool>(
     out: &mut [O],
     pixel: F,
     n: usize,
@@ -468,15 +641,29 @@ fn drive<O: FrameOutput, F: Fn(usize) -> (f64, bool)>(
     let m = n.min(out.len());
     let out = &mut out[..m];
     let mut valid = 0usize;
+    let (mut lo, mut hi) = (u64::MAX, 0u64);
     for (i, o) in out.iter_mut().enumerate() {
         let (t, ok) = pixel(i);
         *o = O::from_f64(if ok { t } else { f64::NAN });
         valid += usize::from(ok);
+        if FUSED {
+            // valid t are positive: they order like their bits
+            let b = t.to_bits();
+            lo = lo.min(if ok { b } else { u64::MAX });
+            hi = hi.max(if ok { b } else { 0 });
+        }
     }
     if valid == 0 {
         return summary(m, 0, f64::NAN, f64::NAN);
     }
-    let (lo, hi) = O::min_max(out);
+    if !FUSED {
+        let (lo, hi) = O::min_max(out);
+        return summary(m, valid, lo, hi);
+    }
+    // rounding to the output type is monotone: the extremes of the output are the rounded
+    // extremes, read back as f64 through `min_max`
+    let (lo, _) = O::min_max(&[O::from_f64(f64::from_bits(lo))]);
+    let (_, hi) = O::min_max(&[O::from_f64(f64::from_bits(hi))]);
     summary(m, valid, lo, hi)
 }
 
@@ -486,5 +673,28 @@ fn summary(n: usize, valid: usize, lo: f64, hi: f64) -> FrameSummary {
         invalid: n - valid,
         min_temperature_k: lo,
         max_temperature_k: hi,
+    }
+}
+
+#[cfg(all(test, feature = "std"))]
+mod tests {
+    use super::ln32;
+
+    /// The f32 kernel against the platform f64 logarithm (`f64::ln`, an outside implementation,
+    /// correctly rounded to within an ulp) for w ≥ 2, the only range the f32 loop uses: every
+    /// 5th f32 in [2, 16), every 101st above up to 1e30. Bound from the module docs: 2.6 u.
+    #[test]
+    fn ln32_relative_error_within_bound() {
+        let u = 2f64.powi(-24);
+        let mut worst: f64 = 0.0;
+        let mut b = 2f32.to_bits();
+        while f32::from_bits(b) < 1e30 {
+            let w = f32::from_bits(b);
+            let e = (f64::from(ln32(w)) / f64::from(w).ln() - 1.0).abs() / u;
+            worst = worst.max(e);
+            b += if w < 16.0 { 5 } else { 101 };
+        }
+        std::println!("ln32: max relative error {worst} u");
+        assert!(worst <= 2.6, "{worst} u");
     }
 }

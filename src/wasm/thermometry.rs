@@ -1332,7 +1332,6 @@ pub fn convert_frame(
                 .into(),
         )),
     };
-    let pixels = frame_pixels(&raw)?;
     let empty = JsValue::from(Object::new());
     let ov = if options.is_undefined() {
         &empty
@@ -1365,6 +1364,24 @@ pub fn convert_frame(
         Some(v) => choose("FrameOptions.output", &v, &["float32", "float64"])? == 1,
     };
     let conv = FrameConverter::new(&sh, &conditions, gain, offset)?;
+    // Counts to f32 without an emissivity map (the camera case): straight from the typed
+    // slice into the returned array's buffer, through the core's single-precision loop.
+    // (None when the frame constants do not suit that loop: the f64 loop below runs instead.)
+    if let (Some(a), None, false) = (raw.dyn_ref::<Uint16Array>(), &eps, f64_out) {
+        let counts = a.to_vec();
+        let mut out32: Vec<f32> = with_room(counts.len())?;
+        out32.resize(counts.len(), 0.0);
+        if let Some(sum) = conv.convert_counts_f32(&counts, &mut out32) {
+            return Ok(frame_result(
+                Float32Array::from(out32.as_slice()).into(),
+                &sum,
+                sum.min_temperature_k,
+                sum.max_temperature_k,
+                conv.background(),
+            ));
+        }
+    }
+    let pixels = frame_pixels(&raw)?;
     let mut out = with_room(pixels.len())?;
     out.resize(pixels.len(), 0.0f64);
     let sum = match eps.as_deref() {
@@ -1388,12 +1405,23 @@ pub fn convert_frame(
             f64::from(sum.max_temperature_k as f32),
         )
     };
-    Ok(object(&[
+    Ok(frame_result(temps, &sum, lo, hi, conv.background()))
+}
+
+/// The `FrameResult` object of [`convert_frame`].
+fn frame_result(
+    temps: JsValue,
+    sum: &crate::thermometry::frame::FrameSummary,
+    lo: f64,
+    hi: f64,
+    bg: f64,
+) -> JsValue {
+    object(&[
         ("temperaturesK", temps),
         ("valid", num(sum.valid as f64)),
         ("invalid", num(sum.invalid as f64)),
         ("minTemperatureK", num(lo)),
         ("maxTemperatureK", num(hi)),
-        ("backgroundSignal", num(conv.background())),
-    ]))
+        ("backgroundSignal", num(bg)),
+    ])
 }
