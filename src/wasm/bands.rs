@@ -1,6 +1,9 @@
 //! Band integrals, blackbody fractions and dimensionless Planck integrals for JavaScript.
 //! Band limits are in the `unit` of the `SpectrumOptions` passed (see `radiometry.rs`).
 
+#[allow(unused_imports)]
+use super::prelude::*;
+
 use wasm_bindgen::prelude::*;
 
 use super::error::map_indexed;

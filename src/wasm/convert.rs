@@ -1,5 +1,8 @@
 //! Unit conversion and physical constants for JavaScript.
 
+#[allow(unused_imports)]
+use super::prelude::*;
+
 use js_sys::{Object, Reflect};
 use wasm_bindgen::prelude::*;
 

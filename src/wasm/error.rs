@@ -2,6 +2,9 @@
 //! `error.js`, re-exported from the package entry) carrying the core's stable code, the core's
 //! `Display` text and, for bulk calls, the index of the first bad element.
 
+#[allow(unused_imports)]
+use super::prelude::*;
+
 use wasm_bindgen::prelude::*;
 
 use crate::Error;
@@ -119,10 +122,40 @@ pub(crate) fn at(e: Error, index: usize) -> JsValue {
     to_js(e, Some(u32::try_from(index).unwrap_or(u32::MAX)))
 }
 
-/// An error detected by the binding layer itself (malformed options), with a core code.
+/// An error detected by the binding layer itself (malformed options), with a core code and a
+/// message made of `parts` (concatenated here rather than with `format!`, which would bring
+/// `core::fmt` into the WebAssembly module).
 #[inline(never)]
-pub(crate) fn fail(code: &'static str, message: String) -> JsValue {
-    binding_error(code, &message)
+pub(crate) fn fail(code: &'static str, parts: &[&str]) -> JsValue {
+    binding_error(code, &parts.concat())
+}
+
+/// `n` in decimal digits (for messages; see [`fail`]).
+pub(crate) fn decimal(n: usize) -> String {
+    let mut s = String::new();
+    let mut p = 1;
+    while n / p >= 10 {
+        p *= 10;
+    }
+    loop {
+        s.push(char::from(b'0' + (n / p % 10) as u8));
+        if p == 1 {
+            return s;
+        }
+        p /= 10;
+    }
+}
+
+/// `items` separated by ", " (for messages).
+pub(crate) fn list(items: &[&str]) -> String {
+    let mut s = String::new();
+    for (i, item) in items.iter().enumerate() {
+        if i > 0 {
+            s.push_str(", ");
+        }
+        s.push_str(item);
+    }
+    s
 }
 
 /// An empty vector with room for `n` values, or an `OUT_OF_RANGE` error when that much memory

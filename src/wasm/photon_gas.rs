@@ -1,6 +1,9 @@
 //! Photon-gas quantities and thermal-noise temperatures for JavaScript (frequencies in Hz,
 //! energies in J, temperatures in K).
 
+#[allow(unused_imports)]
+use super::prelude::*;
+
 use wasm_bindgen::prelude::*;
 
 use crate::stats;

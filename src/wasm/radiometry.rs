@@ -4,6 +4,9 @@
 //! peak positions) are in `options.unit`; densities are in SI per the SI unit of
 //! `options.variable` (per m, per m⁻¹ or per Hz — see `spectrumUnits`).
 
+#[allow(unused_imports)]
+use super::prelude::*;
+
 use wasm_bindgen::prelude::*;
 
 use super::error::{at, fail, map_indexed, with_room};
@@ -137,10 +140,7 @@ pub(crate) fn parse_c2(what: &str, s: Option<&str>) -> Result<C2Convention, JsVa
 pub(crate) fn parse_spectrum(value: &JsValue) -> Result<Spec, JsValue> {
     let o = Opts::with_schema(value, "SpectrumOptions", SPECTRUM_FIELDS, &SPECTRUM_SCHEMA)?;
     let unit_name = o.string("unit", "UNKNOWN_UNIT")?.ok_or_else(|| {
-        fail(
-            "UNKNOWN_UNIT",
-            "SpectrumOptions.unit is required (a spectral unit such as \"um\")".into(),
-        )
+        fail("UNKNOWN_UNIT", &["SpectrumOptions.unit is required (a spectral unit such as \"um\")"])
     })?;
     let unit = SpectralUnit::parse(&unit_name)?;
     let variable = match o.string("variable", "UNSUPPORTED")? {
@@ -158,12 +158,8 @@ pub(crate) fn parse_spectrum(value: &JsValue) -> Result<Spec, JsValue> {
             SpectralKind::Wavenumber => SpectralVariable::Wavenumber,
             SpectralKind::Frequency => SpectralVariable::Frequency,
             SpectralKind::PhotonEnergy => {
-                return Err(fail(
-                    "UNSUPPORTED",
-                    "SpectrumOptions.variable is required when unit is a photon-energy unit \
-                     (J, eV, meV): choose \"wavelength\", \"wavenumber\" or \"frequency\""
-                        .into(),
-                ))
+                return Err(fail("UNSUPPORTED", &["SpectrumOptions.variable is required when unit is a photon-energy unit \
+                     (J, eV, meV): choose \"wavelength\", \"wavenumber\" or \"frequency\""]))
             }
         },
     };
@@ -379,10 +375,10 @@ pub fn spectrum_units(
     let o = js_sys::Object::new();
     for (k, v) in [
         ("coordinate", s.unit.name().to_string()),
-        ("spectralDensity", format!("{base} {per}")),
-        ("spectralDensityDT", format!("{base} {per} K^-1")),
+        ("spectralDensity", [base, " ", per].concat()),
+        ("spectralDensityDT", [base, " ", per, " K^-1"].concat()),
         ("total", base.to_string()),
-        ("totalDT", format!("{base} K^-1")),
+        ("totalDT", [base, " K^-1"].concat()),
     ] {
         let _ = js_sys::Reflect::set(&o, &JsValue::from_str(k), &JsValue::from_str(&v));
     }

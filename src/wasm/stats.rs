@@ -2,6 +2,9 @@
 //! photon-gas quantities and noise temperatures. Energies in J, frequencies in Hz, temperatures
 //! in K (convert eV with `convertSpectral(x, "eV", "J")`).
 
+#[allow(unused_imports)]
+use super::prelude::*;
+
 use wasm_bindgen::prelude::*;
 
 use super::error::map_indexed;

@@ -7,11 +7,14 @@
 //! replace calibrated instruments and standard procedures, must not be used for medical
 //! temperature screening or process-safety decisions, and defer to local codes and standards.
 
+#[allow(unused_imports)]
+use super::prelude::*;
+
 use js_sys::{Array, Float32Array, Float64Array, Object, Reflect, Uint16Array};
 use wasm_bindgen::prelude::*;
 use wasm_bindgen::JsCast;
 
-use super::error::{at, fail, map_indexed, with_room};
+use super::error::{at, decimal, fail, map_indexed, with_room};
 use super::opts::{choose, Opts, Schema};
 use super::opts::{js_string, opt_js_string};
 use super::radiometry::parse_c2;
@@ -31,7 +34,7 @@ use crate::thermometry::{
 };
 use crate::units::{convert_spectral, SpectralKind, SpectralUnit};
 use crate::Error;
-use std::borrow::Cow;
+use alloc::borrow::Cow;
 
 #[wasm_bindgen(typescript_custom_section)]
 const TS_THERMOMETRY: &str = r#"
@@ -317,7 +320,7 @@ fn wavelength_unit(name: &str) -> Result<SpectralUnit, JsValue> {
     if u.kind() != SpectralKind::Wavelength {
         return Err(fail(
             "UNSUPPORTED",
-            format!("unit must be a wavelength unit (m, mm, um, nm), got \"{name}\""),
+            &["unit must be a wavelength unit (m, mm, um, nm), got \"", name, "\""],
         ));
     }
     Ok(u)
@@ -349,7 +352,7 @@ fn number_array(what: &str, v: &JsValue) -> Result<Vec<f64>, JsValue> {
                 None => {
                     return Err(fail(
                         "NON_FINITE",
-                        format!("{what}[{i}] must be a finite number (at index {i})"),
+                        &[what, "[", &decimal(i), "] must be a finite number (at index ", &decimal(i), ")"],
                     ))
                 }
             }
@@ -358,13 +361,13 @@ fn number_array(what: &str, v: &JsValue) -> Result<Vec<f64>, JsValue> {
     }
     Err(fail(
         "UNSUPPORTED",
-        format!("{what} must be a Float64Array or an array of numbers"),
+        &[what, " must be a Float64Array or an array of numbers"],
     ))
 }
 
 fn required_string(o: &Opts, key: &str, code: &'static str) -> Result<Cow<'static, str>, JsValue> {
     o.string(key, code)?
-        .ok_or_else(|| fail(code, format!("{}.{key} is required", o.what())))
+        .ok_or_else(|| fail(code, &[o.what(), ".", key, " is required"]))
 }
 
 const POINT_FIELDS: &[&str] = &["kind", "wavelength", "unit", "c2"];
@@ -503,14 +506,16 @@ pub(crate) fn parse_conditions(value: &JsValue) -> Result<Conditions, JsValue> {
             None if !needed => Ok(Conditions::BLACKBODY.reflected_temperature_k),
             None => Err(fail(
                 "NON_FINITE",
-                format!(
-                    "MeasurementConditions.{key} is required when {}",
+                &[
+                    "MeasurementConditions.",
+                    key,
+                    " is required when ",
                     if key == "reflectedTemperatureK" {
                         "emissivity < 1"
                     } else {
                         "pathTransmittance < 1"
-                    }
-                ),
+                    },
+                ],
             )),
         }
     };
@@ -536,11 +541,7 @@ pub(crate) fn parse_conditions(value: &JsValue) -> Result<Conditions, JsValue> {
             Some(t) => t,
             None if reflectance == 0.0 => temperature_k,
             None => {
-                return Err(fail(
-                    "NON_FINITE",
-                    "WindowConditions.reflectedTemperatureK is required when reflectance > 0"
-                        .into(),
-                ))
+                return Err(fail("NON_FINITE", &["WindowConditions.reflectedTemperatureK is required when reflectance > 0"]))
             }
         };
         Some(Window {
@@ -635,7 +636,7 @@ fn c2_arg(c2: Option<String>) -> Result<C2Convention, JsValue> {
 /// `nPoints` as a count in [2, 1e7] (OUT_OF_RANGE otherwise, so no call can run for hours).
 fn count(arg: &'static str, n: f64) -> Result<usize, JsValue> {
     finite(arg, n)?;
-    if n.fract() == 0.0 && (0.0..=1.0e7).contains(&n) {
+    if (0.0..=1.0e7).contains(&n) && (n as usize) as f64 == n {
         // exact: an integer in [0, 1e7] converts without loss
         Ok(n as usize)
     } else {
@@ -853,10 +854,7 @@ fn with_response_dyn(
             let r = Response::new(&wavelengths_m, &values)?;
             Ok(f(&ResponseSignal::new(r, c2), unit)?)
         }
-        _ => Err(fail(
-            "UNSUPPORTED",
-            "this function needs a ResponseModel (kind \"response\")".into(),
-        )),
+        _ => Err(fail("UNSUPPORTED", &["this function needs a ResponseModel (kind \"response\")"])),
     }
 }
 
@@ -1297,10 +1295,7 @@ fn frame_pixels(raw: &JsValue) -> Result<Vec<f64>, JsValue> {
     } else if let Some(a) = raw.dyn_ref::<Float64Array>() {
         Ok(a.to_vec())
     } else {
-        Err(fail(
-            "UNSUPPORTED",
-            "raw must be a Uint16Array, Float32Array or Float64Array".into(),
-        ))
+        Err(fail("UNSUPPORTED", &["raw must be a Uint16Array, Float32Array or Float64Array"]))
     }
 }
 
@@ -1326,11 +1321,7 @@ pub fn convert_frame(
 ) -> Result<JsValue, JsValue> {
     let sh = match parse_model(&curve)? {
         Model::Curve(c) => c,
-        _ => return Err(fail(
-            "UNSUPPORTED",
-            "convertFrame needs a SakumaHattoriModel curve (fit one with sakumaHattoriFitModel)"
-                .into(),
-        )),
+        _ => return Err(fail("UNSUPPORTED", &["convertFrame needs a SakumaHattoriModel curve (fit one with sakumaHattoriFitModel)"])),
     };
     let empty = JsValue::from(Object::new());
     let ov = if options.is_undefined() {
@@ -1354,10 +1345,7 @@ pub fn convert_frame(
     } else if let Some(a) = ev.dyn_ref::<Float64Array>() {
         Some(a.to_vec())
     } else {
-        return Err(fail(
-            "UNSUPPORTED",
-            "FrameOptions.emissivity must be a Float32Array or Float64Array".into(),
-        ));
+        return Err(fail("UNSUPPORTED", &["FrameOptions.emissivity must be a Float32Array or Float64Array"]));
     };
     let f64_out = match o.string("output", "UNSUPPORTED")? {
         None => false,
