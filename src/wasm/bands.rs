@@ -34,6 +34,53 @@ fn band_to_si(s: &Spec, lower: f64, upper: f64) -> crate::Result<(f64, f64)> {
     }
 }
 
+/// The per-temperature (or per-value) operations of one band, shared by the scalar and the
+/// array exports (one out-of-line copy of the option parsing and error plumbing for all).
+#[derive(Clone, Copy)]
+enum BandOp {
+    Integral,
+    IntegralDT,
+    Fraction,
+    Inverse,
+}
+
+impl BandOp {
+    fn eval(self, s: &Spec, a: f64, b: f64, x: f64) -> crate::Result<f64> {
+        match self {
+            BandOp::Integral => band::band(&s.spectrum, a, b, x),
+            BandOp::IntegralDT => band::band_d_dt(&s.spectrum, a, b, x),
+            BandOp::Fraction => band::band_fraction(&s.spectrum, a, b, x),
+            BandOp::Inverse => inverse::temperature_from_band(&s.spectrum, a, b, x),
+        }
+    }
+}
+
+#[inline(never)]
+fn band_scalar(
+    op: BandOp,
+    options: &JsValue,
+    lower: f64,
+    upper: f64,
+    x: f64,
+) -> Result<f64, JsValue> {
+    let s = parse_spectrum(options)?;
+    let (a, b) = band_to_si(&s, lower, upper)?;
+    Ok(op.eval(&s, a, b, x)?)
+}
+
+#[inline(never)]
+fn band_array(
+    op: BandOp,
+    options: &JsValue,
+    lower: f64,
+    upper: f64,
+    xs: &[f64],
+) -> Result<Vec<f64>, JsValue> {
+    let s = parse_spectrum(options)?;
+    let (a, b) = band_to_si(&s, lower, upper)?;
+    map_indexed(xs, &|x| op.eval(&s, a, b, x))
+}
+
 /// Band integral of the spectrum between `lower` and `upper` (in `options.unit`, lower < upper)
 /// at `temperatureK`: band radiance (W·m⁻²·sr⁻¹), band exitance (W·m⁻²) or photon rates.
 ///
@@ -48,9 +95,7 @@ pub fn band_integral(
     upper: f64,
     #[wasm_bindgen(js_name = temperatureK)] temperature_k: f64,
 ) -> Result<f64, JsValue> {
-    let s = parse_spectrum(&options)?;
-    let (a, b) = band_to_si(&s, lower, upper)?;
-    Ok(band::band(&s.spectrum, a, b, temperature_k)?)
+    band_scalar(BandOp::Integral, &options, lower, upper, temperature_k)
 }
 
 /// ∂/∂T of `bandIntegral` (per kelvin).
@@ -63,9 +108,7 @@ pub fn band_integral_dt(
     upper: f64,
     #[wasm_bindgen(js_name = temperatureK)] temperature_k: f64,
 ) -> Result<f64, JsValue> {
-    let s = parse_spectrum(&options)?;
-    let (a, b) = band_to_si(&s, lower, upper)?;
-    Ok(band::band_d_dt(&s.spectrum, a, b, temperature_k)?)
+    band_scalar(BandOp::IntegralDT, &options, lower, upper, temperature_k)
 }
 
 /// Fraction (0…1) of the spectrum's total that lies in the band [`lower`, `upper`] (in
@@ -79,9 +122,7 @@ pub fn band_fraction(
     upper: f64,
     #[wasm_bindgen(js_name = temperatureK)] temperature_k: f64,
 ) -> Result<f64, JsValue> {
-    let s = parse_spectrum(&options)?;
-    let (a, b) = band_to_si(&s, lower, upper)?;
-    Ok(band::band_fraction(&s.spectrum, a, b, temperature_k)?)
+    band_scalar(BandOp::Fraction, &options, lower, upper, temperature_k)
 }
 
 /// `bandIntegral` for every temperature of `temperaturesK` (K), one band, one call.
@@ -94,9 +135,7 @@ pub fn band_integral_array(
     upper: f64,
     #[wasm_bindgen(js_name = temperaturesK)] temperatures_k: &[f64],
 ) -> Result<Vec<f64>, JsValue> {
-    let s = parse_spectrum(&options)?;
-    let (a, b) = band_to_si(&s, lower, upper)?;
-    map_indexed(temperatures_k, |t| band::band(&s.spectrum, a, b, t))
+    band_array(BandOp::Integral, &options, lower, upper, temperatures_k)
 }
 
 /// `bandIntegralDT` for every temperature of `temperaturesK` (K).
@@ -109,9 +148,7 @@ pub fn band_integral_dt_array(
     upper: f64,
     #[wasm_bindgen(js_name = temperaturesK)] temperatures_k: &[f64],
 ) -> Result<Vec<f64>, JsValue> {
-    let s = parse_spectrum(&options)?;
-    let (a, b) = band_to_si(&s, lower, upper)?;
-    map_indexed(temperatures_k, |t| band::band_d_dt(&s.spectrum, a, b, t))
+    band_array(BandOp::IntegralDT, &options, lower, upper, temperatures_k)
 }
 
 /// `bandFraction` for every temperature of `temperaturesK` (K).
@@ -125,11 +162,7 @@ pub fn band_fraction_array(
     upper: f64,
     #[wasm_bindgen(js_name = temperaturesK)] temperatures_k: &[f64],
 ) -> Result<Vec<f64>, JsValue> {
-    let s = parse_spectrum(&options)?;
-    let (a, b) = band_to_si(&s, lower, upper)?;
-    map_indexed(temperatures_k, |t| {
-        band::band_fraction(&s.spectrum, a, b, t)
-    })
+    band_array(BandOp::Fraction, &options, lower, upper, temperatures_k)
 }
 
 /// Blackbody fraction of total energy emitted below the product λ·T = `lambdaTMK` (m·K; e.g.
@@ -278,7 +311,7 @@ pub fn brightness_temperature_array(
 ) -> Result<Vec<f64>, JsValue> {
     let s = parse_spectrum(&options)?;
     let xs = s.user_to_si("x", x)?;
-    map_indexed(values, |v| {
+    map_indexed(values, &|v| {
         inverse::brightness_temperature(&s.spectrum, xs, v)
     })
 }
@@ -295,9 +328,7 @@ pub fn temperature_from_band(
     upper: f64,
     value: f64,
 ) -> Result<f64, JsValue> {
-    let s = parse_spectrum(&options)?;
-    let (a, b) = band_to_si(&s, lower, upper)?;
-    Ok(inverse::temperature_from_band(&s.spectrum, a, b, value)?)
+    band_scalar(BandOp::Inverse, &options, lower, upper, value)
 }
 
 /// `temperatureFromBand` for every band value of `values`, one band, one call.
@@ -310,11 +341,7 @@ pub fn temperature_from_band_array(
     upper: f64,
     values: &[f64],
 ) -> Result<Vec<f64>, JsValue> {
-    let s = parse_spectrum(&options)?;
-    let (a, b) = band_to_si(&s, lower, upper)?;
-    map_indexed(values, |v| {
-        inverse::temperature_from_band(&s.spectrum, a, b, v)
-    })
+    band_array(BandOp::Inverse, &options, lower, upper, values)
 }
 
 /// Temperature (K) at which (ε1/ε2)·B(band1, T)/B(band2, T) = `ratio` (ratio / two-colour

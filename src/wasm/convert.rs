@@ -111,7 +111,7 @@ pub fn convert_spectral_array(
     let from = &js_string(&from, "from", "UNKNOWN_UNIT")?;
     let to = &js_string(&to, "to", "UNKNOWN_UNIT")?;
     let (f, t) = (SpectralUnit::parse(from)?, SpectralUnit::parse(to)?);
-    map_indexed(values, |v| conv_spectral("value", v, f, t))
+    map_indexed(values, &|v| conv_spectral("value", v, f, t))
 }
 
 /// The kind of quantity a spectral unit measures.
@@ -156,7 +156,7 @@ pub fn convert_temperature_array(
     let from = &js_string(&from, "from", "UNKNOWN_UNIT")?;
     let to = &js_string(&to, "to", "UNKNOWN_UNIT")?;
     let (f, t) = (TemperatureUnit::parse(from)?, TemperatureUnit::parse(to)?);
-    map_indexed(values, |v| conv_temperature("temperature", v, f, t))
+    map_indexed(values, &|v| conv_temperature("temperature", v, f, t))
 }
 
 /// Converts a temperature DIFFERENCE between units (no offset: a rise of 9 °F is a rise of

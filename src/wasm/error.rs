@@ -174,10 +174,13 @@ pub(crate) fn with_room<T>(n: usize) -> Result<Vec<T>, JsValue> {
     Ok(v)
 }
 
-/// Maps `f` over `xs`, stopping at the first error and reporting its index.
-pub(crate) fn map_indexed<T: Copy>(
-    xs: &[T],
-    mut f: impl FnMut(T) -> crate::Result<f64>,
+/// Maps `f` over `xs`, stopping at the first error and reporting its index. One out-of-line
+/// copy serves every bulk export (`f` is called through a reference: an indirect call per
+/// element, which is small next to any of the physics).
+#[inline(never)]
+pub(crate) fn map_indexed(
+    xs: &[f64],
+    f: &dyn Fn(f64) -> crate::Result<f64>,
 ) -> Result<Vec<f64>, JsValue> {
     let mut out = with_room(xs.len())?;
     for (i, &x) in xs.iter().enumerate() {

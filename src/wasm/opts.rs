@@ -13,9 +13,9 @@
 #[allow(unused_imports)]
 use super::prelude::*;
 
+use alloc::borrow::Cow;
 use core::sync::atomic::{AtomicU32, Ordering};
 use js_sys::{Array, Object, Reflect};
-use alloc::borrow::Cow;
 use wasm_bindgen::prelude::*;
 use wasm_bindgen::JsCast;
 
@@ -104,7 +104,11 @@ impl<'a> Opts<'a> {
         if !value.is_object() || Array::is_array(value) || value.is_function() {
             return Err(fail(
                 "UNSUPPORTED",
-                &[what, " must be an options object with fields ", &list(allowed)],
+                &[
+                    what,
+                    " must be an options object with fields ",
+                    &list(allowed),
+                ],
             ));
         }
         let obj: &Object = value.unchecked_ref();
@@ -190,7 +194,14 @@ impl<'a> Opts<'a> {
             Some(x) => Ok(Some(x)),
             None => Err(fail(
                 "NON_FINITE",
-                &[self.what, ".", key, " must be a finite number (got a ", type_name(&v), ")"],
+                &[
+                    self.what,
+                    ".",
+                    key,
+                    " must be a finite number (got a ",
+                    type_name(&v),
+                    ")",
+                ],
             )),
         }
     }
@@ -201,7 +212,12 @@ impl<'a> Opts<'a> {
             Some(x) => Ok(x),
             None => Err(fail(
                 "NON_FINITE",
-                &[self.what, ".", key, " is required and must be a finite number"],
+                &[
+                    self.what,
+                    ".",
+                    key,
+                    " is required and must be a finite number",
+                ],
             )),
         }
     }
@@ -231,7 +247,14 @@ impl<'a> Opts<'a> {
             Some(s) => Ok(Some(Cow::Owned(s))),
             None => Err(fail(
                 code,
-                &[self.what, ".", key, " must be a string (got a ", type_name(&v), ")"],
+                &[
+                    self.what,
+                    ".",
+                    key,
+                    " must be a string (got a ",
+                    type_name(&v),
+                    ")",
+                ],
             )),
         }
     }
@@ -253,7 +276,14 @@ pub(crate) fn choose(what: &str, value: &str, choices: &[&str]) -> Result<usize,
     choices.iter().position(|c| *c == value).ok_or_else(|| {
         fail(
             "UNSUPPORTED",
-            &[what, " must be one of ", &list(choices), " (got \"", value, "\")"],
+            &[
+                what,
+                " must be one of ",
+                &list(choices),
+                " (got \"",
+                value,
+                "\")",
+            ],
         )
     })
 }

@@ -140,29 +140,36 @@ pub(crate) fn parse_c2(what: &str, s: Option<&str>) -> Result<C2Convention, JsVa
 pub(crate) fn parse_spectrum(value: &JsValue) -> Result<Spec, JsValue> {
     let o = Opts::with_schema(value, "SpectrumOptions", SPECTRUM_FIELDS, &SPECTRUM_SCHEMA)?;
     let unit_name = o.string("unit", "UNKNOWN_UNIT")?.ok_or_else(|| {
-        fail("UNKNOWN_UNIT", &["SpectrumOptions.unit is required (a spectral unit such as \"um\")"])
+        fail(
+            "UNKNOWN_UNIT",
+            &["SpectrumOptions.unit is required (a spectral unit such as \"um\")"],
+        )
     })?;
     let unit = SpectralUnit::parse(&unit_name)?;
-    let variable = match o.string("variable", "UNSUPPORTED")? {
-        Some(v) => match choose(
-            "SpectrumOptions.variable",
-            &v,
-            &["wavelength", "wavenumber", "frequency"],
-        )? {
-            0 => SpectralVariable::Wavelength,
-            1 => SpectralVariable::Wavenumber,
-            _ => SpectralVariable::Frequency,
-        },
-        None => match unit.kind() {
-            SpectralKind::Wavelength => SpectralVariable::Wavelength,
-            SpectralKind::Wavenumber => SpectralVariable::Wavenumber,
-            SpectralKind::Frequency => SpectralVariable::Frequency,
-            SpectralKind::PhotonEnergy => {
-                return Err(fail("UNSUPPORTED", &["SpectrumOptions.variable is required when unit is a photon-energy unit \
-                     (J, eV, meV): choose \"wavelength\", \"wavenumber\" or \"frequency\""]))
-            }
-        },
-    };
+    let variable =
+        match o.string("variable", "UNSUPPORTED")? {
+            Some(v) => match choose(
+                "SpectrumOptions.variable",
+                &v,
+                &["wavelength", "wavenumber", "frequency"],
+            )? {
+                0 => SpectralVariable::Wavelength,
+                1 => SpectralVariable::Wavenumber,
+                _ => SpectralVariable::Frequency,
+            },
+            None => match unit.kind() {
+                SpectralKind::Wavelength => SpectralVariable::Wavelength,
+                SpectralKind::Wavenumber => SpectralVariable::Wavenumber,
+                SpectralKind::Frequency => SpectralVariable::Frequency,
+                SpectralKind::PhotonEnergy => return Err(fail(
+                    "UNSUPPORTED",
+                    &[
+                        "SpectrumOptions.variable is required when unit is a photon-energy unit \
+                     (J, eV, meV): choose \"wavelength\", \"wavenumber\" or \"frequency\"",
+                    ],
+                )),
+            },
+        };
     let quantity = match o.string("quantity", "UNSUPPORTED")? {
         None => Quantity::Energy,
         Some(q) => match choose("SpectrumOptions.quantity", &q, &["energy", "photon"])? {
@@ -209,13 +216,41 @@ impl Spec {
     }
 }
 
-fn density(s: &Spec, x: f64, t: f64, dt: bool) -> crate::Result<f64> {
-    let xs = s.user_to_si("x", x)?;
-    if dt {
-        s.spectrum.spectral_d_dt(xs, t)
-    } else {
-        s.spectrum.spectral(xs, t)
+/// The single-spectrum operations, shared by the scalar and array exports (one out-of-line copy
+/// of the option parsing and error plumbing for all of them).
+#[derive(Clone, Copy)]
+enum SpecOp {
+    Density,
+    DensityDT,
+    Total,
+    TotalDT,
+    Peak,
+}
+
+impl SpecOp {
+    /// The operation at point `x` (user unit; unused by the totals and the peak) and `t` (K).
+    fn eval(self, s: &Spec, x: f64, t: f64) -> crate::Result<f64> {
+        match self {
+            SpecOp::Density => s.spectrum.spectral(s.user_to_si("x", x)?, t),
+            SpecOp::DensityDT => s.spectrum.spectral_d_dt(s.user_to_si("x", x)?, t),
+            SpecOp::Total => s.spectrum.total(t),
+            SpecOp::TotalDT => s.spectrum.total_d_dt(t),
+            SpecOp::Peak => s.si_to_user("peak", s.spectrum.peak(t)?),
+        }
     }
+}
+
+#[inline(never)]
+fn spec_scalar(op: SpecOp, options: &JsValue, x: f64, t: f64) -> Result<f64, JsValue> {
+    let s = parse_spectrum(options)?;
+    Ok(op.eval(&s, x, t)?)
+}
+
+#[inline(never)]
+fn spec_array(op: SpecOp, options: &JsValue, xs: &[f64], t: f64) -> Result<Vec<f64>, JsValue> {
+    let s = parse_spectrum(options)?;
+    core_error::temperature("temperature_k", t)?;
+    map_indexed(xs, &|x| op.eval(&s, x, t))
 }
 
 /// Spectral density of a (grey-body) Planck spectrum at one point `x` (in `options.unit`) and
@@ -234,8 +269,7 @@ pub fn spectral_density(
     x: f64,
     #[wasm_bindgen(js_name = temperatureK)] temperature_k: f64,
 ) -> Result<f64, JsValue> {
-    let s = parse_spectrum(&options)?;
-    Ok(density(&s, x, temperature_k, false)?)
+    spec_scalar(SpecOp::Density, &options, x, temperature_k)
 }
 
 /// ∂/∂T of `spectralDensity` (density unit per kelvin).
@@ -247,8 +281,7 @@ pub fn spectral_density_dt(
     x: f64,
     #[wasm_bindgen(js_name = temperatureK)] temperature_k: f64,
 ) -> Result<f64, JsValue> {
-    let s = parse_spectrum(&options)?;
-    Ok(density(&s, x, temperature_k, true)?)
+    spec_scalar(SpecOp::DensityDT, &options, x, temperature_k)
 }
 
 /// Spectral density at every point of `xs` (in `options.unit`) at one temperature (K), in one
@@ -261,9 +294,7 @@ pub fn spectral_density_array(
     xs: &[f64],
     #[wasm_bindgen(js_name = temperatureK)] temperature_k: f64,
 ) -> Result<Vec<f64>, JsValue> {
-    let s = parse_spectrum(&options)?;
-    core_error::temperature("temperature_k", temperature_k)?;
-    map_indexed(xs, |x| density(&s, x, temperature_k, false))
+    spec_array(SpecOp::Density, &options, xs, temperature_k)
 }
 
 /// ∂/∂T of the spectral density at every point of `xs`, one temperature (K).
@@ -276,9 +307,7 @@ pub fn spectral_density_dt_array(
     xs: &[f64],
     #[wasm_bindgen(js_name = temperatureK)] temperature_k: f64,
 ) -> Result<Vec<f64>, JsValue> {
-    let s = parse_spectrum(&options)?;
-    core_error::temperature("temperature_k", temperature_k)?;
-    map_indexed(xs, |x| density(&s, x, temperature_k, true))
+    spec_array(SpecOp::DensityDT, &options, xs, temperature_k)
 }
 
 /// Spectral density on a grid: every point of `xs` (in `options.unit`) × every temperature of
@@ -321,7 +350,7 @@ pub fn spectrum_total(
     #[wasm_bindgen(unchecked_param_type = "SpectrumOptions")] options: JsValue,
     #[wasm_bindgen(js_name = temperatureK)] temperature_k: f64,
 ) -> Result<f64, JsValue> {
-    Ok(parse_spectrum(&options)?.spectrum.total(temperature_k)?)
+    spec_scalar(SpecOp::Total, &options, 1.0, temperature_k)
 }
 
 /// ∂/∂T of `spectrumTotal` (per kelvin).
@@ -332,9 +361,7 @@ pub fn spectrum_total_dt(
     #[wasm_bindgen(unchecked_param_type = "SpectrumOptions")] options: JsValue,
     #[wasm_bindgen(js_name = temperatureK)] temperature_k: f64,
 ) -> Result<f64, JsValue> {
-    Ok(parse_spectrum(&options)?
-        .spectrum
-        .total_d_dt(temperature_k)?)
+    spec_scalar(SpecOp::TotalDT, &options, 1.0, temperature_k)
 }
 
 /// Position of the maximum of the spectral density (per `options.variable`), returned in
@@ -347,9 +374,7 @@ pub fn spectrum_peak(
     #[wasm_bindgen(unchecked_param_type = "SpectrumOptions")] options: JsValue,
     #[wasm_bindgen(js_name = temperatureK)] temperature_k: f64,
 ) -> Result<f64, JsValue> {
-    let s = parse_spectrum(&options)?;
-    let p = s.spectrum.peak(temperature_k)?;
-    Ok(s.si_to_user("peak", p)?)
+    spec_scalar(SpecOp::Peak, &options, 1.0, temperature_k)
 }
 
 /// Plain-text SI unit labels of the results for these options (for axis labels and tables).

@@ -18,12 +18,18 @@ fn class_of(layout: Layout) -> Option<u32> {
     }
     let size = layout.size().max(1 << MIN_CLASS);
     let c = usize::BITS - (size - 1).leading_zeros();
-    if (c as usize) < CLASSES { Some(c) } else { None }
+    if (c as usize) < CLASSES {
+        Some(c)
+    } else {
+        None
+    }
 }
 
 unsafe impl GlobalAlloc for Heap {
     unsafe fn alloc(&self, layout: Layout) -> *mut u8 {
-        let Some(c) = class_of(layout) else { return core::ptr::null_mut() };
+        let Some(c) = class_of(layout) else {
+            return core::ptr::null_mut();
+        };
         let head = FREE[c as usize].load(Relaxed);
         if head != 0 {
             let next = unsafe { *(head as *const usize) };

@@ -29,7 +29,7 @@ pub fn bose_einstein(x: f64) -> Result<f64, JsValue> {
 /// @throws {QuantabandError} as `boseEinstein`; `index` is the first bad element.
 #[wasm_bindgen(js_name = boseEinsteinArray)]
 pub fn bose_einstein_array(xs: &[f64]) -> Result<Vec<f64>, JsValue> {
-    map_indexed(xs, stats::bose_einstein)
+    map_indexed(xs, &stats::bose_einstein)
 }
 
 /// Fermi–Dirac occupancy 1/(eˣ + 1) at reduced energy x = (E − μ)/kT (any finite x).
@@ -45,7 +45,7 @@ pub fn fermi_dirac(x: f64) -> Result<f64, JsValue> {
 /// @throws {QuantabandError} as `fermiDirac`; `index` is the first bad element.
 #[wasm_bindgen(js_name = fermiDiracArray)]
 pub fn fermi_dirac_array(xs: &[f64]) -> Result<Vec<f64>, JsValue> {
-    map_indexed(xs, stats::fermi_dirac)
+    map_indexed(xs, &stats::fermi_dirac)
 }
 
 /// Maxwell–Boltzmann occupancy e⁻ˣ at reduced energy x = (E − μ)/kT.
@@ -62,7 +62,7 @@ pub fn maxwell_boltzmann(x: f64) -> Result<f64, JsValue> {
 #[cfg(feature = "wasm-full")]
 #[wasm_bindgen(js_name = maxwellBoltzmannArray)]
 pub fn maxwell_boltzmann_array(xs: &[f64]) -> Result<Vec<f64>, JsValue> {
-    map_indexed(xs, stats::maxwell_boltzmann)
+    map_indexed(xs, &stats::maxwell_boltzmann)
 }
 
 /// Bose–Einstein occupancy of a state of energy `energyJ` (J) at chemical potential
@@ -169,7 +169,7 @@ pub fn fermi_dirac_integral_array(
     etas: &[f64],
 ) -> Result<Vec<f64>, JsValue> {
     let o = stats::FdOrder::from_j(order)?;
-    map_indexed(etas, |eta| stats::fermi_dirac_integral(o, eta))
+    map_indexed(etas, &|eta| stats::fermi_dirac_integral(o, eta))
 }
 
 /// Reduced chemical potential η with F_{1/2}(η) = `reducedDensity` (> 0), the inverse of

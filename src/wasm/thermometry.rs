@@ -320,7 +320,11 @@ fn wavelength_unit(name: &str) -> Result<SpectralUnit, JsValue> {
     if u.kind() != SpectralKind::Wavelength {
         return Err(fail(
             "UNSUPPORTED",
-            &["unit must be a wavelength unit (m, mm, um, nm), got \"", name, "\""],
+            &[
+                "unit must be a wavelength unit (m, mm, um, nm), got \"",
+                name,
+                "\"",
+            ],
         ));
     }
     Ok(u)
@@ -352,7 +356,14 @@ fn number_array(what: &str, v: &JsValue) -> Result<Vec<f64>, JsValue> {
                 None => {
                     return Err(fail(
                         "NON_FINITE",
-                        &[what, "[", &decimal(i), "] must be a finite number (at index ", &decimal(i), ")"],
+                        &[
+                            what,
+                            "[",
+                            &decimal(i),
+                            "] must be a finite number (at index ",
+                            &decimal(i),
+                            ")",
+                        ],
                     ))
                 }
             }
@@ -537,13 +548,15 @@ pub(crate) fn parse_conditions(value: &JsValue) -> Result<Conditions, JsValue> {
         )?;
         let reflectance = w.num("reflectance")?.unwrap_or(0.0);
         let temperature_k = w.req_num("temperatureK")?;
-        let reflected = match w.num("reflectedTemperatureK")? {
-            Some(t) => t,
-            None if reflectance == 0.0 => temperature_k,
-            None => {
-                return Err(fail("NON_FINITE", &["WindowConditions.reflectedTemperatureK is required when reflectance > 0"]))
-            }
-        };
+        let reflected =
+            match w.num("reflectedTemperatureK")? {
+                Some(t) => t,
+                None if reflectance == 0.0 => temperature_k,
+                None => return Err(fail(
+                    "NON_FINITE",
+                    &["WindowConditions.reflectedTemperatureK is required when reflectance > 0"],
+                )),
+            };
         Some(Window {
             transmittance: w.req_num("transmittance")?,
             reflectance,
@@ -653,6 +666,96 @@ fn count(arg: &'static str, n: f64) -> Result<usize, JsValue> {
 // Signal models
 // ---------------------------------------------------------------------------------------------
 
+/// The per-value operations on an instrument model, shared by the scalar and array exports (one
+/// out-of-line copy of the model and conditions parsing for all of them).
+#[derive(Clone, Copy, PartialEq)]
+enum ModelOp {
+    /// S(T)
+    Signal,
+    /// dS/dT
+    SignalDT,
+    /// T(S)
+    Temperature,
+    /// measured signal of an object at T, one value (the core's measurement equation)
+    Measured,
+    /// object temperature of a reading, one value (the core's inverse)
+    Object,
+    /// `Measured` over an array: the affine form computed once
+    MeasuredBulk,
+    /// `Object` over an array: the affine form computed once
+    ObjectBulk,
+}
+
+/// `op` for every element of `xs` under `model` (and `conditions` for the measurement ops).
+#[inline(never)]
+fn model_op(
+    op: ModelOp,
+    model: &JsValue,
+    conditions: &JsValue,
+    xs: &[f64],
+) -> Result<Vec<f64>, JsValue> {
+    let m = parse_model(model)?;
+    let c = match op {
+        ModelOp::Signal | ModelOp::SignalDT | ModelOp::Temperature => Conditions::BLACKBODY,
+        _ => parse_conditions(conditions)?,
+    };
+    let mut out = Ok(Vec::new());
+    m.run(|sm| {
+        let (gain, bg) = match op {
+            ModelOp::MeasuredBulk | ModelOp::ObjectBulk => c.affine(sm)?,
+            _ => (1.0, 0.0),
+        };
+        out = map_indexed(xs, &|x| match op {
+            ModelOp::Signal => sm.signal(x),
+            ModelOp::SignalDT => sm.d_signal_dt(x),
+            ModelOp::Temperature => sm.temperature(x),
+            ModelOp::Measured => core_measured_signal(sm, x, &c),
+            ModelOp::Object => core_object_temperature(sm, x, &c),
+            ModelOp::MeasuredBulk => {
+                temperature("object_temperature_k", x)?;
+                Ok(gain * sm.signal(x)? + bg)
+            }
+            ModelOp::ObjectBulk => {
+                // the same steps as thermometry::object_temperature, with the affine form hoisted
+                finite("signal", x)?;
+                let net = x - bg;
+                if net.is_nan() || net <= 0.0 {
+                    return Err(Error::NoPhysicalSolution {
+                        signal: x,
+                        background: bg,
+                    });
+                }
+                let s_obj = positive("signal", net / gain)?;
+                sm.temperature(s_obj)
+            }
+        });
+        Ok(())
+    })?;
+    out
+}
+
+/// `model_op` for one value: its result, or the error without a bulk index.
+#[inline(never)]
+fn model_op_one(
+    op: ModelOp,
+    model: &JsValue,
+    conditions: &JsValue,
+    x: f64,
+) -> Result<f64, JsValue> {
+    let m = parse_model(model)?;
+    let c = match op {
+        ModelOp::Measured | ModelOp::Object => parse_conditions(conditions)?,
+        _ => Conditions::BLACKBODY,
+    };
+    Ok(m.run(|sm| match op {
+        ModelOp::SignalDT => sm.d_signal_dt(x),
+        ModelOp::Temperature => sm.temperature(x),
+        ModelOp::Measured => core_measured_signal(sm, x, &c),
+        ModelOp::Object => core_object_temperature(sm, x, &c),
+        _ => sm.signal(x),
+    })?)
+}
+
 /// Blackbody signal S(T) of an instrument model at `temperatureK` (in the model's signal unit).
 ///
 /// @throws {QuantabandError} NON_FINITE, NON_POSITIVE_TEMPERATURE, model errors (UNKNOWN_UNIT,
@@ -663,7 +766,7 @@ pub fn model_signal(
     #[wasm_bindgen(unchecked_param_type = "InstrumentModel")] model: JsValue,
     #[wasm_bindgen(js_name = temperatureK)] temperature_k: f64,
 ) -> Result<f64, JsValue> {
-    Ok(parse_model(&model)?.run(|m| m.signal(temperature_k))?)
+    model_op_one(ModelOp::Signal, &model, &JsValue::UNDEFINED, temperature_k)
 }
 
 /// dS/dT of an instrument model at `temperatureK` (signal unit per K).
@@ -675,7 +778,12 @@ pub fn model_signal_dt(
     #[wasm_bindgen(unchecked_param_type = "InstrumentModel")] model: JsValue,
     #[wasm_bindgen(js_name = temperatureK)] temperature_k: f64,
 ) -> Result<f64, JsValue> {
-    Ok(parse_model(&model)?.run(|m| m.d_signal_dt(temperature_k))?)
+    model_op_one(
+        ModelOp::SignalDT,
+        &model,
+        &JsValue::UNDEFINED,
+        temperature_k,
+    )
 }
 
 /// Blackbody temperature (K) at which the model gives `signal` (inverse of `modelSignal`).
@@ -687,7 +795,7 @@ pub fn model_temperature(
     #[wasm_bindgen(unchecked_param_type = "InstrumentModel")] model: JsValue,
     signal: f64,
 ) -> Result<f64, JsValue> {
-    Ok(parse_model(&model)?.run(|m| m.temperature(signal))?)
+    model_op_one(ModelOp::Temperature, &model, &JsValue::UNDEFINED, signal)
 }
 
 /// `modelSignal` for every temperature of `temperaturesK` (K), one call.
@@ -699,13 +807,7 @@ pub fn model_signal_array(
     #[wasm_bindgen(unchecked_param_type = "InstrumentModel")] model: JsValue,
     #[wasm_bindgen(js_name = temperaturesK)] temperatures_k: &[f64],
 ) -> Result<Vec<f64>, JsValue> {
-    let m = parse_model(&model)?;
-    let mut out = Ok(Vec::new());
-    m.run(|sm| {
-        out = map_indexed(temperatures_k, |t| sm.signal(t));
-        Ok(())
-    })?;
-    out
+    model_op(ModelOp::Signal, &model, &JsValue::UNDEFINED, temperatures_k)
 }
 
 /// `modelTemperature` for every signal of `signals`, one call.
@@ -717,13 +819,7 @@ pub fn model_temperature_array(
     #[wasm_bindgen(unchecked_param_type = "InstrumentModel")] model: JsValue,
     signals: &[f64],
 ) -> Result<Vec<f64>, JsValue> {
-    let m = parse_model(&model)?;
-    let mut out = Ok(Vec::new());
-    m.run(|sm| {
-        out = map_indexed(signals, |s| sm.temperature(s));
-        Ok(())
-    })?;
-    out
+    model_op(ModelOp::Temperature, &model, &JsValue::UNDEFINED, signals)
 }
 
 // ---------------------------------------------------------------------------------------------
@@ -741,9 +837,7 @@ pub fn measured_signal(
     #[wasm_bindgen(js_name = objectTemperatureK)] object_temperature_k: f64,
     #[wasm_bindgen(unchecked_optional_param_type = "MeasurementConditions")] conditions: JsValue,
 ) -> Result<f64, JsValue> {
-    let m = parse_model(&model)?;
-    let c = parse_conditions(&conditions)?;
-    Ok(m.run(|sm| core_measured_signal(sm, object_temperature_k, &c))?)
+    model_op_one(ModelOp::Measured, &model, &conditions, object_temperature_k)
 }
 
 /// Object temperature (K) that explains a reading `signal` under `conditions` — the inverse of
@@ -757,9 +851,7 @@ pub fn object_temperature(
     signal: f64,
     #[wasm_bindgen(unchecked_optional_param_type = "MeasurementConditions")] conditions: JsValue,
 ) -> Result<f64, JsValue> {
-    let m = parse_model(&model)?;
-    let c = parse_conditions(&conditions)?;
-    Ok(m.run(|sm| core_object_temperature(sm, signal, &c))?)
+    model_op_one(ModelOp::Object, &model, &conditions, signal)
 }
 
 /// `objectTemperature` for every reading of `signals` (e.g. the pixels of a frame already in
@@ -772,27 +864,7 @@ pub fn object_temperature_array(
     signals: &[f64],
     #[wasm_bindgen(unchecked_optional_param_type = "MeasurementConditions")] conditions: JsValue,
 ) -> Result<Vec<f64>, JsValue> {
-    let m = parse_model(&model)?;
-    let c = parse_conditions(&conditions)?;
-    let mut out = Ok(Vec::new());
-    m.run(|sm| {
-        let (gain, bg) = c.affine(sm)?;
-        out = map_indexed(signals, |s| {
-            // the same steps as thermometry::object_temperature, with the affine form hoisted
-            finite("signal", s)?;
-            let net = s - bg;
-            if net.is_nan() || net <= 0.0 {
-                return Err(Error::NoPhysicalSolution {
-                    signal: s,
-                    background: bg,
-                });
-            }
-            let s_obj = positive("signal", net / gain)?;
-            sm.temperature(s_obj)
-        });
-        Ok(())
-    })?;
-    out
+    model_op(ModelOp::ObjectBulk, &model, &conditions, signals)
 }
 
 /// `measuredSignal` for every object temperature of `objectTemperaturesK` (K), one call.
@@ -804,18 +876,12 @@ pub fn measured_signal_array(
     #[wasm_bindgen(js_name = objectTemperaturesK)] object_temperatures_k: &[f64],
     #[wasm_bindgen(unchecked_optional_param_type = "MeasurementConditions")] conditions: JsValue,
 ) -> Result<Vec<f64>, JsValue> {
-    let m = parse_model(&model)?;
-    let c = parse_conditions(&conditions)?;
-    let mut out = Ok(Vec::new());
-    m.run(|sm| {
-        let (gain, bg) = c.affine(sm)?;
-        out = map_indexed(object_temperatures_k, |t| {
-            temperature("object_temperature_k", t)?;
-            Ok(gain * sm.signal(t)? + bg)
-        });
-        Ok(())
-    })?;
-    out
+    model_op(
+        ModelOp::MeasuredBulk,
+        &model,
+        &conditions,
+        object_temperatures_k,
+    )
 }
 
 /// The measurement equation in affine form for a model: signal = gain·S(T_obj) + background.
@@ -854,7 +920,10 @@ fn with_response_dyn(
             let r = Response::new(&wavelengths_m, &values)?;
             Ok(f(&ResponseSignal::new(r, c2), unit)?)
         }
-        _ => Err(fail("UNSUPPORTED", &["this function needs a ResponseModel (kind \"response\")"])),
+        _ => Err(fail(
+            "UNSUPPORTED",
+            &["this function needs a ResponseModel (kind \"response\")"],
+        )),
     }
 }
 
@@ -1295,7 +1364,10 @@ fn frame_pixels(raw: &JsValue) -> Result<Vec<f64>, JsValue> {
     } else if let Some(a) = raw.dyn_ref::<Float64Array>() {
         Ok(a.to_vec())
     } else {
-        Err(fail("UNSUPPORTED", &["raw must be a Uint16Array, Float32Array or Float64Array"]))
+        Err(fail(
+            "UNSUPPORTED",
+            &["raw must be a Uint16Array, Float32Array or Float64Array"],
+        ))
     }
 }
 
@@ -1345,7 +1417,10 @@ pub fn convert_frame(
     } else if let Some(a) = ev.dyn_ref::<Float64Array>() {
         Some(a.to_vec())
     } else {
-        return Err(fail("UNSUPPORTED", &["FrameOptions.emissivity must be a Float32Array or Float64Array"]));
+        return Err(fail(
+            "UNSUPPORTED",
+            &["FrameOptions.emissivity must be a Float32Array or Float64Array"],
+        ));
     };
     let f64_out = match o.string("output", "UNSUPPORTED")? {
         None => false,
