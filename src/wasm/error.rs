@@ -32,6 +32,22 @@ extern "C" {
     /// throwing getter or proxy trap never unwinds through WebAssembly frames.
     #[wasm_bindgen(catch, js_name = qbReadOptions)]
     pub(crate) fn read_options(obj: &JsValue, id: u32, out: &mut [f64]) -> Result<f64, JsValue>;
+    /// A plain object with the numbers `values` under the ";"-separated `keys`, built in one
+    /// crossing.
+    #[wasm_bindgen(js_name = qbNumbers)]
+    fn numbers_object(keys: &str, values: &[f64]) -> JsValue;
+}
+
+/// A result object: the numbers `values` under the ";"-separated `keys`, then the `extra`
+/// fields (strings, arrays, nested objects) in order.
+#[inline(never)]
+pub(crate) fn object(keys: &str, values: &[f64], extra: &[(&str, &JsValue)]) -> JsValue {
+    let o = numbers_object(keys, values);
+    for (k, v) in extra {
+        // Defining a data property on a fresh plain object cannot fail.
+        let _ = js_sys::Reflect::set(&o, &JsValue::from_str(k), v);
+    }
+    o
 }
 
 #[wasm_bindgen(typescript_custom_section)]

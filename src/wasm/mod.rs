@@ -20,7 +20,6 @@ mod runtime;
 /// What `std`'s prelude would bring; the package build is `no_std` (see `runtime.rs`).
 mod prelude {
     pub(crate) use alloc::string::{String, ToString};
-    pub(crate) use alloc::vec;
     pub(crate) use alloc::vec::Vec;
 }
 

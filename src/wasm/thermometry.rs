@@ -14,7 +14,7 @@ use js_sys::{Array, Float32Array, Float64Array, Object, Reflect, Uint16Array};
 use wasm_bindgen::prelude::*;
 use wasm_bindgen::JsCast;
 
-use super::error::{at, decimal, fail, map_indexed, with_room};
+use super::error::{at, decimal, fail, map_indexed, object, with_room};
 use super::opts::{choose, Opts, Schema};
 use super::opts::{js_string, opt_js_string};
 use super::radiometry::parse_c2;
@@ -575,21 +575,6 @@ pub(crate) fn parse_conditions(value: &JsValue) -> Result<Conditions, JsValue> {
     Ok(c)
 }
 
-/// A plain object from (key, value) pairs.
-#[inline(never)]
-fn object(pairs: &[(&str, JsValue)]) -> JsValue {
-    let o = Object::new();
-    for (k, v) in pairs {
-        // Defining a data property on a fresh plain object cannot fail.
-        let _ = Reflect::set(&o, &JsValue::from_str(k), v);
-    }
-    o.into()
-}
-
-fn num(x: f64) -> JsValue {
-    JsValue::from_f64(x)
-}
-
 fn c2_name(c2_mk: f64) -> &'static str {
     if c2_mk == C2Convention::Its90.c2() {
         "its90"
@@ -600,35 +585,45 @@ fn c2_name(c2_mk: f64) -> &'static str {
 
 #[inline(never)]
 fn curve_object(c: &SakumaHattori) -> JsValue {
-    object(&[
-        ("kind", JsValue::from_str("sakumaHattori")),
-        ("aM", num(c.a_m())),
-        ("bMK", num(c.b_mk())),
-        ("c", num(c.c())),
-        ("c2", JsValue::from_str(c2_name(c.c2_mk()))),
-    ])
+    object(
+        "aM;bMK;c",
+        &[c.a_m(), c.b_mk(), c.c()],
+        &[
+            ("kind", &JsValue::from_str("sakumaHattori")),
+            ("c2", &JsValue::from_str(c2_name(c.c2_mk()))),
+        ],
+    )
 }
 
 #[inline(never)]
 fn fit_object(r: &FitReport, residuals: Option<Vec<f64>>) -> JsValue {
-    let mut pairs = vec![
-        ("curve", curve_object(&r.curve)),
-        ("rmsResidualK", num(r.rms_residual_k)),
-        ("maxAbsResidualK", num(r.max_abs_residual_k)),
-        ("iterations", num(f64::from(r.iterations))),
-    ];
-    if let Some(res) = residuals {
-        pairs.push(("residualsK", Float64Array::from(res.as_slice()).into()));
-    }
-    object(&pairs)
+    let curve = curve_object(&r.curve);
+    let res: JsValue = match residuals {
+        Some(res) => Float64Array::from(res.as_slice()).into(),
+        None => JsValue::UNDEFINED,
+    };
+    let extra: &[(&str, &JsValue)] = if res.is_undefined() {
+        &[("curve", &curve)]
+    } else {
+        &[("curve", &curve), ("residualsK", &res)]
+    };
+    object(
+        "rmsResidualK;maxAbsResidualK;iterations",
+        &[
+            r.rms_residual_k,
+            r.max_abs_residual_k,
+            f64::from(r.iterations),
+        ],
+        extra,
+    )
 }
 
 fn ratio_object(r: &RatioReading) -> JsValue {
-    object(&[
-        ("temperatureK", num(r.temperature_k)),
-        ("dTdRatio", num(r.d_t_d_ratio)),
-        ("dTdEmissivityRatio", num(r.d_t_d_emissivity_ratio)),
-    ])
+    object(
+        "temperatureK;dTdRatio;dTdEmissivityRatio",
+        &[r.temperature_k, r.d_t_d_ratio, r.d_t_d_emissivity_ratio],
+        &[],
+    )
 }
 
 fn parse_fixed_point(name: &str) -> Result<FixedPoint, JsValue> {
@@ -896,7 +891,7 @@ pub fn measurement_affine(
     let m = parse_model(&model)?;
     let c = parse_conditions(&conditions)?;
     let (gain, bg) = m.run(|sm| c.affine(sm))?;
-    Ok(object(&[("gain", num(gain)), ("background", num(bg))]))
+    Ok(object("gain;background", &[gain, bg], &[]))
 }
 
 // ---------------------------------------------------------------------------------------------
@@ -960,10 +955,11 @@ pub fn response_moments(
         let (m, s) = rs.response().mean_and_spread_m()?;
         Ok((m, s, unit))
     })?;
-    Ok(object(&[
-        ("mean", num(from_m("mean", m, unit)?)),
-        ("spread", num(s / unit.si_factor())),
-    ]))
+    Ok(object(
+        "mean;spread",
+        &[from_m("mean", m, unit)?, s / unit.si_factor()],
+        &[],
+    ))
 }
 
 /// Mean wavelength of the signal R(λ)·L_λ(λ, T) at `temperatureK`, and its spread, in the
@@ -980,10 +976,11 @@ pub fn signal_moments(
         let (m, s) = rs.mean_and_spread_m(temperature_k)?;
         Ok((m, s, unit))
     })?;
-    Ok(object(&[
-        ("mean", num(from_m("mean", m, unit)?)),
-        ("spread", num(s / unit.si_factor())),
-    ]))
+    Ok(object(
+        "mean;spread",
+        &[from_m("mean", m, unit)?, s / unit.si_factor()],
+        &[],
+    ))
 }
 
 /// Limiting effective wavelength λ_T = c2/(T²·d ln S/dT) at `temperatureK` — the wavelength of
@@ -1112,10 +1109,7 @@ pub fn max_interpolation_error(
     let e = parse_model(&exact)?;
     let (err, at_t) =
         c.run(|cm| e.run(|em| max_interpolation_error_k(cm, em, t_min_k, t_max_k, n)))?;
-    Ok(object(&[
-        ("maxErrorK", num(err)),
-        ("atTemperatureK", num(at_t)),
-    ]))
+    Ok(object("maxErrorK;atTemperatureK", &[err, at_t], &[]))
 }
 
 // ---------------------------------------------------------------------------------------------
@@ -1204,11 +1198,11 @@ pub fn its90_temperature(
     let fp = parse_fixed_point(fixed_point)?;
     let wl = to_m("wavelength", wavelength, u)?;
     let r = its90::its90_temperature(ratio, wl, fp)?;
-    Ok(object(&[
-        ("t90K", num(r.t90_k)),
-        ("tCodataK", num(r.t_codata_k)),
-        ("differenceK", num(r.difference_k)),
-    ]))
+    Ok(object(
+        "t90K;tCodataK;differenceK",
+        &[r.t90_k, r.t_codata_k, r.difference_k],
+        &[],
+    ))
 }
 
 /// Temperature from a two-channel signal ratio S1/S2 and the emissivity ratio ε1/ε2, with
@@ -1279,14 +1273,18 @@ pub fn sensitivities(
     let m = parse_model(&model)?;
     let c = parse_conditions(&conditions)?;
     let s = m.run(|sm| core_sensitivities(sm, signal, &c))?;
-    Ok(object(&[
-        ("temperatureK", num(s.temperature_k)),
-        ("signal", num(s.signal)),
-        ("emissivity", num(s.emissivity)),
-        ("reflectedTemperature", num(s.reflected_temperature)),
-        ("pathTransmittance", num(s.path_transmittance)),
-        ("pathTemperature", num(s.path_temperature)),
-    ]))
+    Ok(object(
+        "temperatureK;signal;emissivity;reflectedTemperature;pathTransmittance;pathTemperature",
+        &[
+            s.temperature_k,
+            s.signal,
+            s.emissivity,
+            s.reflected_temperature,
+            s.path_transmittance,
+            s.path_temperature,
+        ],
+        &[],
+    ))
 }
 
 /// GUM uncertainty budget (first order, uncorrelated inputs) of the object temperature at a
@@ -1331,22 +1329,22 @@ pub fn uncertainty_budget(
             BudgetInput::PathTransmittance => "pathTransmittance",
             BudgetInput::PathTemperature => "pathTemperature",
         };
-        entries.push(&object(&[
-            ("input", JsValue::from_str(input)),
-            ("sensitivity", num(e.sensitivity)),
-            ("standardUncertainty", num(e.standard_uncertainty)),
-            ("contributionK", num(e.contribution_k)),
-            ("varianceShare", num(e.variance_share)),
-        ]));
+        entries.push(&object(
+            "sensitivity;standardUncertainty;contributionK;varianceShare",
+            &[
+                e.sensitivity,
+                e.standard_uncertainty,
+                e.contribution_k,
+                e.variance_share,
+            ],
+            &[("input", &JsValue::from_str(input))],
+        ));
     }
-    Ok(object(&[
-        ("temperatureK", num(b.temperature_k)),
-        ("entries", entries.into()),
-        (
-            "combinedStandardUncertaintyK",
-            num(b.combined_standard_uncertainty_k),
-        ),
-    ]))
+    Ok(object(
+        "temperatureK;combinedStandardUncertaintyK",
+        &[b.temperature_k, b.combined_standard_uncertainty_k],
+        &[("entries", &entries.into())],
+    ))
 }
 
 // ---------------------------------------------------------------------------------------------
@@ -1479,12 +1477,9 @@ fn frame_result(
     hi: f64,
     bg: f64,
 ) -> JsValue {
-    object(&[
-        ("temperaturesK", temps),
-        ("valid", num(sum.valid as f64)),
-        ("invalid", num(sum.invalid as f64)),
-        ("minTemperatureK", num(lo)),
-        ("maxTemperatureK", num(hi)),
-        ("backgroundSignal", num(bg)),
-    ])
+    object(
+        "valid;invalid;minTemperatureK;maxTemperatureK;backgroundSignal",
+        &[sum.valid as f64, sum.invalid as f64, lo, hi, bg],
+        &[("temperaturesK", &temps)],
+    )
 }
