@@ -7,12 +7,10 @@ use super::prelude::*;
 use wasm_bindgen::prelude::*;
 
 use super::error::map_indexed;
-#[cfg(feature = "wasm-full")]
 use super::opts::{choose, js_string, Opts};
 use super::radiometry::parse_spectrum;
 use super::radiometry::Spec;
 use crate::band;
-#[cfg(feature = "wasm-full")]
 use crate::band::PlanckKernel;
 use crate::error::{self as core_error, Error};
 use crate::inverse;
@@ -154,7 +152,6 @@ pub fn band_integral_dt_array(
 /// `bandFraction` for every temperature of `temperaturesK` (K).
 ///
 /// @throws {QuantabandError} as `bandIntegralArray`.
-#[cfg(feature = "wasm-full")]
 #[wasm_bindgen(js_name = bandFractionArray)]
 pub fn band_fraction_array(
     #[wasm_bindgen(unchecked_param_type = "SpectrumOptions")] options: JsValue,
@@ -203,8 +200,8 @@ pub fn photon_lambda_t_at_fraction(fraction: f64) -> Result<f64, JsValue> {
     Ok(band::photon_lambda_t_at_fraction(fraction)?)
 }
 
-#[cfg(feature = "wasm-full")]
-fn parse_kernel(name: &str) -> Result<PlanckKernel, JsValue> {
+fn parse_kernel(name: &JsValue) -> Result<PlanckKernel, JsValue> {
+    let name = &js_string(name, "kernel", "UNSUPPORTED")?;
     Ok(
         match choose(
             "kernel",
@@ -219,63 +216,68 @@ fn parse_kernel(name: &str) -> Result<PlanckKernel, JsValue> {
     )
 }
 
+/// The dimensionless Planck integral of `kernel` over [`lower`, `upper`]; `None` for an open
+/// end (one out-of-line copy for the four exports).
+#[inline(never)]
+fn planck_integral_between(
+    kernel: &JsValue,
+    lower: Option<f64>,
+    upper: Option<f64>,
+) -> Result<f64, JsValue> {
+    let k = parse_kernel(kernel)?;
+    Ok(match (lower, upper) {
+        (Some(a), Some(b)) => band::planck_integral(k, a, b)?,
+        (Some(a), None) => band::planck_integral_upper(k, a)?,
+        (None, Some(b)) => band::planck_integral_lower(k, b)?,
+        (None, None) => k.total(),
+    })
+}
+
 /// ∫ from `xLower` to `xUpper` of a dimensionless Planck integrand (x = hν/kT): "photon"
 /// x²/(eˣ−1), "energy" x³/(eˣ−1), "photonDerivative" x³eˣ/(eˣ−1)², "energyDerivative"
 /// x⁴eˣ/(eˣ−1)²; 0 ≤ xLower < xUpper.
 ///
 /// @throws {QuantabandError} NON_FINITE, OUT_OF_RANGE (negative limit), INVALID_BAND,
 /// UNSUPPORTED (unknown kernel).
-#[cfg(feature = "wasm-full")]
 #[wasm_bindgen(js_name = planckIntegral)]
 pub fn planck_integral(
     #[wasm_bindgen(unchecked_param_type = "PlanckKernel")] kernel: JsValue,
     #[wasm_bindgen(js_name = xLower)] x_lower: f64,
     #[wasm_bindgen(js_name = xUpper)] x_upper: f64,
 ) -> Result<f64, JsValue> {
-    let kernel = &js_string(&kernel, "kernel", "UNSUPPORTED")?;
-    Ok(band::planck_integral(
-        parse_kernel(kernel)?,
-        x_lower,
-        x_upper,
-    )?)
+    planck_integral_between(&kernel, Some(x_lower), Some(x_upper))
 }
 
 /// ∫ from `x` to ∞ of a dimensionless Planck integrand (see `planckIntegral`).
 ///
 /// @throws {QuantabandError} NON_FINITE, OUT_OF_RANGE, UNSUPPORTED.
-#[cfg(feature = "wasm-full")]
 #[wasm_bindgen(js_name = planckIntegralUpper)]
 pub fn planck_integral_upper(
     #[wasm_bindgen(unchecked_param_type = "PlanckKernel")] kernel: JsValue,
     x: f64,
 ) -> Result<f64, JsValue> {
-    let kernel = &js_string(&kernel, "kernel", "UNSUPPORTED")?;
-    Ok(band::planck_integral_upper(parse_kernel(kernel)?, x)?)
+    planck_integral_between(&kernel, Some(x), None)
 }
 
 /// ∫ from 0 to `x` of a dimensionless Planck integrand (see `planckIntegral`).
 ///
 /// @throws {QuantabandError} NON_FINITE, OUT_OF_RANGE, UNSUPPORTED.
-#[cfg(feature = "wasm-full")]
 #[wasm_bindgen(js_name = planckIntegralLower)]
 pub fn planck_integral_lower(
     #[wasm_bindgen(unchecked_param_type = "PlanckKernel")] kernel: JsValue,
     x: f64,
 ) -> Result<f64, JsValue> {
-    let kernel = &js_string(&kernel, "kernel", "UNSUPPORTED")?;
-    Ok(band::planck_integral_lower(parse_kernel(kernel)?, x)?)
+    planck_integral_between(&kernel, None, Some(x))
 }
 
 /// Total value ∫₀^∞ of a dimensionless Planck integrand: 2ζ(3), π⁴/15, 6ζ(3) or 4π⁴/15.
 ///
 /// @throws {QuantabandError} UNSUPPORTED (unknown kernel).
-#[cfg(feature = "wasm-full")]
 #[wasm_bindgen(js_name = planckIntegralTotal)]
 pub fn planck_integral_total(
     #[wasm_bindgen(unchecked_param_type = "PlanckKernel")] kernel: JsValue,
 ) -> Result<f64, JsValue> {
-    let kernel = &js_string(&kernel, "kernel", "UNSUPPORTED")?;
-    Ok(parse_kernel(kernel)?.total())
+    planck_integral_between(&kernel, None, None)
 }
 
 // ---------------------------------------------------------------------------------------------
@@ -302,7 +304,6 @@ pub fn brightness_temperature(
 /// `brightnessTemperature` for every density value of `values` at one point `x`, one call.
 ///
 /// @throws {QuantabandError} as `brightnessTemperature`; `index` is the first bad value.
-#[cfg(feature = "wasm-full")]
 #[wasm_bindgen(js_name = brightnessTemperatureArray)]
 pub fn brightness_temperature_array(
     #[wasm_bindgen(unchecked_param_type = "SpectrumOptions")] options: JsValue,
@@ -349,7 +350,6 @@ pub fn temperature_from_band_array(
 ///
 /// @throws {QuantabandError} INVALID_BAND, NON_FINITE, NON_POSITIVE, NO_SOLUTION (ratio out of
 /// reach, or ambiguous for overlapping bands), NOT_CONVERGED, option errors.
-#[cfg(feature = "wasm-full")]
 #[wasm_bindgen(js_name = temperatureFromBandRatio)]
 pub fn temperature_from_band_ratio(
     #[wasm_bindgen(unchecked_param_type = "SpectrumOptions")] options: JsValue,
@@ -370,7 +370,6 @@ pub fn temperature_from_band_ratio(
     )?)
 }
 
-#[cfg(feature = "wasm-full")]
 fn parse_band(s: &Spec, v: &JsValue, what: &'static str) -> Result<(f64, f64), JsValue> {
     let o = Opts::new(v, what, &["lower", "upper"])?;
     Ok(band_to_si(s, o.req_num("lower")?, o.req_num("upper")?)?)

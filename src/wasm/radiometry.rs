@@ -255,8 +255,8 @@ fn spec_array(op: SpecOp, options: &JsValue, xs: &[f64], t: f64) -> Result<Vec<f
 
 /// Spectral density of a (grey-body) Planck spectrum at one point `x` (in `options.unit`) and
 /// temperature `temperatureK` (K). Result in SI per the SI unit of `options.variable`, e.g.
-/// W·m⁻²·sr⁻¹·m⁻¹ for energy radiance per wavelength (README "Conventions"; `spectrumUnits` in the
-/// wasm-full build).
+/// W·m⁻²·sr⁻¹·m⁻¹ for energy radiance per wavelength (README "Conventions"; `spectrumUnits`
+/// gives the labels).
 ///
 /// Example: `spectralDensity({ unit: "um" }, 10, 300)` → 9.924e6 W·m⁻²·sr⁻¹·m⁻¹.
 ///
@@ -300,7 +300,6 @@ pub fn spectral_density_array(
 /// ∂/∂T of the spectral density at every point of `xs`, one temperature (K).
 ///
 /// @throws {QuantabandError} as `spectralDensityArray`.
-#[cfg(feature = "wasm-full")]
 #[wasm_bindgen(js_name = spectralDensityDTArray)]
 pub fn spectral_density_dt_array(
     #[wasm_bindgen(unchecked_param_type = "SpectrumOptions")] options: JsValue,
@@ -380,7 +379,6 @@ pub fn spectrum_peak(
 /// Plain-text SI unit labels of the results for these options (for axis labels and tables).
 ///
 /// @throws {QuantabandError} option errors.
-#[cfg(feature = "wasm-full")]
 #[wasm_bindgen(js_name = spectrumUnits, unchecked_return_type = "SpectrumUnits")]
 pub fn spectrum_units(
     #[wasm_bindgen(unchecked_param_type = "SpectrumOptions")] options: JsValue,

@@ -59,7 +59,6 @@ pub fn maxwell_boltzmann(x: f64) -> Result<f64, JsValue> {
 /// `maxwellBoltzmann` for every element of `xs`.
 ///
 /// @throws {QuantabandError} as `maxwellBoltzmann`; `index` is the first bad element.
-#[cfg(feature = "wasm-full")]
 #[wasm_bindgen(js_name = maxwellBoltzmannArray)]
 pub fn maxwell_boltzmann_array(xs: &[f64]) -> Result<Vec<f64>, JsValue> {
     map_indexed(xs, &stats::maxwell_boltzmann)
@@ -134,7 +133,6 @@ pub fn bose_einstein_integral(order: f64, fugacity: f64) -> Result<f64, JsValue>
 /// `numberDensityPerM3` (m⁻³) and particle mass `massKg` (kg).
 ///
 /// @throws {QuantabandError} NON_FINITE, NON_POSITIVE.
-#[cfg(feature = "wasm-full")]
 #[wasm_bindgen(js_name = boseCriticalTemperature)]
 pub fn bose_critical_temperature(
     #[wasm_bindgen(js_name = numberDensityPerM3)] number_density_per_m3: f64,
@@ -162,7 +160,6 @@ pub fn fermi_dirac_integral(
 /// `fermiDiracIntegral` for every element of `etas`.
 ///
 /// @throws {QuantabandError} as `fermiDiracIntegral`; `index` is the first bad element.
-#[cfg(feature = "wasm-full")]
 #[wasm_bindgen(js_name = fermiDiracIntegralArray)]
 pub fn fermi_dirac_integral_array(
     #[wasm_bindgen(unchecked_param_type = "FermiDiracOrder")] order: f64,
@@ -176,7 +173,6 @@ pub fn fermi_dirac_integral_array(
 /// `fermiDiracIntegral(0.5, η)`.
 ///
 /// @throws {QuantabandError} NON_FINITE, NON_POSITIVE, NOT_CONVERGED.
-#[cfg(feature = "wasm-full")]
 #[wasm_bindgen(js_name = inverseFermiDiracHalf)]
 pub fn inverse_fermi_dirac_half(
     #[wasm_bindgen(js_name = reducedDensity)] reduced_density: f64,

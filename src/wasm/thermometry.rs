@@ -21,7 +21,6 @@ use super::radiometry::parse_c2;
 use crate::constants::C2Convention;
 use crate::error::{finite, positive, temperature};
 use crate::thermometry::its90::{self, FixedPoint};
-#[cfg(feature = "wasm-full")]
 use crate::thermometry::{max_interpolation_error_k, two_colour_temperature as core_two_colour};
 use crate::thermometry::{
     measured_signal as core_measured_signal, object_temperature as core_object_temperature,
@@ -626,6 +625,14 @@ fn ratio_object(r: &RatioReading) -> JsValue {
     )
 }
 
+/// The wavelength unit and c2 convention arguments of the ratio functions.
+#[inline(never)]
+fn unit_and_c2(unit: &JsValue, c2: &JsValue) -> Result<(SpectralUnit, C2Convention), JsValue> {
+    let unit = &js_string(unit, "unit", "UNKNOWN_UNIT")?;
+    let c2 = opt_js_string(c2, "c2", "UNSUPPORTED")?;
+    Ok((wavelength_unit(unit)?, c2_arg(c2)?))
+}
+
 fn parse_fixed_point(name: &str) -> Result<FixedPoint, JsValue> {
     Ok(
         match choose("fixedPoint", name, &["silver", "gold", "copper"])? {
@@ -640,7 +647,6 @@ fn c2_arg(c2: Option<String>) -> Result<C2Convention, JsValue> {
     parse_c2("c2", c2.as_deref())
 }
 
-#[cfg(feature = "wasm-full")]
 /// `nPoints` as a count in [2, 1e7] (OUT_OF_RANGE otherwise, so no call can run for hours).
 fn count(arg: &'static str, n: f64) -> Result<usize, JsValue> {
     finite(arg, n)?;
@@ -767,7 +773,6 @@ pub fn model_signal(
 /// dS/dT of an instrument model at `temperatureK` (signal unit per K).
 ///
 /// @throws {QuantabandError} as `modelSignal`.
-#[cfg(feature = "wasm-full")]
 #[wasm_bindgen(js_name = modelSignalDT)]
 pub fn model_signal_dt(
     #[wasm_bindgen(unchecked_param_type = "InstrumentModel")] model: JsValue,
@@ -796,7 +801,6 @@ pub fn model_temperature(
 /// `modelSignal` for every temperature of `temperaturesK` (K), one call.
 ///
 /// @throws {QuantabandError} as `modelSignal`; `index` is the first bad temperature.
-#[cfg(feature = "wasm-full")]
 #[wasm_bindgen(js_name = modelSignalArray)]
 pub fn model_signal_array(
     #[wasm_bindgen(unchecked_param_type = "InstrumentModel")] model: JsValue,
@@ -808,7 +812,6 @@ pub fn model_signal_array(
 /// `modelTemperature` for every signal of `signals`, one call.
 ///
 /// @throws {QuantabandError} as `modelTemperature`; `index` is the first bad signal.
-#[cfg(feature = "wasm-full")]
 #[wasm_bindgen(js_name = modelTemperatureArray)]
 pub fn model_temperature_array(
     #[wasm_bindgen(unchecked_param_type = "InstrumentModel")] model: JsValue,
@@ -882,7 +885,6 @@ pub fn measured_signal_array(
 /// The measurement equation in affine form for a model: signal = gain·S(T_obj) + background.
 ///
 /// @throws {QuantabandError} as `measuredSignal`.
-#[cfg(feature = "wasm-full")]
 #[wasm_bindgen(js_name = measurementAffine, unchecked_return_type = "AffineForm")]
 pub fn measurement_affine(
     #[wasm_bindgen(unchecked_param_type = "InstrumentModel")] model: JsValue,
@@ -966,7 +968,6 @@ pub fn response_moments(
 /// model's unit.
 ///
 /// @throws {QuantabandError} NON_FINITE, NON_POSITIVE_TEMPERATURE, model errors.
-#[cfg(feature = "wasm-full")]
 #[wasm_bindgen(js_name = signalMoments, unchecked_return_type = "ResponseMoments")]
 pub fn signal_moments(
     #[wasm_bindgen(unchecked_param_type = "ResponseModel")] model: JsValue,
@@ -987,7 +988,6 @@ pub fn signal_moments(
 /// a Wien-law monochromatic thermometer with the same relative sensitivity — in the model's unit.
 ///
 /// @throws {QuantabandError} NON_FINITE, NON_POSITIVE_TEMPERATURE, model errors.
-#[cfg(feature = "wasm-full")]
 #[wasm_bindgen(js_name = limitingEffectiveWavelength)]
 pub fn limiting_effective_wavelength(
     #[wasm_bindgen(unchecked_param_type = "ResponseModel")] model: JsValue,
@@ -1003,7 +1003,6 @@ pub fn limiting_effective_wavelength(
 /// wavelength of a Wien-law thermometer giving the same signal ratio — in the model's unit.
 ///
 /// @throws {QuantabandError} NON_FINITE, NON_POSITIVE_TEMPERATURE, model errors.
-#[cfg(feature = "wasm-full")]
 #[wasm_bindgen(js_name = effectiveWavelength)]
 pub fn effective_wavelength(
     #[wasm_bindgen(unchecked_param_type = "ResponseModel")] model: JsValue,
@@ -1020,7 +1019,6 @@ pub fn effective_wavelength(
 /// 0 outside the table.
 ///
 /// @throws {QuantabandError} NON_FINITE, NON_POSITIVE_SPECTRAL, model errors.
-#[cfg(feature = "wasm-full")]
 #[wasm_bindgen(js_name = responseValueAt)]
 pub fn response_value_at(
     #[wasm_bindgen(unchecked_param_type = "ResponseModel")] model: JsValue,
@@ -1060,7 +1058,6 @@ pub fn sakuma_hattori_fit(
 ///
 /// @throws {QuantabandError} NON_FINITE, NON_POSITIVE_TEMPERATURE, DEGENERATE_FIT (tMinK ≥
 /// tMaxK), NOT_CONVERGED, model errors.
-#[cfg(feature = "wasm-full")]
 #[wasm_bindgen(js_name = sakumaHattoriFitModel, unchecked_return_type = "SakumaHattoriFit")]
 pub fn sakuma_hattori_fit_model(
     #[wasm_bindgen(unchecked_param_type = "InstrumentModel")] model: JsValue,
@@ -1095,7 +1092,6 @@ pub fn sakuma_hattori_from_response(
 ///
 /// @throws {QuantabandError} NON_FINITE, NON_POSITIVE_TEMPERATURE, TOO_FEW_POINTS,
 /// OUT_OF_RANGE (nPoints not an integer ≤ 1e7), DEGENERATE_FIT, model errors.
-#[cfg(feature = "wasm-full")]
 #[wasm_bindgen(js_name = maxInterpolationError, unchecked_return_type = "InterpolationError")]
 pub fn max_interpolation_error(
     #[wasm_bindgen(unchecked_param_type = "InstrumentModel")] curve: JsValue,
@@ -1133,7 +1129,6 @@ pub fn fixed_point_temperature(
 ///
 /// @throws {QuantabandError} NON_FINITE, NON_POSITIVE, NON_POSITIVE_SPECTRAL,
 /// NON_POSITIVE_TEMPERATURE, UNKNOWN_UNIT, UNSUPPORTED, NO_SOLUTION.
-#[cfg(feature = "wasm-full")]
 #[wasm_bindgen(js_name = temperatureFromRatio)]
 pub fn temperature_from_ratio(
     ratio: f64,
@@ -1142,10 +1137,7 @@ pub fn temperature_from_ratio(
     #[wasm_bindgen(js_name = referenceTemperatureK)] reference_temperature_k: f64,
     #[wasm_bindgen(unchecked_optional_param_type = "C2Convention")] c2: JsValue,
 ) -> Result<f64, JsValue> {
-    let unit = &js_string(&unit, "unit", "UNKNOWN_UNIT")?;
-    let c2 = opt_js_string(&c2, "c2", "UNSUPPORTED")?;
-    let u = wavelength_unit(unit)?;
-    let c2 = c2_arg(c2)?;
+    let (u, c2) = unit_and_c2(&unit, &c2)?;
     let wl = to_m("wavelength", wavelength, u)?;
     Ok(its90::temperature_from_ratio(
         ratio,
@@ -1159,7 +1151,6 @@ pub fn temperature_from_ratio(
 ///
 /// @throws {QuantabandError} NON_FINITE, NON_POSITIVE_SPECTRAL, NON_POSITIVE_TEMPERATURE,
 /// UNKNOWN_UNIT, UNSUPPORTED.
-#[cfg(feature = "wasm-full")]
 #[wasm_bindgen(js_name = radianceRatio)]
 pub fn radiance_ratio(
     #[wasm_bindgen(js_name = temperatureK)] temperature_k: f64,
@@ -1168,10 +1159,7 @@ pub fn radiance_ratio(
     #[wasm_bindgen(js_name = referenceTemperatureK)] reference_temperature_k: f64,
     #[wasm_bindgen(unchecked_optional_param_type = "C2Convention")] c2: JsValue,
 ) -> Result<f64, JsValue> {
-    let unit = &js_string(&unit, "unit", "UNKNOWN_UNIT")?;
-    let c2 = opt_js_string(&c2, "c2", "UNSUPPORTED")?;
-    let u = wavelength_unit(unit)?;
-    let c2 = c2_arg(c2)?;
+    let (u, c2) = unit_and_c2(&unit, &c2)?;
     let wl = to_m("wavelength", wavelength, u)?;
     Ok(its90::radiance_ratio(
         temperature_k,
@@ -1230,7 +1218,6 @@ pub fn ratio_temperature(
 ///
 /// @throws {QuantabandError} NON_FINITE, NON_POSITIVE, NON_POSITIVE_SPECTRAL, UNKNOWN_UNIT,
 /// UNSUPPORTED, NO_SOLUTION.
-#[cfg(feature = "wasm-full")]
 #[wasm_bindgen(js_name = twoColourTemperature, unchecked_return_type = "RatioReading")]
 pub fn two_colour_temperature(
     wavelength1: f64,
@@ -1240,10 +1227,7 @@ pub fn two_colour_temperature(
     #[wasm_bindgen(js_name = emissivityRatio)] emissivity_ratio: f64,
     #[wasm_bindgen(unchecked_optional_param_type = "C2Convention")] c2: JsValue,
 ) -> Result<JsValue, JsValue> {
-    let unit = &js_string(&unit, "unit", "UNKNOWN_UNIT")?;
-    let c2 = opt_js_string(&c2, "c2", "UNSUPPORTED")?;
-    let u = wavelength_unit(unit)?;
-    let c2 = c2_arg(c2)?;
+    let (u, c2) = unit_and_c2(&unit, &c2)?;
     let l1 = to_m("wavelength1", wavelength1, u)?;
     let l2 = to_m("wavelength2", wavelength2, u)?;
     Ok(ratio_object(&core_two_colour(
