@@ -2,28 +2,26 @@
 # Builds the npm package in pkg/ and the single-file offline page, after installing prerequisites.
 #
 #   bash pkg-scripts/build.sh [--no-simd] [--opt=-Oz|-O3|-O2|-Os] [--rust-opt=3|s|z] [--no-page]
-#                             [--features=LIST] [--size-report] [--serve[=PORT]]
+#                             [--size-report] [--serve[=PORT]]
 #
 #   --no-simd    build without wasm simd128 (default: with it; Node >= 16.4 and all current
 #                browsers run simd128, and the frame conversion is vectorised with it)
-#   --opt=LEVEL  wasm-opt optimisation level (default -Oz, the smaller and not slower of -Oz/-O3 here;
-#                see DEVELOPERS.md, "Build, package and test matrix")
-#   --rust-opt=L rustc opt-level for this build only (default: the release profile's, 3); `z` trades
-#                speed for size (CARGO_PROFILE_RELEASE_OPT_LEVEL, Cargo.toml untouched)
-#   --features=LIST  cargo features of the package build (default: wasm-full, the whole API).
-#                `--features=wasm` builds the lite package (a subset of the exports). Size checks
-#                (tests/size/check.mjs): the lite package must meet the issue's budget of
-#                150 KB raw / 60 KB gzip; the full package is not yet within that budget, so it is
-#                held to a no-growth ceiling and its distance from the budget is printed
+#   --opt=LEVEL  wasm-opt optimisation level (default -Oz, the smallest; see DEVELOPERS.md,
+#                "Build, package and test matrix")
+#   --rust-opt=L rustc opt-level for this build only (default: the `wasm` profile's, "s"); 3 is
+#                faster on some calls but does not fit the size budget (CARGO_PROFILE_WASM_OPT_LEVEL,
+#                Cargo.toml untouched)
 #   --no-page    skip `node www/build.mjs`
 #   --size-report  print where the .wasm bytes go (largest functions, bytes per module); also
 #                printed automatically when the size budget is exceeded
 #   --serve      after building, serve dist/ on http://127.0.0.1:PORT/ (default 8765) until Ctrl-C
 #
-# Steps: install.sh -> cargo build --release (wasm32, --features wasm-full) -> wasm-bindgen --target web
-# -> wasm-opt (binaryen from node_modules, with exactly the features the module declares) ->
-# pkg/package.json + Node entry -> size check (fails when over) -> load check in Node ->
-# node www/build.mjs (the page) -> prints the paths.
+# Steps: install.sh -> cargo build --profile wasm --target wasm32-unknown-unknown
+# --no-default-features --features wasm (the whole API, no_std: src/wasm/runtime.rs) ->
+# wasm-bindgen --target web -> wasm-opt (binaryen from node_modules, with exactly the features the
+# module declares) -> pkg/package.json + Node entry -> size budget (tests/size/check.mjs: 150 KB
+# raw / 60 KB gzip, fails when over) -> load check in Node -> node www/build.mjs (the page) ->
+# prints the paths.
 # Environment: QB_SKIP_INSTALL=1 skips install.sh (test.sh sets it after running it once).
 set -euo pipefail
 cd "$(dirname "${BASH_SOURCE[0]}")/.."
@@ -33,24 +31,22 @@ SIMD=1
 OPT=-Oz
 PAGE=1
 SIZE_REPORT=0
-FEATURES_CARGO=wasm-full
 SERVE=""
 for arg in "$@"; do
   case "$arg" in
     --no-simd) SIMD=0 ;;
     --opt=*) OPT="${arg#--opt=}" ;;
-    --rust-opt=*) export CARGO_PROFILE_RELEASE_OPT_LEVEL="${arg#--rust-opt=}" ;;
+    --rust-opt=*) export CARGO_PROFILE_WASM_OPT_LEVEL="${arg#--rust-opt=}" ;;
     --no-page) PAGE=0 ;;
     --size-report) SIZE_REPORT=1 ;;
-    --features=*) FEATURES_CARGO="${arg#--features=}" ;;
     --serve) SERVE=8765 ;;
     --serve=*) SERVE="${arg#--serve=}" ;;
-    -h|--help) sed -n '2,31p' "$0"; exit 0 ;;
+    -h|--help) sed -n '2,28p' "$0"; exit 0 ;;
     *) echo "build.sh: unknown argument '$arg' (try --help)" >&2; exit 2 ;;
   esac
 done
 case "$OPT" in -O|-O1|-O2|-O3|-O4|-Os|-Oz) ;; *) echo "build.sh: bad --opt '$OPT'" >&2; exit 2 ;; esac
-case "${CARGO_PROFILE_RELEASE_OPT_LEVEL:-3}" in 0|1|2|3|s|z) ;; *) echo "build.sh: bad --rust-opt" >&2; exit 2 ;; esac
+case "${CARGO_PROFILE_WASM_OPT_LEVEL:-s}" in 0|1|2|3|s|z) ;; *) echo "build.sh: bad --rust-opt" >&2; exit 2 ;; esac
 
 say() { printf '[build] %s\n' "$*"; }
 now() { date +%s.%N; }
@@ -69,7 +65,7 @@ qb_wasm_rustflags "$SIMD"
 
 NAME=quantaband
 TARGET_DIR="${CARGO_TARGET_DIR:-$ROOT/target}"
-RAW_WASM="$TARGET_DIR/wasm32-unknown-unknown/release/$NAME.wasm"
+RAW_WASM="$TARGET_DIR/wasm32-unknown-unknown/wasm/$NAME.wasm"
 STAGE="$TARGET_DIR/pkg-stage"
 
 # One build at a time per work tree (teammates may share one): pkg/ and the staging folder are
@@ -82,8 +78,8 @@ if ! flock -n 9; then
 fi
 
 t="$(now)"
-say "cargo build --release --lib --target wasm32-unknown-unknown --features $FEATURES_CARGO (simd128: $([ "$SIMD" = 1 ] && echo on || echo off), opt-level ${CARGO_PROFILE_RELEASE_OPT_LEVEL:-from Cargo.toml})"
-cargo build --release --lib --target wasm32-unknown-unknown --features "$FEATURES_CARGO"
+say "cargo build --profile wasm --lib --target wasm32-unknown-unknown --no-default-features --features wasm (simd128: $([ "$SIMD" = 1 ] && echo on || echo off), opt-level ${CARGO_PROFILE_WASM_OPT_LEVEL:-s from Cargo.toml})"
+cargo build --profile wasm --lib --target wasm32-unknown-unknown --no-default-features --features wasm
 say "cargo build: $(since "$t"), $(stat -c %s "$RAW_WASM") B"
 
 t="$(now)"
@@ -115,17 +111,9 @@ size_report() {
   node_modules/.bin/wasm-opt "$OPT" -g "${FEATURES[@]}" "$d/${NAME}_bg.wasm" -o "$d/named.wasm"
   node tests/size/breakdown.mjs "$d/named.wasm" 25
 }
-case "$FEATURES_CARGO" in
-  wasm) SIZE_PROFILE=lite ;;
-  wasm-full) SIZE_PROFILE=full ;;
-  *) SIZE_PROFILE="" ;;
-esac
-if [ -z "$SIZE_PROFILE" ]; then
-  node tests/size/check.mjs --report-only pkg/${NAME}_bg.wasm
-  say "size not enforced for --features=$FEATURES_CARGO"
-elif ! node tests/size/check.mjs --profile="$SIZE_PROFILE" pkg/${NAME}_bg.wasm; then
+if ! node tests/size/check.mjs pkg/${NAME}_bg.wasm; then
   size_report
-  echo "[build] ERROR: pkg/${NAME}_bg.wasm is over its size limit (see the breakdown above)" >&2
+  echo "[build] ERROR: pkg/${NAME}_bg.wasm is over the size budget (see the breakdown above)" >&2
   exit 1
 fi
 if [ "$SIZE_REPORT" = 1 ]; then size_report; fi

@@ -147,10 +147,11 @@ step clippy-host cargo clippy --all-targets -- -D warnings
 # cdylib needs a panic handler. Lint the no_std lib as an rlib instead (clippy-driver as rustc).
 step clippy-no-std env RUSTC_WORKSPACE_WRAPPER="$(command -v clippy-driver)" \
   cargo rustc --lib --crate-type rlib --no-default-features --profile check -- -D warnings
+# The bindings as the wasm-bindgen-test suites build them (std), and as the package is built
+# (no_std, with src/wasm/runtime.rs: allocator and panic handler).
 step clippy-wasm cargo clippy --lib --features wasm --target wasm32-unknown-unknown -- -D warnings
-if grep -q '^wasm-full *=' Cargo.toml; then
-  step clippy-wasm-full cargo clippy --lib --features wasm-full --target wasm32-unknown-unknown -- -D warnings
-fi
+step clippy-wasm-pkg cargo clippy --lib --no-default-features --features wasm --profile wasm \
+  --target wasm32-unknown-unknown -- -D warnings
 step no-std-thumbv7em cargo rustc --lib --crate-type rlib --no-default-features --target thumbv7em-none-eabihf
 step no-std-wasm32 cargo rustc --lib --crate-type rlib --no-default-features --target wasm32-unknown-unknown
 step cargo-test cargo test
@@ -158,27 +159,16 @@ step cargo-doc "RUSTDOCFLAGS='-D warnings' cargo doc --no-deps"
 
 if [ -f tests/wasm_node.rs ]; then
   step wasm-test-node env CARGO_TARGET_WASM32_UNKNOWN_UNKNOWN_RUNNER=wasm-bindgen-test-runner \
-    cargo test --target wasm32-unknown-unknown --features wasm-full --test wasm_node
+    cargo test --target wasm32-unknown-unknown --features wasm --test wasm_node
 else
   skipped wasm-test-node "tests/wasm_node.rs absent"
 fi
 if [ -f tests/wasm_browser.rs ]; then
   step wasm-test-browser env CARGO_TARGET_WASM32_UNKNOWN_UNKNOWN_RUNNER=wasm-bindgen-test-runner \
     CHROMEDRIVER=/usr/bin/chromedriver \
-    cargo test --target wasm32-unknown-unknown --features wasm-full --test wasm_browser
+    cargo test --target wasm32-unknown-unknown --features wasm --test wasm_browser
 else
   skipped wasm-test-browser "tests/wasm_browser.rs absent"
-fi
-
-# The lite package (`--features=wasm`: a subset of the exports) must meet the size budget of
-# 150 KB raw / 60 KB gzip; its JS tests run against it (tests of full-only exports skip, naming
-# the export). The default build below (the whole API) then replaces pkg/ for the rest.
-if grep -q '^wasm-full *=' Cargo.toml; then
-  step build-lite bash pkg-scripts/build.sh --features=wasm --no-page
-  step size-lite node tests/size/check.mjs --profile=lite
-  if compgen -G 'tests/js/*.test.mjs' >/dev/null; then
-    step js-node-test-lite "node --test --test-reporter=spec tests/js/*.test.mjs"
-  fi
 fi
 
 step build bash pkg-scripts/build.sh
@@ -193,7 +183,7 @@ if [ -f tests/types/tsconfig.json ]; then
 else
   skipped types "tests/types/tsconfig.json absent"
 fi
-step size node tests/size/check.mjs --profile=full
+step size node tests/size/check.mjs
 step tarball-smoke node --test --test-reporter=spec tests/js/smoke/smoke.mjs
 if compgen -G 'tests/page/*.test.mjs' >/dev/null; then
   step page-test "node --test --test-reporter=spec tests/page/*.test.mjs"

@@ -6,7 +6,11 @@
 macro_rules! unary {
     ($($(#[$m:meta])* $name:ident => $std:ident, $libm:ident;)*) => {$(
         $(#[$m])*
-        #[inline(always)]
+        // With std the platform's function is called (std's methods are small wrappers); without
+        // it, one out-of-line copy of each libm routine serves every call site, which keeps the
+        // WebAssembly module small (LTO would otherwise inline e.g. `exp` everywhere).
+        #[cfg_attr(feature = "std", inline(always))]
+        #[cfg_attr(not(feature = "std"), inline(never))]
         pub(crate) fn $name(x: f64) -> f64 {
             #[cfg(feature = "std")]
             { x.$std() }
@@ -14,6 +18,41 @@ macro_rules! unary {
             { libm::$libm(x) }
         }
     )*};
+}
+
+/// Functions that are single instructions on WebAssembly (`f64.sqrt`, `f64.abs`, …). Without
+/// std, libm computes them in software on wasm32 (its intrinsics need a nightly feature), so
+/// the core calls the instructions directly there; elsewhere std or libm as above.
+macro_rules! instruction {
+    ($($(#[$m:meta])* $name:ident => $std:ident, $libm:ident, $wasm:ident;)*) => {$(
+        $(#[$m])*
+        #[inline(always)]
+        pub(crate) fn $name(x: f64) -> f64 {
+            #[cfg(feature = "std")]
+            { x.$std() }
+            #[cfg(all(not(feature = "std"), target_arch = "wasm32", target_feature = "simd128"))]
+            {
+                use core::arch::wasm32::{f64x2_extract_lane, f64x2_splat, $wasm};
+                f64x2_extract_lane::<0>($wasm(f64x2_splat(x)))
+            }
+            #[cfg(all(
+                not(feature = "std"),
+                not(all(target_arch = "wasm32", target_feature = "simd128"))
+            ))]
+            { libm::$libm(x) }
+        }
+    )*};
+}
+
+instruction! {
+    /// square root
+    sqrt => sqrt, sqrt, f64x2_sqrt;
+    /// absolute value
+    abs => abs, fabs, f64x2_abs;
+    /// largest integer ≤ x
+    floor => floor, floor, f64x2_floor;
+    /// smallest integer ≥ x
+    ceil => ceil, ceil, f64x2_ceil;
 }
 
 unary! {
@@ -27,8 +66,6 @@ unary! {
     ln_1p => ln_1p, log1p;
     /// base-10 logarithm
     log10 => log10, log10;
-    /// square root
-    sqrt => sqrt, sqrt;
     /// cube root
     cbrt => cbrt, cbrt;
     /// sine
@@ -41,18 +78,13 @@ unary! {
     sinh => sinh, sinh;
     /// hyperbolic cosine
     cosh => cosh, cosh;
-    /// absolute value
-    abs => abs, fabs;
-    /// largest integer ≤ x
-    floor => floor, floor;
-    /// smallest integer ≥ x
-    ceil => ceil, ceil;
     /// nearest integer, ties away from zero
     round => round, round;
 }
 
 /// xʸ
-#[inline(always)]
+#[cfg_attr(feature = "std", inline(always))]
+#[cfg_attr(not(feature = "std"), inline(never))]
 pub(crate) fn powf(x: f64, y: f64) -> f64 {
     #[cfg(feature = "std")]
     {
@@ -64,7 +96,8 @@ pub(crate) fn powf(x: f64, y: f64) -> f64 {
     }
 }
 
-/// xⁿ for an integer n (repeated multiplication with std, `pow` without).
+/// xⁿ for an integer n by repeated squaring: std's `powi`, or without std the loop of
+/// compiler-rt's `__powidf2` (what a non-constant `powi` lowers to).
 #[inline(always)]
 pub(crate) fn powi(x: f64, n: i32) -> f64 {
     #[cfg(feature = "std")]
@@ -73,12 +106,31 @@ pub(crate) fn powi(x: f64, n: i32) -> f64 {
     }
     #[cfg(not(feature = "std"))]
     {
-        libm::pow(x, n as f64)
+        let mut a = x;
+        let mut b = n;
+        let recip = b < 0;
+        let mut r = 1.0;
+        loop {
+            if b & 1 != 0 {
+                r *= a;
+            }
+            b /= 2;
+            if b == 0 {
+                break;
+            }
+            a *= a;
+        }
+        if recip {
+            1.0 / r
+        } else {
+            r
+        }
     }
 }
 
 /// Fused multiply–add a·b + c.
-#[inline(always)]
+#[cfg_attr(feature = "std", inline(always))]
+#[cfg_attr(not(feature = "std"), inline(never))]
 pub(crate) fn mul_add(a: f64, b: f64, c: f64) -> f64 {
     #[cfg(feature = "std")]
     {
@@ -91,13 +143,15 @@ pub(crate) fn mul_add(a: f64, b: f64, c: f64) -> f64 {
 }
 
 /// ln Γ(x) for x > 0.
-#[inline(always)]
+#[cfg_attr(feature = "std", inline(always))]
+#[cfg_attr(not(feature = "std"), inline(never))]
 pub(crate) fn ln_gamma(x: f64) -> f64 {
     libm::lgamma(x)
 }
 
 /// Γ(x).
-#[inline(always)]
+#[cfg_attr(feature = "std", inline(always))]
+#[cfg_attr(not(feature = "std"), inline(never))]
 pub(crate) fn gamma(x: f64) -> f64 {
     libm::tgamma(x)
 }

@@ -40,6 +40,8 @@ pub mod units;
 
 // JavaScript binding layer.
 #[cfg(feature = "wasm")]
+extern crate alloc;
+#[cfg(feature = "wasm")]
 pub mod wasm;
 
 pub use error::{Error, Result};

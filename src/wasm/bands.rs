@@ -1,15 +1,16 @@
 //! Band integrals, blackbody fractions and dimensionless Planck integrals for JavaScript.
 //! Band limits are in the `unit` of the `SpectrumOptions` passed (see `radiometry.rs`).
 
+#[allow(unused_imports)]
+use super::prelude::*;
+
 use wasm_bindgen::prelude::*;
 
 use super::error::map_indexed;
-#[cfg(feature = "wasm-full")]
 use super::opts::{choose, js_string, Opts};
 use super::radiometry::parse_spectrum;
 use super::radiometry::Spec;
 use crate::band;
-#[cfg(feature = "wasm-full")]
 use crate::band::PlanckKernel;
 use crate::error::{self as core_error, Error};
 use crate::inverse;
@@ -31,6 +32,53 @@ fn band_to_si(s: &Spec, lower: f64, upper: f64) -> crate::Result<(f64, f64)> {
     }
 }
 
+/// The per-temperature (or per-value) operations of one band, shared by the scalar and the
+/// array exports (one out-of-line copy of the option parsing and error plumbing for all).
+#[derive(Clone, Copy)]
+enum BandOp {
+    Integral,
+    IntegralDT,
+    Fraction,
+    Inverse,
+}
+
+impl BandOp {
+    fn eval(self, s: &Spec, a: f64, b: f64, x: f64) -> crate::Result<f64> {
+        match self {
+            BandOp::Integral => band::band(&s.spectrum, a, b, x),
+            BandOp::IntegralDT => band::band_d_dt(&s.spectrum, a, b, x),
+            BandOp::Fraction => band::band_fraction(&s.spectrum, a, b, x),
+            BandOp::Inverse => inverse::temperature_from_band(&s.spectrum, a, b, x),
+        }
+    }
+}
+
+#[inline(never)]
+fn band_scalar(
+    op: BandOp,
+    options: &JsValue,
+    lower: f64,
+    upper: f64,
+    x: f64,
+) -> Result<f64, JsValue> {
+    let s = parse_spectrum(options)?;
+    let (a, b) = band_to_si(&s, lower, upper)?;
+    Ok(op.eval(&s, a, b, x)?)
+}
+
+#[inline(never)]
+fn band_array(
+    op: BandOp,
+    options: &JsValue,
+    lower: f64,
+    upper: f64,
+    xs: &[f64],
+) -> Result<Vec<f64>, JsValue> {
+    let s = parse_spectrum(options)?;
+    let (a, b) = band_to_si(&s, lower, upper)?;
+    map_indexed(xs, &|x| op.eval(&s, a, b, x))
+}
+
 /// Band integral of the spectrum between `lower` and `upper` (in `options.unit`, lower < upper)
 /// at `temperatureK`: band radiance (W·m⁻²·sr⁻¹), band exitance (W·m⁻²) or photon rates.
 ///
@@ -45,9 +93,7 @@ pub fn band_integral(
     upper: f64,
     #[wasm_bindgen(js_name = temperatureK)] temperature_k: f64,
 ) -> Result<f64, JsValue> {
-    let s = parse_spectrum(&options)?;
-    let (a, b) = band_to_si(&s, lower, upper)?;
-    Ok(band::band(&s.spectrum, a, b, temperature_k)?)
+    band_scalar(BandOp::Integral, &options, lower, upper, temperature_k)
 }
 
 /// ∂/∂T of `bandIntegral` (per kelvin).
@@ -60,9 +106,7 @@ pub fn band_integral_dt(
     upper: f64,
     #[wasm_bindgen(js_name = temperatureK)] temperature_k: f64,
 ) -> Result<f64, JsValue> {
-    let s = parse_spectrum(&options)?;
-    let (a, b) = band_to_si(&s, lower, upper)?;
-    Ok(band::band_d_dt(&s.spectrum, a, b, temperature_k)?)
+    band_scalar(BandOp::IntegralDT, &options, lower, upper, temperature_k)
 }
 
 /// Fraction (0…1) of the spectrum's total that lies in the band [`lower`, `upper`] (in
@@ -76,9 +120,7 @@ pub fn band_fraction(
     upper: f64,
     #[wasm_bindgen(js_name = temperatureK)] temperature_k: f64,
 ) -> Result<f64, JsValue> {
-    let s = parse_spectrum(&options)?;
-    let (a, b) = band_to_si(&s, lower, upper)?;
-    Ok(band::band_fraction(&s.spectrum, a, b, temperature_k)?)
+    band_scalar(BandOp::Fraction, &options, lower, upper, temperature_k)
 }
 
 /// `bandIntegral` for every temperature of `temperaturesK` (K), one band, one call.
@@ -91,9 +133,7 @@ pub fn band_integral_array(
     upper: f64,
     #[wasm_bindgen(js_name = temperaturesK)] temperatures_k: &[f64],
 ) -> Result<Vec<f64>, JsValue> {
-    let s = parse_spectrum(&options)?;
-    let (a, b) = band_to_si(&s, lower, upper)?;
-    map_indexed(temperatures_k, |t| band::band(&s.spectrum, a, b, t))
+    band_array(BandOp::Integral, &options, lower, upper, temperatures_k)
 }
 
 /// `bandIntegralDT` for every temperature of `temperaturesK` (K).
@@ -106,15 +146,12 @@ pub fn band_integral_dt_array(
     upper: f64,
     #[wasm_bindgen(js_name = temperaturesK)] temperatures_k: &[f64],
 ) -> Result<Vec<f64>, JsValue> {
-    let s = parse_spectrum(&options)?;
-    let (a, b) = band_to_si(&s, lower, upper)?;
-    map_indexed(temperatures_k, |t| band::band_d_dt(&s.spectrum, a, b, t))
+    band_array(BandOp::IntegralDT, &options, lower, upper, temperatures_k)
 }
 
 /// `bandFraction` for every temperature of `temperaturesK` (K).
 ///
 /// @throws {QuantabandError} as `bandIntegralArray`.
-#[cfg(feature = "wasm-full")]
 #[wasm_bindgen(js_name = bandFractionArray)]
 pub fn band_fraction_array(
     #[wasm_bindgen(unchecked_param_type = "SpectrumOptions")] options: JsValue,
@@ -122,11 +159,7 @@ pub fn band_fraction_array(
     upper: f64,
     #[wasm_bindgen(js_name = temperaturesK)] temperatures_k: &[f64],
 ) -> Result<Vec<f64>, JsValue> {
-    let s = parse_spectrum(&options)?;
-    let (a, b) = band_to_si(&s, lower, upper)?;
-    map_indexed(temperatures_k, |t| {
-        band::band_fraction(&s.spectrum, a, b, t)
-    })
+    band_array(BandOp::Fraction, &options, lower, upper, temperatures_k)
 }
 
 /// Blackbody fraction of total energy emitted below the product λ·T = `lambdaTMK` (m·K; e.g.
@@ -167,8 +200,8 @@ pub fn photon_lambda_t_at_fraction(fraction: f64) -> Result<f64, JsValue> {
     Ok(band::photon_lambda_t_at_fraction(fraction)?)
 }
 
-#[cfg(feature = "wasm-full")]
-fn parse_kernel(name: &str) -> Result<PlanckKernel, JsValue> {
+fn parse_kernel(name: &JsValue) -> Result<PlanckKernel, JsValue> {
+    let name = &js_string(name, "kernel", "UNSUPPORTED")?;
     Ok(
         match choose(
             "kernel",
@@ -183,63 +216,68 @@ fn parse_kernel(name: &str) -> Result<PlanckKernel, JsValue> {
     )
 }
 
+/// The dimensionless Planck integral of `kernel` over [`lower`, `upper`]; `None` for an open
+/// end (one out-of-line copy for the four exports).
+#[inline(never)]
+fn planck_integral_between(
+    kernel: &JsValue,
+    lower: Option<f64>,
+    upper: Option<f64>,
+) -> Result<f64, JsValue> {
+    let k = parse_kernel(kernel)?;
+    Ok(match (lower, upper) {
+        (Some(a), Some(b)) => band::planck_integral(k, a, b)?,
+        (Some(a), None) => band::planck_integral_upper(k, a)?,
+        (None, Some(b)) => band::planck_integral_lower(k, b)?,
+        (None, None) => k.total(),
+    })
+}
+
 /// ∫ from `xLower` to `xUpper` of a dimensionless Planck integrand (x = hν/kT): "photon"
 /// x²/(eˣ−1), "energy" x³/(eˣ−1), "photonDerivative" x³eˣ/(eˣ−1)², "energyDerivative"
 /// x⁴eˣ/(eˣ−1)²; 0 ≤ xLower < xUpper.
 ///
 /// @throws {QuantabandError} NON_FINITE, OUT_OF_RANGE (negative limit), INVALID_BAND,
 /// UNSUPPORTED (unknown kernel).
-#[cfg(feature = "wasm-full")]
 #[wasm_bindgen(js_name = planckIntegral)]
 pub fn planck_integral(
     #[wasm_bindgen(unchecked_param_type = "PlanckKernel")] kernel: JsValue,
     #[wasm_bindgen(js_name = xLower)] x_lower: f64,
     #[wasm_bindgen(js_name = xUpper)] x_upper: f64,
 ) -> Result<f64, JsValue> {
-    let kernel = &js_string(&kernel, "kernel", "UNSUPPORTED")?;
-    Ok(band::planck_integral(
-        parse_kernel(kernel)?,
-        x_lower,
-        x_upper,
-    )?)
+    planck_integral_between(&kernel, Some(x_lower), Some(x_upper))
 }
 
 /// ∫ from `x` to ∞ of a dimensionless Planck integrand (see `planckIntegral`).
 ///
 /// @throws {QuantabandError} NON_FINITE, OUT_OF_RANGE, UNSUPPORTED.
-#[cfg(feature = "wasm-full")]
 #[wasm_bindgen(js_name = planckIntegralUpper)]
 pub fn planck_integral_upper(
     #[wasm_bindgen(unchecked_param_type = "PlanckKernel")] kernel: JsValue,
     x: f64,
 ) -> Result<f64, JsValue> {
-    let kernel = &js_string(&kernel, "kernel", "UNSUPPORTED")?;
-    Ok(band::planck_integral_upper(parse_kernel(kernel)?, x)?)
+    planck_integral_between(&kernel, Some(x), None)
 }
 
 /// ∫ from 0 to `x` of a dimensionless Planck integrand (see `planckIntegral`).
 ///
 /// @throws {QuantabandError} NON_FINITE, OUT_OF_RANGE, UNSUPPORTED.
-#[cfg(feature = "wasm-full")]
 #[wasm_bindgen(js_name = planckIntegralLower)]
 pub fn planck_integral_lower(
     #[wasm_bindgen(unchecked_param_type = "PlanckKernel")] kernel: JsValue,
     x: f64,
 ) -> Result<f64, JsValue> {
-    let kernel = &js_string(&kernel, "kernel", "UNSUPPORTED")?;
-    Ok(band::planck_integral_lower(parse_kernel(kernel)?, x)?)
+    planck_integral_between(&kernel, None, Some(x))
 }
 
 /// Total value ∫₀^∞ of a dimensionless Planck integrand: 2ζ(3), π⁴/15, 6ζ(3) or 4π⁴/15.
 ///
 /// @throws {QuantabandError} UNSUPPORTED (unknown kernel).
-#[cfg(feature = "wasm-full")]
 #[wasm_bindgen(js_name = planckIntegralTotal)]
 pub fn planck_integral_total(
     #[wasm_bindgen(unchecked_param_type = "PlanckKernel")] kernel: JsValue,
 ) -> Result<f64, JsValue> {
-    let kernel = &js_string(&kernel, "kernel", "UNSUPPORTED")?;
-    Ok(parse_kernel(kernel)?.total())
+    planck_integral_between(&kernel, None, None)
 }
 
 // ---------------------------------------------------------------------------------------------
@@ -266,7 +304,6 @@ pub fn brightness_temperature(
 /// `brightnessTemperature` for every density value of `values` at one point `x`, one call.
 ///
 /// @throws {QuantabandError} as `brightnessTemperature`; `index` is the first bad value.
-#[cfg(feature = "wasm-full")]
 #[wasm_bindgen(js_name = brightnessTemperatureArray)]
 pub fn brightness_temperature_array(
     #[wasm_bindgen(unchecked_param_type = "SpectrumOptions")] options: JsValue,
@@ -275,7 +312,7 @@ pub fn brightness_temperature_array(
 ) -> Result<Vec<f64>, JsValue> {
     let s = parse_spectrum(&options)?;
     let xs = s.user_to_si("x", x)?;
-    map_indexed(values, |v| {
+    map_indexed(values, &|v| {
         inverse::brightness_temperature(&s.spectrum, xs, v)
     })
 }
@@ -292,9 +329,7 @@ pub fn temperature_from_band(
     upper: f64,
     value: f64,
 ) -> Result<f64, JsValue> {
-    let s = parse_spectrum(&options)?;
-    let (a, b) = band_to_si(&s, lower, upper)?;
-    Ok(inverse::temperature_from_band(&s.spectrum, a, b, value)?)
+    band_scalar(BandOp::Inverse, &options, lower, upper, value)
 }
 
 /// `temperatureFromBand` for every band value of `values`, one band, one call.
@@ -307,11 +342,7 @@ pub fn temperature_from_band_array(
     upper: f64,
     values: &[f64],
 ) -> Result<Vec<f64>, JsValue> {
-    let s = parse_spectrum(&options)?;
-    let (a, b) = band_to_si(&s, lower, upper)?;
-    map_indexed(values, |v| {
-        inverse::temperature_from_band(&s.spectrum, a, b, v)
-    })
+    band_array(BandOp::Inverse, &options, lower, upper, values)
 }
 
 /// Temperature (K) at which (ε1/ε2)·B(band1, T)/B(band2, T) = `ratio` (ratio / two-colour
@@ -319,7 +350,6 @@ pub fn temperature_from_band_array(
 ///
 /// @throws {QuantabandError} INVALID_BAND, NON_FINITE, NON_POSITIVE, NO_SOLUTION (ratio out of
 /// reach, or ambiguous for overlapping bands), NOT_CONVERGED, option errors.
-#[cfg(feature = "wasm-full")]
 #[wasm_bindgen(js_name = temperatureFromBandRatio)]
 pub fn temperature_from_band_ratio(
     #[wasm_bindgen(unchecked_param_type = "SpectrumOptions")] options: JsValue,
@@ -340,7 +370,6 @@ pub fn temperature_from_band_ratio(
     )?)
 }
 
-#[cfg(feature = "wasm-full")]
 fn parse_band(s: &Spec, v: &JsValue, what: &'static str) -> Result<(f64, f64), JsValue> {
     let o = Opts::new(v, what, &["lower", "upper"])?;
     Ok(band_to_si(s, o.req_num("lower")?, o.req_num("upper")?)?)

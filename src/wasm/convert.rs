@@ -1,11 +1,15 @@
 //! Unit conversion and physical constants for JavaScript.
 
-use js_sys::{Object, Reflect};
+#[allow(unused_imports)]
+use super::prelude::*;
+
+use js_sys::Object;
 use wasm_bindgen::prelude::*;
+use wasm_bindgen::JsCast;
 
 use super::opts::js_string;
 
-use super::error::map_indexed;
+use super::error::{map_indexed, object};
 use crate::constants as k;
 use crate::units::{
     convert_spectral as conv_spectral, convert_temperature as conv_temperature,
@@ -76,6 +80,57 @@ export interface Constants {
 }
 "#;
 
+/// The conversions, shared by the scalar and array exports (one out-of-line copy of the unit
+/// parsing and error plumbing for all of them).
+#[derive(Clone, Copy)]
+enum Conv {
+    Spectral,
+    Temperature,
+    Difference,
+}
+
+/// `conv` of every element of `values` from unit `from` to unit `to`.
+#[inline(never)]
+fn convert(conv: Conv, values: &[f64], from: &JsValue, to: &JsValue) -> Result<Vec<f64>, JsValue> {
+    let from = &js_string(from, "from", "UNKNOWN_UNIT")?;
+    let to = &js_string(to, "to", "UNKNOWN_UNIT")?;
+    match conv {
+        Conv::Spectral => {
+            let (f, t) = (SpectralUnit::parse(from)?, SpectralUnit::parse(to)?);
+            map_indexed(values, &|v| conv_spectral("value", v, f, t))
+        }
+        _ => {
+            let (f, t) = (TemperatureUnit::parse(from)?, TemperatureUnit::parse(to)?);
+            map_indexed(values, &|v| match conv {
+                Conv::Difference => conv_difference("difference", v, f, t),
+                _ => conv_temperature("temperature", v, f, t),
+            })
+        }
+    }
+}
+
+/// `convert` of one value (an error carries no bulk index).
+#[inline(never)]
+fn convert_one(conv: Conv, value: f64, from: &JsValue, to: &JsValue) -> Result<f64, JsValue> {
+    let from = &js_string(from, "from", "UNKNOWN_UNIT")?;
+    let to = &js_string(to, "to", "UNKNOWN_UNIT")?;
+    Ok(match conv {
+        Conv::Spectral => conv_spectral(
+            "value",
+            value,
+            SpectralUnit::parse(from)?,
+            SpectralUnit::parse(to)?,
+        )?,
+        _ => {
+            let (f, t) = (TemperatureUnit::parse(from)?, TemperatureUnit::parse(to)?);
+            match conv {
+                Conv::Difference => conv_difference("difference", value, f, t)?,
+                _ => conv_temperature("temperature", value, f, t)?,
+            }
+        }
+    })
+}
+
 /// Converts a spectral coordinate between units, across kinds if needed (wavelength ↔
 /// wavenumber ↔ frequency ↔ photon energy; vacuum values, CODATA 2018 h and c).
 ///
@@ -89,10 +144,7 @@ pub fn convert_spectral(
     #[wasm_bindgen(unchecked_param_type = "SpectralUnit")] from: JsValue,
     #[wasm_bindgen(unchecked_param_type = "SpectralUnit")] to: JsValue,
 ) -> Result<f64, JsValue> {
-    let from = &js_string(&from, "from", "UNKNOWN_UNIT")?;
-    let to = &js_string(&to, "to", "UNKNOWN_UNIT")?;
-    let (f, t) = (SpectralUnit::parse(from)?, SpectralUnit::parse(to)?);
-    Ok(conv_spectral("value", value, f, t)?)
+    convert_one(Conv::Spectral, value, &from, &to)
 }
 
 /// Converts every element of `values` between spectral units (see `convertSpectral`). Returns a
@@ -105,10 +157,7 @@ pub fn convert_spectral_array(
     #[wasm_bindgen(unchecked_param_type = "SpectralUnit")] from: JsValue,
     #[wasm_bindgen(unchecked_param_type = "SpectralUnit")] to: JsValue,
 ) -> Result<Vec<f64>, JsValue> {
-    let from = &js_string(&from, "from", "UNKNOWN_UNIT")?;
-    let to = &js_string(&to, "to", "UNKNOWN_UNIT")?;
-    let (f, t) = (SpectralUnit::parse(from)?, SpectralUnit::parse(to)?);
-    map_indexed(values, |v| conv_spectral("value", v, f, t))
+    convert(Conv::Spectral, values, &from, &to)
 }
 
 /// The kind of quantity a spectral unit measures.
@@ -135,10 +184,7 @@ pub fn convert_temperature(
     #[wasm_bindgen(unchecked_param_type = "TemperatureUnit")] from: JsValue,
     #[wasm_bindgen(unchecked_param_type = "TemperatureUnit")] to: JsValue,
 ) -> Result<f64, JsValue> {
-    let from = &js_string(&from, "from", "UNKNOWN_UNIT")?;
-    let to = &js_string(&to, "to", "UNKNOWN_UNIT")?;
-    let (f, t) = (TemperatureUnit::parse(from)?, TemperatureUnit::parse(to)?);
-    Ok(conv_temperature("temperature", value, f, t)?)
+    convert_one(Conv::Temperature, value, &from, &to)
 }
 
 /// Converts every element of `values` (absolute temperatures) between units.
@@ -150,10 +196,7 @@ pub fn convert_temperature_array(
     #[wasm_bindgen(unchecked_param_type = "TemperatureUnit")] from: JsValue,
     #[wasm_bindgen(unchecked_param_type = "TemperatureUnit")] to: JsValue,
 ) -> Result<Vec<f64>, JsValue> {
-    let from = &js_string(&from, "from", "UNKNOWN_UNIT")?;
-    let to = &js_string(&to, "to", "UNKNOWN_UNIT")?;
-    let (f, t) = (TemperatureUnit::parse(from)?, TemperatureUnit::parse(to)?);
-    map_indexed(values, |v| conv_temperature("temperature", v, f, t))
+    convert(Conv::Temperature, values, &from, &to)
 }
 
 /// Converts a temperature DIFFERENCE between units (no offset: a rise of 9 °F is a rise of
@@ -166,36 +209,34 @@ pub fn convert_temperature_difference(
     #[wasm_bindgen(unchecked_param_type = "TemperatureUnit")] from: JsValue,
     #[wasm_bindgen(unchecked_param_type = "TemperatureUnit")] to: JsValue,
 ) -> Result<f64, JsValue> {
-    let from = &js_string(&from, "from", "UNKNOWN_UNIT")?;
-    let to = &js_string(&to, "to", "UNKNOWN_UNIT")?;
-    let (f, t) = (TemperatureUnit::parse(from)?, TemperatureUnit::parse(to)?);
-    Ok(conv_difference("difference", value, f, t)?)
+    convert_one(Conv::Difference, value, &from, &to)
 }
 
 /// The physical constants the package uses (SI; CODATA 2018, ITS-90 c2).
 #[wasm_bindgen(js_name = constants, unchecked_return_type = "Constants")]
 pub fn constants() -> JsValue {
-    let o = Object::new();
-    for (name, v) in [
-        ("planckH", k::PLANCK_H),
-        ("planckHbar", k::PLANCK_HBAR),
-        ("speedOfLightC", k::SPEED_OF_LIGHT_C),
-        ("boltzmannK", k::BOLTZMANN_K),
-        ("elementaryChargeE", k::ELEMENTARY_CHARGE_E),
-        ("avogadroNA", k::AVOGADRO_NA),
-        ("atomicMassU", k::ATOMIC_MASS_U),
-        ("electronMass", k::ELECTRON_MASS),
-        ("c1", k::C1),
-        ("c1L", k::C1L),
-        ("c2", k::C2),
-        ("c2Its90", k::C2_ITS90),
-        ("stefanBoltzmannSigma", k::STEFAN_BOLTZMANN_SIGMA),
-        ("radiationA", k::RADIATION_A),
-        ("wienB", k::WIEN_B),
-        ("wienBFrequency", k::WIEN_B_FREQUENCY),
-    ] {
-        // Setting a data property on a fresh plain object cannot fail.
-        let _ = Reflect::set(&o, &JsValue::from_str(name), &JsValue::from_f64(v));
-    }
-    Object::freeze(&o).into()
+    let o = object(
+        "planckH;planckHbar;speedOfLightC;boltzmannK;elementaryChargeE;avogadroNA;atomicMassU;\
+         electronMass;c1;c1L;c2;c2Its90;stefanBoltzmannSigma;radiationA;wienB;wienBFrequency",
+        &[
+            k::PLANCK_H,
+            k::PLANCK_HBAR,
+            k::SPEED_OF_LIGHT_C,
+            k::BOLTZMANN_K,
+            k::ELEMENTARY_CHARGE_E,
+            k::AVOGADRO_NA,
+            k::ATOMIC_MASS_U,
+            k::ELECTRON_MASS,
+            k::C1,
+            k::C1L,
+            k::C2,
+            k::C2_ITS90,
+            k::STEFAN_BOLTZMANN_SIGMA,
+            k::RADIATION_A,
+            k::WIEN_B,
+            k::WIEN_B_FREQUENCY,
+        ],
+        &[],
+    );
+    Object::freeze(o.unchecked_ref::<Object>()).into()
 }

@@ -107,6 +107,17 @@ export function qbReadOptions(obj, id, out) {
   return mask;
 }
 
+/**
+ * Called from Rust for a result object: the numbers `values` (a Float64Array view) under the
+ * ";"-separated `keys`, in one call instead of one per field.
+ */
+export function qbNumbers(keys, values) {
+  const names = keys.split(';');
+  const o = {};
+  for (let i = 0; i < names.length; i++) o[names[i]] = values[i];
+  return o;
+}
+
 /** Every stable error code, in the order of the Rust `Error::ALL_CODES`. */
 export const ERROR_CODES = Object.freeze([
   'NON_FINITE',

@@ -2,6 +2,9 @@
 //! `error.js`, re-exported from the package entry) carrying the core's stable code, the core's
 //! `Display` text and, for bulk calls, the index of the first bad element.
 
+#[allow(unused_imports)]
+use super::prelude::*;
+
 use wasm_bindgen::prelude::*;
 
 use crate::Error;
@@ -29,6 +32,22 @@ extern "C" {
     /// throwing getter or proxy trap never unwinds through WebAssembly frames.
     #[wasm_bindgen(catch, js_name = qbReadOptions)]
     pub(crate) fn read_options(obj: &JsValue, id: u32, out: &mut [f64]) -> Result<f64, JsValue>;
+    /// A plain object with the numbers `values` under the ";"-separated `keys`, built in one
+    /// crossing.
+    #[wasm_bindgen(js_name = qbNumbers)]
+    fn numbers_object(keys: &str, values: &[f64]) -> JsValue;
+}
+
+/// A result object: the numbers `values` under the ";"-separated `keys`, then the `extra`
+/// fields (strings, arrays, nested objects) in order.
+#[inline(never)]
+pub(crate) fn object(keys: &str, values: &[f64], extra: &[(&str, &JsValue)]) -> JsValue {
+    let o = numbers_object(keys, values);
+    for (k, v) in extra {
+        // Defining a data property on a fresh plain object cannot fail.
+        let _ = js_sys::Reflect::set(&o, &JsValue::from_str(k), v);
+    }
+    o
 }
 
 #[wasm_bindgen(typescript_custom_section)]
@@ -119,10 +138,40 @@ pub(crate) fn at(e: Error, index: usize) -> JsValue {
     to_js(e, Some(u32::try_from(index).unwrap_or(u32::MAX)))
 }
 
-/// An error detected by the binding layer itself (malformed options), with a core code.
+/// An error detected by the binding layer itself (malformed options), with a core code and a
+/// message made of `parts` (concatenated here rather than with `format!`, which would bring
+/// `core::fmt` into the WebAssembly module).
 #[inline(never)]
-pub(crate) fn fail(code: &'static str, message: String) -> JsValue {
-    binding_error(code, &message)
+pub(crate) fn fail(code: &'static str, parts: &[&str]) -> JsValue {
+    binding_error(code, &parts.concat())
+}
+
+/// `n` in decimal digits (for messages; see [`fail`]).
+pub(crate) fn decimal(n: usize) -> String {
+    let mut s = String::new();
+    let mut p = 1;
+    while n / p >= 10 {
+        p *= 10;
+    }
+    loop {
+        s.push(char::from(b'0' + (n / p % 10) as u8));
+        if p == 1 {
+            return s;
+        }
+        p /= 10;
+    }
+}
+
+/// `items` separated by ", " (for messages).
+pub(crate) fn list(items: &[&str]) -> String {
+    let mut s = String::new();
+    for (i, item) in items.iter().enumerate() {
+        if i > 0 {
+            s.push_str(", ");
+        }
+        s.push_str(item);
+    }
+    s
 }
 
 /// An empty vector with room for `n` values, or an `OUT_OF_RANGE` error when that much memory
@@ -141,10 +190,13 @@ pub(crate) fn with_room<T>(n: usize) -> Result<Vec<T>, JsValue> {
     Ok(v)
 }
 
-/// Maps `f` over `xs`, stopping at the first error and reporting its index.
-pub(crate) fn map_indexed<T: Copy>(
-    xs: &[T],
-    mut f: impl FnMut(T) -> crate::Result<f64>,
+/// Maps `f` over `xs`, stopping at the first error and reporting its index. One out-of-line
+/// copy serves every bulk export (`f` is called through a reference: an indirect call per
+/// element, which is small next to any of the physics).
+#[inline(never)]
+pub(crate) fn map_indexed(
+    xs: &[f64],
+    f: &dyn Fn(f64) -> crate::Result<f64>,
 ) -> Result<Vec<f64>, JsValue> {
     let mut out = with_room(xs.len())?;
     for (i, &x) in xs.iter().enumerate() {

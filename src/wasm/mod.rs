@@ -14,6 +14,15 @@
 // The wasm-bindgen macros expand to `unsafe` blocks; the physics modules keep `forbid`.
 #![allow(unsafe_code)]
 
+#[cfg(all(target_arch = "wasm32", not(feature = "std")))]
+mod runtime;
+
+/// What `std`'s prelude would bring; the package build is `no_std` (see `runtime.rs`).
+mod prelude {
+    pub(crate) use alloc::string::{String, ToString};
+    pub(crate) use alloc::vec::Vec;
+}
+
 mod bands;
 mod convert;
 mod error;

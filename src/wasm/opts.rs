@@ -10,13 +10,16 @@
 //! error message (or accepts a spelling outside the choices, such as a unit alias). Both paths
 //! read the same values from a well-formed object.
 
+#[allow(unused_imports)]
+use super::prelude::*;
+
+use alloc::borrow::Cow;
 use core::sync::atomic::{AtomicU32, Ordering};
 use js_sys::{Array, Object, Reflect};
-use std::borrow::Cow;
 use wasm_bindgen::prelude::*;
 use wasm_bindgen::JsCast;
 
-use super::error::{define_options, fail, read_options};
+use super::error::{define_options, fail, list, read_options};
 
 /// The fields of an options object for the one-call reader.
 pub(crate) struct Schema {
@@ -101,10 +104,11 @@ impl<'a> Opts<'a> {
         if !value.is_object() || Array::is_array(value) || value.is_function() {
             return Err(fail(
                 "UNSUPPORTED",
-                format!(
-                    "{what} must be an options object with fields {}",
-                    allowed.join(", ")
-                ),
+                &[
+                    what,
+                    " must be an options object with fields ",
+                    &list(allowed),
+                ],
             ));
         }
         let obj: &Object = value.unchecked_ref();
@@ -114,10 +118,14 @@ impl<'a> Opts<'a> {
             if !allowed.iter().any(|a| *a == key) {
                 return Err(fail(
                     "UNSUPPORTED",
-                    format!(
-                        "{what}: unknown field \"{key}\" (accepted fields: {})",
-                        allowed.join(", ")
-                    ),
+                    &[
+                        what,
+                        ": unknown field \"",
+                        &key,
+                        "\" (accepted fields: ",
+                        &list(allowed),
+                        ")",
+                    ],
                 ));
             }
         }
@@ -186,11 +194,14 @@ impl<'a> Opts<'a> {
             Some(x) => Ok(Some(x)),
             None => Err(fail(
                 "NON_FINITE",
-                format!(
-                    "{}.{key} must be a finite number (got a {})",
+                &[
                     self.what,
-                    type_name(&v)
-                ),
+                    ".",
+                    key,
+                    " must be a finite number (got a ",
+                    type_name(&v),
+                    ")",
+                ],
             )),
         }
     }
@@ -201,10 +212,12 @@ impl<'a> Opts<'a> {
             Some(x) => Ok(x),
             None => Err(fail(
                 "NON_FINITE",
-                format!(
-                    "{}.{key} is required and must be a finite number",
-                    self.what
-                ),
+                &[
+                    self.what,
+                    ".",
+                    key,
+                    " is required and must be a finite number",
+                ],
             )),
         }
     }
@@ -234,11 +247,14 @@ impl<'a> Opts<'a> {
             Some(s) => Ok(Some(Cow::Owned(s))),
             None => Err(fail(
                 code,
-                format!(
-                    "{}.{key} must be a string (got a {})",
+                &[
                     self.what,
-                    type_name(&v)
-                ),
+                    ".",
+                    key,
+                    " must be a string (got a ",
+                    type_name(&v),
+                    ")",
+                ],
             )),
         }
     }
@@ -260,10 +276,14 @@ pub(crate) fn choose(what: &str, value: &str, choices: &[&str]) -> Result<usize,
     choices.iter().position(|c| *c == value).ok_or_else(|| {
         fail(
             "UNSUPPORTED",
-            format!(
-                "{what} must be one of {} (got \"{value}\")",
-                choices.join(", ")
-            ),
+            &[
+                what,
+                " must be one of ",
+                &list(choices),
+                " (got \"",
+                value,
+                "\")",
+            ],
         )
     })
 }
@@ -275,7 +295,7 @@ pub(crate) fn js_string(v: &JsValue, what: &str, code: &'static str) -> Result<S
     v.as_string().ok_or_else(|| {
         fail(
             code,
-            format!("{what} must be a string (got a {})", type_name(v)),
+            &[what, " must be a string (got a ", type_name(v), ")"],
         )
     })
 }

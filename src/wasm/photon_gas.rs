@@ -1,6 +1,9 @@
 //! Photon-gas quantities and thermal-noise temperatures for JavaScript (frequencies in Hz,
 //! energies in J, temperatures in K).
 
+#[allow(unused_imports)]
+use super::prelude::*;
+
 use wasm_bindgen::prelude::*;
 
 use crate::stats;
@@ -39,7 +42,6 @@ pub fn rayleigh_jeans_brightness_temperature(
 /// `brightnessTemperatureK` (inverse of `rayleighJeansBrightnessTemperature`).
 ///
 /// @throws {QuantabandError} NON_FINITE, NON_POSITIVE_SPECTRAL, NON_POSITIVE_TEMPERATURE.
-#[cfg(feature = "wasm-full")]
 #[wasm_bindgen(js_name = physicalTemperatureFromRayleighJeans)]
 pub fn physical_temperature_from_rayleigh_jeans(
     #[wasm_bindgen(js_name = frequencyHz)] frequency_hz: f64,
@@ -103,7 +105,6 @@ pub fn photon_pressure(
 /// Photon density of states per unit volume and energy, J⁻¹·m⁻³, at photon energy `energyJ`.
 ///
 /// @throws {QuantabandError} NON_FINITE, NON_POSITIVE_SPECTRAL.
-#[cfg(feature = "wasm-full")]
 #[wasm_bindgen(js_name = photonDensityOfStates)]
 pub fn photon_density_of_states(
     #[wasm_bindgen(js_name = energyJ)] energy_j: f64,
@@ -115,7 +116,6 @@ pub fn photon_density_of_states(
 /// `energyJ` and `temperatureK`.
 ///
 /// @throws {QuantabandError} NON_FINITE, NON_POSITIVE_SPECTRAL, NON_POSITIVE_TEMPERATURE.
-#[cfg(feature = "wasm-full")]
 #[wasm_bindgen(js_name = spectralEnergyDensityEnergy)]
 pub fn spectral_energy_density_energy(
     #[wasm_bindgen(js_name = energyJ)] energy_j: f64,
@@ -131,7 +131,6 @@ pub fn spectral_energy_density_energy(
 /// `frequencyHz` and `temperatureK`.
 ///
 /// @throws {QuantabandError} NON_FINITE, NON_POSITIVE_SPECTRAL, NON_POSITIVE_TEMPERATURE.
-#[cfg(feature = "wasm-full")]
 #[wasm_bindgen(js_name = spectralEnergyDensityFrequency)]
 pub fn spectral_energy_density_frequency(
     #[wasm_bindgen(js_name = frequencyHz)] frequency_hz: f64,

@@ -4,6 +4,9 @@
 //! peak positions) are in `options.unit`; densities are in SI per the SI unit of
 //! `options.variable` (per m, per m⁻¹ or per Hz — see `spectrumUnits`).
 
+#[allow(unused_imports)]
+use super::prelude::*;
+
 use wasm_bindgen::prelude::*;
 
 use super::error::{at, fail, map_indexed, with_room};
@@ -139,34 +142,34 @@ pub(crate) fn parse_spectrum(value: &JsValue) -> Result<Spec, JsValue> {
     let unit_name = o.string("unit", "UNKNOWN_UNIT")?.ok_or_else(|| {
         fail(
             "UNKNOWN_UNIT",
-            "SpectrumOptions.unit is required (a spectral unit such as \"um\")".into(),
+            &["SpectrumOptions.unit is required (a spectral unit such as \"um\")"],
         )
     })?;
     let unit = SpectralUnit::parse(&unit_name)?;
-    let variable = match o.string("variable", "UNSUPPORTED")? {
-        Some(v) => match choose(
-            "SpectrumOptions.variable",
-            &v,
-            &["wavelength", "wavenumber", "frequency"],
-        )? {
-            0 => SpectralVariable::Wavelength,
-            1 => SpectralVariable::Wavenumber,
-            _ => SpectralVariable::Frequency,
-        },
-        None => match unit.kind() {
-            SpectralKind::Wavelength => SpectralVariable::Wavelength,
-            SpectralKind::Wavenumber => SpectralVariable::Wavenumber,
-            SpectralKind::Frequency => SpectralVariable::Frequency,
-            SpectralKind::PhotonEnergy => {
-                return Err(fail(
+    let variable =
+        match o.string("variable", "UNSUPPORTED")? {
+            Some(v) => match choose(
+                "SpectrumOptions.variable",
+                &v,
+                &["wavelength", "wavenumber", "frequency"],
+            )? {
+                0 => SpectralVariable::Wavelength,
+                1 => SpectralVariable::Wavenumber,
+                _ => SpectralVariable::Frequency,
+            },
+            None => match unit.kind() {
+                SpectralKind::Wavelength => SpectralVariable::Wavelength,
+                SpectralKind::Wavenumber => SpectralVariable::Wavenumber,
+                SpectralKind::Frequency => SpectralVariable::Frequency,
+                SpectralKind::PhotonEnergy => return Err(fail(
                     "UNSUPPORTED",
-                    "SpectrumOptions.variable is required when unit is a photon-energy unit \
-                     (J, eV, meV): choose \"wavelength\", \"wavenumber\" or \"frequency\""
-                        .into(),
-                ))
-            }
-        },
-    };
+                    &[
+                        "SpectrumOptions.variable is required when unit is a photon-energy unit \
+                     (J, eV, meV): choose \"wavelength\", \"wavenumber\" or \"frequency\"",
+                    ],
+                )),
+            },
+        };
     let quantity = match o.string("quantity", "UNSUPPORTED")? {
         None => Quantity::Energy,
         Some(q) => match choose("SpectrumOptions.quantity", &q, &["energy", "photon"])? {
@@ -213,19 +216,47 @@ impl Spec {
     }
 }
 
-fn density(s: &Spec, x: f64, t: f64, dt: bool) -> crate::Result<f64> {
-    let xs = s.user_to_si("x", x)?;
-    if dt {
-        s.spectrum.spectral_d_dt(xs, t)
-    } else {
-        s.spectrum.spectral(xs, t)
+/// The single-spectrum operations, shared by the scalar and array exports (one out-of-line copy
+/// of the option parsing and error plumbing for all of them).
+#[derive(Clone, Copy)]
+enum SpecOp {
+    Density,
+    DensityDT,
+    Total,
+    TotalDT,
+    Peak,
+}
+
+impl SpecOp {
+    /// The operation at point `x` (user unit; unused by the totals and the peak) and `t` (K).
+    fn eval(self, s: &Spec, x: f64, t: f64) -> crate::Result<f64> {
+        match self {
+            SpecOp::Density => s.spectrum.spectral(s.user_to_si("x", x)?, t),
+            SpecOp::DensityDT => s.spectrum.spectral_d_dt(s.user_to_si("x", x)?, t),
+            SpecOp::Total => s.spectrum.total(t),
+            SpecOp::TotalDT => s.spectrum.total_d_dt(t),
+            SpecOp::Peak => s.si_to_user("peak", s.spectrum.peak(t)?),
+        }
     }
+}
+
+#[inline(never)]
+fn spec_scalar(op: SpecOp, options: &JsValue, x: f64, t: f64) -> Result<f64, JsValue> {
+    let s = parse_spectrum(options)?;
+    Ok(op.eval(&s, x, t)?)
+}
+
+#[inline(never)]
+fn spec_array(op: SpecOp, options: &JsValue, xs: &[f64], t: f64) -> Result<Vec<f64>, JsValue> {
+    let s = parse_spectrum(options)?;
+    core_error::temperature("temperature_k", t)?;
+    map_indexed(xs, &|x| op.eval(&s, x, t))
 }
 
 /// Spectral density of a (grey-body) Planck spectrum at one point `x` (in `options.unit`) and
 /// temperature `temperatureK` (K). Result in SI per the SI unit of `options.variable`, e.g.
-/// W·m⁻²·sr⁻¹·m⁻¹ for energy radiance per wavelength (README "Conventions"; `spectrumUnits` in the
-/// wasm-full build).
+/// W·m⁻²·sr⁻¹·m⁻¹ for energy radiance per wavelength (README "Conventions"; `spectrumUnits`
+/// gives the labels).
 ///
 /// Example: `spectralDensity({ unit: "um" }, 10, 300)` → 9.924e6 W·m⁻²·sr⁻¹·m⁻¹.
 ///
@@ -238,8 +269,7 @@ pub fn spectral_density(
     x: f64,
     #[wasm_bindgen(js_name = temperatureK)] temperature_k: f64,
 ) -> Result<f64, JsValue> {
-    let s = parse_spectrum(&options)?;
-    Ok(density(&s, x, temperature_k, false)?)
+    spec_scalar(SpecOp::Density, &options, x, temperature_k)
 }
 
 /// ∂/∂T of `spectralDensity` (density unit per kelvin).
@@ -251,8 +281,7 @@ pub fn spectral_density_dt(
     x: f64,
     #[wasm_bindgen(js_name = temperatureK)] temperature_k: f64,
 ) -> Result<f64, JsValue> {
-    let s = parse_spectrum(&options)?;
-    Ok(density(&s, x, temperature_k, true)?)
+    spec_scalar(SpecOp::DensityDT, &options, x, temperature_k)
 }
 
 /// Spectral density at every point of `xs` (in `options.unit`) at one temperature (K), in one
@@ -265,24 +294,19 @@ pub fn spectral_density_array(
     xs: &[f64],
     #[wasm_bindgen(js_name = temperatureK)] temperature_k: f64,
 ) -> Result<Vec<f64>, JsValue> {
-    let s = parse_spectrum(&options)?;
-    core_error::temperature("temperature_k", temperature_k)?;
-    map_indexed(xs, |x| density(&s, x, temperature_k, false))
+    spec_array(SpecOp::Density, &options, xs, temperature_k)
 }
 
 /// ∂/∂T of the spectral density at every point of `xs`, one temperature (K).
 ///
 /// @throws {QuantabandError} as `spectralDensityArray`.
-#[cfg(feature = "wasm-full")]
 #[wasm_bindgen(js_name = spectralDensityDTArray)]
 pub fn spectral_density_dt_array(
     #[wasm_bindgen(unchecked_param_type = "SpectrumOptions")] options: JsValue,
     xs: &[f64],
     #[wasm_bindgen(js_name = temperatureK)] temperature_k: f64,
 ) -> Result<Vec<f64>, JsValue> {
-    let s = parse_spectrum(&options)?;
-    core_error::temperature("temperature_k", temperature_k)?;
-    map_indexed(xs, |x| density(&s, x, temperature_k, true))
+    spec_array(SpecOp::DensityDT, &options, xs, temperature_k)
 }
 
 /// Spectral density on a grid: every point of `xs` (in `options.unit`) × every temperature of
@@ -325,7 +349,7 @@ pub fn spectrum_total(
     #[wasm_bindgen(unchecked_param_type = "SpectrumOptions")] options: JsValue,
     #[wasm_bindgen(js_name = temperatureK)] temperature_k: f64,
 ) -> Result<f64, JsValue> {
-    Ok(parse_spectrum(&options)?.spectrum.total(temperature_k)?)
+    spec_scalar(SpecOp::Total, &options, 1.0, temperature_k)
 }
 
 /// ∂/∂T of `spectrumTotal` (per kelvin).
@@ -336,9 +360,7 @@ pub fn spectrum_total_dt(
     #[wasm_bindgen(unchecked_param_type = "SpectrumOptions")] options: JsValue,
     #[wasm_bindgen(js_name = temperatureK)] temperature_k: f64,
 ) -> Result<f64, JsValue> {
-    Ok(parse_spectrum(&options)?
-        .spectrum
-        .total_d_dt(temperature_k)?)
+    spec_scalar(SpecOp::TotalDT, &options, 1.0, temperature_k)
 }
 
 /// Position of the maximum of the spectral density (per `options.variable`), returned in
@@ -351,15 +373,12 @@ pub fn spectrum_peak(
     #[wasm_bindgen(unchecked_param_type = "SpectrumOptions")] options: JsValue,
     #[wasm_bindgen(js_name = temperatureK)] temperature_k: f64,
 ) -> Result<f64, JsValue> {
-    let s = parse_spectrum(&options)?;
-    let p = s.spectrum.peak(temperature_k)?;
-    Ok(s.si_to_user("peak", p)?)
+    spec_scalar(SpecOp::Peak, &options, 1.0, temperature_k)
 }
 
 /// Plain-text SI unit labels of the results for these options (for axis labels and tables).
 ///
 /// @throws {QuantabandError} option errors.
-#[cfg(feature = "wasm-full")]
 #[wasm_bindgen(js_name = spectrumUnits, unchecked_return_type = "SpectrumUnits")]
 pub fn spectrum_units(
     #[wasm_bindgen(unchecked_param_type = "SpectrumOptions")] options: JsValue,
@@ -379,10 +398,10 @@ pub fn spectrum_units(
     let o = js_sys::Object::new();
     for (k, v) in [
         ("coordinate", s.unit.name().to_string()),
-        ("spectralDensity", format!("{base} {per}")),
-        ("spectralDensityDT", format!("{base} {per} K^-1")),
+        ("spectralDensity", [base, " ", per].concat()),
+        ("spectralDensityDT", [base, " ", per, " K^-1"].concat()),
         ("total", base.to_string()),
-        ("totalDT", format!("{base} K^-1")),
+        ("totalDT", [base, " K^-1"].concat()),
     ] {
         let _ = js_sys::Reflect::set(&o, &JsValue::from_str(k), &JsValue::from_str(&v));
     }

@@ -2,6 +2,9 @@
 //! photon-gas quantities and noise temperatures. Energies in J, frequencies in Hz, temperatures
 //! in K (convert eV with `convertSpectral(x, "eV", "J")`).
 
+#[allow(unused_imports)]
+use super::prelude::*;
+
 use wasm_bindgen::prelude::*;
 
 use super::error::map_indexed;
@@ -26,7 +29,7 @@ pub fn bose_einstein(x: f64) -> Result<f64, JsValue> {
 /// @throws {QuantabandError} as `boseEinstein`; `index` is the first bad element.
 #[wasm_bindgen(js_name = boseEinsteinArray)]
 pub fn bose_einstein_array(xs: &[f64]) -> Result<Vec<f64>, JsValue> {
-    map_indexed(xs, stats::bose_einstein)
+    map_indexed(xs, &stats::bose_einstein)
 }
 
 /// Fermi–Dirac occupancy 1/(eˣ + 1) at reduced energy x = (E − μ)/kT (any finite x).
@@ -42,7 +45,7 @@ pub fn fermi_dirac(x: f64) -> Result<f64, JsValue> {
 /// @throws {QuantabandError} as `fermiDirac`; `index` is the first bad element.
 #[wasm_bindgen(js_name = fermiDiracArray)]
 pub fn fermi_dirac_array(xs: &[f64]) -> Result<Vec<f64>, JsValue> {
-    map_indexed(xs, stats::fermi_dirac)
+    map_indexed(xs, &stats::fermi_dirac)
 }
 
 /// Maxwell–Boltzmann occupancy e⁻ˣ at reduced energy x = (E − μ)/kT.
@@ -56,10 +59,9 @@ pub fn maxwell_boltzmann(x: f64) -> Result<f64, JsValue> {
 /// `maxwellBoltzmann` for every element of `xs`.
 ///
 /// @throws {QuantabandError} as `maxwellBoltzmann`; `index` is the first bad element.
-#[cfg(feature = "wasm-full")]
 #[wasm_bindgen(js_name = maxwellBoltzmannArray)]
 pub fn maxwell_boltzmann_array(xs: &[f64]) -> Result<Vec<f64>, JsValue> {
-    map_indexed(xs, stats::maxwell_boltzmann)
+    map_indexed(xs, &stats::maxwell_boltzmann)
 }
 
 /// Bose–Einstein occupancy of a state of energy `energyJ` (J) at chemical potential
@@ -131,7 +133,6 @@ pub fn bose_einstein_integral(order: f64, fugacity: f64) -> Result<f64, JsValue>
 /// `numberDensityPerM3` (m⁻³) and particle mass `massKg` (kg).
 ///
 /// @throws {QuantabandError} NON_FINITE, NON_POSITIVE.
-#[cfg(feature = "wasm-full")]
 #[wasm_bindgen(js_name = boseCriticalTemperature)]
 pub fn bose_critical_temperature(
     #[wasm_bindgen(js_name = numberDensityPerM3)] number_density_per_m3: f64,
@@ -159,21 +160,19 @@ pub fn fermi_dirac_integral(
 /// `fermiDiracIntegral` for every element of `etas`.
 ///
 /// @throws {QuantabandError} as `fermiDiracIntegral`; `index` is the first bad element.
-#[cfg(feature = "wasm-full")]
 #[wasm_bindgen(js_name = fermiDiracIntegralArray)]
 pub fn fermi_dirac_integral_array(
     #[wasm_bindgen(unchecked_param_type = "FermiDiracOrder")] order: f64,
     etas: &[f64],
 ) -> Result<Vec<f64>, JsValue> {
     let o = stats::FdOrder::from_j(order)?;
-    map_indexed(etas, |eta| stats::fermi_dirac_integral(o, eta))
+    map_indexed(etas, &|eta| stats::fermi_dirac_integral(o, eta))
 }
 
 /// Reduced chemical potential η with F_{1/2}(η) = `reducedDensity` (> 0), the inverse of
 /// `fermiDiracIntegral(0.5, η)`.
 ///
 /// @throws {QuantabandError} NON_FINITE, NON_POSITIVE, NOT_CONVERGED.
-#[cfg(feature = "wasm-full")]
 #[wasm_bindgen(js_name = inverseFermiDiracHalf)]
 pub fn inverse_fermi_dirac_half(
     #[wasm_bindgen(js_name = reducedDensity)] reduced_density: f64,

@@ -7,18 +7,20 @@
 //! replace calibrated instruments and standard procedures, must not be used for medical
 //! temperature screening or process-safety decisions, and defer to local codes and standards.
 
+#[allow(unused_imports)]
+use super::prelude::*;
+
 use js_sys::{Array, Float32Array, Float64Array, Object, Reflect, Uint16Array};
 use wasm_bindgen::prelude::*;
 use wasm_bindgen::JsCast;
 
-use super::error::{at, fail, map_indexed, with_room};
+use super::error::{at, decimal, fail, map_indexed, object, with_room};
 use super::opts::{choose, Opts, Schema};
 use super::opts::{js_string, opt_js_string};
 use super::radiometry::parse_c2;
 use crate::constants::C2Convention;
 use crate::error::{finite, positive, temperature};
 use crate::thermometry::its90::{self, FixedPoint};
-#[cfg(feature = "wasm-full")]
 use crate::thermometry::{max_interpolation_error_k, two_colour_temperature as core_two_colour};
 use crate::thermometry::{
     measured_signal as core_measured_signal, object_temperature as core_object_temperature,
@@ -31,7 +33,7 @@ use crate::thermometry::{
 };
 use crate::units::{convert_spectral, SpectralKind, SpectralUnit};
 use crate::Error;
-use std::borrow::Cow;
+use alloc::borrow::Cow;
 
 #[wasm_bindgen(typescript_custom_section)]
 const TS_THERMOMETRY: &str = r#"
@@ -317,7 +319,11 @@ fn wavelength_unit(name: &str) -> Result<SpectralUnit, JsValue> {
     if u.kind() != SpectralKind::Wavelength {
         return Err(fail(
             "UNSUPPORTED",
-            format!("unit must be a wavelength unit (m, mm, um, nm), got \"{name}\""),
+            &[
+                "unit must be a wavelength unit (m, mm, um, nm), got \"",
+                name,
+                "\"",
+            ],
         ));
     }
     Ok(u)
@@ -349,7 +355,14 @@ fn number_array(what: &str, v: &JsValue) -> Result<Vec<f64>, JsValue> {
                 None => {
                     return Err(fail(
                         "NON_FINITE",
-                        format!("{what}[{i}] must be a finite number (at index {i})"),
+                        &[
+                            what,
+                            "[",
+                            &decimal(i),
+                            "] must be a finite number (at index ",
+                            &decimal(i),
+                            ")",
+                        ],
                     ))
                 }
             }
@@ -358,13 +371,13 @@ fn number_array(what: &str, v: &JsValue) -> Result<Vec<f64>, JsValue> {
     }
     Err(fail(
         "UNSUPPORTED",
-        format!("{what} must be a Float64Array or an array of numbers"),
+        &[what, " must be a Float64Array or an array of numbers"],
     ))
 }
 
 fn required_string(o: &Opts, key: &str, code: &'static str) -> Result<Cow<'static, str>, JsValue> {
     o.string(key, code)?
-        .ok_or_else(|| fail(code, format!("{}.{key} is required", o.what())))
+        .ok_or_else(|| fail(code, &[o.what(), ".", key, " is required"]))
 }
 
 const POINT_FIELDS: &[&str] = &["kind", "wavelength", "unit", "c2"];
@@ -503,14 +516,16 @@ pub(crate) fn parse_conditions(value: &JsValue) -> Result<Conditions, JsValue> {
             None if !needed => Ok(Conditions::BLACKBODY.reflected_temperature_k),
             None => Err(fail(
                 "NON_FINITE",
-                format!(
-                    "MeasurementConditions.{key} is required when {}",
+                &[
+                    "MeasurementConditions.",
+                    key,
+                    " is required when ",
                     if key == "reflectedTemperatureK" {
                         "emissivity < 1"
                     } else {
                         "pathTransmittance < 1"
-                    }
-                ),
+                    },
+                ],
             )),
         }
     };
@@ -532,17 +547,15 @@ pub(crate) fn parse_conditions(value: &JsValue) -> Result<Conditions, JsValue> {
         )?;
         let reflectance = w.num("reflectance")?.unwrap_or(0.0);
         let temperature_k = w.req_num("temperatureK")?;
-        let reflected = match w.num("reflectedTemperatureK")? {
-            Some(t) => t,
-            None if reflectance == 0.0 => temperature_k,
-            None => {
-                return Err(fail(
+        let reflected =
+            match w.num("reflectedTemperatureK")? {
+                Some(t) => t,
+                None if reflectance == 0.0 => temperature_k,
+                None => return Err(fail(
                     "NON_FINITE",
-                    "WindowConditions.reflectedTemperatureK is required when reflectance > 0"
-                        .into(),
-                ))
-            }
-        };
+                    &["WindowConditions.reflectedTemperatureK is required when reflectance > 0"],
+                )),
+            };
         Some(Window {
             transmittance: w.req_num("transmittance")?,
             reflectance,
@@ -561,21 +574,6 @@ pub(crate) fn parse_conditions(value: &JsValue) -> Result<Conditions, JsValue> {
     Ok(c)
 }
 
-/// A plain object from (key, value) pairs.
-#[inline(never)]
-fn object(pairs: &[(&str, JsValue)]) -> JsValue {
-    let o = Object::new();
-    for (k, v) in pairs {
-        // Defining a data property on a fresh plain object cannot fail.
-        let _ = Reflect::set(&o, &JsValue::from_str(k), v);
-    }
-    o.into()
-}
-
-fn num(x: f64) -> JsValue {
-    JsValue::from_f64(x)
-}
-
 fn c2_name(c2_mk: f64) -> &'static str {
     if c2_mk == C2Convention::Its90.c2() {
         "its90"
@@ -586,35 +584,53 @@ fn c2_name(c2_mk: f64) -> &'static str {
 
 #[inline(never)]
 fn curve_object(c: &SakumaHattori) -> JsValue {
-    object(&[
-        ("kind", JsValue::from_str("sakumaHattori")),
-        ("aM", num(c.a_m())),
-        ("bMK", num(c.b_mk())),
-        ("c", num(c.c())),
-        ("c2", JsValue::from_str(c2_name(c.c2_mk()))),
-    ])
+    object(
+        "aM;bMK;c",
+        &[c.a_m(), c.b_mk(), c.c()],
+        &[
+            ("kind", &JsValue::from_str("sakumaHattori")),
+            ("c2", &JsValue::from_str(c2_name(c.c2_mk()))),
+        ],
+    )
 }
 
 #[inline(never)]
 fn fit_object(r: &FitReport, residuals: Option<Vec<f64>>) -> JsValue {
-    let mut pairs = vec![
-        ("curve", curve_object(&r.curve)),
-        ("rmsResidualK", num(r.rms_residual_k)),
-        ("maxAbsResidualK", num(r.max_abs_residual_k)),
-        ("iterations", num(f64::from(r.iterations))),
-    ];
-    if let Some(res) = residuals {
-        pairs.push(("residualsK", Float64Array::from(res.as_slice()).into()));
-    }
-    object(&pairs)
+    let curve = curve_object(&r.curve);
+    let res: JsValue = match residuals {
+        Some(res) => Float64Array::from(res.as_slice()).into(),
+        None => JsValue::UNDEFINED,
+    };
+    let extra: &[(&str, &JsValue)] = if res.is_undefined() {
+        &[("curve", &curve)]
+    } else {
+        &[("curve", &curve), ("residualsK", &res)]
+    };
+    object(
+        "rmsResidualK;maxAbsResidualK;iterations",
+        &[
+            r.rms_residual_k,
+            r.max_abs_residual_k,
+            f64::from(r.iterations),
+        ],
+        extra,
+    )
 }
 
 fn ratio_object(r: &RatioReading) -> JsValue {
-    object(&[
-        ("temperatureK", num(r.temperature_k)),
-        ("dTdRatio", num(r.d_t_d_ratio)),
-        ("dTdEmissivityRatio", num(r.d_t_d_emissivity_ratio)),
-    ])
+    object(
+        "temperatureK;dTdRatio;dTdEmissivityRatio",
+        &[r.temperature_k, r.d_t_d_ratio, r.d_t_d_emissivity_ratio],
+        &[],
+    )
+}
+
+/// The wavelength unit and c2 convention arguments of the ratio functions.
+#[inline(never)]
+fn unit_and_c2(unit: &JsValue, c2: &JsValue) -> Result<(SpectralUnit, C2Convention), JsValue> {
+    let unit = &js_string(unit, "unit", "UNKNOWN_UNIT")?;
+    let c2 = opt_js_string(c2, "c2", "UNSUPPORTED")?;
+    Ok((wavelength_unit(unit)?, c2_arg(c2)?))
 }
 
 fn parse_fixed_point(name: &str) -> Result<FixedPoint, JsValue> {
@@ -631,11 +647,10 @@ fn c2_arg(c2: Option<String>) -> Result<C2Convention, JsValue> {
     parse_c2("c2", c2.as_deref())
 }
 
-#[cfg(feature = "wasm-full")]
 /// `nPoints` as a count in [2, 1e7] (OUT_OF_RANGE otherwise, so no call can run for hours).
 fn count(arg: &'static str, n: f64) -> Result<usize, JsValue> {
     finite(arg, n)?;
-    if n.fract() == 0.0 && (0.0..=1.0e7).contains(&n) {
+    if (0.0..=1.0e7).contains(&n) && (n as usize) as f64 == n {
         // exact: an integer in [0, 1e7] converts without loss
         Ok(n as usize)
     } else {
@@ -652,6 +667,96 @@ fn count(arg: &'static str, n: f64) -> Result<usize, JsValue> {
 // Signal models
 // ---------------------------------------------------------------------------------------------
 
+/// The per-value operations on an instrument model, shared by the scalar and array exports (one
+/// out-of-line copy of the model and conditions parsing for all of them).
+#[derive(Clone, Copy, PartialEq)]
+enum ModelOp {
+    /// S(T)
+    Signal,
+    /// dS/dT
+    SignalDT,
+    /// T(S)
+    Temperature,
+    /// measured signal of an object at T, one value (the core's measurement equation)
+    Measured,
+    /// object temperature of a reading, one value (the core's inverse)
+    Object,
+    /// `Measured` over an array: the affine form computed once
+    MeasuredBulk,
+    /// `Object` over an array: the affine form computed once
+    ObjectBulk,
+}
+
+/// `op` for every element of `xs` under `model` (and `conditions` for the measurement ops).
+#[inline(never)]
+fn model_op(
+    op: ModelOp,
+    model: &JsValue,
+    conditions: &JsValue,
+    xs: &[f64],
+) -> Result<Vec<f64>, JsValue> {
+    let m = parse_model(model)?;
+    let c = match op {
+        ModelOp::Signal | ModelOp::SignalDT | ModelOp::Temperature => Conditions::BLACKBODY,
+        _ => parse_conditions(conditions)?,
+    };
+    let mut out = Ok(Vec::new());
+    m.run(|sm| {
+        let (gain, bg) = match op {
+            ModelOp::MeasuredBulk | ModelOp::ObjectBulk => c.affine(sm)?,
+            _ => (1.0, 0.0),
+        };
+        out = map_indexed(xs, &|x| match op {
+            ModelOp::Signal => sm.signal(x),
+            ModelOp::SignalDT => sm.d_signal_dt(x),
+            ModelOp::Temperature => sm.temperature(x),
+            ModelOp::Measured => core_measured_signal(sm, x, &c),
+            ModelOp::Object => core_object_temperature(sm, x, &c),
+            ModelOp::MeasuredBulk => {
+                temperature("object_temperature_k", x)?;
+                Ok(gain * sm.signal(x)? + bg)
+            }
+            ModelOp::ObjectBulk => {
+                // the same steps as thermometry::object_temperature, with the affine form hoisted
+                finite("signal", x)?;
+                let net = x - bg;
+                if net.is_nan() || net <= 0.0 {
+                    return Err(Error::NoPhysicalSolution {
+                        signal: x,
+                        background: bg,
+                    });
+                }
+                let s_obj = positive("signal", net / gain)?;
+                sm.temperature(s_obj)
+            }
+        });
+        Ok(())
+    })?;
+    out
+}
+
+/// `model_op` for one value: its result, or the error without a bulk index.
+#[inline(never)]
+fn model_op_one(
+    op: ModelOp,
+    model: &JsValue,
+    conditions: &JsValue,
+    x: f64,
+) -> Result<f64, JsValue> {
+    let m = parse_model(model)?;
+    let c = match op {
+        ModelOp::Measured | ModelOp::Object => parse_conditions(conditions)?,
+        _ => Conditions::BLACKBODY,
+    };
+    Ok(m.run(|sm| match op {
+        ModelOp::SignalDT => sm.d_signal_dt(x),
+        ModelOp::Temperature => sm.temperature(x),
+        ModelOp::Measured => core_measured_signal(sm, x, &c),
+        ModelOp::Object => core_object_temperature(sm, x, &c),
+        _ => sm.signal(x),
+    })?)
+}
+
 /// Blackbody signal S(T) of an instrument model at `temperatureK` (in the model's signal unit).
 ///
 /// @throws {QuantabandError} NON_FINITE, NON_POSITIVE_TEMPERATURE, model errors (UNKNOWN_UNIT,
@@ -662,19 +767,23 @@ pub fn model_signal(
     #[wasm_bindgen(unchecked_param_type = "InstrumentModel")] model: JsValue,
     #[wasm_bindgen(js_name = temperatureK)] temperature_k: f64,
 ) -> Result<f64, JsValue> {
-    Ok(parse_model(&model)?.run(|m| m.signal(temperature_k))?)
+    model_op_one(ModelOp::Signal, &model, &JsValue::UNDEFINED, temperature_k)
 }
 
 /// dS/dT of an instrument model at `temperatureK` (signal unit per K).
 ///
 /// @throws {QuantabandError} as `modelSignal`.
-#[cfg(feature = "wasm-full")]
 #[wasm_bindgen(js_name = modelSignalDT)]
 pub fn model_signal_dt(
     #[wasm_bindgen(unchecked_param_type = "InstrumentModel")] model: JsValue,
     #[wasm_bindgen(js_name = temperatureK)] temperature_k: f64,
 ) -> Result<f64, JsValue> {
-    Ok(parse_model(&model)?.run(|m| m.d_signal_dt(temperature_k))?)
+    model_op_one(
+        ModelOp::SignalDT,
+        &model,
+        &JsValue::UNDEFINED,
+        temperature_k,
+    )
 }
 
 /// Blackbody temperature (K) at which the model gives `signal` (inverse of `modelSignal`).
@@ -686,43 +795,29 @@ pub fn model_temperature(
     #[wasm_bindgen(unchecked_param_type = "InstrumentModel")] model: JsValue,
     signal: f64,
 ) -> Result<f64, JsValue> {
-    Ok(parse_model(&model)?.run(|m| m.temperature(signal))?)
+    model_op_one(ModelOp::Temperature, &model, &JsValue::UNDEFINED, signal)
 }
 
 /// `modelSignal` for every temperature of `temperaturesK` (K), one call.
 ///
 /// @throws {QuantabandError} as `modelSignal`; `index` is the first bad temperature.
-#[cfg(feature = "wasm-full")]
 #[wasm_bindgen(js_name = modelSignalArray)]
 pub fn model_signal_array(
     #[wasm_bindgen(unchecked_param_type = "InstrumentModel")] model: JsValue,
     #[wasm_bindgen(js_name = temperaturesK)] temperatures_k: &[f64],
 ) -> Result<Vec<f64>, JsValue> {
-    let m = parse_model(&model)?;
-    let mut out = Ok(Vec::new());
-    m.run(|sm| {
-        out = map_indexed(temperatures_k, |t| sm.signal(t));
-        Ok(())
-    })?;
-    out
+    model_op(ModelOp::Signal, &model, &JsValue::UNDEFINED, temperatures_k)
 }
 
 /// `modelTemperature` for every signal of `signals`, one call.
 ///
 /// @throws {QuantabandError} as `modelTemperature`; `index` is the first bad signal.
-#[cfg(feature = "wasm-full")]
 #[wasm_bindgen(js_name = modelTemperatureArray)]
 pub fn model_temperature_array(
     #[wasm_bindgen(unchecked_param_type = "InstrumentModel")] model: JsValue,
     signals: &[f64],
 ) -> Result<Vec<f64>, JsValue> {
-    let m = parse_model(&model)?;
-    let mut out = Ok(Vec::new());
-    m.run(|sm| {
-        out = map_indexed(signals, |s| sm.temperature(s));
-        Ok(())
-    })?;
-    out
+    model_op(ModelOp::Temperature, &model, &JsValue::UNDEFINED, signals)
 }
 
 // ---------------------------------------------------------------------------------------------
@@ -740,9 +835,7 @@ pub fn measured_signal(
     #[wasm_bindgen(js_name = objectTemperatureK)] object_temperature_k: f64,
     #[wasm_bindgen(unchecked_optional_param_type = "MeasurementConditions")] conditions: JsValue,
 ) -> Result<f64, JsValue> {
-    let m = parse_model(&model)?;
-    let c = parse_conditions(&conditions)?;
-    Ok(m.run(|sm| core_measured_signal(sm, object_temperature_k, &c))?)
+    model_op_one(ModelOp::Measured, &model, &conditions, object_temperature_k)
 }
 
 /// Object temperature (K) that explains a reading `signal` under `conditions` — the inverse of
@@ -756,9 +849,7 @@ pub fn object_temperature(
     signal: f64,
     #[wasm_bindgen(unchecked_optional_param_type = "MeasurementConditions")] conditions: JsValue,
 ) -> Result<f64, JsValue> {
-    let m = parse_model(&model)?;
-    let c = parse_conditions(&conditions)?;
-    Ok(m.run(|sm| core_object_temperature(sm, signal, &c))?)
+    model_op_one(ModelOp::Object, &model, &conditions, signal)
 }
 
 /// `objectTemperature` for every reading of `signals` (e.g. the pixels of a frame already in
@@ -771,27 +862,7 @@ pub fn object_temperature_array(
     signals: &[f64],
     #[wasm_bindgen(unchecked_optional_param_type = "MeasurementConditions")] conditions: JsValue,
 ) -> Result<Vec<f64>, JsValue> {
-    let m = parse_model(&model)?;
-    let c = parse_conditions(&conditions)?;
-    let mut out = Ok(Vec::new());
-    m.run(|sm| {
-        let (gain, bg) = c.affine(sm)?;
-        out = map_indexed(signals, |s| {
-            // the same steps as thermometry::object_temperature, with the affine form hoisted
-            finite("signal", s)?;
-            let net = s - bg;
-            if net.is_nan() || net <= 0.0 {
-                return Err(Error::NoPhysicalSolution {
-                    signal: s,
-                    background: bg,
-                });
-            }
-            let s_obj = positive("signal", net / gain)?;
-            sm.temperature(s_obj)
-        });
-        Ok(())
-    })?;
-    out
+    model_op(ModelOp::ObjectBulk, &model, &conditions, signals)
 }
 
 /// `measuredSignal` for every object temperature of `objectTemperaturesK` (K), one call.
@@ -803,24 +874,17 @@ pub fn measured_signal_array(
     #[wasm_bindgen(js_name = objectTemperaturesK)] object_temperatures_k: &[f64],
     #[wasm_bindgen(unchecked_optional_param_type = "MeasurementConditions")] conditions: JsValue,
 ) -> Result<Vec<f64>, JsValue> {
-    let m = parse_model(&model)?;
-    let c = parse_conditions(&conditions)?;
-    let mut out = Ok(Vec::new());
-    m.run(|sm| {
-        let (gain, bg) = c.affine(sm)?;
-        out = map_indexed(object_temperatures_k, |t| {
-            temperature("object_temperature_k", t)?;
-            Ok(gain * sm.signal(t)? + bg)
-        });
-        Ok(())
-    })?;
-    out
+    model_op(
+        ModelOp::MeasuredBulk,
+        &model,
+        &conditions,
+        object_temperatures_k,
+    )
 }
 
 /// The measurement equation in affine form for a model: signal = gain·S(T_obj) + background.
 ///
 /// @throws {QuantabandError} as `measuredSignal`.
-#[cfg(feature = "wasm-full")]
 #[wasm_bindgen(js_name = measurementAffine, unchecked_return_type = "AffineForm")]
 pub fn measurement_affine(
     #[wasm_bindgen(unchecked_param_type = "InstrumentModel")] model: JsValue,
@@ -829,7 +893,7 @@ pub fn measurement_affine(
     let m = parse_model(&model)?;
     let c = parse_conditions(&conditions)?;
     let (gain, bg) = m.run(|sm| c.affine(sm))?;
-    Ok(object(&[("gain", num(gain)), ("background", num(bg))]))
+    Ok(object("gain;background", &[gain, bg], &[]))
 }
 
 // ---------------------------------------------------------------------------------------------
@@ -855,7 +919,7 @@ fn with_response_dyn(
         }
         _ => Err(fail(
             "UNSUPPORTED",
-            "this function needs a ResponseModel (kind \"response\")".into(),
+            &["this function needs a ResponseModel (kind \"response\")"],
         )),
     }
 }
@@ -893,17 +957,17 @@ pub fn response_moments(
         let (m, s) = rs.response().mean_and_spread_m()?;
         Ok((m, s, unit))
     })?;
-    Ok(object(&[
-        ("mean", num(from_m("mean", m, unit)?)),
-        ("spread", num(s / unit.si_factor())),
-    ]))
+    Ok(object(
+        "mean;spread",
+        &[from_m("mean", m, unit)?, s / unit.si_factor()],
+        &[],
+    ))
 }
 
 /// Mean wavelength of the signal R(λ)·L_λ(λ, T) at `temperatureK`, and its spread, in the
 /// model's unit.
 ///
 /// @throws {QuantabandError} NON_FINITE, NON_POSITIVE_TEMPERATURE, model errors.
-#[cfg(feature = "wasm-full")]
 #[wasm_bindgen(js_name = signalMoments, unchecked_return_type = "ResponseMoments")]
 pub fn signal_moments(
     #[wasm_bindgen(unchecked_param_type = "ResponseModel")] model: JsValue,
@@ -913,17 +977,17 @@ pub fn signal_moments(
         let (m, s) = rs.mean_and_spread_m(temperature_k)?;
         Ok((m, s, unit))
     })?;
-    Ok(object(&[
-        ("mean", num(from_m("mean", m, unit)?)),
-        ("spread", num(s / unit.si_factor())),
-    ]))
+    Ok(object(
+        "mean;spread",
+        &[from_m("mean", m, unit)?, s / unit.si_factor()],
+        &[],
+    ))
 }
 
 /// Limiting effective wavelength λ_T = c2/(T²·d ln S/dT) at `temperatureK` — the wavelength of
 /// a Wien-law monochromatic thermometer with the same relative sensitivity — in the model's unit.
 ///
 /// @throws {QuantabandError} NON_FINITE, NON_POSITIVE_TEMPERATURE, model errors.
-#[cfg(feature = "wasm-full")]
 #[wasm_bindgen(js_name = limitingEffectiveWavelength)]
 pub fn limiting_effective_wavelength(
     #[wasm_bindgen(unchecked_param_type = "ResponseModel")] model: JsValue,
@@ -939,7 +1003,6 @@ pub fn limiting_effective_wavelength(
 /// wavelength of a Wien-law thermometer giving the same signal ratio — in the model's unit.
 ///
 /// @throws {QuantabandError} NON_FINITE, NON_POSITIVE_TEMPERATURE, model errors.
-#[cfg(feature = "wasm-full")]
 #[wasm_bindgen(js_name = effectiveWavelength)]
 pub fn effective_wavelength(
     #[wasm_bindgen(unchecked_param_type = "ResponseModel")] model: JsValue,
@@ -956,7 +1019,6 @@ pub fn effective_wavelength(
 /// 0 outside the table.
 ///
 /// @throws {QuantabandError} NON_FINITE, NON_POSITIVE_SPECTRAL, model errors.
-#[cfg(feature = "wasm-full")]
 #[wasm_bindgen(js_name = responseValueAt)]
 pub fn response_value_at(
     #[wasm_bindgen(unchecked_param_type = "ResponseModel")] model: JsValue,
@@ -996,7 +1058,6 @@ pub fn sakuma_hattori_fit(
 ///
 /// @throws {QuantabandError} NON_FINITE, NON_POSITIVE_TEMPERATURE, DEGENERATE_FIT (tMinK ≥
 /// tMaxK), NOT_CONVERGED, model errors.
-#[cfg(feature = "wasm-full")]
 #[wasm_bindgen(js_name = sakumaHattoriFitModel, unchecked_return_type = "SakumaHattoriFit")]
 pub fn sakuma_hattori_fit_model(
     #[wasm_bindgen(unchecked_param_type = "InstrumentModel")] model: JsValue,
@@ -1031,7 +1092,6 @@ pub fn sakuma_hattori_from_response(
 ///
 /// @throws {QuantabandError} NON_FINITE, NON_POSITIVE_TEMPERATURE, TOO_FEW_POINTS,
 /// OUT_OF_RANGE (nPoints not an integer ≤ 1e7), DEGENERATE_FIT, model errors.
-#[cfg(feature = "wasm-full")]
 #[wasm_bindgen(js_name = maxInterpolationError, unchecked_return_type = "InterpolationError")]
 pub fn max_interpolation_error(
     #[wasm_bindgen(unchecked_param_type = "InstrumentModel")] curve: JsValue,
@@ -1045,10 +1105,7 @@ pub fn max_interpolation_error(
     let e = parse_model(&exact)?;
     let (err, at_t) =
         c.run(|cm| e.run(|em| max_interpolation_error_k(cm, em, t_min_k, t_max_k, n)))?;
-    Ok(object(&[
-        ("maxErrorK", num(err)),
-        ("atTemperatureK", num(at_t)),
-    ]))
+    Ok(object("maxErrorK;atTemperatureK", &[err, at_t], &[]))
 }
 
 // ---------------------------------------------------------------------------------------------
@@ -1072,7 +1129,6 @@ pub fn fixed_point_temperature(
 ///
 /// @throws {QuantabandError} NON_FINITE, NON_POSITIVE, NON_POSITIVE_SPECTRAL,
 /// NON_POSITIVE_TEMPERATURE, UNKNOWN_UNIT, UNSUPPORTED, NO_SOLUTION.
-#[cfg(feature = "wasm-full")]
 #[wasm_bindgen(js_name = temperatureFromRatio)]
 pub fn temperature_from_ratio(
     ratio: f64,
@@ -1081,10 +1137,7 @@ pub fn temperature_from_ratio(
     #[wasm_bindgen(js_name = referenceTemperatureK)] reference_temperature_k: f64,
     #[wasm_bindgen(unchecked_optional_param_type = "C2Convention")] c2: JsValue,
 ) -> Result<f64, JsValue> {
-    let unit = &js_string(&unit, "unit", "UNKNOWN_UNIT")?;
-    let c2 = opt_js_string(&c2, "c2", "UNSUPPORTED")?;
-    let u = wavelength_unit(unit)?;
-    let c2 = c2_arg(c2)?;
+    let (u, c2) = unit_and_c2(&unit, &c2)?;
     let wl = to_m("wavelength", wavelength, u)?;
     Ok(its90::temperature_from_ratio(
         ratio,
@@ -1098,7 +1151,6 @@ pub fn temperature_from_ratio(
 ///
 /// @throws {QuantabandError} NON_FINITE, NON_POSITIVE_SPECTRAL, NON_POSITIVE_TEMPERATURE,
 /// UNKNOWN_UNIT, UNSUPPORTED.
-#[cfg(feature = "wasm-full")]
 #[wasm_bindgen(js_name = radianceRatio)]
 pub fn radiance_ratio(
     #[wasm_bindgen(js_name = temperatureK)] temperature_k: f64,
@@ -1107,10 +1159,7 @@ pub fn radiance_ratio(
     #[wasm_bindgen(js_name = referenceTemperatureK)] reference_temperature_k: f64,
     #[wasm_bindgen(unchecked_optional_param_type = "C2Convention")] c2: JsValue,
 ) -> Result<f64, JsValue> {
-    let unit = &js_string(&unit, "unit", "UNKNOWN_UNIT")?;
-    let c2 = opt_js_string(&c2, "c2", "UNSUPPORTED")?;
-    let u = wavelength_unit(unit)?;
-    let c2 = c2_arg(c2)?;
+    let (u, c2) = unit_and_c2(&unit, &c2)?;
     let wl = to_m("wavelength", wavelength, u)?;
     Ok(its90::radiance_ratio(
         temperature_k,
@@ -1137,11 +1186,11 @@ pub fn its90_temperature(
     let fp = parse_fixed_point(fixed_point)?;
     let wl = to_m("wavelength", wavelength, u)?;
     let r = its90::its90_temperature(ratio, wl, fp)?;
-    Ok(object(&[
-        ("t90K", num(r.t90_k)),
-        ("tCodataK", num(r.t_codata_k)),
-        ("differenceK", num(r.difference_k)),
-    ]))
+    Ok(object(
+        "t90K;tCodataK;differenceK",
+        &[r.t90_k, r.t_codata_k, r.difference_k],
+        &[],
+    ))
 }
 
 /// Temperature from a two-channel signal ratio S1/S2 and the emissivity ratio ε1/ε2, with
@@ -1169,7 +1218,6 @@ pub fn ratio_temperature(
 ///
 /// @throws {QuantabandError} NON_FINITE, NON_POSITIVE, NON_POSITIVE_SPECTRAL, UNKNOWN_UNIT,
 /// UNSUPPORTED, NO_SOLUTION.
-#[cfg(feature = "wasm-full")]
 #[wasm_bindgen(js_name = twoColourTemperature, unchecked_return_type = "RatioReading")]
 pub fn two_colour_temperature(
     wavelength1: f64,
@@ -1179,10 +1227,7 @@ pub fn two_colour_temperature(
     #[wasm_bindgen(js_name = emissivityRatio)] emissivity_ratio: f64,
     #[wasm_bindgen(unchecked_optional_param_type = "C2Convention")] c2: JsValue,
 ) -> Result<JsValue, JsValue> {
-    let unit = &js_string(&unit, "unit", "UNKNOWN_UNIT")?;
-    let c2 = opt_js_string(&c2, "c2", "UNSUPPORTED")?;
-    let u = wavelength_unit(unit)?;
-    let c2 = c2_arg(c2)?;
+    let (u, c2) = unit_and_c2(&unit, &c2)?;
     let l1 = to_m("wavelength1", wavelength1, u)?;
     let l2 = to_m("wavelength2", wavelength2, u)?;
     Ok(ratio_object(&core_two_colour(
@@ -1212,14 +1257,18 @@ pub fn sensitivities(
     let m = parse_model(&model)?;
     let c = parse_conditions(&conditions)?;
     let s = m.run(|sm| core_sensitivities(sm, signal, &c))?;
-    Ok(object(&[
-        ("temperatureK", num(s.temperature_k)),
-        ("signal", num(s.signal)),
-        ("emissivity", num(s.emissivity)),
-        ("reflectedTemperature", num(s.reflected_temperature)),
-        ("pathTransmittance", num(s.path_transmittance)),
-        ("pathTemperature", num(s.path_temperature)),
-    ]))
+    Ok(object(
+        "temperatureK;signal;emissivity;reflectedTemperature;pathTransmittance;pathTemperature",
+        &[
+            s.temperature_k,
+            s.signal,
+            s.emissivity,
+            s.reflected_temperature,
+            s.path_transmittance,
+            s.path_temperature,
+        ],
+        &[],
+    ))
 }
 
 /// GUM uncertainty budget (first order, uncorrelated inputs) of the object temperature at a
@@ -1264,22 +1313,22 @@ pub fn uncertainty_budget(
             BudgetInput::PathTransmittance => "pathTransmittance",
             BudgetInput::PathTemperature => "pathTemperature",
         };
-        entries.push(&object(&[
-            ("input", JsValue::from_str(input)),
-            ("sensitivity", num(e.sensitivity)),
-            ("standardUncertainty", num(e.standard_uncertainty)),
-            ("contributionK", num(e.contribution_k)),
-            ("varianceShare", num(e.variance_share)),
-        ]));
+        entries.push(&object(
+            "sensitivity;standardUncertainty;contributionK;varianceShare",
+            &[
+                e.sensitivity,
+                e.standard_uncertainty,
+                e.contribution_k,
+                e.variance_share,
+            ],
+            &[("input", &JsValue::from_str(input))],
+        ));
     }
-    Ok(object(&[
-        ("temperatureK", num(b.temperature_k)),
-        ("entries", entries.into()),
-        (
-            "combinedStandardUncertaintyK",
-            num(b.combined_standard_uncertainty_k),
-        ),
-    ]))
+    Ok(object(
+        "temperatureK;combinedStandardUncertaintyK",
+        &[b.temperature_k, b.combined_standard_uncertainty_k],
+        &[("entries", &entries.into())],
+    ))
 }
 
 // ---------------------------------------------------------------------------------------------
@@ -1299,7 +1348,7 @@ fn frame_pixels(raw: &JsValue) -> Result<Vec<f64>, JsValue> {
     } else {
         Err(fail(
             "UNSUPPORTED",
-            "raw must be a Uint16Array, Float32Array or Float64Array".into(),
+            &["raw must be a Uint16Array, Float32Array or Float64Array"],
         ))
     }
 }
@@ -1326,11 +1375,7 @@ pub fn convert_frame(
 ) -> Result<JsValue, JsValue> {
     let sh = match parse_model(&curve)? {
         Model::Curve(c) => c,
-        _ => return Err(fail(
-            "UNSUPPORTED",
-            "convertFrame needs a SakumaHattoriModel curve (fit one with sakumaHattoriFitModel)"
-                .into(),
-        )),
+        _ => return Err(fail("UNSUPPORTED", &["convertFrame needs a SakumaHattoriModel curve (fit one with sakumaHattoriFitModel)"])),
     };
     let empty = JsValue::from(Object::new());
     let ov = if options.is_undefined() {
@@ -1356,7 +1401,7 @@ pub fn convert_frame(
     } else {
         return Err(fail(
             "UNSUPPORTED",
-            "FrameOptions.emissivity must be a Float32Array or Float64Array".into(),
+            &["FrameOptions.emissivity must be a Float32Array or Float64Array"],
         ));
     };
     let f64_out = match o.string("output", "UNSUPPORTED")? {
@@ -1416,12 +1461,9 @@ fn frame_result(
     hi: f64,
     bg: f64,
 ) -> JsValue {
-    object(&[
-        ("temperaturesK", temps),
-        ("valid", num(sum.valid as f64)),
-        ("invalid", num(sum.invalid as f64)),
-        ("minTemperatureK", num(lo)),
-        ("maxTemperatureK", num(hi)),
-        ("backgroundSignal", num(bg)),
-    ])
+    object(
+        "valid;invalid;minTemperatureK;maxTemperatureK;backgroundSignal",
+        &[sum.valid as f64, sum.invalid as f64, lo, hi, bg],
+        &[("temperaturesK", &temps)],
+    )
 }

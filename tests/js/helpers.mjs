@@ -53,11 +53,3 @@ export function loadReference(name) {
   if (!existsSync(url)) return undefined;
   return JSON.parse(readFileSync(url, 'utf8'));
 }
-
-/**
- * True for a package built with `--features wasm-full` (the bindings that do not fit the default
- * package's size budget). Tests of those bindings are skipped — reported as skipped, with this
- * reason — on the default package.
- */
-export const FULL = typeof qb.twoColourTemperature === 'function';
-export const FULL_ONLY = FULL ? {} : { skip: 'binding only in the wasm-full build (size budget)' };

@@ -4,7 +4,7 @@
 // closed forms (Stefan–Boltzmann with CODATA 2018 σ; Wien's b) and unit-conversion identities.
 import { test } from 'node:test';
 import assert from 'node:assert/strict';
-import { qb, close, rel, throwsCode, loadReference, FULL, FULL_ONLY } from './helpers.mjs';
+import { qb, close, rel, throwsCode, loadReference } from './helpers.mjs';
 
 const SI_UNIT = { wavelength: 'm', wavenumber: 'm-1', frequency: 'Hz' };
 const KERNEL = {
@@ -62,7 +62,6 @@ test('every core reference case through the JS API', (t) => {
         bucket = 'spectral';
         break;
       case 'spectral_d_dt':
-        if (!FULL) continue; // wasm-full binding
         got = qb.spectralDensityDT(spec, Number(c.x), Number(c.temperature_k));
         tol = 1e-13;
         bucket = 'spectral';
@@ -108,19 +107,16 @@ test('every core reference case through the JS API', (t) => {
         bucket = 'fraction';
         break;
       case 'planck_integral_upper':
-        if (!FULL) continue; // wasm-full binding
         got = qb.planckIntegralUpper(KERNEL[c.kernel], Number(c.x));
         tol = 1e-12;
         bucket = 'kernel';
         break;
       case 'planck_integral_lower':
-        if (!FULL) continue; // wasm-full binding
         got = qb.planckIntegralLower(KERNEL[c.kernel], Number(c.x));
         tol = 1e-12;
         bucket = 'kernel';
         break;
       case 'planck_integral':
-        if (!FULL) continue; // wasm-full binding
         got = qb.planckIntegral(KERNEL[c.kernel], Number(c.x_lower), Number(c.x_upper));
         tol = bandTol(c);
         bucket = 'kernel';
@@ -153,7 +149,7 @@ test('totals, peaks and grey bodies', () => {
   const sigma = 5.670374419e-8; // CODATA 2018 (NIST table, 10 digits)
   close(qb.spectrumTotal({ unit: 'um', geometry: 'exitance' }, 300), sigma * 300 ** 4, 1e-9, 'σT⁴');
   close(qb.spectrumTotal({ unit: 'um' }, 300), (sigma * 300 ** 4) / Math.PI, 1e-9, 'σT⁴/π');
-  if (FULL) close(qb.spectrumTotalDT({ unit: 'um', geometry: 'exitance' }, 300), 4 * sigma * 300 ** 3, 1e-9, '4σT³');
+  close(qb.spectrumTotalDT({ unit: 'um', geometry: 'exitance' }, 300), 4 * sigma * 300 ** 3, 1e-9, '4σT³');
   close(qb.spectrumTotal({ unit: 'um', geometry: 'exitance', emissivity: 0.5 }, 300), 0.5 * sigma * 300 ** 4, 1e-9, 'εσT⁴');
   close(qb.spectrumTotal({ unit: 'um', geometry: 'exitance', refractiveIndex: 1.5 }, 300), 2.25 * sigma * 300 ** 4, 1e-9, 'n²σT⁴');
   // Wien displacement b = 2.897771955e-3 m·K (CODATA 2018): peak at 5000 K in µm.
@@ -170,7 +166,7 @@ test('totals, peaks and grey bodies', () => {
   close(qb.meanPhotonEnergy(1000), qb.energyDensity(1000) / qb.photonNumberDensity(1000), 1e-12, '<E> = u/n');
 });
 
-test('units of the results', FULL_ONLY, () => {
+test('units of the results', () => {
   assert.deepEqual(qb.spectrumUnits({ unit: 'um' }), {
     coordinate: 'um',
     spectralDensity: 'W m^-2 sr^-1 m^-1',
@@ -244,14 +240,14 @@ test('inverses: brightness temperature, band temperature, band-ratio temperature
   const back = qb.temperatureFromBandArray(um, 3, 5, vals);
   temps.forEach((t, i) => close(back[i], t, 1e-11, `band round trip ${t} K`));
   const dens = qb.spectralDensityArray(um, new Float64Array([4, 4, 4]), 900);
-  if (FULL) qb.brightnessTemperatureArray(um, 4, dens).forEach((t) => close(t, 900, 1e-13, 'brightness array'));
+  qb.brightnessTemperatureArray(um, 4, dens).forEach((t) => close(t, 900, 1e-13, 'brightness array'));
   dens.forEach((d) => close(qb.brightnessTemperature(um, 4, d), 900, 1e-13, 'brightness'));
   throwsCode(() => qb.brightnessTemperature(um, 10, 0), 'NON_POSITIVE');
   throwsCode(() => qb.temperatureFromBand(um, 14, 8, 1), 'INVALID_BAND');
   throwsCode(() => qb.temperatureFromBandArray(um, 8, 14, new Float64Array([1, -1])), 'NON_POSITIVE', 1);
 });
 
-test('wasm-full: band-ratio temperature, d/dT and fraction arrays, kernel totals', FULL_ONLY, () => {
+test('band-ratio temperature, d/dT and fraction arrays, kernel totals', () => {
   const um = { unit: 'um' };
   // two-colour with band integrals: an invented billet line, 0.9–1.0 µm over 1.0–1.1 µm at 1400 K
   const r = qb.bandIntegral(um, 0.9, 1.0, 1400) / qb.bandIntegral(um, 1.0, 1.1, 1400);

@@ -4,7 +4,7 @@
 // tests/data/gen_thermometry.py, whose header names it). Plus round trips and error codes.
 import { test } from 'node:test';
 import assert from 'node:assert/strict';
-import { qb, close, throwsCode, loadReference, FULL, FULL_ONLY } from './helpers.mjs';
+import { qb, close, throwsCode, loadReference } from './helpers.mjs';
 
 const ref = loadReference('thermometry_reference.json');
 const resp = (name, unit = 'm') => ({
@@ -31,11 +31,8 @@ test('response-weighted signals, derivatives and wavelengths (mpmath quad)', () 
     const m = resp(c.response);
     const what = `${c.response} at ${c.temperature_k} K`;
     close(qb.modelSignal(m, c.temperature_k), c.signal, 1e-10, `signal ${what}`);
-    if (!FULL) {
-      close(qb.modelSignal(um_(c.response), c.temperature_k), c.signal, 1e-10, `signal (um table) ${what}`);
-      close(qb.modelTemperature(m, c.signal), c.temperature_k, 1e-11, `inverse ${what}`);
-      continue; // the rest needs wasm-full bindings
-    }
+    close(qb.modelSignal(um_(c.response), c.temperature_k), c.signal, 1e-10, `signal (um table) ${what}`);
+    close(qb.modelTemperature(m, c.signal), c.temperature_k, 1e-11, `inverse ${what}`);
     close(qb.modelSignalDT(m, c.temperature_k), c.d_signal_dt, 1e-10, `dS/dT ${what}`);
     const mom = qb.signalMoments(m, c.temperature_k);
     close(mom.mean, c.mean_wavelength_m, 1e-10, `mean wavelength ${what}`);
@@ -57,7 +54,6 @@ test('response-weighted signals, derivatives and wavelengths (mpmath quad)', () 
     close(mom.mean, c.mean_m, 1e-13, `response mean ${c.response}`);
     close(mom.spread, c.spread_m, 1e-12, `response spread ${c.response}`);
   }
-  if (!FULL) return;
   for (const c of ref.effective_wavelengths) {
     close(qb.effectiveWavelength(resp(c.response), c.t1_k, c.t2_k), c.effective_wavelength_m, 1e-10, `lambda_e ${c.response}`);
   }
@@ -67,7 +63,7 @@ test('single-wavelength model and ITS-90 ratios', () => {
   for (const c of ref.spectral_points) {
     const m = { kind: 'spectralPoint', wavelength: c.wavelength_m * 1e9, unit: 'nm' };
     close(qb.modelSignal(m, c.temperature_k), c.radiance, 1e-13, `L at ${c.wavelength_m} m`);
-    if (FULL) close(qb.modelSignalDT(m, c.temperature_k), c.d_radiance_dt, 1e-13, `dL/dT at ${c.wavelength_m} m`);
+    close(qb.modelSignalDT(m, c.temperature_k), c.d_radiance_dt, 1e-13, `dL/dT at ${c.wavelength_m} m`);
   }
   for (const c of ref.its90) {
     const r = qb.its90Temperature(c.ratio, c.wavelength_m * 1e9, 'nm', c.fixed_point);
@@ -75,7 +71,6 @@ test('single-wavelength model and ITS-90 ratios', () => {
     close(r.tCodataK, c.t_codata_k, 1e-13, `T(CODATA c2) ${c.fixed_point}`);
     assert.ok(Math.abs(r.differenceK - c.difference_k) < 1e-9, `difference ${r.differenceK} vs ${c.difference_k}`);
     const tx = qb.fixedPointTemperature(c.fixed_point);
-    if (!FULL) continue;
     close(qb.temperatureFromRatio(c.ratio, c.wavelength_m, 'm', tx, 'its90'), c.t90_k, 1e-13, 'temperatureFromRatio');
     close(qb.radianceRatio(c.t90_k, c.wavelength_m, 'm', tx, 'its90'), c.ratio, 1e-12, 'radianceRatio');
   }
@@ -101,11 +96,9 @@ test('measurement equation with emissivity, path and window, and its inverse', (
   };
   close(qb.measuredSignal(m, c.object_temperature_k, cond), c.signal, 1e-12, 'measured signal');
   close(qb.objectTemperature(m, c.signal, cond), c.object_temperature_k, 1e-11, 'object temperature');
-  if (FULL) {
-    const { gain, background } = qb.measurementAffine(m, cond);
-    close(gain, c.window.transmittance * c.path_transmittance * c.emissivity, 1e-15, 'gain = tau_w tau eps');
-    close(gain * qb.modelSignal(m, c.object_temperature_k) + background, c.signal, 1e-12, 'affine form');
-  }
+  const { gain, background } = qb.measurementAffine(m, cond);
+  close(gain, c.window.transmittance * c.path_transmittance * c.emissivity, 1e-15, 'gain = tau_w tau eps');
+  close(gain * qb.modelSignal(m, c.object_temperature_k) + background, c.signal, 1e-12, 'affine form');
   // bulk inverse equals the scalar one element by element
   const temps = new Float64Array([800, 950, 1100, 1400]);
   const signals = qb.measuredSignalArray(m, temps, cond);
@@ -130,12 +123,10 @@ test('uncertainty budget (GUM, mpmath.diff sensitivities)', () => {
     pathTemperatureK: i.path_temperature_k,
   };
   close(qb.measuredSignal(model, i.object_temperature_k, cond), b.signal, 1e-12, 'budget signal');
-  if (FULL) {
-    const s = qb.sensitivities(model, b.signal, cond);
-    close(s.temperatureK, i.object_temperature_k, 1e-12, 'T at reading');
-    const sens = [s.signal, s.emissivity, s.reflectedTemperature, s.pathTransmittance, s.pathTemperature];
-    sens.forEach((v, k) => close(v, b.sensitivities[k], 1e-8, `sensitivity ${k}`));
-  }
+  const s = qb.sensitivities(model, b.signal, cond);
+  close(s.temperatureK, i.object_temperature_k, 1e-12, 'T at reading');
+  const sens = [s.signal, s.emissivity, s.reflectedTemperature, s.pathTransmittance, s.pathTemperature];
+  sens.forEach((v, k) => close(v, b.sensitivities[k], 1e-8, `sensitivity ${k}`));
   const u = qb.uncertaintyBudget(model, b.signal, cond, {
     signal: i.u_signal_rel * b.signal,
     emissivity: i.u_emissivity,
@@ -153,7 +144,7 @@ test('uncertainty budget (GUM, mpmath.diff sensitivities)', () => {
   });
 });
 
-test('two-colour and ratio thermometry (mpmath findroot and diff)', FULL_ONLY, () => {
+test('two-colour and ratio thermometry (mpmath findroot and diff)', () => {
   const c = ref.two_colour;
   const r = qb.twoColourTemperature(c.wavelength1_m * 1e6, c.wavelength2_m * 1e6, 'um', c.ratio, c.emissivity_ratio);
   close(r.temperatureK, c.temperature_k, 1e-12, 'two-colour T');
@@ -177,12 +168,10 @@ test('Sakuma–Hattori fits', () => {
   assert.ok(fit.residualsK instanceof Float64Array && fit.residualsK.length === t.length);
   // the fitted curve object is itself a usable model
   close(qb.modelTemperature(fit.curve, qb.modelSignal(truth, 1000)), 1000, 1e-8, 'fitted curve inverse');
-  if (FULL) {
-    const band = resp('rect_8_14um');
-    const fm = qb.sakumaHattoriFitModel(band, 250, 600);
-    const err = qb.maxInterpolationError(fm.curve, band, 250, 600, 200);
-    assert.ok(err.maxErrorK < 0.05 && err.atTemperatureK >= 250 && err.atTemperatureK <= 600, JSON.stringify(err));
-  }
+  const band = resp('rect_8_14um');
+  const fm = qb.sakumaHattoriFitModel(band, 250, 600);
+  const err = qb.maxInterpolationError(fm.curve, band, 250, 600, 200);
+  assert.ok(err.maxErrorK < 0.05 && err.atTemperatureK >= 250 && err.atTemperatureK <= 600, JSON.stringify(err));
   const start = qb.sakumaHattoriFromResponse(resp('triangle_650nm'), 1337.33);
   close(qb.modelTemperature(start, qb.modelSignal(resp('triangle_650nm'), 1337.33)), 1337.33, 1e-9, 'moment curve exact at T_ref');
 });
@@ -201,7 +190,7 @@ test('bulk thermometry over a million readings', () => {
   }
 });
 
-test('wasm-full: fit to a model, interpolation error, ratio errors', FULL_ONLY, () => {
+test('fit to a model, interpolation error, ratio errors', () => {
   const sp = { kind: 'spectralPoint', wavelength: 10, unit: 'um' };
   const rm = { kind: 'response', wavelengths: [8, 14], values: [1, 1], unit: 'um' };
   throwsCode(() => qb.sakumaHattoriFitModel(rm, 600, 250), 'DEGENERATE_FIT');
