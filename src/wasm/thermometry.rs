@@ -669,7 +669,7 @@ fn count(arg: &'static str, n: f64) -> Result<usize, JsValue> {
 
 /// The per-value operations on an instrument model, shared by the scalar and array exports (one
 /// out-of-line copy of the model and conditions parsing for all of them).
-#[derive(Clone, Copy, PartialEq)]
+#[derive(Clone, Copy)]
 enum ModelOp {
     /// S(T)
     Signal,
