@@ -35,7 +35,8 @@
 //! against the closed-form f64 inverse. With f32 output the final rounding (≤ 6e-8·T)
 //! dominates.
 //!
-//! Single-precision loop (u16 counts → f32 output, no emissivity map). The output is f32
+//! Single-precision loop (u16 counts or f32 signals → f32 output, no emissivity map; counts
+//! first, f32 signals below). The output is f32
 //! anyway, so these frames are evaluated in f32, four pixels per simd128 operation:
 //!
 //! ```text
@@ -71,6 +72,37 @@
 //! (every count 0..=65535, an 8–14 µm curve over 200–1500 K and a 0.65 µm curve over
 //! 500–3500 K in several gains, background counts inside, near and outside the count range) measured a maximum
 //! of 0.21 mK against the exact closed-form inverse.
+//!
+//! f32 signals (f32 → f32 output, no emissivity map) take the same loop with other constants:
+//! r0_hi = r0 rounded to f32, r0_lo = (r0 − r0_hi) rounded to f32 (r0 − r0_hi is exact in f64),
+//! and a fallback margin μ relative to |r0| instead of the 1/16 count. Raw is any f32 now, so
+//! raw − r0_hi is no longer exact. With d = raw − r0 the true value, |r0 − r0_hi| ≤ u·|r0|,
+//! |r0_lo − (r0 − r0_hi)| ≤ u²·|r0| (+2⁻¹⁵⁰ if subnormal), and one rounding per subtraction
+//! (raw − r0_hi = d + (r0 − r0_hi), so its rounding is ≤ u·(|d| + u·|r0|), whatever |raw|):
+//!
+//! ```text
+//! |d̂ − d| ≤ 2u·|d| + 2u²·|r0|     (first order)
+//! δd ≤ 2u + 2u·(u·|r0|/|d|) ≤ 2.002 u   for |d̂| ≥ μ = max(2⁻¹⁴·|r0|, 2⁻¹²⁰·ia, 2⁻¹²⁵)
+//! ```
+//!
+//! (the f64 r0 = −β/α adds ~1e-16·|r0|/|d| ≤ 0.001 u). The other two terms of μ keep
+//! v = ia/d ≤ 2¹²⁰ (finite, so ln32 applies) and d a normal f32. Then δv ≤ 4.002 u, δL ≤ 8.1 u,
+//! the division by L ≤ 10.1 u on T + k0, and with the same T + k0 ≤ 1200 K, |k0| ≤ 100 K limits
+//!
+//! ```text
+//! |ΔT| ≤ 10.1 u·(T + k0) + u·|k0| + u·T ≤ (12 120 + 100 + 1300)·u = 0.81 mK
+//! ```
+//!
+//! A pixel with |d̂| < μ, T + k0 > 1200 K, T < 1 K or raw = +∞ sends the frame to the f64 loop;
+//! d̂ ≤ −μ (then d < 0: at or below the background), NaN and −∞ are invalid as in the f64 loop
+//! (|d̂ − d| ≪ μ, so the decision agrees with it). Constants outside the normal f32 range
+//! (|r0|, 1/α, k1, |k0| above 1e30 or nonzero below 1e-30) send every frame to the f64 loop. A
+//! large background can leave the signal of a cold object below the f32 resolution of raw: such
+//! pixels are within μ of r0 and fall back; f32 input cannot carry them anyway. The sweep test
+//! `frame_f32_signals_error_bound_sweep` (10⁶ log-spaced signals per setting plus values at the
+//! margins; an 8–14 µm curve over 200–1500 K and a 0.65 µm curve over 500–3500 K, 8
+//! emissivity/reflected/path/gain/offset settings with r0 positive, zero and negative) measured
+//! a maximum of 0.21 mK against the exact closed-form inverse.
 //!
 //! The loop is branch-free (invalid pixels are computed on a substitute value and replaced by
 //! NaN with a select) so LLVM can vectorise it, including to wasm simd128. The summary's minimum
@@ -110,9 +142,13 @@ pub trait FrameOutput: Copy + sealed::Sealed {
 }
 
 mod sealed {
-    /// Private dispatch: the `u16` → `f32` pair takes the single-precision pixel loop.
+    /// Private dispatch: the `u16` → `f32` and `f32` → `f32` pairs take the single-precision
+    /// pixel loop.
     pub trait Sealed: Sized {
         fn as_counts(_s: &[Self]) -> Option<&[u16]> {
+            None
+        }
+        fn as_f32(_s: &[Self]) -> Option<&[f32]> {
             None
         }
         fn as_f32_mut(_s: &mut [Self]) -> Option<&mut [f32]> {
@@ -125,6 +161,9 @@ mod sealed {
         }
     }
     impl Sealed for f32 {
+        fn as_f32(s: &[Self]) -> Option<&[f32]> {
+            Some(s)
+        }
         fn as_f32_mut(s: &mut [Self]) -> Option<&mut [f32]> {
             Some(s)
         }
@@ -282,17 +321,17 @@ pub struct FrameConverter {
     o_minus_b0: f64,
     ks_r: f64,
     background: f64,
-    // single-precision form for u16 counts → f32 (see `Fast32`); None when the constants do not
-    // fit its preconditions
-    fast32: Option<Fast32>,
 }
 
 /// Per-frame constants of the single-precision pixel loop: v = ia/((raw − r0_hi) − r0_lo),
-/// T = k1/ln(1 + v) − k0, with r0 = −β/α the count at which the signal equals the background.
+/// T = k1/ln(1 + v) − k0, with r0 = −β/α the raw value at which the signal equals the
+/// background.
 #[derive(Debug, Clone, Copy, PartialEq)]
 struct Fast32 {
     r0_hi: f32,
     r0_lo: f32,
+    /// Pixels with |d| below this fall back to f64 (sign and precision of d = raw − r0).
+    margin: f32,
     ia: f32,
     k1: f32,
     k0: f32,
@@ -304,8 +343,10 @@ struct Fast32 {
 const F32_SUM_LIMIT_K: f64 = 1200.0;
 /// Largest |k0| (K) for which the f32 loop is used.
 const F32_K0_LIMIT_K: f64 = 100.0;
-/// Pixels with |raw − r0| below this (counts) fall back to f64 (sign and precision).
-const F32_MIN_MARGIN: f32 = 0.0625;
+/// Counts: pixels with |raw − r0| below this (counts) fall back to f64 (sign and precision).
+const F32_COUNT_MARGIN: f64 = 0.0625;
+/// f32 signals: pixels with |raw − r0| below this fraction of |r0| fall back to f64.
+const F32_REL_MARGIN: f64 = 1.0 / 16384.0;
 const NAN32_BITS: u32 = 0x7fc0_0000;
 /// √½ as f32 bits, and ln 2 split so that k·LN2_HI32 is exact for |k| < 128 (fdlibm's split).
 const SQRT_HALF_BITS32: u32 = 0x3f35_04f3;
@@ -329,22 +370,34 @@ fn ln32(w: f32) -> f32 {
 }
 
 impl Fast32 {
-    fn new(alpha: f64, beta: f64, k1: f64, k0: f64) -> Option<Fast32> {
+    /// The constants for u16 counts (`counts`) or for f32 signals; None when they do not fit
+    /// the loop's preconditions (module docs).
+    fn new(alpha: f64, beta: f64, k1: f64, k0: f64, counts: bool) -> Option<Fast32> {
         let r0 = -beta / alpha;
         let ia = 1.0 / alpha;
-        // Counts are < 2¹⁶: with r0_hi a multiple of 2⁻⁶ and |r0_hi| < 2¹⁷, raw − r0_hi is exact.
-        if !(r0.abs() < 131_072.0) || !(k0.abs() <= F32_K0_LIMIT_K) {
-            return None;
-        }
-        let r0_hi = crate::float::round(r0 * 64.0) / 64.0;
-        let r0_lo = r0 - r0_hi;
         let ok32 = |v: f64| v.is_finite() && v.abs() < 1e30 && (v == 0.0 || v.abs() > 1e-30);
-        if !(ok32(ia) && ia > 0.0 && ok32(k1) && ok32(k0) && k1 > 0.0) {
+        let fits = ok32(r0) && ok32(ia) && ia > 0.0 && ok32(k1) && ok32(k0) && k1 > 0.0;
+        if !(fits && k0.abs() <= F32_K0_LIMIT_K) {
             return None;
         }
+        let (r0_hi, margin) = if counts {
+            // Counts are < 2¹⁶: with r0_hi a multiple of 2⁻⁶ and |r0_hi| < 2¹⁷, raw − r0_hi is
+            // exact.
+            if !(r0.abs() < 131_072.0) {
+                return None;
+            }
+            (crate::float::round(r0 * 64.0) / 64.0, F32_COUNT_MARGIN)
+        } else {
+            // r0 to f32 (r0 − r0_hi is then exact in f64); the margin keeps |d| ≥ 2⁻¹⁴·|r0|,
+            // v = ia/d ≤ 2¹²⁰ and d a normal f32.
+            let m = (F32_REL_MARGIN * r0.abs()).max(ia * 7.52e-37).max(2.36e-38);
+            (f64::from(r0 as f32), m)
+        };
+        let r0_lo = r0 - r0_hi;
         Some(Fast32 {
             r0_hi: r0_hi as f32,
             r0_lo: r0_lo as f32,
+            margin: margin as f32,
             ia: ia as f32,
             k1: k1 as f32,
             k0: k0 as f32,
@@ -436,7 +489,6 @@ impl FrameConverter {
             o_minus_b0: offset - b0,
             ks_r,
             background: b,
-            fast32: Fast32::new(alpha, beta, k1, k0),
         })
     }
 
@@ -479,7 +531,8 @@ impl FrameConverter {
     /// # Accuracy
     /// |ΔT| ≤ 1e-10·(T + B/A) for x = c2/(A·T + B) ≥ 0.05, plus the output rounding (module
     /// docs); u16 counts into f32 take the single-precision loop, |ΔT| ≤ 0.74 mK (module docs;
-    /// measured maximum 0.21 mK). Both measured in `tests/thermometry_frame.rs`.
+    /// measured maximum 0.21 mK), and f32 signals into f32 too, |ΔT| ≤ 0.81 mK (measured
+    /// maximum 0.21 mK). All measured in `tests/thermometry_frame.rs`.
     ///
     /// # Examples
     /// See [`FrameConverter::new`].
@@ -497,8 +550,13 @@ impl FrameConverter {
                 got: out_k.len(),
             });
         }
-        if let (Some(counts), Some(out)) = (I::as_counts(raw), O::as_f32_mut(out_k)) {
-            if let Some(sum) = self.convert_counts_f32(counts, out) {
+        if let Some(out) = O::as_f32_mut(out_k) {
+            let fast = match (I::as_counts(raw), I::as_f32(raw)) {
+                (Some(counts), _) => self.convert_counts_f32(counts, out),
+                (_, Some(signals)) => self.convert_signals_f32(signals, out),
+                _ => None,
+            };
+            if let Some(sum) = fast {
                 return Ok(sum);
             }
         }
@@ -525,37 +583,16 @@ impl FrameConverter {
     /// caller then takes the f64 loop. Slices of unequal length are cut to the shorter.
     #[inline(never)]
     pub(crate) fn convert_counts_f32(&self, raw: &[u16], out: &mut [f32]) -> Option<FrameSummary> {
-        let f = self.fast32?;
-        let m = raw.len().min(out.len());
-        let (raw, out) = (&raw[..m], &mut out[..m]);
-        let mut valid = 0usize;
-        let (mut lo, mut hi) = (u32::MAX, 0u32);
-        let mut redo = false;
-        for (o, &r) in out.iter_mut().zip(raw) {
-            let d = (f32::from(r) - f.r0_hi) - f.r0_lo;
-            let v = f.ia / d;
-            let l = ln32(1.0 + v);
-            let t = f.k1 / l - f.k0;
-            let bad = d <= -F32_MIN_MARGIN;
-            // (v ≥ 1 follows from l ≥ l_min, and v < 2e31 from d ≥ 1/16, ia < 1e30)
-            let good = (d >= F32_MIN_MARGIN) & (l >= f.l_min) & (t >= 1.0);
-            let bits = if good { t.to_bits() } else { NAN32_BITS };
-            *o = f32::from_bits(bits);
-            valid += usize::from(good);
-            redo |= !good & !bad;
-            // positive floats order like their bits; the NaN is above +∞ (module docs)
-            lo = lo.min(bits);
-            hi = hi.max(if good { bits } else { 0 });
-        }
-        // a pixel outside the f32 loop's range: the f64 loop takes the frame
-        if redo {
-            return None;
-        }
-        if valid == 0 {
-            return Some(summary(m, 0, f64::NAN, f64::NAN));
-        }
-        let (lo, hi) = (f32::from_bits(lo), f32::from_bits(hi));
-        Some(summary(m, valid, f64::from(lo), f64::from(hi)))
+        let f = Fast32::new(self.alpha, self.beta, self.k1, self.k0, true)?;
+        lanes32(&f, raw, out)
+    }
+
+    /// f32 signals → f32 kelvin in single precision, as [`FrameConverter::convert_counts_f32`]
+    /// but with the f32-signal constants (r0 rounded to f32, a margin relative to |r0|).
+    #[inline(never)]
+    pub(crate) fn convert_signals_f32(&self, raw: &[f32], out: &mut [f32]) -> Option<FrameSummary> {
+        let f = Fast32::new(self.alpha, self.beta, self.k1, self.k0, false)?;
+        lanes32(&f, raw, out)
     }
 
     /// Converts a frame with a per-pixel emissivity map (`emissivity`, same length as `raw`)
@@ -628,6 +665,43 @@ impl FrameConverter {
             n,
         ))
     }
+}
+
+/// The single-precision pixel loop (module docs) over u16 counts or f32 signals; None if a pixel
+/// is outside the proven range (the caller then takes the f64 loop).
+#[inline(always)]
+fn lanes32<R: Copy + Into<f32>>(f: &Fast32, raw: &[R], out: &mut [f32]) -> Option<FrameSummary> {
+    let m = raw.len().min(out.len());
+    let (raw, out) = (&raw[..m], &mut out[..m]);
+    let mut valid = 0usize;
+    let (mut lo, mut hi) = (u32::MAX, 0u32);
+    let mut redo = false;
+    for (o, &r) in out.iter_mut().zip(raw) {
+        let d = (r.into() - f.r0_hi) - f.r0_lo;
+        let v = f.ia / d;
+        let l = ln32(1.0 + v);
+        let t = f.k1 / l - f.k0;
+        // at or below the background, or NaN: invalid, as in the f64 loop
+        let bad = !(d > -f.margin);
+        // (v ≥ 1 follows from l ≥ l_min; v ≤ 2¹²⁰ from d ≥ margin)
+        let good = (d >= f.margin) & (l >= f.l_min) & (t >= 1.0);
+        let bits = if good { t.to_bits() } else { NAN32_BITS };
+        *o = f32::from_bits(bits);
+        valid += usize::from(good);
+        redo |= !good & !bad;
+        // positive floats order like their bits; the NaN is above +∞ (module docs)
+        lo = lo.min(bits);
+        hi = hi.max(if good { bits } else { 0 });
+    }
+    // a pixel outside the f32 loop's range: the f64 loop takes the frame
+    if redo {
+        return None;
+    }
+    if valid == 0 {
+        return Some(summary(m, 0, f64::NAN, f64::NAN));
+    }
+    let (lo, hi) = (f32::from_bits(lo), f32::from_bits(hi));
+    Some(summary(m, valid, f64::from(lo), f64::from(hi)))
 }
 
 /// Runs `pixel` over indices 0..n (n = out.len(), the inputs already checked to be as long),

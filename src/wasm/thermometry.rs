@@ -1409,21 +1409,33 @@ pub fn convert_frame(
         Some(v) => choose("FrameOptions.output", &v, &["float32", "float64"])? == 1,
     };
     let conv = FrameConverter::new(&sh, &conditions, gain, offset)?;
-    // Counts to f32 without an emissivity map (the camera case): straight from the typed
-    // slice into the returned array's buffer, through the core's single-precision loop.
-    // (None when the frame constants do not suit that loop: the f64 loop below runs instead.)
-    if let (Some(a), None, false) = (raw.dyn_ref::<Uint16Array>(), &eps, f64_out) {
-        let counts = a.to_vec();
-        let mut out32: Vec<f32> = with_room(counts.len())?;
-        out32.resize(counts.len(), 0.0);
-        if let Some(sum) = conv.convert_counts_f32(&counts, &mut out32) {
-            return Ok(frame_result(
-                Float32Array::from(out32.as_slice()).into(),
-                &sum,
-                sum.min_temperature_k,
-                sum.max_temperature_k,
-                conv.background(),
-            ));
+    // Counts or f32 signals to f32 without an emissivity map (the camera case): straight from
+    // the typed array's copy into the returned array's buffer, through the core's
+    // single-precision loop (None when the frame constants do not suit that loop or a pixel
+    // needs f64: the f64 loop below runs instead).
+    if let (None, false) = (&eps, f64_out) {
+        let n = raw
+            .dyn_ref::<Uint16Array>()
+            .map(|a| a.length())
+            .or_else(|| raw.dyn_ref::<Float32Array>().map(|a| a.length()));
+        if let Some(n) = n {
+            let mut out32: Vec<f32> = with_room(n as usize)?;
+            out32.resize(n as usize, 0.0);
+            let fast = if let Some(a) = raw.dyn_ref::<Uint16Array>() {
+                conv.convert_counts_f32(&a.to_vec(), &mut out32)
+            } else {
+                let signals = raw.unchecked_ref::<Float32Array>().to_vec();
+                conv.convert_signals_f32(&signals, &mut out32)
+            };
+            if let Some(sum) = fast {
+                return Ok(frame_result(
+                    Float32Array::from(out32.as_slice()).into(),
+                    &sum,
+                    sum.min_temperature_k,
+                    sum.max_temperature_k,
+                    conv.background(),
+                ));
+            }
         }
     }
     let pixels = frame_pixels(&raw)?;
