@@ -354,6 +354,7 @@ const LN2_HI32: f32 = f32::from_bits(0x3f31_7180);
 const LN2_LO32: f32 = f32::from_bits(0x3717_f7d1);
 
 /// Single-precision ln for w ≥ 1 (finite, w < 2¹²⁸): 2^k·m split, ln m = 2·atanh(s) to z⁴/9.
+#[cfg(not(all(target_arch = "wasm32", target_feature = "simd128")))]
 #[inline(always)]
 fn ln32(w: f32) -> f32 {
     let bits = w.to_bits();
@@ -584,7 +585,7 @@ impl FrameConverter {
     #[inline(never)]
     pub(crate) fn convert_counts_f32(&self, raw: &[u16], out: &mut [f32]) -> Option<FrameSummary> {
         let f = Fast32::new(self.alpha, self.beta, self.k1, self.k0, true)?;
-        lanes32(&f, raw, out)
+        lanes32(&f, raw, &[], out)
     }
 
     /// f32 signals → f32 kelvin in single precision, as [`FrameConverter::convert_counts_f32`]
@@ -592,7 +593,7 @@ impl FrameConverter {
     #[inline(never)]
     pub(crate) fn convert_signals_f32(&self, raw: &[f32], out: &mut [f32]) -> Option<FrameSummary> {
         let f = Fast32::new(self.alpha, self.beta, self.k1, self.k0, false)?;
-        lanes32(&f, raw, out)
+        lanes32(&f, &[], raw, out)
     }
 
     /// Converts a frame with a per-pixel emissivity map (`emissivity`, same length as `raw`)
@@ -667,41 +668,153 @@ impl FrameConverter {
     }
 }
 
-/// The single-precision pixel loop (module docs) over u16 counts or f32 signals; None if a pixel
-/// is outside the proven range (the caller then takes the f64 loop).
+/// Running totals of the single-precision loop: valid pixels, bit-pattern min/max of the
+/// output, and whether a pixel needs the f64 loop.
+struct Acc32 {
+    valid: usize,
+    lo: u32,
+    hi: u32,
+    redo: bool,
+}
+
+/// One pixel of the single-precision loop (module docs): the output bits (T or NaN), whether it
+/// is valid, and whether it is decided invalid (at or below the background, or NaN).
+#[cfg(not(all(target_arch = "wasm32", target_feature = "simd128")))]
 #[inline(always)]
-fn lanes32<R: Copy + Into<f32>>(f: &Fast32, raw: &[R], out: &mut [f32]) -> Option<FrameSummary> {
-    let m = raw.len().min(out.len());
-    let (raw, out) = (&raw[..m], &mut out[..m]);
-    let mut valid = 0usize;
-    let (mut lo, mut hi) = (u32::MAX, 0u32);
-    let mut redo = false;
-    for (o, &r) in out.iter_mut().zip(raw) {
-        let d = (r.into() - f.r0_hi) - f.r0_lo;
-        let v = f.ia / d;
-        let l = ln32(1.0 + v);
-        let t = f.k1 / l - f.k0;
-        // at or below the background, or NaN: invalid, as in the f64 loop
-        let bad = !(d > -f.margin);
-        // (v ≥ 1 follows from l ≥ l_min; v ≤ 2¹²⁰ from d ≥ margin)
-        let good = (d >= f.margin) & (l >= f.l_min) & (t >= 1.0);
-        let bits = if good { t.to_bits() } else { NAN32_BITS };
+fn pixel32(f: &Fast32, x: f32) -> (u32, bool, bool) {
+    let d = (x - f.r0_hi) - f.r0_lo;
+    let v = f.ia / d;
+    let l = ln32(1.0 + v);
+    let t = f.k1 / l - f.k0;
+    let bad = !(d > -f.margin);
+    // (v ≥ 1 follows from l ≥ l_min; v ≤ 2¹²⁰ from d ≥ margin)
+    let good = (d >= f.margin) & (l >= f.l_min) & (t >= 1.0);
+    (if good { t.to_bits() } else { NAN32_BITS }, good, bad)
+}
+
+/// Block length (pixels) of the single-precision loop: raw values are copied (counts converted
+/// exactly) into a block padded with NaN, which is neutral (invalid, not counted as a valid
+/// pixel, no fallback, below nothing in the range), so the loop has no tail.
+const BLOCK32: usize = 256;
+/// A block of the single-precision loop, in groups of four lanes.
+type Block32 = [[f32; 4]; BLOCK32 / 4];
+
+/// The single-precision loop over one block.
+#[cfg(not(all(target_arch = "wasm32", target_feature = "simd128")))]
+#[inline(never)]
+fn block32(f: &Fast32, raw: &Block32, out: &mut Block32, acc: &mut Acc32) {
+    for (o, &x) in out.as_flattened_mut().iter_mut().zip(raw.as_flattened()) {
+        let (bits, good, bad) = pixel32(f, x);
         *o = f32::from_bits(bits);
-        valid += usize::from(good);
-        redo |= !good & !bad;
+        acc.valid += usize::from(good);
+        acc.redo |= !good & !bad;
         // positive floats order like their bits; the NaN is above +∞ (module docs)
-        lo = lo.min(bits);
-        hi = hi.max(if good { bits } else { 0 });
+        acc.lo = acc.lo.min(bits);
+        acc.hi = acc.hi.max(if good { bits } else { 0 });
+    }
+}
+
+/// `pixel32` over one block, four lanes at a time with wasm simd128 intrinsics, operation for
+/// operation (so the results are bit-identical to the scalar loop the other targets run): the
+/// package build optimises for size, which turns LLVM's loop vectoriser off.
+#[cfg(all(target_arch = "wasm32", target_feature = "simd128"))]
+#[inline(never)]
+fn block32(f: &Fast32, raw: &Block32, out: &mut Block32, acc: &mut Acc32) {
+    use core::arch::wasm32::*;
+    let sp = f32x4_splat;
+    let (r0_hi, r0_lo, ia, k1, k0) = (sp(f.r0_hi), sp(f.r0_lo), sp(f.ia), sp(f.k1), sp(f.k0));
+    let (margin, neg_margin, l_min, one) = (sp(f.margin), sp(-f.margin), sp(f.l_min), sp(1.0));
+    let (mut valid, mut redo) = (i32x4_splat(0), i32x4_splat(0));
+    let (mut lo, mut hi) = (u32x4_splat(u32::MAX), u32x4_splat(0));
+    for (o, r) in out.iter_mut().zip(raw) {
+        let x = f32x4(r[0], r[1], r[2], r[3]);
+        let d = f32x4_sub(f32x4_sub(x, r0_hi), r0_lo);
+        let v = f32x4_div(ia, d);
+        // ln32 on four lanes
+        let w = f32x4_add(one, v);
+        let k = i32x4_shr(i32x4_sub(w, u32x4_splat(SQRT_HALF_BITS32)), 23);
+        let m = i32x4_sub(w, i32x4_shl(k, 23));
+        let kf = f32x4_convert_i32x4(k);
+        let fr = f32x4_sub(m, one);
+        let s = f32x4_div(fr, f32x4_add(sp(2.0), fr));
+        let z = f32x4_mul(s, s);
+        let mut p = f32x4_mul(z, sp(1.0 / 9.0));
+        for c in [1.0 / 7.0, 1.0 / 5.0] {
+            p = f32x4_mul(z, f32x4_add(sp(c), p));
+        }
+        let p = f32x4_mul(z, f32x4_add(sp(1.0 / 3.0), p));
+        let two_s = f32x4_add(s, s);
+        let tail = f32x4_add(f32x4_mul(two_s, p), f32x4_mul(kf, sp(LN2_LO32)));
+        let l = f32x4_add(f32x4_mul(kf, sp(LN2_HI32)), f32x4_add(two_s, tail));
+        let t = f32x4_sub(f32x4_div(k1, l), k0);
+        let not_bad = f32x4_gt(d, neg_margin);
+        let good = v128_and(
+            v128_and(f32x4_ge(d, margin), f32x4_ge(l, l_min)),
+            f32x4_ge(t, one),
+        );
+        let bits = v128_bitselect(t, u32x4_splat(NAN32_BITS), good);
+        *o = [
+            f32x4_extract_lane::<0>(bits),
+            f32x4_extract_lane::<1>(bits),
+            f32x4_extract_lane::<2>(bits),
+            f32x4_extract_lane::<3>(bits),
+        ];
+        valid = i32x4_sub(valid, good); // good lanes are −1
+        redo = v128_or(redo, v128_andnot(not_bad, good));
+        lo = u32x4_min(lo, bits);
+        hi = u32x4_max(hi, v128_and(bits, good));
+    }
+    let lanes = |v: v128| {
+        [
+            u32x4_extract_lane::<0>(v),
+            u32x4_extract_lane::<1>(v),
+            u32x4_extract_lane::<2>(v),
+            u32x4_extract_lane::<3>(v),
+        ]
+    };
+    for ((c, l), h) in lanes(valid).into_iter().zip(lanes(lo)).zip(lanes(hi)) {
+        acc.valid += c as usize;
+        acc.lo = acc.lo.min(l);
+        acc.hi = acc.hi.max(h);
+    }
+    acc.redo |= v128_any_true(redo);
+}
+
+/// The single-precision loop (module docs) over u16 counts (`counts`) or f32 signals, block by
+/// block; None if a pixel is outside the proven range (the caller then takes the f64 loop).
+fn lanes32(f: &Fast32, counts: &[u16], signals: &[f32], out: &mut [f32]) -> Option<FrameSummary> {
+    let mut acc = Acc32 {
+        valid: 0,
+        lo: u32::MAX,
+        hi: 0,
+        redo: false,
+    };
+    let m = counts.len().max(signals.len()).min(out.len());
+    let (mut inb, mut outb): (Block32, Block32) =
+        ([[0.0; 4]; BLOCK32 / 4], [[0.0; 4]; BLOCK32 / 4]);
+    for (b, o) in out[..m].chunks_mut(BLOCK32).enumerate() {
+        let (at, n) = (b * BLOCK32, o.len());
+        let x = inb.as_flattened_mut();
+        if signals.is_empty() {
+            for (x, &c) in x.iter_mut().zip(&counts[at..at + n]) {
+                *x = f32::from(c); // exact
+            }
+        } else {
+            x[..n].copy_from_slice(&signals[at..at + n]);
+        }
+        x[n..].fill(f32::NAN);
+        block32(f, &inb, &mut outb, &mut acc);
+        o.copy_from_slice(&outb.as_flattened()[..n]);
     }
     // a pixel outside the f32 loop's range: the f64 loop takes the frame
-    if redo {
+    if acc.redo {
         return None;
     }
-    if valid == 0 {
+    if acc.valid == 0 {
         return Some(summary(m, 0, f64::NAN, f64::NAN));
     }
-    let (lo, hi) = (f32::from_bits(lo), f32::from_bits(hi));
-    Some(summary(m, valid, f64::from(lo), f64::from(hi)))
+    let (lo, hi) = (f32::from_bits(acc.lo), f32::from_bits(acc.hi));
+    Some(summary(m, acc.valid, f64::from(lo), f64::from(hi)))
 }
 
 /// Runs `pixel` over indices 0..n (n = out.len(), the inputs already checked to be as long),
