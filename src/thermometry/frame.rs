@@ -553,9 +553,8 @@ impl FrameConverter {
         }
         if let Some(out) = O::as_f32_mut(out_k) {
             let fast = match (I::as_counts(raw), I::as_f32(raw)) {
-                (Some(counts), _) => self.convert_counts_f32(counts, out),
-                (_, Some(signals)) => self.convert_signals_f32(signals, out),
-                _ => None,
+                (None, None) => None,
+                (c, s) => self.convert_f32(c.unwrap_or(&[]), s.unwrap_or(&[]), out),
             };
             if let Some(sum) = fast {
                 return Ok(sum);
@@ -578,22 +577,20 @@ impl FrameConverter {
         self.finish(1.0, den, ok)
     }
 
-    /// u16 counts → f32 kelvin in single precision (4 lanes of simd128), when every pixel is
-    /// inside the f32 loop's proven range (module docs). `None` (the output then holds nothing
-    /// usable) when the frame constants do not suit the f32 loop or a pixel needs f64; the
-    /// caller then takes the f64 loop. Slices of unequal length are cut to the shorter.
+    /// u16 counts (`counts`, with `signals` empty) or f32 signals → f32 kelvin in single
+    /// precision (4 lanes of simd128), when every pixel is inside the f32 loop's proven range
+    /// (module docs). `None` (the output then holds nothing usable) when the frame constants do
+    /// not suit the f32 loop or a pixel needs f64; the caller then takes the f64 loop. Slices of
+    /// unequal length are cut to the shorter.
     #[inline(never)]
-    pub(crate) fn convert_counts_f32(&self, raw: &[u16], out: &mut [f32]) -> Option<FrameSummary> {
-        let f = Fast32::new(self.alpha, self.beta, self.k1, self.k0, true)?;
-        lanes32(&f, raw, &[], out)
-    }
-
-    /// f32 signals → f32 kelvin in single precision, as [`FrameConverter::convert_counts_f32`]
-    /// but with the f32-signal constants (r0 rounded to f32, a margin relative to |r0|).
-    #[inline(never)]
-    pub(crate) fn convert_signals_f32(&self, raw: &[f32], out: &mut [f32]) -> Option<FrameSummary> {
-        let f = Fast32::new(self.alpha, self.beta, self.k1, self.k0, false)?;
-        lanes32(&f, &[], raw, out)
+    pub(crate) fn convert_f32(
+        &self,
+        counts: &[u16],
+        signals: &[f32],
+        out: &mut [f32],
+    ) -> Option<FrameSummary> {
+        let f = Fast32::new(self.alpha, self.beta, self.k1, self.k0, signals.is_empty())?;
+        lanes32(&f, counts, signals, out)
     }
 
     /// Converts a frame with a per-pixel emissivity map (`emissivity`, same length as `raw`)
@@ -738,11 +735,11 @@ fn block32(f: &Fast32, raw: &Block32, out: &mut Block32, acc: &mut Acc32) {
         let fr = f32x4_sub(m, one);
         let s = f32x4_div(fr, f32x4_add(sp(2.0), fr));
         let z = f32x4_mul(s, s);
-        let mut p = f32x4_mul(z, sp(1.0 / 9.0));
-        for c in [1.0 / 7.0, 1.0 / 5.0] {
-            p = f32x4_mul(z, f32x4_add(sp(c), p));
-        }
-        let p = f32x4_mul(z, f32x4_add(sp(1.0 / 3.0), p));
+        let horner = |c: f32, p: v128| f32x4_mul(z, f32x4_add(sp(c), p));
+        let p = horner(
+            1.0 / 3.0,
+            horner(1.0 / 5.0, horner(1.0 / 7.0, f32x4_mul(z, sp(1.0 / 9.0)))),
+        );
         let two_s = f32x4_add(s, s);
         let tail = f32x4_add(f32x4_mul(two_s, p), f32x4_mul(kf, sp(LN2_LO32)));
         let l = f32x4_add(f32x4_mul(kf, sp(LN2_HI32)), f32x4_add(two_s, tail));
@@ -792,19 +789,25 @@ fn lanes32(f: &Fast32, counts: &[u16], signals: &[f32], out: &mut [f32]) -> Opti
     let m = counts.len().max(signals.len()).min(out.len());
     let (mut inb, mut outb): (Block32, Block32) =
         ([[0.0; 4]; BLOCK32 / 4], [[0.0; 4]; BLOCK32 / 4]);
+    // (`get` instead of indexing: the ranges are in bounds, and no panic path is linked)
     for (b, o) in out[..m].chunks_mut(BLOCK32).enumerate() {
         let (at, n) = (b * BLOCK32, o.len());
         let x = inb.as_flattened_mut();
-        if signals.is_empty() {
-            for (x, &c) in x.iter_mut().zip(&counts[at..at + n]) {
+        if let Some(c) = counts.get(at..at + n) {
+            for (x, &c) in x.iter_mut().zip(c) {
                 *x = f32::from(c); // exact
             }
-        } else {
-            x[..n].copy_from_slice(&signals[at..at + n]);
         }
-        x[n..].fill(f32::NAN);
+        if let (Some(x), Some(s)) = (x.get_mut(..n), signals.get(at..at + n)) {
+            x.copy_from_slice(s);
+        }
+        if let Some(pad) = x.get_mut(n..) {
+            pad.fill(f32::NAN);
+        }
         block32(f, &inb, &mut outb, &mut acc);
-        o.copy_from_slice(&outb.as_flattened()[..n]);
+        if let Some(t) = outb.as_flattened().get(..n) {
+            o.copy_from_slice(t);
+        }
     }
     // a pixel outside the f32 loop's range: the f64 loop takes the frame
     if acc.redo {

@@ -1414,20 +1414,14 @@ pub fn convert_frame(
     // single-precision loop (None when the frame constants do not suit that loop or a pixel
     // needs f64: the f64 loop below runs instead).
     if let (None, false) = (&eps, f64_out) {
-        let n = raw
-            .dyn_ref::<Uint16Array>()
-            .map(|a| a.length())
-            .or_else(|| raw.dyn_ref::<Float32Array>().map(|a| a.length()));
-        if let Some(n) = n {
-            let mut out32: Vec<f32> = with_room(n as usize)?;
-            out32.resize(n as usize, 0.0);
-            let fast = if let Some(a) = raw.dyn_ref::<Uint16Array>() {
-                conv.convert_counts_f32(&a.to_vec(), &mut out32)
-            } else {
-                let signals = raw.unchecked_ref::<Float32Array>().to_vec();
-                conv.convert_signals_f32(&signals, &mut out32)
-            };
-            if let Some(sum) = fast {
+        let counts = raw.dyn_ref::<Uint16Array>().map(|a| a.to_vec());
+        let signals = raw.dyn_ref::<Float32Array>().map(|a| a.to_vec());
+        if counts.is_some() || signals.is_some() {
+            let (counts, signals) = (counts.unwrap_or_default(), signals.unwrap_or_default());
+            let n = counts.len() + signals.len();
+            let mut out32: Vec<f32> = with_room(n)?;
+            out32.resize(n, 0.0);
+            if let Some(sum) = conv.convert_f32(&counts, &signals, &mut out32) {
                 return Ok(frame_result(
                     Float32Array::from(out32.as_slice()).into(),
                     &sum,
