@@ -700,15 +700,21 @@ type Block32 = [[f32; 4]; BLOCK32 / 4];
 #[cfg(not(all(target_arch = "wasm32", target_feature = "simd128")))]
 #[inline(never)]
 fn block32(f: &Fast32, raw: &Block32, out: &mut Block32, acc: &mut Acc32) {
+    // local accumulators (u32 count and flag) keep the loop vectorisable
+    let (mut valid, mut redo, mut lo, mut hi) = (0u32, 0u32, u32::MAX, 0u32);
     for (o, &x) in out.as_flattened_mut().iter_mut().zip(raw.as_flattened()) {
         let (bits, good, bad) = pixel32(f, x);
         *o = f32::from_bits(bits);
-        acc.valid += usize::from(good);
-        acc.redo |= !good & !bad;
+        valid += u32::from(good);
+        redo |= u32::from(!good & !bad);
         // positive floats order like their bits; the NaN is above +∞ (module docs)
-        acc.lo = acc.lo.min(bits);
-        acc.hi = acc.hi.max(if good { bits } else { 0 });
+        lo = lo.min(bits);
+        hi = hi.max(if good { bits } else { 0 });
     }
+    acc.valid += valid as usize;
+    acc.redo |= redo != 0;
+    acc.lo = acc.lo.min(lo);
+    acc.hi = acc.hi.max(hi);
 }
 
 /// `pixel32` over one block, four lanes at a time with wasm simd128 intrinsics, operation for
