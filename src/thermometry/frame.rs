@@ -104,12 +104,19 @@
 //! emissivity/reflected/path/gain/offset settings with r0 positive, zero and negative) measured
 //! a maximum of 0.21 mK against the exact closed-form inverse.
 //!
-//! The loop is branch-free (invalid pixels are computed on a substitute value and replaced by
-//! NaN with a select) so LLVM can vectorise it, including to wasm simd128. The summary's minimum
-//! and maximum come from a second pass over the output on the integer bit patterns (positive
-//! floats order like their bits; NaN sorts above +∞), which vectorises where float min/max
-//! reductions do not (the single-precision loop below takes them in the same loop, on i32
-//! lanes).
+//! The loops are branch-free (invalid pixels are computed on a substitute value and replaced by
+//! NaN with a select) so LLVM can vectorise them. The summary's minimum and maximum come from a
+//! second pass over the output on the integer bit patterns (positive floats order like their
+//! bits; NaN sorts above +∞), which vectorises where float min/max reductions do not (the
+//! single-precision loop takes them in the same loop, on i32 lanes).
+//!
+//! The single-precision loop runs over blocks of 256 pixels: raw values are copied into the
+//! block (counts converted to f32, exactly) and the block is padded with NaN, which is neutral
+//! (invalid, not counted, no fallback). The package's wasm build optimises for size, and at that
+//! level LLVM's loop vectoriser is off, so on wasm32 with simd128 the block loop is written with
+//! the simd128 intrinsics, four lanes per operation; it performs the scalar loop's f32
+//! operations in the same order (no fused multiply–add in either), so it gives the same bits.
+//! Other targets run the scalar loop, which LLVM vectorises at the release optimisation level.
 //!
 //! Invalid pixels — a non-finite input, a signal at or below the background the reflected,
 //! path and window terms give (no physical solution), an emissivity outside (0, 1], or a result
