@@ -163,6 +163,7 @@ mod cases {
     use quantaband::constants::C2Convention;
     use quantaband::planck::{self, Spectrum};
     use quantaband::stats::{self, BoseOrder, FdOrder};
+    use quantaband::thermometry::frame::FrameInput;
     use quantaband::thermometry::{
         Conditions, FrameConverter, Response, ResponseSignal, SakumaHattori, SignalModel,
     };
@@ -178,6 +179,68 @@ mod cases {
     const HEIGHT: usize = 512;
     const EMISSIVITY: f64 = 0.95;
     const T_REFLECTED_K: f64 = 293.15;
+    /// The scene as counts of an invented 14-bit camera: signal = gain·count + offset.
+    const COUNT_GAIN: f64 = 0.1;
+    const COUNT_OFFSET: f64 = -500.0;
+
+    /// The scene as u16 counts (the f64 signal rounded to the nearest count, floor(x + 0.5) as
+    /// in `benches/js/scene.mjs`) and the exact object temperatures of the counts' signals.
+    fn scene_counts(sh: &SakumaHattori) -> (Vec<u16>, Vec<f64>) {
+        let s = |t: f64| sh.c() / (sh.c2_mk() / (sh.a_m() * t + sh.b_mk())).exp_m1();
+        let background = (1.0 - EMISSIVITY) * s(T_REFLECTED_K);
+        let mut counts = Vec::with_capacity(WIDTH * HEIGHT);
+        let mut exact = Vec::with_capacity(WIDTH * HEIGHT);
+        for y in 0..HEIGHT {
+            for x in 0..WIDTH {
+                let (xf, yf) = (x as f64, y as f64);
+                let (dx, dy) = (xf - 400.0, yf - 200.0);
+                let t = 285.0
+                    + 40.0 * xf / (WIDTH - 1) as f64
+                    + 20.0 * yf / (HEIGHT - 1) as f64
+                    + 120.0 * (-(dx * dx + dy * dy) / 3200.0).exp();
+                let signal = EMISSIVITY * s(t) + background;
+                let c = ((signal - COUNT_OFFSET) / COUNT_GAIN + 0.5).floor() as u16;
+                counts.push(c);
+                let so = (COUNT_GAIN * f64::from(c) + COUNT_OFFSET - background) / EMISSIVITY;
+                exact.push((sh.c2_mk() / (sh.c() / so).ln_1p() - sh.b_mk()) / sh.a_m());
+            }
+        }
+        (counts, exact)
+    }
+
+    /// Times `conv` on one frame into f32, with the error of the output against `exact`.
+    fn frame_row<I: FrameInput>(
+        r: &Runner,
+        case: &str,
+        conv: &FrameConverter,
+        raw: &[I],
+        exact: &[f64],
+        note: &'static str,
+    ) {
+        let mut out = vec![0f32; raw.len()];
+        let err = match conv.convert(raw, &mut out) {
+            Ok(_) => out
+                .iter()
+                .zip(exact)
+                .map(|(&o, &e)| (f64::from(o) - e).abs())
+                .fold(
+                    0.0,
+                    |m: f64, e| if e.is_nan() { f64::INFINITY } else { m.max(e) },
+                ),
+            Err(_) => f64::INFINITY,
+        };
+        let mut buf = vec![0f32; raw.len()];
+        r.run(
+            case,
+            || conv.convert(black_box(raw), &mut buf).map(|s| s.valid),
+            Extra {
+                max_abs_err_k: Some(err),
+                pixels: Some(raw.len()),
+                note: Some(note),
+                ..Extra::default()
+            },
+        );
+    }
 
     /// The invented benchmark scene (same formulas as `benches/js/scene.mjs`): f32 measured
     /// signals and the exact object temperatures of those f32 signals (closed-form inverse in
@@ -346,35 +409,34 @@ mod cases {
                 };
                 let (signals, exact) = scene(&sh);
                 match FrameConverter::new(&sh, &cond, 1.0, 0.0) {
-                    Ok(conv) => {
-                        let mut out = vec![0f32; signals.len()];
-                        let err = match conv.convert(&signals, &mut out) {
-                            Ok(_) => out
-                                .iter()
-                                .zip(&exact)
-                                .map(|(&o, &e)| (f64::from(o) - e).abs())
-                                .fold(
-                                    0.0,
-                                    |m: f64, e| if e.is_nan() { f64::INFINITY } else { m.max(e) },
-                                ),
-                            Err(_) => f64::INFINITY,
-                        };
-                        let mut buf = vec![0f32; signals.len()];
-                        r.run(
-                            "frame_640x512",
-                            || conv.convert(black_box(&signals), &mut buf).map(|s| s.valid),
-                            Extra {
-                                max_abs_err_k: Some(err),
-                                pixels: Some(signals.len()),
-                                note: Some("f32 signals in, f32 temperatures out"),
-                                ..Extra::default()
-                            },
-                        );
-                    }
+                    Ok(conv) => frame_row(
+                        r,
+                        "frame_640x512",
+                        &conv,
+                        &signals,
+                        &exact,
+                        "f32 signals in, f32 temperatures out",
+                    ),
                     Err(e) => r.skip("frame_640x512", e.code()),
                 }
+                // the same scene as camera counts with gain/offset
+                let (counts, exact) = scene_counts(&sh);
+                match FrameConverter::new(&sh, &cond, COUNT_GAIN, COUNT_OFFSET) {
+                    Ok(conv) => frame_row(
+                        r,
+                        "frame_counts_640x512",
+                        &conv,
+                        &counts,
+                        &exact,
+                        "u16 counts in (gain/offset), f32 temperatures out",
+                    ),
+                    Err(e) => r.skip("frame_counts_640x512", e.code()),
+                }
             }
-            Err(e) => r.skip("frame_640x512", e.code()),
+            Err(e) => {
+                r.skip("frame_640x512", e.code());
+                r.skip("frame_counts_640x512", e.code());
+            }
         }
     }
 

@@ -318,3 +318,178 @@ fn frame_f32_path_error_bound_sweep() {
     }
     println!("f32 loop: overall max |dT| = {overall:e} K");
 }
+
+/// The fallback margin of the f32-signal loop for a frame (module docs of `frame`): pixels with
+/// |raw − r0| below it go to the f64 loop. Returns (r0, margin) with r0 the raw value at the
+/// background and ia = C·a/gain the raw-unit scale of v = ia/(raw − r0).
+fn signal_margin(curve: &SakumaHattori, cond: &Conditions, gain: f64, offset: f64) -> (f64, f64) {
+    let (a, b) = cond.affine(curve).unwrap();
+    let r0 = (b - offset) / gain;
+    let ia = curve.c() * a / gain;
+    let margin = (r0.abs() / 16384.0).max(ia * 7.52e-37).max(2.36e-38);
+    (r0, margin)
+}
+
+/// The single-precision loop for f32 signals (f32 → f32, scalar emissivity) against the exact
+/// closed-form f64 inverse (`object_temperature`, measurement equation + Sakuma–Hattori
+/// inverse), for an 8–14 µm curve over 200–1500 K and a 0.65 µm curve over 500–3500 K, each
+/// with several emissivity/reflected/path settings and raw scalings (gain/offset putting the
+/// background raw value r0 positive, zero and negative).
+///
+/// Frame A per setting: 10⁶ f32 signals log-spaced in d = raw − r0 from the cold end of the
+/// range up to T + B/A = 1195 K (the f32 loop's limit is 1200 K), 2·10⁴ more log-spaced from
+/// just above the fallback margin (|d| = 1.05·margin, or T = 20 K) up to the cold end, and
+/// invalid pixels (d = −1.05·margin, below the background, NaN, −∞). It must take the f32 loop
+/// (proved by output differing from the f64 loop's rounded output), match the exact inverse's
+/// validity pixel for pixel, and stay within the derived bound 0.81 mK (module docs;
+/// target ≤ 1 mK). Frame B adds one pixel just inside a fallback margin (|d| = 0.95·margin, or
+/// T + B/A = 1210 K, or the top of the range): the whole frame must then equal the f64 loop.
+#[test]
+fn frame_f32_signals_error_bound_sweep() {
+    let (lwir, lwir_cond) = lwir_setup();
+    let sw = SakumaHattori::new(0.65e-6, 3e-10, 2.0e9, C2Convention::Its90).unwrap();
+    let hall = Conditions {
+        emissivity: 0.6,
+        reflected_temperature_k: 350.0,
+        path_transmittance: 0.9,
+        path_temperature_k: 290.0,
+        window: None,
+    };
+    let sw_a = Conditions {
+        emissivity: 0.8,
+        reflected_temperature_k: 600.0,
+        ..Conditions::BLACKBODY
+    };
+    let sw_b = Conditions {
+        emissivity: 0.35,
+        reflected_temperature_k: 900.0,
+        ..Conditions::BLACKBODY
+    };
+    // (name, curve, conditions, gain, offset, T range)
+    let settings = [
+        ("LWIR window", lwir, lwir_cond, 1.0, 0.0, 200.0, 1500.0),
+        ("LWIR hall", lwir, hall, 1.0, 0.0, 200.0, 1500.0),
+        (
+            "LWIR blackbody",
+            lwir,
+            Conditions::BLACKBODY,
+            1.0,
+            0.0,
+            200.0,
+            1500.0,
+        ),
+        (
+            "LWIR window, offset",
+            lwir,
+            lwir_cond,
+            2.5e-3,
+            40.0,
+            200.0,
+            1500.0,
+        ),
+        ("0.65 um e=0.8", sw, sw_a, 1.0, 0.0, 500.0, 3500.0),
+        ("0.65 um e=0.35", sw, sw_b, 1.0, 0.0, 500.0, 3500.0),
+        (
+            "0.65 um blackbody",
+            sw,
+            Conditions::BLACKBODY,
+            1.0,
+            0.0,
+            500.0,
+            3500.0,
+        ),
+        (
+            "0.65 um e=0.8, offset",
+            sw,
+            sw_a,
+            1e4,
+            -3.0e-6,
+            500.0,
+            3500.0,
+        ),
+    ];
+    let mut overall: f64 = 0.0;
+    for (name, curve, cond, gain, offset, lo, hi) in settings {
+        let (a, _) = cond.affine(&curve).unwrap();
+        let k0 = curve.b_mk() / curve.a_m();
+        // raw − r0 of the pixel at temperature t
+        let d_of = |t: f64| a * curve.signal(t).unwrap() / gain;
+        let (r0, margin) = signal_margin(&curve, &cond, gain, offset);
+        let t_top = (1195.0 - k0).min(hi);
+        let d_min = (1.05 * margin).max(d_of(20.0));
+        // (a cold object's signal can be below the f32 resolution of a large background: the
+        // range then starts at the margin)
+        let (d_lo, d_top) = (d_of(lo).max(d_min), d_of(t_top));
+        let logspace = |x0: f64, x1: f64, n: usize| -> Vec<f64> {
+            (0..n)
+                .map(|i| x0 * (x1 / x0).powf(i as f64 / (n - 1) as f64))
+                .collect()
+        };
+        let mut raw: Vec<f32> = logspace(d_lo, d_top, 1_000_000)
+            .into_iter()
+            .chain(logspace(d_min, d_lo, 20_000))
+            .map(|d| (r0 + d) as f32)
+            .collect();
+        raw.extend([
+            (r0 - 1.05 * margin) as f32,
+            (r0 - 0.5 * r0.abs() - 1.0) as f32,
+            f32::NAN,
+            f32::NEG_INFINITY,
+        ]);
+        let conv = FrameConverter::new(&curve, &cond, gain, offset).unwrap();
+        let mut out = vec![0f32; raw.len()];
+        let sum = conv.convert(&raw, &mut out).unwrap();
+        let mut out64 = vec![0f64; raw.len()];
+        conv.convert(&raw, &mut out64).unwrap();
+        let mut worst: f64 = 0.0;
+        let mut valid = 0;
+        let mut differs = 0;
+        for ((&r, &t), &t64) in raw.iter().zip(&out).zip(&out64) {
+            differs += usize::from(t.to_bits() != (t64 as f32).to_bits());
+            match object_temperature(&curve, gain * f64::from(r) + offset, &cond) {
+                Ok(exact) => {
+                    valid += 1;
+                    assert!(!t.is_nan(), "{name}: raw {r}");
+                    worst = worst.max((f64::from(t) - exact).abs());
+                }
+                Err(_) => assert!(t.is_nan(), "{name}: raw {r} gave {t}"),
+            }
+        }
+        assert_eq!(sum.valid, valid, "{name}");
+        assert_eq!(sum.invalid, 4, "{name}");
+        assert!(differs > 0, "{name}: frame A did not take the f32 loop");
+        let t_first = object_temperature(&curve, gain * (r0 + d_lo) + offset, &cond).unwrap();
+        println!(
+            "f32 signals {name}: k0 {k0:.3} K, r0 {r0:.4e}, {valid} valid, {t_first:.0}..{t_top:.0} K, \
+             {differs} differ from f64, max |dT| = {worst:e} K"
+        );
+        overall = overall.max(worst);
+        assert!(worst <= 0.81e-3, "{name}: {worst}");
+
+        // Frame B: one pixel inside a fallback margin sends the whole frame to the f64 loop.
+        let near = [
+            r0 + 0.95 * margin,
+            r0 - 0.95 * margin,
+            r0 + d_of(1210.0 - k0),
+            r0 + d_of(hi),
+        ];
+        for extra in near {
+            let mut raw_b = raw[..2000].to_vec();
+            raw_b.push(extra as f32);
+            let mut o32 = vec![0f32; raw_b.len()];
+            let mut o64 = vec![0f64; raw_b.len()];
+            conv.convert(&raw_b, &mut o32).unwrap();
+            conv.convert(&raw_b, &mut o64).unwrap();
+            for (x, y) in o32.iter().zip(&o64) {
+                assert_eq!(x.to_bits(), (*y as f32).to_bits(), "{name}: extra {extra}");
+            }
+            // and the pixel itself (f64 loop, f32 output) agrees with the exact inverse
+            let r = f64::from(extra as f32);
+            match object_temperature(&curve, gain * r + offset, &cond) {
+                Ok(exact) => assert!((f64::from(o32[2000]) - exact).abs() <= 1e-3, "{name}"),
+                Err(_) => assert!(o32[2000].is_nan(), "{name}"),
+            }
+        }
+    }
+    println!("f32 signals: overall max |dT| = {overall:e} K");
+}

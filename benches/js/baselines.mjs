@@ -74,6 +74,15 @@ export function frameShInverse(signals, out, a, b, c, c2, background, scale) {
   return out;
 }
 
+/**
+ * Baseline C for camera counts (Uint16Array): signal = gain*count + offset, then the same closed
+ * form. The count-to-signal map folds into the frame's affine map (background and scale in count
+ * units), so this is the plain loop above on the counts.
+ */
+export function frameCountsShInverse(counts, out, a, b, c, c2, background, scale, gain, offset) {
+  return frameShInverse(counts, out, a, b, c, c2, (background - offset) / gain, scale * gain);
+}
+
 /** Single Sakuma-Hattori inverse (K). */
 export function shInverse(signal, a, b, c, c2) {
   return (c2 / Math.log(c / signal + 1) - b) / a;

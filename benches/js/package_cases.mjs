@@ -5,7 +5,7 @@
 // Inputs are given in SI units (`unit: "m"`) so they are bit-identical to the native and
 // reference inputs; the per-call cost includes reading the options object, as a user pays it.
 
-import { EMISSIVITY, PIXELS, SH, T_REFLECTED_K, maxAbsError } from "./scene.mjs";
+import { COUNT_GAIN, COUNT_OFFSET, EMISSIVITY, PIXELS, SH, T_REFLECTED_K, maxAbsError } from "./scene.mjs";
 
 const has = (pkg, ...names) => names.every((n) => typeof pkg[n] === "function");
 const SI = Object.freeze({ unit: "m" });
@@ -92,6 +92,27 @@ const CASES = [
           pixels: PIXELS,
           max_abs_err_k: maxAbsError(call().temperaturesK, frame.exact),
           note: "Float32Array in, Float32Array out (convertFrame, result object)",
+        }),
+      };
+    },
+  ],
+  [
+    "frame_counts_640x512",
+    (pkg, { frame }) => {
+      if (!has(pkg, "convertFrame") || !frame.counts) return null;
+      const curve = { kind: "sakumaHattori", aM: SH.a, bMK: SH.b, c: SH.c };
+      const options = {
+        gain: COUNT_GAIN,
+        offset: COUNT_OFFSET,
+        conditions: { emissivity: EMISSIVITY, reflectedTemperatureK: T_REFLECTED_K },
+      };
+      const call = () => pkg.convertFrame(curve, frame.counts, options);
+      return {
+        fn: () => call().valid,
+        extra: () => ({
+          pixels: PIXELS,
+          max_abs_err_k: maxAbsError(call().temperaturesK, frame.countsExact),
+          note: "Uint16Array counts in (gain/offset), Float32Array out (convertFrame, result object)",
         }),
       };
     },

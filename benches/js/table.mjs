@@ -41,6 +41,7 @@ const ROWS = [
   ["response_signal_400", "Response-weighted signal, 9-point curve, 400 K"],
   ["sh_inverse", "Sakuma–Hattori inverse, one value"],
   ["frame_640x512", "Frame 640×512 signal → T (Sakuma–Hattori)"],
+  ["frame_counts_640x512", "Frame 640×512 counts → T (gain/offset, Sakuma–Hattori)"],
   ["be_occupancy", "Bose–Einstein occupancy, x = 2"],
   ["fd_occupancy", "Fermi–Dirac occupancy, x = 2"],
   ["fd_half", "Fermi–Dirac integral F_{1/2}(1.5)"],

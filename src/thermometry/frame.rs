@@ -35,7 +35,8 @@
 //! against the closed-form f64 inverse. With f32 output the final rounding (≤ 6e-8·T)
 //! dominates.
 //!
-//! Single-precision loop (u16 counts → f32 output, no emissivity map). The output is f32
+//! Single-precision loop (u16 counts or f32 signals → f32 output, no emissivity map; counts
+//! first, f32 signals below). The output is f32
 //! anyway, so these frames are evaluated in f32, four pixels per simd128 operation:
 //!
 //! ```text
@@ -72,12 +73,50 @@
 //! 500–3500 K in several gains, background counts inside, near and outside the count range) measured a maximum
 //! of 0.21 mK against the exact closed-form inverse.
 //!
-//! The loop is branch-free (invalid pixels are computed on a substitute value and replaced by
-//! NaN with a select) so LLVM can vectorise it, including to wasm simd128. The summary's minimum
-//! and maximum come from a second pass over the output on the integer bit patterns (positive
-//! floats order like their bits; NaN sorts above +∞), which vectorises where float min/max
-//! reductions do not (the single-precision loop below takes them in the same loop, on i32
-//! lanes).
+//! f32 signals (f32 → f32 output, no emissivity map) take the same loop with other constants:
+//! r0_hi = r0 rounded to f32, r0_lo = (r0 − r0_hi) rounded to f32 (r0 − r0_hi is exact in f64),
+//! and a fallback margin μ relative to |r0| instead of the 1/16 count. Raw is any f32 now, so
+//! raw − r0_hi is no longer exact. With d = raw − r0 the true value, |r0 − r0_hi| ≤ u·|r0|,
+//! |r0_lo − (r0 − r0_hi)| ≤ u²·|r0| (+2⁻¹⁵⁰ if subnormal), and one rounding per subtraction
+//! (raw − r0_hi = d + (r0 − r0_hi), so its rounding is ≤ u·(|d| + u·|r0|), whatever |raw|):
+//!
+//! ```text
+//! |d̂ − d| ≤ 2u·|d| + 2u²·|r0|     (first order)
+//! δd ≤ 2u + 2u·(u·|r0|/|d|) ≤ 2.002 u   for |d̂| ≥ μ = max(2⁻¹⁴·|r0|, 2⁻¹²⁰·ia, 2⁻¹²⁵)
+//! ```
+//!
+//! (the f64 r0 = −β/α adds ~1e-16·|r0|/|d| ≤ 0.001 u). The other two terms of μ keep
+//! v = ia/d ≤ 2¹²⁰ (finite, so ln32 applies) and d a normal f32. Then δv ≤ 4.002 u, δL ≤ 8.1 u,
+//! the division by L ≤ 10.1 u on T + k0, and with the same T + k0 ≤ 1200 K, |k0| ≤ 100 K limits
+//!
+//! ```text
+//! |ΔT| ≤ 10.1 u·(T + k0) + u·|k0| + u·T ≤ (12 120 + 100 + 1300)·u = 0.81 mK
+//! ```
+//!
+//! A pixel with |d̂| < μ, T + k0 > 1200 K, T < 1 K or raw = +∞ sends the frame to the f64 loop;
+//! d̂ ≤ −μ (then d < 0: at or below the background), NaN and −∞ are invalid as in the f64 loop
+//! (|d̂ − d| ≪ μ, so the decision agrees with it). Constants outside the normal f32 range
+//! (|r0|, 1/α, k1, |k0| above 1e30 or nonzero below 1e-30) send every frame to the f64 loop. A
+//! large background can leave the signal of a cold object below the f32 resolution of raw: such
+//! pixels are within μ of r0 and fall back; f32 input cannot carry them anyway. The sweep test
+//! `frame_f32_signals_error_bound_sweep` (10⁶ log-spaced signals per setting plus values at the
+//! margins; an 8–14 µm curve over 200–1500 K and a 0.65 µm curve over 500–3500 K, 8
+//! emissivity/reflected/path/gain/offset settings with r0 positive, zero and negative) measured
+//! a maximum of 0.21 mK against the exact closed-form inverse.
+//!
+//! The loops are branch-free (invalid pixels are computed on a substitute value and replaced by
+//! NaN with a select) so LLVM can vectorise them. The summary's minimum and maximum come from a
+//! second pass over the output on the integer bit patterns (positive floats order like their
+//! bits; NaN sorts above +∞), which vectorises where float min/max reductions do not (the
+//! single-precision loop takes them in the same loop, on i32 lanes).
+//!
+//! The single-precision loop runs over blocks of 256 pixels: raw values are copied into the
+//! block (counts converted to f32, exactly) and the block is padded with NaN, which is neutral
+//! (invalid, not counted, no fallback). The package's wasm build optimises for size, and at that
+//! level LLVM's loop vectoriser is off, so on wasm32 with simd128 the block loop is written with
+//! the simd128 intrinsics, four lanes per operation; it performs the scalar loop's f32
+//! operations in the same order (no fused multiply–add in either), so it gives the same bits.
+//! Other targets run the scalar loop, which LLVM vectorises at the release optimisation level.
 //!
 //! Invalid pixels — a non-finite input, a signal at or below the background the reflected,
 //! path and window terms give (no physical solution), an emissivity outside (0, 1], or a result
@@ -110,9 +149,13 @@ pub trait FrameOutput: Copy + sealed::Sealed {
 }
 
 mod sealed {
-    /// Private dispatch: the `u16` → `f32` pair takes the single-precision pixel loop.
+    /// Private dispatch: the `u16` → `f32` and `f32` → `f32` pairs take the single-precision
+    /// pixel loop.
     pub trait Sealed: Sized {
         fn as_counts(_s: &[Self]) -> Option<&[u16]> {
+            None
+        }
+        fn as_f32(_s: &[Self]) -> Option<&[f32]> {
             None
         }
         fn as_f32_mut(_s: &mut [Self]) -> Option<&mut [f32]> {
@@ -125,6 +168,9 @@ mod sealed {
         }
     }
     impl Sealed for f32 {
+        fn as_f32(s: &[Self]) -> Option<&[f32]> {
+            Some(s)
+        }
         fn as_f32_mut(s: &mut [Self]) -> Option<&mut [f32]> {
             Some(s)
         }
@@ -282,17 +328,17 @@ pub struct FrameConverter {
     o_minus_b0: f64,
     ks_r: f64,
     background: f64,
-    // single-precision form for u16 counts → f32 (see `Fast32`); None when the constants do not
-    // fit its preconditions
-    fast32: Option<Fast32>,
 }
 
 /// Per-frame constants of the single-precision pixel loop: v = ia/((raw − r0_hi) − r0_lo),
-/// T = k1/ln(1 + v) − k0, with r0 = −β/α the count at which the signal equals the background.
+/// T = k1/ln(1 + v) − k0, with r0 = −β/α the raw value at which the signal equals the
+/// background.
 #[derive(Debug, Clone, Copy, PartialEq)]
 struct Fast32 {
     r0_hi: f32,
     r0_lo: f32,
+    /// Pixels with |d| below this fall back to f64 (sign and precision of d = raw − r0).
+    margin: f32,
     ia: f32,
     k1: f32,
     k0: f32,
@@ -304,8 +350,10 @@ struct Fast32 {
 const F32_SUM_LIMIT_K: f64 = 1200.0;
 /// Largest |k0| (K) for which the f32 loop is used.
 const F32_K0_LIMIT_K: f64 = 100.0;
-/// Pixels with |raw − r0| below this (counts) fall back to f64 (sign and precision).
-const F32_MIN_MARGIN: f32 = 0.0625;
+/// Counts: pixels with |raw − r0| below this (counts) fall back to f64 (sign and precision).
+const F32_COUNT_MARGIN: f64 = 0.0625;
+/// f32 signals: pixels with |raw − r0| below this fraction of |r0| fall back to f64.
+const F32_REL_MARGIN: f64 = 1.0 / 16384.0;
 const NAN32_BITS: u32 = 0x7fc0_0000;
 /// √½ as f32 bits, and ln 2 split so that k·LN2_HI32 is exact for |k| < 128 (fdlibm's split).
 const SQRT_HALF_BITS32: u32 = 0x3f35_04f3;
@@ -313,6 +361,7 @@ const LN2_HI32: f32 = f32::from_bits(0x3f31_7180);
 const LN2_LO32: f32 = f32::from_bits(0x3717_f7d1);
 
 /// Single-precision ln for w ≥ 1 (finite, w < 2¹²⁸): 2^k·m split, ln m = 2·atanh(s) to z⁴/9.
+#[cfg(not(all(target_arch = "wasm32", target_feature = "simd128")))]
 #[inline(always)]
 fn ln32(w: f32) -> f32 {
     let bits = w.to_bits();
@@ -329,22 +378,34 @@ fn ln32(w: f32) -> f32 {
 }
 
 impl Fast32 {
-    fn new(alpha: f64, beta: f64, k1: f64, k0: f64) -> Option<Fast32> {
+    /// The constants for u16 counts (`counts`) or for f32 signals; None when they do not fit
+    /// the loop's preconditions (module docs).
+    fn new(alpha: f64, beta: f64, k1: f64, k0: f64, counts: bool) -> Option<Fast32> {
         let r0 = -beta / alpha;
         let ia = 1.0 / alpha;
-        // Counts are < 2¹⁶: with r0_hi a multiple of 2⁻⁶ and |r0_hi| < 2¹⁷, raw − r0_hi is exact.
-        if !(r0.abs() < 131_072.0) || !(k0.abs() <= F32_K0_LIMIT_K) {
-            return None;
-        }
-        let r0_hi = crate::float::round(r0 * 64.0) / 64.0;
-        let r0_lo = r0 - r0_hi;
         let ok32 = |v: f64| v.is_finite() && v.abs() < 1e30 && (v == 0.0 || v.abs() > 1e-30);
-        if !(ok32(ia) && ia > 0.0 && ok32(k1) && ok32(k0) && k1 > 0.0) {
+        let fits = ok32(r0) && ok32(ia) && ia > 0.0 && ok32(k1) && ok32(k0) && k1 > 0.0;
+        if !(fits && k0.abs() <= F32_K0_LIMIT_K) {
             return None;
         }
+        let (r0_hi, margin) = if counts {
+            // Counts are < 2¹⁶: with r0_hi a multiple of 2⁻⁶ and |r0_hi| < 2¹⁷, raw − r0_hi is
+            // exact.
+            if !(r0.abs() < 131_072.0) {
+                return None;
+            }
+            (crate::float::round(r0 * 64.0) / 64.0, F32_COUNT_MARGIN)
+        } else {
+            // r0 to f32 (r0 − r0_hi is then exact in f64); the margin keeps |d| ≥ 2⁻¹⁴·|r0|,
+            // v = ia/d ≤ 2¹²⁰ and d a normal f32.
+            let m = (F32_REL_MARGIN * r0.abs()).max(ia * 7.52e-37).max(2.36e-38);
+            (f64::from(r0 as f32), m)
+        };
+        let r0_lo = r0 - r0_hi;
         Some(Fast32 {
             r0_hi: r0_hi as f32,
             r0_lo: r0_lo as f32,
+            margin: margin as f32,
             ia: ia as f32,
             k1: k1 as f32,
             k0: k0 as f32,
@@ -436,7 +497,6 @@ impl FrameConverter {
             o_minus_b0: offset - b0,
             ks_r,
             background: b,
-            fast32: Fast32::new(alpha, beta, k1, k0),
         })
     }
 
@@ -479,7 +539,8 @@ impl FrameConverter {
     /// # Accuracy
     /// |ΔT| ≤ 1e-10·(T + B/A) for x = c2/(A·T + B) ≥ 0.05, plus the output rounding (module
     /// docs); u16 counts into f32 take the single-precision loop, |ΔT| ≤ 0.74 mK (module docs;
-    /// measured maximum 0.21 mK). Both measured in `tests/thermometry_frame.rs`.
+    /// measured maximum 0.21 mK), and f32 signals into f32 too, |ΔT| ≤ 0.81 mK (measured
+    /// maximum 0.21 mK). All measured in `tests/thermometry_frame.rs`.
     ///
     /// # Examples
     /// See [`FrameConverter::new`].
@@ -497,8 +558,12 @@ impl FrameConverter {
                 got: out_k.len(),
             });
         }
-        if let (Some(counts), Some(out)) = (I::as_counts(raw), O::as_f32_mut(out_k)) {
-            if let Some(sum) = self.convert_counts_f32(counts, out) {
+        if let Some(out) = O::as_f32_mut(out_k) {
+            let fast = match (I::as_counts(raw), I::as_f32(raw)) {
+                (None, None) => None,
+                (c, s) => self.convert_f32(c.unwrap_or(&[]), s.unwrap_or(&[]), out),
+            };
+            if let Some(sum) = fast {
                 return Ok(sum);
             }
         }
@@ -519,43 +584,20 @@ impl FrameConverter {
         self.finish(1.0, den, ok)
     }
 
-    /// u16 counts → f32 kelvin in single precision (4 lanes of simd128), when every pixel is
-    /// inside the f32 loop's proven range (module docs). `None` (the output then holds nothing
-    /// usable) when the frame constants do not suit the f32 loop or a pixel needs f64; the
-    /// caller then takes the f64 loop. Slices of unequal length are cut to the shorter.
+    /// u16 counts (`counts`, with `signals` empty) or f32 signals → f32 kelvin in single
+    /// precision (4 lanes of simd128), when every pixel is inside the f32 loop's proven range
+    /// (module docs). `None` (the output then holds nothing usable) when the frame constants do
+    /// not suit the f32 loop or a pixel needs f64; the caller then takes the f64 loop. Slices of
+    /// unequal length are cut to the shorter.
     #[inline(never)]
-    pub(crate) fn convert_counts_f32(&self, raw: &[u16], out: &mut [f32]) -> Option<FrameSummary> {
-        let f = self.fast32?;
-        let m = raw.len().min(out.len());
-        let (raw, out) = (&raw[..m], &mut out[..m]);
-        let mut valid = 0usize;
-        let (mut lo, mut hi) = (u32::MAX, 0u32);
-        let mut redo = false;
-        for (o, &r) in out.iter_mut().zip(raw) {
-            let d = (f32::from(r) - f.r0_hi) - f.r0_lo;
-            let v = f.ia / d;
-            let l = ln32(1.0 + v);
-            let t = f.k1 / l - f.k0;
-            let bad = d <= -F32_MIN_MARGIN;
-            // (v ≥ 1 follows from l ≥ l_min, and v < 2e31 from d ≥ 1/16, ia < 1e30)
-            let good = (d >= F32_MIN_MARGIN) & (l >= f.l_min) & (t >= 1.0);
-            let bits = if good { t.to_bits() } else { NAN32_BITS };
-            *o = f32::from_bits(bits);
-            valid += usize::from(good);
-            redo |= !good & !bad;
-            // positive floats order like their bits; the NaN is above +∞ (module docs)
-            lo = lo.min(bits);
-            hi = hi.max(if good { bits } else { 0 });
-        }
-        // a pixel outside the f32 loop's range: the f64 loop takes the frame
-        if redo {
-            return None;
-        }
-        if valid == 0 {
-            return Some(summary(m, 0, f64::NAN, f64::NAN));
-        }
-        let (lo, hi) = (f32::from_bits(lo), f32::from_bits(hi));
-        Some(summary(m, valid, f64::from(lo), f64::from(hi)))
+    pub(crate) fn convert_f32(
+        &self,
+        counts: &[u16],
+        signals: &[f32],
+        out: &mut [f32],
+    ) -> Option<FrameSummary> {
+        let f = Fast32::new(self.alpha, self.beta, self.k1, self.k0, signals.is_empty())?;
+        lanes32(&f, counts, signals, out)
     }
 
     /// Converts a frame with a per-pixel emissivity map (`emissivity`, same length as `raw`)
@@ -628,6 +670,167 @@ impl FrameConverter {
             n,
         ))
     }
+}
+
+/// Running totals of the single-precision loop: valid pixels, bit-pattern min/max of the
+/// output, and whether a pixel needs the f64 loop.
+struct Acc32 {
+    valid: usize,
+    lo: u32,
+    hi: u32,
+    redo: bool,
+}
+
+/// One pixel of the single-precision loop (module docs): the output bits (T or NaN), whether it
+/// is valid, and whether it is decided invalid (at or below the background, or NaN).
+#[cfg(not(all(target_arch = "wasm32", target_feature = "simd128")))]
+#[inline(always)]
+fn pixel32(f: &Fast32, x: f32) -> (u32, bool, bool) {
+    let d = (x - f.r0_hi) - f.r0_lo;
+    let v = f.ia / d;
+    let l = ln32(1.0 + v);
+    let t = f.k1 / l - f.k0;
+    let bad = !(d > -f.margin);
+    // (v ≥ 1 follows from l ≥ l_min; v ≤ 2¹²⁰ from d ≥ margin)
+    let good = (d >= f.margin) & (l >= f.l_min) & (t >= 1.0);
+    (if good { t.to_bits() } else { NAN32_BITS }, good, bad)
+}
+
+/// Block length (pixels) of the single-precision loop: raw values are copied (counts converted
+/// exactly) into a block padded with NaN, which is neutral (invalid, not counted as a valid
+/// pixel, no fallback, below nothing in the range), so the loop has no tail.
+const BLOCK32: usize = 256;
+/// A block of the single-precision loop, in groups of four lanes.
+type Block32 = [[f32; 4]; BLOCK32 / 4];
+
+/// The single-precision loop over one block.
+#[cfg(not(all(target_arch = "wasm32", target_feature = "simd128")))]
+#[inline(never)]
+fn block32(f: &Fast32, raw: &Block32, out: &mut Block32, acc: &mut Acc32) {
+    // local accumulators (u32 count and flag) keep the loop vectorisable
+    let (mut valid, mut redo, mut lo, mut hi) = (0u32, 0u32, u32::MAX, 0u32);
+    for (o, &x) in out.as_flattened_mut().iter_mut().zip(raw.as_flattened()) {
+        let (bits, good, bad) = pixel32(f, x);
+        *o = f32::from_bits(bits);
+        valid += u32::from(good);
+        redo |= u32::from(!good & !bad);
+        // positive floats order like their bits; the NaN is above +∞ (module docs)
+        lo = lo.min(bits);
+        hi = hi.max(if good { bits } else { 0 });
+    }
+    acc.valid += valid as usize;
+    acc.redo |= redo != 0;
+    acc.lo = acc.lo.min(lo);
+    acc.hi = acc.hi.max(hi);
+}
+
+/// `pixel32` over one block, four lanes at a time with wasm simd128 intrinsics, operation for
+/// operation (so the results are bit-identical to the scalar loop the other targets run): the
+/// package build optimises for size, which turns LLVM's loop vectoriser off.
+#[cfg(all(target_arch = "wasm32", target_feature = "simd128"))]
+#[inline(never)]
+fn block32(f: &Fast32, raw: &Block32, out: &mut Block32, acc: &mut Acc32) {
+    use core::arch::wasm32::*;
+    let sp = f32x4_splat;
+    let (r0_hi, r0_lo, ia, k1, k0) = (sp(f.r0_hi), sp(f.r0_lo), sp(f.ia), sp(f.k1), sp(f.k0));
+    let (margin, neg_margin, l_min, one) = (sp(f.margin), sp(-f.margin), sp(f.l_min), sp(1.0));
+    let (mut valid, mut redo) = (i32x4_splat(0), i32x4_splat(0));
+    let (mut lo, mut hi) = (u32x4_splat(u32::MAX), u32x4_splat(0));
+    for (o, r) in out.iter_mut().zip(raw) {
+        let x = f32x4(r[0], r[1], r[2], r[3]);
+        let d = f32x4_sub(f32x4_sub(x, r0_hi), r0_lo);
+        let v = f32x4_div(ia, d);
+        // ln32 on four lanes
+        let w = f32x4_add(one, v);
+        let k = i32x4_shr(i32x4_sub(w, u32x4_splat(SQRT_HALF_BITS32)), 23);
+        let m = i32x4_sub(w, i32x4_shl(k, 23));
+        let kf = f32x4_convert_i32x4(k);
+        let fr = f32x4_sub(m, one);
+        let s = f32x4_div(fr, f32x4_add(sp(2.0), fr));
+        let z = f32x4_mul(s, s);
+        let horner = |c: f32, p: v128| f32x4_mul(z, f32x4_add(sp(c), p));
+        let p = horner(
+            1.0 / 3.0,
+            horner(1.0 / 5.0, horner(1.0 / 7.0, f32x4_mul(z, sp(1.0 / 9.0)))),
+        );
+        let two_s = f32x4_add(s, s);
+        let tail = f32x4_add(f32x4_mul(two_s, p), f32x4_mul(kf, sp(LN2_LO32)));
+        let l = f32x4_add(f32x4_mul(kf, sp(LN2_HI32)), f32x4_add(two_s, tail));
+        let t = f32x4_sub(f32x4_div(k1, l), k0);
+        let not_bad = f32x4_gt(d, neg_margin);
+        let good = v128_and(
+            v128_and(f32x4_ge(d, margin), f32x4_ge(l, l_min)),
+            f32x4_ge(t, one),
+        );
+        let bits = v128_bitselect(t, u32x4_splat(NAN32_BITS), good);
+        *o = [
+            f32x4_extract_lane::<0>(bits),
+            f32x4_extract_lane::<1>(bits),
+            f32x4_extract_lane::<2>(bits),
+            f32x4_extract_lane::<3>(bits),
+        ];
+        valid = i32x4_sub(valid, good); // good lanes are −1
+        redo = v128_or(redo, v128_andnot(not_bad, good));
+        lo = u32x4_min(lo, bits);
+        hi = u32x4_max(hi, v128_and(bits, good));
+    }
+    let lanes = |v: v128| {
+        [
+            u32x4_extract_lane::<0>(v),
+            u32x4_extract_lane::<1>(v),
+            u32x4_extract_lane::<2>(v),
+            u32x4_extract_lane::<3>(v),
+        ]
+    };
+    for ((c, l), h) in lanes(valid).into_iter().zip(lanes(lo)).zip(lanes(hi)) {
+        acc.valid += c as usize;
+        acc.lo = acc.lo.min(l);
+        acc.hi = acc.hi.max(h);
+    }
+    acc.redo |= v128_any_true(redo);
+}
+
+/// The single-precision loop (module docs) over u16 counts (`counts`) or f32 signals, block by
+/// block; None if a pixel is outside the proven range (the caller then takes the f64 loop).
+fn lanes32(f: &Fast32, counts: &[u16], signals: &[f32], out: &mut [f32]) -> Option<FrameSummary> {
+    let mut acc = Acc32 {
+        valid: 0,
+        lo: u32::MAX,
+        hi: 0,
+        redo: false,
+    };
+    let m = counts.len().max(signals.len()).min(out.len());
+    let (mut inb, mut outb): (Block32, Block32) =
+        ([[0.0; 4]; BLOCK32 / 4], [[0.0; 4]; BLOCK32 / 4]);
+    // (`get` instead of indexing: the ranges are in bounds, and no panic path is linked)
+    for (b, o) in out[..m].chunks_mut(BLOCK32).enumerate() {
+        let (at, n) = (b * BLOCK32, o.len());
+        let x = inb.as_flattened_mut();
+        if let Some(c) = counts.get(at..at + n) {
+            for (x, &c) in x.iter_mut().zip(c) {
+                *x = f32::from(c); // exact
+            }
+        }
+        if let (Some(x), Some(s)) = (x.get_mut(..n), signals.get(at..at + n)) {
+            x.copy_from_slice(s);
+        }
+        if let Some(pad) = x.get_mut(n..) {
+            pad.fill(f32::NAN);
+        }
+        block32(f, &inb, &mut outb, &mut acc);
+        if let Some(t) = outb.as_flattened().get(..n) {
+            o.copy_from_slice(t);
+        }
+    }
+    // a pixel outside the f32 loop's range: the f64 loop takes the frame
+    if acc.redo {
+        return None;
+    }
+    if acc.valid == 0 {
+        return Some(summary(m, 0, f64::NAN, f64::NAN));
+    }
+    let (lo, hi) = (f32::from_bits(acc.lo), f32::from_bits(acc.hi));
+    Some(summary(m, acc.valid, f64::from(lo), f64::from(hi)))
 }
 
 /// Runs `pixel` over indices 0..n (n = out.len(), the inputs already checked to be as long),

@@ -1409,21 +1409,27 @@ pub fn convert_frame(
         Some(v) => choose("FrameOptions.output", &v, &["float32", "float64"])? == 1,
     };
     let conv = FrameConverter::new(&sh, &conditions, gain, offset)?;
-    // Counts to f32 without an emissivity map (the camera case): straight from the typed
-    // slice into the returned array's buffer, through the core's single-precision loop.
-    // (None when the frame constants do not suit that loop: the f64 loop below runs instead.)
-    if let (Some(a), None, false) = (raw.dyn_ref::<Uint16Array>(), &eps, f64_out) {
-        let counts = a.to_vec();
-        let mut out32: Vec<f32> = with_room(counts.len())?;
-        out32.resize(counts.len(), 0.0);
-        if let Some(sum) = conv.convert_counts_f32(&counts, &mut out32) {
-            return Ok(frame_result(
-                Float32Array::from(out32.as_slice()).into(),
-                &sum,
-                sum.min_temperature_k,
-                sum.max_temperature_k,
-                conv.background(),
-            ));
+    // Counts or f32 signals to f32 without an emissivity map (the camera case): straight from
+    // the typed array's copy into the returned array's buffer, through the core's
+    // single-precision loop (None when the frame constants do not suit that loop or a pixel
+    // needs f64: the f64 loop below runs instead).
+    if let (None, false) = (&eps, f64_out) {
+        let counts = raw.dyn_ref::<Uint16Array>().map(|a| a.to_vec());
+        let signals = raw.dyn_ref::<Float32Array>().map(|a| a.to_vec());
+        if counts.is_some() || signals.is_some() {
+            let (counts, signals) = (counts.unwrap_or_default(), signals.unwrap_or_default());
+            let n = counts.len() + signals.len();
+            let mut out32: Vec<f32> = with_room(n)?;
+            out32.resize(n, 0.0);
+            if let Some(sum) = conv.convert_f32(&counts, &signals, &mut out32) {
+                return Ok(frame_result(
+                    Float32Array::from(out32.as_slice()).into(),
+                    &sum,
+                    sum.min_temperature_k,
+                    sum.max_temperature_k,
+                    conv.background(),
+                ));
+            }
         }
     }
     let pixels = frame_pixels(&raw)?;
