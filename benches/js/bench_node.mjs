@@ -9,7 +9,7 @@ import { gzipSync } from "node:zlib";
 import path from "node:path";
 import { emit, loadReference, measure, sinkValue } from "./harness.mjs";
 import * as A from "./baselines.mjs";
-import { PIXELS, SH, makeFrame, maxAbsError } from "./scene.mjs";
+import { COUNT_GAIN, COUNT_OFFSET, PIXELS, SH, makeFrame, maxAbsError } from "./scene.mjs";
 import { packageCases } from "./package_cases.mjs";
 
 const args = process.argv.slice(2);
@@ -118,6 +118,14 @@ for (const kase of ["band_8_14_300", "band_1_2_1500"]) {
     pixels: PIXELS,
     max_abs_err_k: maxAbsError(run(), frame.exact),
     note: "Float32Array in, Float32Array out",
+  });
+  const outK = new Float32Array(PIXELS);
+  const runK = () =>
+    A.frameCountsShInverse(frame.counts, outK, SH.a, SH.b, SH.c, SH.c2, frame.background, frame.scale, COUNT_GAIN, COUNT_OFFSET);
+  timed("jsC", "frame_counts_640x512", runK, {
+    pixels: PIXELS,
+    max_abs_err_k: maxAbsError(runK(), frame.countsExact),
+    note: "Uint16Array counts in, Float32Array out",
   });
 }
 

@@ -945,6 +945,49 @@ fn with_response<R>(
     })
 }
 
+/// The per-response-table operations, shared by their exports (one out-of-line copy).
+#[derive(Clone, Copy)]
+enum ResponseOp {
+    /// mean and spread of R(λ)
+    ResponseMoments,
+    /// mean and spread of R(λ)·L_λ(λ, T = a)
+    SignalMoments,
+    /// λ_T at T = a
+    Limiting,
+    /// λ_e between T1 = a and T2 = b
+    Effective,
+    /// R(λ = a)
+    ValueAt,
+}
+
+/// `op` on a response model: two numbers in the model's unit (the second 0 when unused).
+#[inline(never)]
+fn response_op(op: ResponseOp, model: &JsValue, a: f64, b: f64) -> Result<[f64; 2], JsValue> {
+    let mut out = [0.0; 2];
+    with_response_dyn(model, &mut |rs, unit| {
+        out = match op {
+            ResponseOp::ResponseMoments | ResponseOp::SignalMoments => {
+                let (m, s) = match op {
+                    ResponseOp::ResponseMoments => rs.response().mean_and_spread_m()?,
+                    _ => rs.mean_and_spread_m(a)?,
+                };
+                [from_m("mean", m, unit)?, s / unit.si_factor()]
+            }
+            ResponseOp::Limiting => [
+                from_m("wavelength", rs.limiting_effective_wavelength_m(a)?, unit)?,
+                0.0,
+            ],
+            ResponseOp::Effective => [
+                from_m("wavelength", rs.effective_wavelength_m(a, b)?, unit)?,
+                0.0,
+            ],
+            ResponseOp::ValueAt => [rs.response().value_at(to_m("wavelength", a, unit)?)?, 0.0],
+        };
+        Ok(())
+    })?;
+    Ok(out)
+}
+
 /// Mean wavelength and spread (standard deviation) of the response table itself, weighted by
 /// R(λ) alone, in the model's unit.
 ///
@@ -953,15 +996,8 @@ fn with_response<R>(
 pub fn response_moments(
     #[wasm_bindgen(unchecked_param_type = "ResponseModel")] model: JsValue,
 ) -> Result<JsValue, JsValue> {
-    let (m, s, unit) = with_response(&model, |rs, unit| {
-        let (m, s) = rs.response().mean_and_spread_m()?;
-        Ok((m, s, unit))
-    })?;
-    Ok(object(
-        "mean;spread",
-        &[from_m("mean", m, unit)?, s / unit.si_factor()],
-        &[],
-    ))
+    let [m, sd] = response_op(ResponseOp::ResponseMoments, &model, 0.0, 0.0)?;
+    Ok(object("mean;spread", &[m, sd], &[]))
 }
 
 /// Mean wavelength of the signal R(λ)·L_λ(λ, T) at `temperatureK`, and its spread, in the
@@ -973,15 +1009,8 @@ pub fn signal_moments(
     #[wasm_bindgen(unchecked_param_type = "ResponseModel")] model: JsValue,
     #[wasm_bindgen(js_name = temperatureK)] temperature_k: f64,
 ) -> Result<JsValue, JsValue> {
-    let (m, s, unit) = with_response(&model, |rs, unit| {
-        let (m, s) = rs.mean_and_spread_m(temperature_k)?;
-        Ok((m, s, unit))
-    })?;
-    Ok(object(
-        "mean;spread",
-        &[from_m("mean", m, unit)?, s / unit.si_factor()],
-        &[],
-    ))
+    let [m, sd] = response_op(ResponseOp::SignalMoments, &model, temperature_k, 0.0)?;
+    Ok(object("mean;spread", &[m, sd], &[]))
 }
 
 /// Limiting effective wavelength λ_T = c2/(T²·d ln S/dT) at `temperatureK` — the wavelength of
@@ -993,10 +1022,7 @@ pub fn limiting_effective_wavelength(
     #[wasm_bindgen(unchecked_param_type = "ResponseModel")] model: JsValue,
     #[wasm_bindgen(js_name = temperatureK)] temperature_k: f64,
 ) -> Result<f64, JsValue> {
-    let (l, unit) = with_response(&model, |rs, unit| {
-        Ok((rs.limiting_effective_wavelength_m(temperature_k)?, unit))
-    })?;
-    Ok(from_m("wavelength", l, unit)?)
+    Ok(response_op(ResponseOp::Limiting, &model, temperature_k, 0.0)?[0])
 }
 
 /// Effective wavelength λ_e = c2·(1/T1 − 1/T2)/ln(S(T2)/S(T1)) between `t1K` and `t2K` — the
@@ -1009,10 +1035,7 @@ pub fn effective_wavelength(
     #[wasm_bindgen(js_name = t1K)] t1_k: f64,
     #[wasm_bindgen(js_name = t2K)] t2_k: f64,
 ) -> Result<f64, JsValue> {
-    let (l, unit) = with_response(&model, |rs, unit| {
-        Ok((rs.effective_wavelength_m(t1_k, t2_k)?, unit))
-    })?;
-    Ok(from_m("wavelength", l, unit)?)
+    Ok(response_op(ResponseOp::Effective, &model, t1_k, t2_k)?[0])
 }
 
 /// Value of the response table at one wavelength (in the model's unit): linear interpolation,
@@ -1024,10 +1047,7 @@ pub fn response_value_at(
     #[wasm_bindgen(unchecked_param_type = "ResponseModel")] model: JsValue,
     wavelength: f64,
 ) -> Result<f64, JsValue> {
-    with_response(&model, |rs, unit| {
-        rs.response()
-            .value_at(to_m("wavelength", wavelength, unit)?)
-    })
+    Ok(response_op(ResponseOp::ValueAt, &model, wavelength, 0.0)?[0])
 }
 
 // ---------------------------------------------------------------------------------------------

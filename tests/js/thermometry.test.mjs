@@ -256,6 +256,50 @@ test('frame conversion: Uint16/Float32/Float64 input, Float32/Float64 output, em
   throwsCode(() => qb.convertFrame(curve, counts, { gian: 1 }), 'UNSUPPORTED');
 });
 
+test('frame conversion in single precision (simd128 block loop): within 1 mK, f64 fallback bit-identical', () => {
+  // An invented 8–14 µm camera core (curve in its signal unit), scene 250…600 K, emissivity 0.9.
+  // Reference: the scalar f64 inverse of the package (objectTemperatureArray), itself checked
+  // against mpmath above; bound of the single-precision loop derived in src/thermometry/frame.rs
+  // (0.81 mK for f32 signals, 0.74 mK for counts).
+  const curve = { kind: 'sakumaHattori', aM: 1.0e-5, bMK: 1.8e-4, c: 1.0e6 };
+  const cond = { emissivity: 0.9, reflectedTemperatureK: 293.15 };
+  const n = 640 * 480;
+  const scene = Float64Array.from({ length: n }, (_, i) => 250 + (350 * ((i * 7919) % n)) / n);
+  const sig32 = Float32Array.from(qb.measuredSignalArray(curve, scene, cond));
+  const exact = qb.objectTemperatureArray(curve, Float64Array.from(sig32), cond);
+  const check = (out, want, what) => {
+    let worst = 0;
+    let differs = 0;
+    for (let i = 0; i < n; i++) {
+      worst = Math.max(worst, Math.abs(out[i] - want[i]));
+      if (out[i] !== Math.fround(want[i])) differs++;
+    }
+    assert.ok(worst <= 1e-3, `${what}: max |ΔT| ${worst} K > 1 mK`);
+    // the single-precision loop really ran: its results are not all the rounded f64 ones
+    assert.ok(differs > 0, `${what}: identical to the f64 loop`);
+    return worst;
+  };
+  const rs = qb.convertFrame(curve, sig32, { conditions: cond });
+  assert.equal(rs.valid, n);
+  check(rs.temperaturesK, exact, 'f32 signals');
+  // counts: signal = 2·count − 20 (an invented 16-bit readout)
+  const counts = Uint16Array.from(sig32, (s) => Math.round((s + 20) / 2));
+  assert.ok(counts.every((c) => c > 0 && c < 65535), 'counts in range');
+  const exactCounts = qb.objectTemperatureArray(curve, Float64Array.from(counts, (c) => 2 * c - 20), cond);
+  const rc = qb.convertFrame(curve, counts, { gain: 2, offset: -20, conditions: cond });
+  check(rc.temperaturesK, exactCounts, 'u16 counts');
+  // one pixel outside the single-precision range (2000 K): the whole frame takes the f64 loop
+  const hot = Float32Array.from(sig32);
+  hot[n - 1] = qb.measuredSignal(curve, 2000, cond);
+  const rh = qb.convertFrame(curve, hot, { conditions: cond });
+  const r64 = qb.convertFrame(curve, hot, { conditions: cond, output: 'float64' });
+  for (let i = 0; i < n; i++) {
+    if (rh.temperaturesK[i] !== Math.fround(r64.temperaturesK[i])) {
+      assert.fail(`fallback frame differs from the f64 loop at ${i}: ${rh.temperaturesK[i]} vs ${r64.temperaturesK[i]}`);
+    }
+  }
+});
+
 test('thermometry errors carry their codes; the module recovers after each', () => {
   const sp = { kind: 'spectralPoint', wavelength: 10, unit: 'um' };
   const rm = { kind: 'response', wavelengths: [8, 14], values: [1, 1], unit: 'um' };
