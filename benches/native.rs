@@ -183,6 +183,17 @@ mod cases {
     const COUNT_GAIN: f64 = 0.1;
     const COUNT_OFFSET: f64 = -500.0;
 
+    /// Temperature (K) of pixel (x, y) of the invented benchmark scene (as `sceneTemperature` in
+    /// `benches/js/scene.mjs`): a gentle gradient with a hot spot.
+    fn scene_temperature(x: usize, y: usize) -> f64 {
+        let (xf, yf) = (x as f64, y as f64);
+        let (dx, dy) = (xf - 400.0, yf - 200.0);
+        285.0
+            + 40.0 * xf / (WIDTH - 1) as f64
+            + 20.0 * yf / (HEIGHT - 1) as f64
+            + 120.0 * (-(dx * dx + dy * dy) / 3200.0).exp()
+    }
+
     /// The scene as u16 counts (the f64 signal rounded to the nearest count, floor(x + 0.5) as
     /// in `benches/js/scene.mjs`) and the exact object temperatures of the counts' signals.
     fn scene_counts(sh: &SakumaHattori) -> (Vec<u16>, Vec<f64>) {
@@ -192,12 +203,7 @@ mod cases {
         let mut exact = Vec::with_capacity(WIDTH * HEIGHT);
         for y in 0..HEIGHT {
             for x in 0..WIDTH {
-                let (xf, yf) = (x as f64, y as f64);
-                let (dx, dy) = (xf - 400.0, yf - 200.0);
-                let t = 285.0
-                    + 40.0 * xf / (WIDTH - 1) as f64
-                    + 20.0 * yf / (HEIGHT - 1) as f64
-                    + 120.0 * (-(dx * dx + dy * dy) / 3200.0).exp();
+                let t = scene_temperature(x, y);
                 let signal = EMISSIVITY * s(t) + background;
                 let c = ((signal - COUNT_OFFSET) / COUNT_GAIN + 0.5).floor() as u16;
                 counts.push(c);
@@ -251,12 +257,7 @@ mod cases {
         let mut signals = Vec::with_capacity(WIDTH * HEIGHT);
         for y in 0..HEIGHT {
             for x in 0..WIDTH {
-                let (xf, yf) = (x as f64, y as f64);
-                let (dx, dy) = (xf - 400.0, yf - 200.0);
-                let t = 285.0
-                    + 40.0 * xf / (WIDTH - 1) as f64
-                    + 20.0 * yf / (HEIGHT - 1) as f64
-                    + 120.0 * (-(dx * dx + dy * dy) / 3200.0).exp();
+                let t = scene_temperature(x, y);
                 signals.push((EMISSIVITY * s(t) + background) as f32);
             }
         }
