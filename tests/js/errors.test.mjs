@@ -83,3 +83,15 @@ test('arguments of the wrong JavaScript type throw, they never trap the module',
   throwsCode(() => qb.spectralDensity('um', 10, 300), 'UNSUPPORTED');
   throwsCode(() => qb.objectTemperature({ kind: 'sakumaHattori', aM: 1e-5, bMK: 1.8e-4, c: 1e6 }, 1e4, 'blackbody'), 'UNSUPPORTED');
 });
+
+test('binding messages name the index of a bad element of a plain array (0, 7, 10, 123)', () => {
+  // The binding layer writes these messages without Rust's formatter (src/wasm/error.rs,
+  // `decimal`); check single- and multi-digit indices, and 0.
+  for (const bad of [0, 7, 10, 123]) {
+    const wavelengths = Array.from({ length: 130 }, (_, i) => 8 + i * 0.05);
+    wavelengths[bad] = 'x';
+    const model = { kind: 'response', wavelengths, values: wavelengths.map(() => 1), unit: 'um' };
+    const e = throwsCode(() => qb.modelSignal(model, 300), 'NON_FINITE');
+    assert.match(e.message, new RegExp(`wavelengths\\[${bad}\\] must be a finite number \\(at index ${bad}\\)$`));
+  }
+});
