@@ -1397,8 +1397,10 @@ pub fn convert_frame(
         Model::Curve(c) => c,
         _ => return Err(fail("UNSUPPORTED", &["convertFrame needs a SakumaHattoriModel curve (fit one with sakumaHattoriFitModel)"])),
     };
-    let empty = JsValue::from(Object::new());
+    // an empty options object only when none was passed (not one per call)
+    let empty;
     let ov = if options.is_undefined() {
+        empty = JsValue::from(Object::new());
         &empty
     } else {
         &options
