@@ -16,7 +16,7 @@
 #                printed automatically when the size budget is exceeded
 #   --serve      after building, serve dist/ on http://127.0.0.1:PORT/ (default 8765) until Ctrl-C
 #
-# Steps: install.sh -> cargo build --profile wasm --target wasm32-unknown-unknown
+# Steps: install.sh -> cargo rustc --crate-type cdylib --profile wasm --target wasm32-unknown-unknown
 # --no-default-features --features wasm (the whole API, no_std: src/wasm/runtime.rs) ->
 # wasm-bindgen --target web -> wasm-opt (binaryen from node_modules, with exactly the features the
 # module declares) -> pkg/package.json + Node entry -> size budget (tests/size/check.mjs: 150 KB
@@ -78,9 +78,10 @@ if ! flock -n 9; then
 fi
 
 t="$(now)"
-say "cargo build --profile wasm --lib --target wasm32-unknown-unknown --no-default-features --features wasm (simd128: $([ "$SIMD" = 1 ] && echo on || echo off), opt-level ${CARGO_PROFILE_WASM_OPT_LEVEL:-s from Cargo.toml})"
-cargo build --profile wasm --lib --target wasm32-unknown-unknown --no-default-features --features wasm
-say "cargo build: $(since "$t"), $(stat -c %s "$RAW_WASM") B"
+say "cargo rustc --profile wasm --lib --crate-type cdylib --target wasm32-unknown-unknown --no-default-features --features wasm (simd128: $([ "$SIMD" = 1 ] && echo on || echo off), opt-level ${CARGO_PROFILE_WASM_OPT_LEVEL:-s from Cargo.toml})"
+# The crate is an rlib (Cargo.toml); the cdylib is made here only.
+cargo rustc --profile wasm --lib --crate-type cdylib --target wasm32-unknown-unknown --no-default-features --features wasm
+say "cargo rustc: $(since "$t"), $(stat -c %s "$RAW_WASM") B"
 
 t="$(now)"
 rm -rf "$STAGE"

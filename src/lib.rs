@@ -38,9 +38,10 @@ pub mod thermometry;
 // User-unit parsing and conversion (shared by the binding layer and the page).
 pub mod units;
 
-// JavaScript binding layer.
-#[cfg(feature = "wasm")]
+#[cfg(feature = "alloc")]
 extern crate alloc;
+
+// JavaScript binding layer.
 #[cfg(feature = "wasm")]
 pub mod wasm;
 
