@@ -37,7 +37,7 @@ use crate::planck::Spectrum;
 /// [`temperature_from_band`] and [`temperature_from_band_ratio`] only look for a solution in
 /// [`T_MIN_K`, `T_MAX_K`]; a value that no temperature in that range explains returns
 /// `Error::NoSolution` rather than an extrapolated temperature. (The closed-form
-/// [`brightness_temperature`] has no such range.)
+/// [`temperature_from_spectral`] has no such range.)
 ///
 /// # Examples
 /// ```
@@ -108,12 +108,13 @@ fn brightness_unchecked(spec: &Spectrum, v: f64, value: f64) -> Option<f64> {
     }
 }
 
-/// Brightness (radiance) temperature, K: the temperature at which the spectrum `spec`
-/// (emissivity, medium index, variable, quantity, geometry and c₂ convention included) takes
-/// the value `value` at the spectral coordinate `x`.
+/// Temperature, K, at which the spectrum `spec` (emissivity, medium index, variable, quantity,
+/// geometry and c₂ convention included) takes the value `value` at the spectral coordinate `x`:
+/// the true temperature of a grey body of emissivity `spec.emissivity`.
 ///
-/// With `spec.emissivity` = 1 this is the usual brightness temperature; with ε < 1 it is the
-/// true temperature of a grey body of that emissivity.
+/// With `spec.emissivity` = 1 this equals [`brightness_temperature`]; with ε < 1 it is higher
+/// (the emissivity is accounted for). In the trade, "brightness temperature" always means the
+/// blackbody (ε = 1) value, hence the two names.
 ///
 /// # Formula
 /// ```text
@@ -134,21 +135,56 @@ fn brightness_unchecked(spec: &Spectrum, v: f64, value: f64) -> Option<f64> {
 ///
 /// # Examples
 /// ```
-/// use quantaband::{inverse::brightness_temperature, planck::Spectrum};
+/// use quantaband::{inverse::temperature_from_spectral, planck::Spectrum};
 /// // 9.924 033 330 070 695e6 W·m⁻²·sr⁻¹·m⁻¹ at 10 µm is a 300 K blackbody (mpmath forward value).
-/// let t = brightness_temperature(&Spectrum::default(), 10e-6, 9.924_033_330_070_695e6).unwrap();
+/// let t = temperature_from_spectral(&Spectrum::default(), 10e-6, 9.924_033_330_070_695e6).unwrap();
 /// assert!((t / 300.0 - 1.0).abs() < 1e-14);
 /// ```
 ///
 /// # References
 /// Planck's law solved for T; DeWitt & Nutter (1988), ch. 1.
-pub fn brightness_temperature(spec: &Spectrum, x: f64, value: f64) -> Result<f64> {
+pub fn temperature_from_spectral(spec: &Spectrum, x: f64, value: f64) -> Result<f64> {
     spec.validate()?;
     error::spectral(spec.variable.arg_name(), x)?;
     error::positive("value", value)?;
     brightness_unchecked(spec, x, value).ok_or(Error::NoSolution {
-        what: "brightness temperature outside the f64 range",
+        what: "temperature outside the f64 range",
     })
+}
+
+/// Brightness (radiance) temperature, K: the temperature of a *blackbody* (ε = 1) whose
+/// spectrum takes the value `value` at `x` — what an instrument set to ε = 1 would show.
+/// `spec.emissivity` is not used; the variable, quantity, geometry, medium index and c₂
+/// convention of `spec` are.
+///
+/// # Formula
+/// ```text
+/// T_b = temperature_from_spectral(spec with ε = 1, x, value)
+/// ```
+///
+/// # Errors
+/// As [`temperature_from_spectral`] (the emissivity of `spec` is not checked).
+///
+/// # Accuracy
+/// As [`temperature_from_spectral`].
+///
+/// # Examples
+/// ```
+/// use quantaband::{inverse::brightness_temperature, planck::Spectrum};
+/// // A grey body (ε = 0.9) at 300 K seen at 10 µm: its spectral radiance is 0.9 × 9.924 033e6
+/// // W·m⁻²·sr⁻¹·m⁻¹; a blackbody gives that at 293.600 565 687 K (mpmath, 30 digits, Planck's
+/// // law solved for T with CODATA 2018 h, c, k).
+/// let grey = Spectrum::default().with_emissivity(0.9);
+/// let l = grey.spectral(10e-6, 300.0).unwrap();
+/// let tb = brightness_temperature(&grey, 10e-6, l).unwrap();
+/// assert!((tb - 293.600_565_687_493_9).abs() < 1e-9, "{tb}");
+/// ```
+///
+/// # References
+/// DeWitt & Nutter (1988), ch. 1 (radiance temperature); ITS-90 text, §2.6 (radiance
+/// temperature as the blackbody temperature of equal spectral radiance).
+pub fn brightness_temperature(spec: &Spectrum, x: f64, value: f64) -> Result<f64> {
+    temperature_from_spectral(&spec.with_emissivity(1.0), x, value)
 }
 
 /// Temperature, K, at which the band quantity of `spec` between `lower` and `upper` equals

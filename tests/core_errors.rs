@@ -8,7 +8,7 @@ use quantaband::band::{
     planck_integral, planck_integral_upper, PlanckKernel,
 };
 use quantaband::inverse::{
-    brightness_temperature, temperature_from_band, temperature_from_band_ratio,
+    temperature_from_band, temperature_from_band_ratio, temperature_from_spectral,
 };
 use quantaband::planck::{
     peak_wavelength_m, spectral_radiance_frequency, spectral_radiance_wavelength, total_exitance,
@@ -165,13 +165,16 @@ fn fraction_inverse_inputs() {
 #[test]
 fn inverse_inputs() {
     let s = Spectrum::default();
-    assert_eq!(code(brightness_temperature(&s, 1e-5, 0.0)), "NON_POSITIVE");
     assert_eq!(
-        code(brightness_temperature(&s, 1e-5, f64::NAN)),
+        code(temperature_from_spectral(&s, 1e-5, 0.0)),
+        "NON_POSITIVE"
+    );
+    assert_eq!(
+        code(temperature_from_spectral(&s, 1e-5, f64::NAN)),
         "NON_FINITE"
     );
     assert_eq!(
-        code(brightness_temperature(&s, -1e-5, 1.0)),
+        code(temperature_from_spectral(&s, -1e-5, 1.0)),
         "NON_POSITIVE_SPECTRAL"
     );
     assert_eq!(

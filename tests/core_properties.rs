@@ -10,7 +10,7 @@ use proptest::prelude::*;
 use quantaband::band::{band, band_d_dt, band_fraction, fraction_below, photon_fraction_below};
 use quantaband::constants::{BOLTZMANN_K, C1L, C2, SPEED_OF_LIGHT_C, STEFAN_BOLTZMANN_SIGMA};
 use quantaband::inverse::{
-    brightness_temperature, temperature_from_band, temperature_from_band_ratio,
+    temperature_from_band, temperature_from_band_ratio, temperature_from_spectral,
 };
 use quantaband::planck::{
     spectral_radiance_wavelength, total_photon_exitance, Geometry, Quantity, SpectralVariable,
@@ -151,7 +151,7 @@ proptest! {
         let s = Spectrum::new(var, q, g).with_emissivity(eps);
         let x = coord(var, lt / t);
         let v = s.spectral(x, t).unwrap();
-        let t2 = brightness_temperature(&s, x, v).unwrap();
+        let t2 = temperature_from_spectral(&s, x, v).unwrap();
         prop_assert!(rel(t2, t) < 1e-10, "{t} -> {t2}");
     }
 
@@ -200,7 +200,7 @@ proptest! {
             prop_assert!((0.0..=1.0).contains(&f), "{f}");
         }
         // Inverses return a value or a typed error, never panic; a value is finite and > 0.
-        if let Ok(tb) = brightness_temperature(&s, x, t) {
+        if let Ok(tb) = temperature_from_spectral(&s, x, t) {
             prop_assert!(tb.is_finite() && tb > 0.0);
         }
     }
@@ -267,7 +267,7 @@ proptest! {
         prop_assert!(ok(planck_integral(PlanckKernel::EnergyDerivative, a, b)));
         prop_assert!(ok(planck_integral_upper(PlanckKernel::Photon, a)));
         prop_assert!(ok(planck_integral_lower(PlanckKernel::Energy, a)));
-        prop_assert!(ok(brightness_temperature(&s, a, b)));
+        prop_assert!(ok(temperature_from_spectral(&s, a, b)));
         prop_assert!(ok(temperature_from_band(&s, a, b, c)));
         prop_assert!(ok(temperature_from_band_ratio(&s, (a, b), (c, d), a.abs(), b.abs())));
         prop_assert!(ok(total_exitance(a)));
@@ -288,7 +288,7 @@ proptest! {
         prop_assume!(b > a);
         let ok = |r: quantaband::Result<f64>| r.map(|v| !v.is_nan()).unwrap_or(true);
         prop_assert!(ok(band_fraction(&s, a, b, c)));
-        prop_assert!(ok(brightness_temperature(&s, a, v)));
+        prop_assert!(ok(temperature_from_spectral(&s, a, v)));
         prop_assert!(ok(temperature_from_band(&s, a, b, v)));
         let m = (a * r.sqrt()).max(a * (1.0 + 1e-13));
         prop_assert!(ok(temperature_from_band_ratio(&s, (a, m), (m, b), v, 1.0)));

@@ -5,7 +5,7 @@
 
 use quantaband::band::{band, band_fraction, lambda_t_at_fraction};
 use quantaband::inverse::{
-    brightness_temperature, temperature_from_band, temperature_from_band_ratio,
+    temperature_from_band, temperature_from_band_ratio, temperature_from_spectral,
 };
 use quantaband::planck::{
     spectral_radiance_wavelength, total_exitance, Geometry, Quantity, SpectralVariable, Spectrum,
@@ -36,7 +36,7 @@ fn readme_quick_start() -> Result<(), quantaband::Error> {
     )
     .with_emissivity(0.9);
     let n_dot = photons.spectral(3e13, 300.0)?;
-    let t_true = brightness_temperature(&photons, 3e13, n_dot)?;
+    let t_true = temperature_from_spectral(&photons, 3e13, n_dot)?;
     assert!(rel(t_true, 300.0) < 1e-14);
 
     let r = band(&lwir, 0.9e-6, 1.0e-6, 1400.0)? / band(&lwir, 1.0e-6, 1.1e-6, 1400.0)?;

@@ -179,7 +179,7 @@ fn invert_with(
 /// # Formula
 /// ```text
 /// S(T) = c1L / (λ⁵·(exp(c2/(λT)) − 1))      c1L = 2hc², c2 per the chosen convention
-/// T(S) = c2 / (λ·ln(1 + c1L/(λ⁵·S)))       (crate::inverse::brightness_temperature)
+/// T(S) = c2 / (λ·ln(1 + c1L/(λ⁵·S)))       (crate::inverse::temperature_from_spectral)
 /// ```
 ///
 /// # Errors
@@ -259,6 +259,6 @@ impl SignalModel for SpectralPoint {
         positive("signal", signal)?;
         // Closed-form brightness temperature from the radiometric core.
         let spec = crate::planck::Spectrum::BLACKBODY.with_c2(self.c2);
-        crate::inverse::brightness_temperature(&spec, self.wavelength_m, signal)
+        crate::inverse::temperature_from_spectral(&spec, self.wavelength_m, signal)
     }
 }

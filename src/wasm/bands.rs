@@ -298,7 +298,7 @@ pub fn brightness_temperature(
 ) -> Result<f64, JsValue> {
     let s = parse_spectrum(&options)?;
     let xs = s.user_to_si("x", x)?;
-    Ok(inverse::brightness_temperature(&s.spectrum, xs, value)?)
+    Ok(inverse::temperature_from_spectral(&s.spectrum, xs, value)?)
 }
 
 /// `brightnessTemperature` for every density value of `values` at one point `x`, one call.
@@ -313,7 +313,7 @@ pub fn brightness_temperature_array(
     let s = parse_spectrum(&options)?;
     let xs = s.user_to_si("x", x)?;
     map_indexed(values, &|v| {
-        inverse::brightness_temperature(&s.spectrum, xs, v)
+        inverse::temperature_from_spectral(&s.spectrum, xs, v)
     })
 }
 
