@@ -84,3 +84,6 @@ extern crate alloc;
 pub mod wasm;
 
 pub use error::{Error, Result};
+
+// The instrument designer's radiometry (throughput, detector, figures of merit, sources).
+pub mod design;
