@@ -40,3 +40,10 @@ pub use uncertainty::{
     sensitivities, uncertainty_budget, BudgetEntry, BudgetInput, Sensitivities,
     StandardUncertainties, UncertaintyBudget,
 };
+
+// Multi-wavelength pyrometry and Raman thermometry (issue 18).
+pub mod multiwavelength;
+pub use multiwavelength::{
+    multiwavelength_fit, multiwavelength_fit_channels, EmissivityModel, MultiwavelengthFit,
+    MultiwavelengthOptions,
+};
