@@ -47,3 +47,8 @@ pub use multiwavelength::{
     multiwavelength_fit, multiwavelength_fit_channels, EmissivityModel, MultiwavelengthFit,
     MultiwavelengthOptions,
 };
+pub mod raman;
+pub use raman::{
+    anti_stokes_stokes_ratio, raman_frequency_factor, raman_temperature, RamanDetection,
+    RamanReading,
+};
