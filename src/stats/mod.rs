@@ -62,6 +62,10 @@ pub use photon_gas::{
 // Noise-source (Y-factor) thermometry and semiconductor carrier statistics (issue 18).
 mod noise_source;
 pub use noise_source::{
-    load_noise_temperature, y_factor, y_factor_noise_temperature, LoadNoiseModel,
-    YFactorReading,
+    load_noise_temperature, y_factor, y_factor_noise_temperature, LoadNoiseModel, YFactorReading,
+};
+mod semiconductor;
+pub use semiconductor::{
+    band_carrier_density, effective_density_of_states, varshni_band_gap, CarrierDensity,
+    IntrinsicCarriers, Semiconductor,
 };

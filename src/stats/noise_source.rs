@@ -148,8 +148,8 @@ fn offsets(frequency_hz: f64, temperature_k: f64) -> (f64, f64) {
                             + x2 * (1.0 / 47_900_160.0 - x2 * (691.0 / 1_307_674_368_000.0))))));
         (temperature_k * even - half, temperature_k * even)
     } else {
-        let p = rayleigh_jeans_brightness_temperature(frequency_hz, temperature_k)
-            .unwrap_or(f64::NAN);
+        let p =
+            rayleigh_jeans_brightness_temperature(frequency_hz, temperature_k).unwrap_or(f64::NAN);
         (p - temperature_k, (p + half) - temperature_k)
     }
 }

@@ -313,15 +313,21 @@ mod tests {
     fn errors() {
         let d = RamanDetection::Energy;
         assert_eq!(
-            raman_temperature(52_070.0, 532e-9, 0.0, d).unwrap_err().code(),
+            raman_temperature(52_070.0, 532e-9, 0.0, d)
+                .unwrap_err()
+                .code(),
             "NON_POSITIVE"
         );
         assert_eq!(
-            raman_temperature(52_070.0, 532e-9, -0.1, d).unwrap_err().code(),
+            raman_temperature(52_070.0, 532e-9, -0.1, d)
+                .unwrap_err()
+                .code(),
             "NON_POSITIVE"
         );
         assert_eq!(
-            raman_temperature(52_070.0, 532e-9, 5.0, d).unwrap_err().code(),
+            raman_temperature(52_070.0, 532e-9, 5.0, d)
+                .unwrap_err()
+                .code(),
             "OUT_OF_RANGE"
         );
         assert_eq!(
@@ -333,7 +339,9 @@ mod tests {
             "NON_POSITIVE_SPECTRAL"
         );
         assert_eq!(
-            anti_stokes_stokes_ratio(52_070.0, 532e-9, 0.0, d).unwrap_err().code(),
+            anti_stokes_stokes_ratio(52_070.0, 532e-9, 0.0, d)
+                .unwrap_err()
+                .code(),
             "NON_POSITIVE_TEMPERATURE"
         );
     }
