@@ -211,6 +211,7 @@ impl EmissivityModel {
 /// ```text
 /// ill_conditioned = condition_number > max_condition_number
 ///                   or |corr(T, a₁)| > max_abs_correlation
+///                   or the profile χ²(T) has several local minima
 /// ```
 ///
 /// # Errors
@@ -304,7 +305,12 @@ pub struct MultiwavelengthFit {
     pub correlation_temperature_slope: Option<f64>,
     /// u(T) divided by what it would be with the emissivity known: √(C_TT·(JᵀJ)_TT) ≥ 1.
     pub uncertainty_inflation: f64,
-    /// True when the condition number or |corr(T, a₁)| exceeds the options' thresholds.
+    /// Number of local minima of the profile χ²(T) seen on the start grid (61 temperatures
+    /// over a factor 4 around the Wien start). More than one means the data admit several
+    /// distinct temperatures; the fit returns the lowest χ² found.
+    pub local_minima: u32,
+    /// True when the condition number or |corr(T, a₁)| exceeds the options' thresholds, or
+    /// the profile χ²(T) has more than one local minimum.
     pub ill_conditioned: bool,
     /// True when the fitted emissivity lies in (0, 1 + 1e-9] at every channel.
     pub emissivity_physical: bool,
@@ -419,10 +425,15 @@ impl MultiwavelengthFit {
 /// observed in the tests), `NO_SOLUTION` (a signal underflows at the start temperature).
 ///
 /// # Accuracy
-/// Against the weighted least-squares solution found independently by mpmath (`findroot` on
-/// the stationarity conditions, 40 digits; `tests/quantum_reference.rs`): temperature and
-/// coefficients within 1e-9 relative, covariance and condition number within 1e-6 relative
-/// (condition numbers up to 1e5). Noise-free data of the fitted form are recovered to 1e-10.
+/// Against the weighted least-squares solution found independently by mpmath (Newton's
+/// method on the stationarity conditions at 40 digits, verified minimum;
+/// `tests/quantum_reference.rs`, 11 spectral fits of orders 0–4 and scaled condition numbers up
+/// to 5.2e3): temperature ≤ 1.6e-14 relative, coefficients ≤ 3.8e-12 of their standard
+/// uncertainty, covariance ≤ 1.6e-12 of √(C_ii C_jj), condition number and uncertainty
+/// inflation ≤ 7.7e-13 relative, corr(T, a₁) ≤ 6.7e-16 absolute, brightness and two-colour
+/// temperatures ≤ 4e-16. Noise-free data of the fitted form are recovered to ≈ 1e-13 × the
+/// inflation factor (`tests/quantum_limits.rs`). When the data admit several minima the one
+/// with the lowest χ² on the start grid is returned (`local_minima` counts them).
 ///
 /// # Examples
 /// ```
@@ -501,8 +512,8 @@ pub fn multiwavelength_fit(
 /// As [`multiwavelength_fit`]; errors of the channel models are passed on.
 ///
 /// # Accuracy
-/// As [`multiwavelength_fit`], plus the accuracy of the channel models (rectangular bands:
-/// checked against mpmath quadrature in `tests/quantum_reference.rs`, 1e-9 relative in T).
+/// As [`multiwavelength_fit`], plus the accuracy of the channel models (a rectangular-band
+/// fit against mpmath quadrature of Planck's law is among the reference cases; same bounds).
 ///
 /// # Examples
 /// ```
@@ -938,117 +949,62 @@ impl<'a> Data<'a> {
         }
     }
 
-    /// Minimum of the profile χ²(T) near `t0` by bracketing and Brent's method in x = ln T;
-    /// `None` if no bracket is found.
-    fn profile_minimum(&self, eval: &ChannelEval<'_>, t0: f64) -> Option<f64> {
-        const GOLD: f64 = 1.618_033_988_749_895;
-        const CGOLD: f64 = 0.381_966_011_250_105_1;
+    /// Lowest minimum of the profile χ²(T): a grid of 61 temperatures spaced evenly in ln T over
+    /// [t0/2, 2·t0]; every local minimum on the grid (up to 6, the lowest) is refined by
+    /// Brent's method in x = ln T, after a downhill search when it lies at an end of the grid.
+    /// Returns the temperature and the number of local minima seen on the grid; `None` if
+    /// nothing finite was found.
+    fn profile_minimum(&self, eval: &ChannelEval<'_>, t0: f64) -> Option<(f64, u32)> {
+        const GRID: usize = 61;
+        const KEEP: usize = 6;
         let f = |x: f64| self.profile(eval, float::exp(x));
-        let (lo_lim, hi_lim) = (float::ln(1e-3), float::ln(1e9));
-        // Bracket: a < b < c (or reversed) with f(b) ≤ f(a), f(c).
-        let mut a = float::ln(t0);
-        let mut fa = f(a);
-        let mut b = a + 0.01;
-        let mut fb = f(b);
-        if !(fa.is_finite() || fb.is_finite()) {
-            return None;
+        let x0 = float::ln(t0);
+        let h = core::f64::consts::LN_2 / 30.0;
+        let xj = |j: usize| x0 + h * (j as f64 - 30.0);
+        let mut vals = [f64::INFINITY; GRID];
+        for (j, v) in vals.iter_mut().enumerate() {
+            *v = f(xj(j));
         }
-        if fb > fa {
-            core::mem::swap(&mut a, &mut b);
-            core::mem::swap(&mut fa, &mut fb);
-        }
-        let mut c = b + GOLD * (b - a);
-        let mut fc = f(c);
-        let mut steps = 0;
-        while fc < fb {
-            steps += 1;
-            if steps > 60 || !(c > lo_lim && c < hi_lim) {
-                return None;
-            }
-            a = b;
-            fa = fb;
-            b = c;
-            fb = fc;
-            c = b + GOLD * (b - a);
-            fc = f(c);
-        }
-        let _ = fa;
-        // Brent's method (parabolic interpolation with golden-section safeguard).
-        let (mut lo, mut hi) = if a < c { (a, c) } else { (c, a) };
-        let (mut x, mut w, mut v) = (b, b, b);
-        let (mut fx, mut fw, mut fv) = (fb, fb, fb);
-        let (mut d, mut e) = (0.0f64, 0.0f64);
-        for _ in 0..100 {
-            let xm = 0.5 * (lo + hi);
-            let tol1 = 1e-9 * float::abs(x) + 1e-12;
-            let tol2 = 2.0 * tol1;
-            if float::abs(x - xm) <= tol2 - 0.5 * (hi - lo) {
-                return Some(float::exp(x));
-            }
-            let mut golden = true;
-            if float::abs(e) > tol1 {
-                let r = (x - w) * (fx - fv);
-                let mut q = (x - v) * (fx - fw);
-                let mut pp = (x - v) * q - (x - w) * r;
-                q = 2.0 * (q - r);
-                if q > 0.0 {
-                    pp = -pp;
-                }
-                q = float::abs(q);
-                let etemp = e;
-                e = d;
-                if !(float::abs(pp) >= float::abs(0.5 * q * etemp)
-                    || pp <= q * (lo - x)
-                    || pp >= q * (hi - x))
-                {
-                    d = pp / q;
-                    let u = x + d;
-                    if u - lo < tol2 || hi - u < tol2 {
-                        d = if xm >= x { tol1 } else { -tol1 };
-                    }
-                    golden = false;
-                }
-            }
-            if golden {
-                e = if x >= xm { lo - x } else { hi - x };
-                d = CGOLD * e;
-            }
-            let u = if float::abs(d) >= tol1 {
-                x + d
+        // Local minima (ends count when lower than their neighbour); keep the KEEP lowest.
+        let mut found = [(usize::MAX, f64::INFINITY); KEEP];
+        let mut minima = 0u32;
+        for j in 0..GRID {
+            let left = if j > 0 { vals[j - 1] } else { f64::INFINITY };
+            let right = if j + 1 < GRID {
+                vals[j + 1]
             } else {
-                x + if d >= 0.0 { tol1 } else { -tol1 }
+                f64::INFINITY
             };
-            let fu = f(u);
-            if fu <= fx {
-                if u >= x {
-                    lo = x;
-                } else {
-                    hi = x;
+            if vals[j].is_finite() && vals[j] < left && vals[j] <= right {
+                minima += 1;
+                // replace the worst kept entry if this one is lower
+                let mut worst = 0;
+                for k in 1..KEEP {
+                    if found[k].1 > found[worst].1 {
+                        worst = k;
+                    }
                 }
-                v = w;
-                fv = fw;
-                w = x;
-                fw = fx;
-                x = u;
-                fx = fu;
-            } else {
-                if u < x {
-                    lo = u;
-                } else {
-                    hi = u;
-                }
-                if fu <= fw || w == x {
-                    v = w;
-                    fv = fw;
-                    w = u;
-                    fw = fu;
-                } else if fu <= fv || v == x || v == w {
-                    v = u;
-                    fv = fu;
+                if vals[j] < found[worst].1 {
+                    found[worst] = (j, vals[j]);
                 }
             }
         }
-        Some(float::exp(x))
+        let mut best: Option<(f64, f64)> = None;
+        for &(j, _) in found.iter().filter(|e| e.0 != usize::MAX) {
+            let refined = if j > 0 && j + 1 < GRID {
+                Some(brent(&f, xj(j - 1), xj(j), vals[j], xj(j + 1)))
+            } else {
+                let dir = if j == 0 { -h } else { h };
+                downhill(&f, xj(j) - dir, xj(j), vals[j])
+                    .map(|(a, b, fb, c)| brent(&f, a, b, fb, c))
+            };
+            if let Some((x, fx)) = refined {
+                if best.is_none_or(|(_, fb)| fx < fb) {
+                    best = Some((x, fx));
+                }
+            }
+        }
+        best.map(|(x, _)| (float::exp(x), minima))
     }
 
     /// Levenberg–Marquardt from `theta` (updated in place) in φ = θ/scale; returns the final
@@ -1085,7 +1041,7 @@ impl<'a> Data<'a> {
             // The undamped (Gauss–Newton) step measures the distance to the minimum.
             if let Some(gn) = cur.tri.solve() {
                 let size = rel_size(&d, theta, &gn);
-                if size <= 1e-12 {
+                if size <= 1e-14 {
                     return Ok((cur, iteration));
                 }
                 // Its predicted reduction of χ² is ‖Q_pᵀr‖². Below 1e-10·χ² a comparison of χ²
@@ -1203,7 +1159,7 @@ impl<'a> Data<'a> {
         // log-linearised solution for the log-polynomial one), minimised by Brent's method in
         // ln T. The valley of T against the emissivity slope is long and curved; starting
         // Levenberg–Marquardt near its lowest point saves it from crawling along it.
-        let t1 = self.profile_minimum(eval, t0).unwrap_or(t0);
+        let (t1, local_minima) = self.profile_minimum(eval, t0).unwrap_or((t0, 0));
         let a0 = self.coefficients_at(eval, t1)?;
         let mut theta = [0.0; P];
         theta[0] = t1;
@@ -1237,7 +1193,9 @@ impl<'a> Data<'a> {
             let e = self.model.evaluate(&coefficients, self.reduced(i)).0;
             physical &= e > 0.0 && e <= 1.0 + 1e-9;
         }
-        let ill = cond > self.max_cond || corr.is_some_and(|c| float::abs(c) > self.max_corr);
+        let ill = cond > self.max_cond
+            || corr.is_some_and(|c| float::abs(c) > self.max_corr)
+            || local_minima > 1;
         Ok(MultiwavelengthFit {
             temperature_k: theta[0],
             u_temperature_k: float::sqrt(cov[0][0]),
@@ -1249,6 +1207,7 @@ impl<'a> Data<'a> {
             condition_number: cond,
             correlation_temperature_slope: corr,
             uncertainty_inflation: inflation,
+            local_minima,
             ill_conditioned: ill,
             emissivity_physical: physical,
             chi_squared: cur.chi2,
@@ -1258,6 +1217,111 @@ impl<'a> Data<'a> {
             grey_two_colour_temperature_k: two_colour().ok(),
         })
     }
+}
+
+/// Golden-ratio downhill search from a → b (f(b) ≤ f(a)) until the function rises: a bracket
+/// (a, b, f(b), c) with f(b) ≤ f(a), f(c); `None` if it runs past 1e-3 K … 1e9 K.
+fn downhill(f: &dyn Fn(f64) -> f64, a: f64, b: f64, fb: f64) -> Option<(f64, f64, f64, f64)> {
+    const GOLD: f64 = 1.618_033_988_749_895;
+    let (lo_lim, hi_lim) = (float::ln(1e-3), float::ln(1e9));
+    let (mut a, mut b, mut fb) = (a, b, fb);
+    let mut c = b + GOLD * (b - a);
+    let mut fc = f(c);
+    for _ in 0..60 {
+        if !(fc < fb) {
+            return Some((a, b, fb, c));
+        }
+        if !(c > lo_lim && c < hi_lim) {
+            return None;
+        }
+        a = b;
+        b = c;
+        fb = fc;
+        c = b + GOLD * (b - a);
+        fc = f(c);
+    }
+    None
+}
+
+/// Brent's minimisation (parabolic interpolation with golden-section safeguard) of f on the
+/// bracket (a, b, c) with f(b) = fb ≤ f(a), f(c); returns (x, f(x)) to 1e-9 relative in x.
+fn brent(f: &dyn Fn(f64) -> f64, a: f64, b: f64, fb: f64, c: f64) -> (f64, f64) {
+    const CGOLD: f64 = 0.381_966_011_250_105_1;
+    let (mut lo, mut hi) = if a < c { (a, c) } else { (c, a) };
+    let (mut x, mut w, mut v) = (b, b, b);
+    let (mut fx, mut fw, mut fv) = (fb, fb, fb);
+    let (mut d, mut e) = (0.0f64, 0.0f64);
+    for _ in 0..100 {
+        let xm = 0.5 * (lo + hi);
+        let tol1 = 1e-9 * float::abs(x) + 1e-12;
+        let tol2 = 2.0 * tol1;
+        if float::abs(x - xm) <= tol2 - 0.5 * (hi - lo) {
+            break;
+        }
+        let mut golden = true;
+        if float::abs(e) > tol1 {
+            let r = (x - w) * (fx - fv);
+            let mut q = (x - v) * (fx - fw);
+            let mut pp = (x - v) * q - (x - w) * r;
+            q = 2.0 * (q - r);
+            if q > 0.0 {
+                pp = -pp;
+            }
+            q = float::abs(q);
+            let etemp = e;
+            e = d;
+            if !(float::abs(pp) >= float::abs(0.5 * q * etemp)
+                || pp <= q * (lo - x)
+                || pp >= q * (hi - x))
+            {
+                d = pp / q;
+                let u = x + d;
+                if u - lo < tol2 || hi - u < tol2 {
+                    d = if xm >= x { tol1 } else { -tol1 };
+                }
+                golden = false;
+            }
+        }
+        if golden {
+            e = if x >= xm { lo - x } else { hi - x };
+            d = CGOLD * e;
+        }
+        let u = if float::abs(d) >= tol1 {
+            x + d
+        } else {
+            x + if d >= 0.0 { tol1 } else { -tol1 }
+        };
+        let fu = f(u);
+        if fu <= fx {
+            if u >= x {
+                lo = x;
+            } else {
+                hi = x;
+            }
+            v = w;
+            fv = fw;
+            w = x;
+            fw = fx;
+            x = u;
+            fx = fu;
+        } else {
+            if u < x {
+                lo = u;
+            } else {
+                hi = u;
+            }
+            if fu <= fw || w == x {
+                v = w;
+                fv = fw;
+                w = u;
+                fw = fu;
+            } else if fu <= fv || v == x || v == w {
+                v = u;
+                fv = fu;
+            }
+        }
+    }
+    (x, fx)
 }
 
 #[cfg(test)]
