@@ -568,3 +568,87 @@ mod serde_shapes {
         assert!((back.temperature_k / fit.temperature_k - 1.0).abs() < 1e-15);
     }
 }
+
+/// The README example of the "Multi-wavelength, Raman and noise-source thermometry; carrier
+/// statistics" section, compiled and its commented numbers checked (keep the two in sync).
+#[test]
+fn readme_example() -> Result<(), quantaband::Error> {
+    let wl = [0.7e-6, 0.825e-6, 0.95e-6, 1.075e-6, 1.2e-6];
+    let noise = [0.004, -0.003, 0.001, 0.005, -0.004];
+    let mut l = [0.0; 5];
+    for i in 0..5 {
+        let u: f64 = (wl[i] - 0.95e-6) / 0.25e-6;
+        l[i] = (-0.6 - 0.3 * u).exp()
+            * spectral_radiance_wavelength(wl[i], 1400.0)?
+            * (1.0 + noise[i]);
+    }
+    let u = l.map(|v| 0.005 * v);
+    let opts = MultiwavelengthOptions {
+        model: EmissivityModel::LOG_LINEAR,
+        ..Default::default()
+    };
+    let mut tb = [0.0; 5];
+    let fit = multiwavelength_fit(&wl, &l, &u, Default::default(), &opts, &mut tb)?;
+    assert!((fit.temperature_k - 1399.92).abs() < 0.005);
+    assert!((fit.u_temperature_k - 9.13).abs() < 0.005);
+    assert!((fit.correlation_temperature_slope.unwrap() - 0.987).abs() < 0.0005);
+    assert!((fit.uncertainty_inflation - 33.0).abs() < 0.5);
+    assert!((fit.grey_two_colour_temperature_k.unwrap() - 1554.6).abs() < 0.05);
+    assert!((tb[0] - 1372.3).abs() < 0.05 && (tb[4] - 1266.3).abs() < 0.05);
+    let rd = raman_temperature(52_070.0, 532e-9, 0.115, RamanDetection::PhotonCounting)?;
+    assert!((rd.temperature_k - 321.66).abs() < 0.005);
+    assert!((rd.d_t_d_ratio - 1201.0).abs() < 0.5);
+    let y = y_factor_noise_temperature(1.8, 295.0, 77.0, 230e9, LoadNoiseModel::CallenWelton)?;
+    assert!((y.receiver_noise_temperature_k - 195.25).abs() < 0.005);
+    assert!((y.planck_k - 200.77).abs() < 0.005);
+    assert!((y.rayleigh_jeans_k - 195.50).abs() < 0.005);
+    let s = Semiconductor::new(0.014, 0.43, 0.2352 * EV, 6.0e-4 * EV, 500.0)?;
+    let ni = s.intrinsic(300.0)?;
+    assert!((ni.density_per_m3 / 1.948e22 - 1.0).abs() < 5e-4);
+    assert!((ni.boltzmann_density_per_m3 / 2.117e22 - 1.0).abs() < 5e-4);
+    Ok(())
+}
+
+/// Response-weighted channels (numerically integrated, ≈ 1e-13 rounding in the model): a
+/// log-linear fit of noise-free synthetic signals converges and recovers T and the slope.
+#[test]
+fn response_weighted_channels_converge() {
+    use quantaband::thermometry::{Response, ResponseSignal, SignalModel};
+    let centres = [0.8e-6, 0.9e-6, 1.0e-6, 1.1e-6, 1.2e-6];
+    let tables: Vec<([f64; 3], [f64; 3])> = centres
+        .iter()
+        .map(|&c| ([c - 30e-9, c, c + 30e-9], [0.0, 1.0, 0.0]))
+        .collect();
+    let models: Vec<ResponseSignal<'_>> = tables
+        .iter()
+        .map(|(w, r)| ResponseSignal::new(Response::new(w, r).unwrap(), C2Convention::Codata2018))
+        .collect();
+    for &t in &[900.0, 1700.0] {
+        let s: Vec<f64> = models
+            .iter()
+            .zip(centres)
+            .map(|(m, c)| {
+                let u: f64 = (c - 1.0e-6) / 0.2e-6;
+                (-0.5 + 0.2 * u).exp() * m.signal(t).unwrap()
+            })
+            .collect();
+        let unc: Vec<f64> = s.iter().map(|v| 2e-3 * v).collect();
+        let mut tb = [0.0; 5];
+        let fit = multiwavelength_fit_channels(
+            &models,
+            &centres,
+            &s,
+            &unc,
+            &opts(EmissivityModel::LOG_LINEAR),
+            &mut tb,
+        )
+        .unwrap();
+        assert!(
+            (fit.temperature_k / t - 1.0).abs() < 1e-9,
+            "{t}: {}",
+            fit.temperature_k
+        );
+        assert!((fit.coefficients[1] - 0.2).abs() < 1e-7);
+        assert!(fit.iterations < 50);
+    }
+}
