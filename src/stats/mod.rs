@@ -58,3 +58,14 @@ pub use photon_gas::{
     quantum_noise_temperature, rayleigh_jeans_brightness_temperature,
     spectral_energy_density_energy, spectral_energy_density_frequency,
 };
+
+// Noise-source (Y-factor) thermometry and semiconductor carrier statistics (issue 18).
+mod noise_source;
+pub use noise_source::{
+    load_noise_temperature, y_factor, y_factor_noise_temperature, LoadNoiseModel, YFactorReading,
+};
+mod semiconductor;
+pub use semiconductor::{
+    band_carrier_density, effective_density_of_states, varshni_band_gap, CarrierDensity,
+    IntrinsicCarriers, Semiconductor,
+};

@@ -40,3 +40,15 @@ pub use uncertainty::{
     sensitivities, uncertainty_budget, BudgetEntry, BudgetInput, Sensitivities,
     StandardUncertainties, UncertaintyBudget,
 };
+
+// Multi-wavelength pyrometry and Raman thermometry (issue 18).
+pub mod multiwavelength;
+pub use multiwavelength::{
+    multiwavelength_fit, multiwavelength_fit_channels, EmissivityModel, MultiwavelengthFit,
+    MultiwavelengthOptions,
+};
+pub mod raman;
+pub use raman::{
+    anti_stokes_stokes_ratio, raman_frequency_factor, raman_temperature, RamanDetection,
+    RamanReading,
+};
