@@ -38,6 +38,9 @@ pub mod thermometry;
 // User-unit parsing and conversion (shared by the binding layer and the page).
 pub mod units;
 
+// Definitions in user units (spectrum settings, instrument models, conditions), serialisable.
+pub mod definition;
+
 #[cfg(feature = "alloc")]
 extern crate alloc;
 
