@@ -495,6 +495,33 @@ fn wavelength_m(arg: &'static str, x: f64, unit: SpectralUnit) -> Result<f64> {
     crate::units::convert_spectral(arg, x, unit, SpectralUnit::Metre)
 }
 
+/// An error of [`Response::new`] with the table's field names of the serialized form.
+#[cfg(feature = "alloc")]
+fn table_names(e: Error) -> Error {
+    let name = |arg: &'static str| {
+        if arg == "wavelengths_m" {
+            "wavelengths"
+        } else {
+            arg
+        }
+    };
+    match e {
+        Error::NotIncreasing { arg, index } => Error::NotIncreasing {
+            arg: name(arg),
+            index,
+        },
+        Error::NonFinite { arg, value } => Error::NonFinite {
+            arg: name(arg),
+            value,
+        },
+        Error::NonPositiveSpectral { arg, value } => Error::NonPositiveSpectral {
+            arg: name(arg),
+            value,
+        },
+        other => other,
+    }
+}
+
 #[cfg(feature = "alloc")]
 impl InstrumentModel {
     /// Checks the model once and converts it to SI: the model every calculation then uses.
@@ -544,7 +571,7 @@ impl InstrumentModel {
                 for &w in &t.wavelengths {
                     wavelengths_m.push(wavelength_m("wavelengths", w, t.unit)?);
                 }
-                Response::new(&wavelengths_m, &t.values)?;
+                Response::new(&wavelengths_m, &t.values).map_err(table_names)?;
                 PreparedModel::Response {
                     wavelengths_m,
                     values: t.values.clone(),

@@ -44,8 +44,9 @@ pub mod definition;
 #[cfg(feature = "alloc")]
 extern crate alloc;
 
-// JavaScript binding layer.
+// JavaScript binding layer (internal: the public JavaScript API is the package's facade).
 #[cfg(feature = "wasm")]
+#[doc(hidden)]
 pub mod wasm;
 
 pub use error::{Error, Result};
