@@ -267,15 +267,15 @@ impl CalibrationHandle {
     pub fn bulk(&self, op: u32) -> f64 {
         let c = &self.curve;
         status(match op {
-            0 => map_in_place(&|t| {
+            0 => map_in_place(|t| {
                 check::temperature("temperaturesK", t)?;
                 c.signal(t)
             }),
-            1 => map_in_place(&|t| {
+            1 => map_in_place(|t| {
                 check::temperature("temperaturesK", t)?;
                 c.d_signal_dt(t)
             }),
-            _ => map_in_place(&|s| {
+            _ => map_in_place(|s| {
                 check::positive("signals", s)?;
                 c.temperature(s)
             }),

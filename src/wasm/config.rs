@@ -112,23 +112,13 @@ impl<'de> de::Deserializer<'de> for Reader {
     type Error = ConfigError;
 
     fn deserialize_any<V: Visitor<'de>>(self, v: V) -> Result<V::Value, ConfigError> {
+        // `to_value` makes only these kinds of values; matching no others keeps the code each
+        // visitor type instantiates small.
         match self.0 {
-            Value::Bool(b) => v.visit_bool(b),
-            Value::U8(n) => v.visit_u64(n.into()),
-            Value::U16(n) => v.visit_u64(n.into()),
-            Value::U32(n) => v.visit_u64(n.into()),
-            Value::U64(n) => v.visit_u64(n),
-            Value::I8(n) => v.visit_i64(n.into()),
-            Value::I16(n) => v.visit_i64(n.into()),
-            Value::I32(n) => v.visit_i64(n.into()),
-            Value::I64(n) => v.visit_i64(n),
-            Value::F32(n) => v.visit_f64(n.into()),
             Value::F64(n) => v.visit_f64(n),
-            Value::Char(c) => v.visit_char(c),
             Value::String(s) => v.visit_string(s),
-            Value::Unit | Value::Option(None) => v.visit_unit(),
-            Value::Option(Some(x)) => v.visit_some(Reader(*x)),
-            Value::Newtype(x) => v.visit_newtype_struct(Reader(*x)),
+            Value::Bool(b) => v.visit_bool(b),
+            Value::Unit => v.visit_unit(),
             Value::Seq(items) => v.visit_seq(Items {
                 items: items.into_iter(),
                 index: 0,
@@ -137,14 +127,13 @@ impl<'de> de::Deserializer<'de> for Reader {
                 entries: map.into_iter(),
                 value: None,
             }),
-            Value::Bytes(b) => v.visit_byte_buf(b),
+            _ => Err(ConfigError::Custom("internal: unexpected value".to_string())),
         }
     }
 
     fn deserialize_option<V: Visitor<'de>>(self, v: V) -> Result<V::Value, ConfigError> {
         match self.0 {
-            Value::Unit | Value::Option(None) => v.visit_none(),
-            Value::Option(Some(x)) => v.visit_some(Reader(*x)),
+            Value::Unit => v.visit_none(),
             other => v.visit_some(Reader(other)),
         }
     }

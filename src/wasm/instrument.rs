@@ -310,28 +310,28 @@ impl InstrumentHandle {
         let mut out = Ok(());
         self.model.run(|m| {
             out = match op {
-                0 => map_in_place(&|t| {
+                0 => map_in_place(|t| {
                     check::temperature("temperaturesK", t)?;
                     m.signal(t)
                 }),
-                1 => map_in_place(&|t| {
+                1 => map_in_place(|t| {
                     check::temperature("temperaturesK", t)?;
                     m.d_signal_dt(t)
                 }),
-                2 => map_in_place(&|s| {
+                2 => map_in_place(|s| {
                     check::positive("signals", s)?;
                     m.temperature(s)
                 }),
                 3 => {
                     let (gain, bg) = self.affine?;
-                    map_in_place(&|t| {
+                    map_in_place(|t| {
                         check::temperature("objectTemperaturesK", t)?;
                         Ok(gain * m.signal(t)? + bg)
                     })
                 }
                 _ => {
                     self.affine?;
-                    map_in_place(&|s| self.object(m, s, "signals"))
+                    map_in_place(|s| self.object(m, s, "signals"))
                 }
             };
             Ok(())

@@ -103,10 +103,11 @@ pub(crate) fn with_u16<R>(f: impl FnOnce(&mut Vec<u16>) -> R) -> R {
 }
 
 /// Applies `op` to every element of f64 scratch buffer 0, in place; the first error stops it
-/// and carries the element index. One out-of-line copy serves every bulk method.
-#[inline(never)]
-pub(crate) fn map_in_place(
-    op: &dyn Fn(f64) -> crate::Result<f64>,
+/// and carries the element index. Generic, so each bulk method gets its own tight loop with the
+/// operation inlined (no indirect call per element).
+#[inline(always)]
+pub(crate) fn map_in_place<F: Fn(f64) -> crate::Result<f64>>(
+    op: F,
 ) -> Result<(), super::error::Fail> {
     with_f64(|b| {
         for (i, v) in b[0].iter_mut().enumerate() {

@@ -319,7 +319,7 @@ impl SpectrumHandle {
                 check::temperature("temperatureK", a)?;
                 let d = matches!(op, Bulk::Derivatives);
                 let f = self.factor;
-                map_in_place(&|x| {
+                map_in_place(|x| {
                     let xs = self.to_si("xs", x)?;
                     Ok(f * if d {
                         s.spectral_d_dt(xs, a)?
@@ -330,7 +330,7 @@ impl SpectrumHandle {
             }
             Bulk::Bands | Bulk::BandDerivatives | Bulk::BandFractions | Bulk::BandTemperatures => {
                 let (lo, hi) = self.band_si(a, b)?;
-                map_in_place(&|t| match op {
+                map_in_place(|t| match op {
                     Bulk::Bands => {
                         check::temperature("temperaturesK", t)?;
                         band::band(s, lo, hi, t)
@@ -353,7 +353,7 @@ impl SpectrumHandle {
                 let xs = self.to_si("x", a)?;
                 let bb = matches!(op, Bulk::BrightnessTemperatures);
                 let f = self.factor;
-                map_in_place(&|v| {
+                map_in_place(|v| {
                     check::positive("values", v)?;
                     if bb {
                         inverse::brightness_temperature(s, xs, v / f)

@@ -170,11 +170,11 @@ pub fn mean_photon_energy(temperature_k: f64) -> f64 {
 #[wasm_bindgen(js_name = statsBulk)]
 pub fn stats_bulk(op: u32, order: f64) -> f64 {
     status(match op {
-        0 => map_in_place(&stats::bose_einstein),
-        1 => map_in_place(&stats::fermi_dirac),
-        2 => map_in_place(&stats::maxwell_boltzmann),
+        0 => map_in_place(stats::bose_einstein),
+        1 => map_in_place(stats::fermi_dirac),
+        2 => map_in_place(stats::maxwell_boltzmann),
         _ => match stats::FdOrder::from_j(order) {
-            Ok(o) => map_in_place(&|eta| stats::fermi_dirac_integral(o, eta)),
+            Ok(o) => map_in_place(|eta| stats::fermi_dirac_integral(o, eta)),
             Err(e) => Err(e.into()),
         },
     })

@@ -48,10 +48,10 @@ pub fn convert_unit_bulk(what: u32, from: &str, to: &str) -> f64 {
     status((|| {
         if what == 0 {
             let (f, t) = (SpectralUnit::parse(from)?, SpectralUnit::parse(to)?);
-            map_in_place(&|v| convert_spectral_checked("values", v, f, t))
+            map_in_place(|v| convert_spectral_checked("values", v, f, t))
         } else {
             let (f, t) = (TemperatureUnit::parse(from)?, TemperatureUnit::parse(to)?);
-            map_in_place(&|v| convert_temperature("values", v, f, t))
+            map_in_place(|v| convert_temperature("values", v, f, t))
         }
     })())
 }
