@@ -313,6 +313,7 @@ fn list(items: &[&str]) -> String {
 /// "a number" for serde's "f64", and so on.
 fn expected(e: &str) -> String {
     match e {
+        _ if e == SPECTRAL_NAMES => "a spectral unit name (a string such as \"um\")".to_string(),
         "f64" | "f32" | "i64" | "u64" | "u32" | "usize" => "a number".to_string(),
         "a sequence" => "an array of numbers".to_string(),
         _ if e.starts_with("struct ") || e.starts_with("a map") || e.contains("object") => {

@@ -339,12 +339,7 @@ export function optionalConfig(value, name) {
 /** Test-only access (not part of the typed API): memory and table sizes, live objects. */
 export const testing = Object.freeze({
   memoryBytes: () => (wasm === null ? 0 : wasm.memory.buffer.byteLength),
-  tableSize: () => {
-    if (wasm === null) return 0;
-    const t = Object.values(wasm).find((x) => x instanceof WebAssembly.Table && x !== wasm.__wbindgen_export_table);
-    const ext = wasm.__wbindgen_externrefs ?? t;
-    return ext ? ext.length : 0;
-  },
+  tableSize: () => (wasm === null ? 0 : wasm.__wbindgen_externrefs.length),
   liveObjects: () => (wasm === null ? 0 : glue.qbLiveObjects()),
   coreCodes: () => glue.qbCoreCodes().split(','),
 });
