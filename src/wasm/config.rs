@@ -127,7 +127,9 @@ impl<'de> de::Deserializer<'de> for Reader {
                 entries: map.into_iter(),
                 value: None,
             }),
-            _ => Err(ConfigError::Custom("internal: unexpected value".to_string())),
+            _ => Err(ConfigError::Custom(
+                "internal: unexpected value".to_string(),
+            )),
         }
     }
 

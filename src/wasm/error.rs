@@ -123,6 +123,20 @@ fn fields(e: &Error) -> ([&'static str; 2], [f64; 2]) {
     }
 }
 
+/// The plain data the facade receives for core error `e` (for the wasm-bindgen-test suites, which
+/// check the facade's message templates against the core's `Display`; not exported).
+pub fn pending_of(e: Error, index: Option<usize>) -> JsValue {
+    let (texts, numbers) = fields(&e);
+    to_js(&Pending {
+        code: e.code(),
+        texts: [String::from(texts[0]), String::from(texts[1])],
+        numbers,
+        index,
+        message: None,
+    })
+    .unwrap_or(JsValue::UNDEFINED)
+}
+
 /// Hands over (and clears) the stored error: `{ code, texts, numbers, index?, message? }`, or
 /// `undefined` when none is stored. Called by the facade after a sentinel result.
 #[wasm_bindgen(js_name = qbTakeError)]

@@ -51,28 +51,20 @@ pub fn scratch(kind: u32, slot: u32, n: u32) -> u32 {
     match kind {
         KIND_F64 => F64.with(|b| {
             let mut b = b.borrow_mut();
-            match b.get_mut(s) {
-                Some(v) => {
-                    if fit(v, n) {
-                        addr(v.as_mut_ptr() as usize)
-                    } else {
-                        0
-                    }
-                }
-                None => 0,
+            let Some(v) = b.get_mut(s) else { return 0 };
+            if fit(v, n) {
+                addr(v.as_mut_ptr() as usize)
+            } else {
+                0
             }
         }),
         KIND_F32 => F32.with(|b| {
             let mut b = b.borrow_mut();
-            match b.get_mut(s) {
-                Some(v) => {
-                    if fit(v, n) {
-                        addr(v.as_mut_ptr() as usize)
-                    } else {
-                        0
-                    }
-                }
-                None => 0,
+            let Some(v) = b.get_mut(s) else { return 0 };
+            if fit(v, n) {
+                addr(v.as_mut_ptr() as usize)
+            } else {
+                0
             }
         }),
         KIND_U16 if s == 0 => U16.with(|v| {

@@ -101,13 +101,24 @@ function jsName(arg) {
     .join('.');
 }
 
+/** Codes whose first text field is an argument name. */
+const ARG_CODES = new Set([
+  'NON_FINITE',
+  'NON_POSITIVE_TEMPERATURE',
+  'NON_POSITIVE_SPECTRAL',
+  'NON_POSITIVE',
+  'OUT_OF_RANGE',
+  'NOT_INCREASING',
+  'TOO_LARGE',
+]);
+
 /** The error of a stored failure `p` ({ code, texts, numbers, index?, message? }). */
 export function fromPending(p) {
   if (p === undefined || p === null) {
     return new QuantabandError('UNSUPPORTED', 'internal: a call failed without an error');
   }
   if (typeof p.message === 'string') return new QuantabandError(p.code, p.message, p.index);
-  const texts = [jsName(p.texts[0]), p.texts[1]];
+  const texts = ARG_CODES.has(p.code) ? [jsName(p.texts[0]), p.texts[1]] : p.texts;
   const template = MESSAGES[p.code];
   let message = template ? template(texts, p.numbers) : p.code;
   if (p.index !== undefined) message += ` (at index ${p.index})`;
