@@ -2,7 +2,7 @@
 // inverse and derivative, and whole-frame conversion. Wraps QbCalibration
 // (src/wasm/calibration.rs).
 
-import { QuantabandError, disposed, typedArrayTag, unreadable, wrongType } from './errors.js';
+import { QuantabandError, disposed, typedArrayTag, wrongType } from './errors.js';
 import { _instrumentHandle as instrumentHandle } from './instrument.js';
 import {
   F32,
@@ -11,6 +11,7 @@ import {
   U16,
   bulk,
   config,
+  configKeeping,
   fill,
   glue,
   num,
@@ -167,23 +168,19 @@ export class CalibrationCurve {
     const kind = tag === undefined ? undefined : FRAME_INPUT[tag];
     if (kind === undefined) throw wrongType('raw', 'a Uint16Array, Float32Array or Float64Array', raw);
     const [src, n] = numbers(raw, 'raw');
-    // Split the options: the arrays stay here, the rest is read by the module.
+    // Split the options: the arrays stay here (read once, not copied), the rest is read by the
+    // module (which sees `true` in their place).
     let settings = {};
     let emissivity;
     let out;
     if (options !== undefined) {
-      settings = config(options, 'options');
-      if (settings === null || typeof settings !== 'object' || Array.isArray(settings)) {
+      const [copy, kept] = configKeeping(options, 'options', ['emissivity', 'out']);
+      if (copy === null || typeof copy !== 'object' || Array.isArray(copy) || ArrayBuffer.isView(copy)) {
         throw wrongType('options', 'an object', options);
       }
-      try {
-        emissivity = options.emissivity;
-        out = options.out;
-      } catch (e) {
-        throw unreadable('options', e);
-      }
-      if (settings.emissivity !== undefined) settings.emissivity = true;
-      if (settings.out !== undefined) settings.out = true;
+      settings = copy;
+      emissivity = kept.emissivity;
+      out = kept.out;
     }
     const f64Out = settings.output === 'float64';
     const target = output(out, n, f64Out ? 'Float64Array' : 'Float32Array', 'options.out');

@@ -277,13 +277,28 @@ const MAX_DEPTH = 8;
  */
 export function config(value, name) {
   try {
-    return copy(value, name, 0);
+    return copy(value, name, 0, null);
   } catch (e) {
     throw unreadable(name, e);
   }
 }
 
-function copy(v, path, depth) {
+/**
+ * As config(), but the top-level fields named in `keep` (arrays the caller reads itself, such
+ * as a frame's output buffer) are not copied: their values are returned in `kept` as given, and
+ * the copy holds `true` in their place (so the module still checks the key is known).
+ * Returns [copy, kept].
+ */
+export function configKeeping(value, name, keep) {
+  const kept = {};
+  try {
+    return [copy(value, name, 0, { keep, kept }), kept];
+  } catch (e) {
+    throw unreadable(name, e);
+  }
+}
+
+function copy(v, path, depth, top) {
   switch (typeof v) {
     case 'number':
     case 'string':
@@ -316,7 +331,7 @@ function copy(v, path, depth) {
       items[i] = x;
     }
     if (allNumbers) return Float64Array.from(items);
-    for (let i = 0; i < len; i++) items[i] = copy(items[i], `${path}[${i}]`, depth + 1);
+    for (let i = 0; i < len; i++) items[i] = copy(items[i], `${path}[${i}]`, depth + 1, null);
     return items;
   }
   const proto = Object.getPrototypeOf(v);
@@ -325,7 +340,15 @@ function copy(v, path, depth) {
   }
   const out = {};
   for (const key of Object.keys(v)) {
-    const x = copy(v[key], `${path}.${key}`, depth + 1);
+    if (top !== null && top.keep.includes(key)) {
+      const x = v[key];
+      if (x !== undefined) {
+        top.kept[key] = x;
+        out[key] = true;
+      }
+      continue;
+    }
+    const x = copy(v[key], `${path}.${key}`, depth + 1, null);
     if (x !== undefined) out[key] = x;
   }
   return out;
