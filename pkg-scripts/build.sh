@@ -8,20 +8,20 @@
 #                browsers run simd128, and the frame conversion is vectorised with it)
 #   --opt=LEVEL  wasm-opt optimisation level (default -Oz, the smallest; see DEVELOPERS.md,
 #                "Build, package and test matrix")
-#   --rust-opt=L rustc opt-level for this build only (default: the `wasm` profile's, "s"); 3 is
-#                faster on some calls but does not fit the size budget (CARGO_PROFILE_WASM_OPT_LEVEL,
-#                Cargo.toml untouched)
+#   --rust-opt=L rustc opt-level for this build only (default: the `wasm` profile's; see
+#                DEVELOPERS.md size notes) (CARGO_PROFILE_WASM_OPT_LEVEL, Cargo.toml untouched)
 #   --no-page    skip `node www/build.mjs`
 #   --size-report  print where the .wasm bytes go (largest functions, bytes per module); also
 #                printed automatically when the size budget is exceeded
 #   --serve      after building, serve dist/ on http://127.0.0.1:PORT/ (default 8765) until Ctrl-C
 #
 # Steps: install.sh -> cargo rustc --crate-type cdylib --profile wasm --target wasm32-unknown-unknown
-# --no-default-features --features wasm (the whole API, no_std: src/wasm/runtime.rs) ->
-# wasm-bindgen --target web -> wasm-opt (binaryen from node_modules, with exactly the features the
-# module declares) -> pkg/package.json + Node entry -> size budget (tests/size/check.mjs: 150 KB
-# raw / 60 KB gzip, fails when over) -> load check in Node -> node www/build.mjs (the page) ->
-# prints the paths.
+# --features wasm (the whole API, with std) -> wasm-bindgen --target web -> wasm-opt (binaryen from
+# node_modules, with exactly the features the module declares) -> the JavaScript facade
+# (pkg-scripts/lib/assemble-js.mjs: src/wasm/js/ -> pkg/lib/, pkg/quantaband.js, pkg/quantaband.d.ts;
+# the glue becomes pkg/quantaband_glue.js) -> pkg/package.json + Node entry -> size budget
+# (tests/size/check.mjs: 320 KB raw / 128 KB gzip, fails when over) -> load check in Node ->
+# node www/build.mjs (the page) -> prints the paths.
 # Environment: QB_SKIP_INSTALL=1 skips install.sh (test.sh sets it after running it once).
 set -euo pipefail
 cd "$(dirname "${BASH_SOURCE[0]}")/.."
@@ -46,7 +46,7 @@ for arg in "$@"; do
   esac
 done
 case "$OPT" in -O|-O1|-O2|-O3|-O4|-Os|-Oz) ;; *) echo "build.sh: bad --opt '$OPT'" >&2; exit 2 ;; esac
-case "${CARGO_PROFILE_WASM_OPT_LEVEL:-s}" in 0|1|2|3|s|z) ;; *) echo "build.sh: bad --rust-opt" >&2; exit 2 ;; esac
+case "${CARGO_PROFILE_WASM_OPT_LEVEL:-3}" in 0|1|2|3|s|z) ;; *) echo "build.sh: bad --rust-opt" >&2; exit 2 ;; esac
 
 say() { printf '[build] %s\n' "$*"; }
 now() { date +%s.%N; }
@@ -78,9 +78,9 @@ if ! flock -n 9; then
 fi
 
 t="$(now)"
-say "cargo rustc --profile wasm --lib --crate-type cdylib --target wasm32-unknown-unknown --no-default-features --features wasm (simd128: $([ "$SIMD" = 1 ] && echo on || echo off), opt-level ${CARGO_PROFILE_WASM_OPT_LEVEL:-s from Cargo.toml})"
+say "cargo rustc --profile wasm --lib --crate-type cdylib --target wasm32-unknown-unknown --features wasm (simd128: $([ "$SIMD" = 1 ] && echo on || echo off), opt-level ${CARGO_PROFILE_WASM_OPT_LEVEL:-from Cargo.toml})"
 # The crate is an rlib (Cargo.toml); the cdylib is made here only.
-cargo rustc --profile wasm --lib --crate-type cdylib --target wasm32-unknown-unknown --no-default-features --features wasm
+cargo rustc --profile wasm --lib --crate-type cdylib --target wasm32-unknown-unknown --features wasm
 say "cargo rustc: $(since "$t"), $(stat -c %s "$RAW_WASM") B"
 
 t="$(now)"
@@ -99,6 +99,7 @@ node_modules/.bin/wasm-opt "$OPT" "${FEATURES[@]}" "$BG" -o "$BG.opt"
 mv "$BG.opt" "$BG"
 say "wasm-opt $OPT ${FEATURES[*]}: $(since "$t"), $before -> $(stat -c %s "$BG") B"
 
+node pkg-scripts/lib/assemble-js.mjs "$STAGE"
 node pkg-scripts/lib/write-pkg-json.mjs "$STAGE"
 rm -rf pkg
 mv "$STAGE" pkg
@@ -123,6 +124,8 @@ if [ "$SIZE_REPORT" = 1 ]; then size_report; fi
 node --input-type=module -e "
   const m = await import('$ROOT/pkg/node.js');
   const n = Object.keys(m).length;
+  const v = new m.Spectrum({ unit: 'um' }).point(10, 300);
+  if (!(Math.abs(v / 9.924033330070695 - 1) < 1e-12)) throw new Error('pkg/node.js: L(10 um, 300 K) = ' + v);
   console.log('[build] pkg/node.js loads in Node ' + process.version + ': ' + n + ' exports');
 "
 

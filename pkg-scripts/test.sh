@@ -146,17 +146,15 @@ step clippy-host cargo clippy --all-targets -- -D warnings
 # The crate is an rlib (the package script builds the cdylib), so the no_std lib lints directly.
 step clippy-no-std cargo clippy --lib --no-default-features -- -D warnings
 step clippy-no-std-serde cargo clippy --lib --no-default-features --features serde -- -D warnings
-# The bindings as the wasm-bindgen-test suites build them (std), and as the package is built
-# (no_std, with src/wasm/runtime.rs: allocator and panic handler).
+# The bindings (the package and the wasm-bindgen-test suites both build them with std).
 step clippy-wasm cargo clippy --lib --features wasm --target wasm32-unknown-unknown -- -D warnings
-step clippy-wasm-pkg cargo clippy --lib --no-default-features --features wasm --profile wasm \
-  --target wasm32-unknown-unknown -- -D warnings
 step no-std-thumbv7em "cargo build --lib --no-default-features --target thumbv7em-none-eabihf && cargo build --lib --no-default-features --features serde --target thumbv7em-none-eabihf"
 step no-std-wasm32 cargo build --lib --no-default-features --target wasm32-unknown-unknown
 # A no_std crate that depends on quantaband with default-features = false: checks, tests on the
 # host and builds for the bare-metal target (proves dependents are not forced to build a cdylib).
 step no-std-dependent "cargo test --manifest-path tests/no_std_dependent/Cargo.toml --target-dir target/no-std-dependent && cargo build --manifest-path tests/no_std_dependent/Cargo.toml --target-dir target/no-std-dependent --target thumbv7em-none-eabihf"
-step cargo-test cargo test
+# serde on: the definition round trips (tests/definition_serde.rs) and the serde doctests.
+step cargo-test cargo test --features serde
 step cargo-doc "RUSTDOCFLAGS='-D warnings' cargo doc --no-deps"
 
 if [ -f tests/wasm_node.rs ]; then

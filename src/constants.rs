@@ -72,6 +72,11 @@ pub const ZETA_3: f64 = 1.202_056_903_159_594_3;
 /// fixed point T_X, the shift is δT ≈ T·(T/T_X − 1)·δc2/c2 (Wien approximation): relative to the
 /// gold point (1337.33 K) about 0.016 K at 2000 K and 0.060 K at 3000 K.
 #[derive(Debug, Clone, Copy, PartialEq, Eq, Default)]
+#[cfg_attr(
+    feature = "serde",
+    derive(serde::Serialize, serde::Deserialize),
+    serde(rename_all = "camelCase")
+)]
 pub enum C2Convention {
     /// c2 = hc/k from CODATA 2018 ([`C2`]).
     #[default]

@@ -129,6 +129,16 @@ pub enum Error {
         /// What is unsupported and what is.
         what: &'static str,
     },
+    /// An input with more elements than the function accepts (a documented limit that keeps
+    /// every call short and its memory bounded). Code `TOO_LARGE`.
+    TooLarge {
+        /// Argument name.
+        arg: &'static str,
+        /// The largest accepted number of elements.
+        limit: usize,
+        /// The number given.
+        got: usize,
+    },
 }
 
 impl Error {
@@ -158,6 +168,7 @@ impl Error {
             Error::NotConverged { .. } => "NOT_CONVERGED",
             Error::UnknownUnit { .. } => "UNKNOWN_UNIT",
             Error::Unsupported { .. } => "UNSUPPORTED",
+            Error::TooLarge { .. } => "TOO_LARGE",
         }
     }
 
@@ -179,6 +190,7 @@ impl Error {
         "NOT_CONVERGED",
         "UNKNOWN_UNIT",
         "UNSUPPORTED",
+        "TOO_LARGE",
     ];
 }
 
@@ -226,6 +238,10 @@ impl fmt::Display for Error {
             Error::NotConverged { what } => write!(f, "did not converge: {what}"),
             Error::UnknownUnit { expected } => write!(f, "unknown unit; expected a {expected}"),
             Error::Unsupported { what } => write!(f, "unsupported: {what}"),
+            Error::TooLarge { arg, limit, got } => write!(
+                f,
+                "{arg} has {got} elements; at most {limit} are accepted"
+            ),
         }
     }
 }

@@ -76,11 +76,15 @@ pub mod thermometry;
 // User-unit parsing and conversion (shared by the binding layer and the page).
 pub mod units;
 
+// Definitions in user units (spectrum settings, instrument models, conditions), serialisable.
+pub mod definition;
+
 #[cfg(feature = "alloc")]
 extern crate alloc;
 
-// JavaScript binding layer.
+// JavaScript binding layer (internal: the public JavaScript API is the package's facade).
 #[cfg(feature = "wasm")]
+#[doc(hidden)]
 pub mod wasm;
 
 pub use error::{Error, Result};

@@ -73,6 +73,11 @@ const K_PHOTON_FREQ: f64 = 2.0 / (SPEED_OF_LIGHT_C * SPEED_OF_LIGHT_C);
 /// assert!((per_inv_m / (per_m * 1e-10) - 1.0).abs() < 1e-14);
 /// ```
 #[derive(Debug, Clone, Copy, PartialEq, Eq, Default, Hash)]
+#[cfg_attr(
+    feature = "serde",
+    derive(serde::Serialize, serde::Deserialize),
+    serde(rename_all = "camelCase")
+)]
 pub enum SpectralVariable {
     /// Vacuum wavelength λ in m; densities are per metre of wavelength.
     #[default]
@@ -127,6 +132,11 @@ impl SpectralVariable {
 /// assert!((p * 6.626_070_15e-34 * 299_792_458.0 / 10e-6 / e - 1.0).abs() < 1e-14);
 /// ```
 #[derive(Debug, Clone, Copy, PartialEq, Eq, Default, Hash)]
+#[cfg_attr(
+    feature = "serde",
+    derive(serde::Serialize, serde::Deserialize),
+    serde(rename_all = "camelCase")
+)]
 pub enum Quantity {
     /// Radiant energy: W (per m², sr and spectral unit as applicable).
     #[default]
@@ -148,6 +158,11 @@ pub enum Quantity {
 /// assert!((m / 459.300_327_953_938_8 - 1.0).abs() < 1e-14);
 /// ```
 #[derive(Debug, Clone, Copy, PartialEq, Eq, Default, Hash)]
+#[cfg_attr(
+    feature = "serde",
+    derive(serde::Serialize, serde::Deserialize),
+    serde(rename_all = "camelCase")
+)]
 pub enum Geometry {
     /// Radiance, per steradian (W·m⁻²·sr⁻¹ or photons·s⁻¹·m⁻²·sr⁻¹, per spectral unit).
     #[default]
@@ -172,6 +187,11 @@ pub enum Geometry {
 /// assert!((v / 4.995_874_060_375_493e26 - 1.0).abs() < 1e-14);
 /// ```
 #[derive(Debug, Clone, Copy, PartialEq)]
+#[cfg_attr(
+    feature = "serde",
+    derive(serde::Serialize, serde::Deserialize),
+    serde(rename_all = "camelCase", deny_unknown_fields, default)
+)]
 pub struct Spectrum {
     /// Spectral variable of the argument `x` and of the density.
     pub variable: SpectralVariable,
@@ -726,13 +746,17 @@ pub(crate) fn ln_one_minus_exp_neg(x: f64, lnx: f64) -> f64 {
 /// ε n² g · K·v^p/(eˣ − 1), or its T-derivative; inputs validated.
 fn density(spec: &Spectrum, v: f64, t: f64, d_dt: bool) -> f64 {
     let kn = spec.kernel();
-    let scale = spec.scale();
-    let (x, lnx) = reduced_x(kn, v, t);
-    // Direct evaluation when every intermediate is a normal number.
+    // Direct evaluation when every intermediate is a normal number: x as `reduced_x` forms it
+    // on its direct path, and no logarithm at all (they are needed by the fallback only).
+    let (x, denom) = if kn.inverse {
+        (kn.q / (v * t), v * t)
+    } else {
+        (kn.q * v / t, kn.q * v)
+    };
     let vp = float::powi(v, kn.p);
-    if ok(vp) && x < 700.0 && ok(x) {
+    if ok(vp) && x < 700.0 && ok(x) && ok(denom) {
         let em1 = float::expm1(x);
-        let mut val = scale * kn.k * vp / em1;
+        let mut val = spec.scale() * kn.k * vp / em1;
         if d_dt {
             val = val * (x / t) / (-float::expm1(-x));
         }
@@ -741,6 +765,7 @@ fn density(spec: &Spectrum, v: f64, t: f64, d_dt: bool) -> f64 {
         }
     }
     // Logarithmic evaluation: correct tiny or huge values, 0 or ∞ only outside the f64 range.
+    let (x, lnx) = reduced_x(kn, v, t);
     let mut lnv = spec.ln_scaled(kn.k) + f64::from(kn.p) * float::ln(v) - ln_expm1(x, lnx);
     if d_dt {
         lnv += lnx - float::ln(t) - ln_one_minus_exp_neg(x, lnx);

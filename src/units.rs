@@ -52,7 +52,7 @@ use crate::error::{self, Error, Result};
 const HC: f64 = 1.986_445_857_148_928_6e-25;
 
 /// The accepted spectral unit names, for error messages.
-const SPECTRAL_NAMES: &str =
+pub(crate) const SPECTRAL_NAMES: &str =
     "spectral unit: m, mm, um, nm, m-1, cm-1, Hz, kHz, MHz, GHz, THz, J, eV or meV";
 /// The accepted temperature unit names, for error messages.
 const TEMPERATURE_NAMES: &str = "temperature unit: K, degC, degF or degR";
@@ -303,8 +303,9 @@ impl SpectralUnit {
     /// m/d = [`SpectralUnit::si_factor`], with d an exact power of ten (1, 1e3, 1e6 or 1e9).
     ///
     /// # Errors
-    /// [`Error::NonFinite`] for NaN/±∞, [`Error::NonPositiveSpectral`] for `value` ≤ 0 or for a
-    /// positive value whose SI form underflows to 0 (`arg` names the argument).
+    /// [`Error::NonFinite`] for NaN/±∞, [`Error::NonPositiveSpectral`] for `value` ≤ 0,
+    /// [`Error::OutOfRange`] (reporting `value` as given) for a positive value whose SI form
+    /// underflows to 0 (`arg` names the argument).
     ///
     /// # Accuracy
     /// Correctly rounded for the decimal units (one exact-operand multiplication or division);
@@ -322,8 +323,8 @@ impl SpectralUnit {
         let v = error::spectral(arg, value)?;
         let (mul, div) = self.scale();
         let si = if div == 1.0 { v * mul } else { v * mul / div };
-        // A positive input below ~1e-300 nm can underflow; report it as the 0 it became.
-        error::spectral(arg, si)
+        // A positive input below ~1e-300 nm can underflow: report the value the caller gave.
+        in_range(arg, value, si)
     }
 
     /// Converts a coordinate from the SI base unit of this unit's kind into this unit.
@@ -400,6 +401,55 @@ pub fn convert_spectral(
         let c = (k * m_from * d_to) / (d_from * m_to);
         v * c
     })
+}
+
+/// The range reported when a positive, finite coordinate converts to 0 or ∞.
+const CONVERTIBLE: &str = "values whose converted form is a positive finite f64";
+
+/// `converted` if it is positive and finite, else `OutOfRange` reporting the `value` the caller
+/// gave (not the 0 or ∞ it became).
+fn in_range(arg: &'static str, value: f64, converted: f64) -> Result<f64> {
+    if converted > 0.0 && converted.is_finite() {
+        Ok(converted)
+    } else {
+        Err(Error::OutOfRange {
+            arg,
+            value,
+            range: CONVERTIBLE,
+        })
+    }
+}
+
+/// [`convert_spectral`] for values that must stay usable: a result that underflows to 0 or
+/// overflows to ∞ is an error reporting the value as given.
+///
+/// # Formula
+/// As [`convert_spectral`].
+///
+/// # Errors
+/// Those of [`convert_spectral`]; [`Error::OutOfRange`] with `value` when the result is 0 or ∞.
+///
+/// # Accuracy
+/// As [`convert_spectral`].
+///
+/// # Examples
+/// ```
+/// use quantaband::units::{convert_spectral_checked, SpectralUnit};
+/// let e = convert_spectral_checked("x", 1e-320, SpectralUnit::Nanometre, SpectralUnit::Metre);
+/// assert_eq!(e.unwrap_err().code(), "OUT_OF_RANGE");
+/// let m = convert_spectral_checked("x", 10.0, SpectralUnit::Micrometre, SpectralUnit::Metre).unwrap();
+/// assert!((m / 1e-5 - 1.0).abs() <= 2.3e-16);
+/// ```
+///
+/// # References
+/// As [`convert_spectral`].
+pub fn convert_spectral_checked(
+    arg: &'static str,
+    value: f64,
+    from: SpectralUnit,
+    to: SpectralUnit,
+) -> Result<f64> {
+    in_range(arg, value, convert_spectral(arg, value, from, to)?)
 }
 
 /// A temperature unit (absolute scale or difference, depending on the function used).
@@ -827,11 +877,12 @@ mod tests {
         assert!(rel(lam, 1.239_841_984_332_002_6e-306) < 1e-14);
         // A nanometre value whose SI form underflows is reported, not silently zero.
         assert_eq!(
-            SpectralUnit::Nanometre
-                .to_si("x", 1e-320)
-                .unwrap_err()
-                .code(),
-            "NON_POSITIVE_SPECTRAL"
+            SpectralUnit::Nanometre.to_si("x", 1e-320).unwrap_err(),
+            Error::OutOfRange {
+                arg: "x",
+                value: 1e-320,
+                range: CONVERTIBLE
+            }
         );
     }
 

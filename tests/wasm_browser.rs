@@ -21,7 +21,7 @@ fn runs_in_a_window() {
     let window = js_sys::Reflect::get(&global, &"window".into()).unwrap();
     assert!(window.is_object());
     assert_eq!(
-        quantaband::wasm::convert_spectral(1.0, "THz".into(), "GHz".into()).unwrap(),
+        quantaband::wasm::units::convert_unit(0, 1.0, "THz", "GHz"),
         1000.0
     );
 }

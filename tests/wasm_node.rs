@@ -1,5 +1,7 @@
-//! wasm-bindgen-test suite run in Node: the bindings as Rust sees them, including the thrown
-//! `QuantabandError` values and the bulk functions.
+//! wasm-bindgen-test suite run in Node: the WebAssembly exports as the facade uses them (errors
+//! out of band, configuration read through the core's serde types, bulk calls on the scratch
+//! buffers, live-object counting), and the facade's message templates against the core's
+//! `Display`.
 //!
 //! Run: `CARGO_TARGET_WASM32_UNKNOWN_UNKNOWN_RUNNER=wasm-bindgen-test-runner cargo test
 //! --target wasm32-unknown-unknown --features wasm --test wasm_node`.
@@ -8,264 +10,228 @@
 //! CODATA 2018 exact h, c, e) and the shared mpmath tables in `tests/data/` (see each check).
 #![cfg(target_arch = "wasm32")]
 
-use js_sys::Reflect;
-use wasm_bindgen::{JsCast, JsValue};
+use js_sys::{Float64Array, Object, Reflect};
+use wasm_bindgen::prelude::*;
+use wasm_bindgen::JsCast;
 use wasm_bindgen_test::*;
 
-use quantaband::wasm as qb;
+use quantaband::wasm::{calibration, error, instrument, scratch, spectrum, stats, testing, units};
+use quantaband::Error;
 
-/// The `code` of a thrown QuantabandError, checking its class-independent shape on the way.
-fn code_of(err: JsValue) -> String {
-    let e: &js_sys::Error = err.dyn_ref().expect("thrown value is an Error");
-    assert_eq!(String::from(e.name()), "QuantabandError");
-    let msg = String::from(e.message());
-    assert!(!msg.is_empty());
-    Reflect::get(&err, &"code".into())
-        .unwrap()
-        .as_string()
-        .expect("code is a string")
+#[wasm_bindgen(module = "/src/wasm/js/errors.js")]
+extern "C" {
+    /// The facade's builder of a QuantabandError from the stored error's data.
+    #[wasm_bindgen(js_name = fromPending)]
+    fn from_pending(p: JsValue) -> JsValue;
+    #[wasm_bindgen(js_name = ERROR_CODES)]
+    static ERROR_CODES: JsValue;
 }
 
-fn index_of(err: &JsValue) -> Option<f64> {
-    Reflect::get(err, &"index".into()).unwrap().as_f64()
+fn get(o: &JsValue, k: &str) -> JsValue {
+    Reflect::get(o, &k.into()).unwrap()
+}
+
+/// The stored error (after a sentinel result): its code and the facade's message.
+fn taken() -> (String, String) {
+    let e = from_pending(error::take_error());
+    (
+        get(&e, "code").as_string().unwrap(),
+        get(&e, "message").as_string().unwrap(),
+    )
 }
 
 fn rel(a: f64, b: f64) -> f64 {
     ((a - b) / b).abs()
 }
 
-#[wasm_bindgen_test]
-fn spectral_conversion_definitions() {
-    assert_eq!(
-        qb::convert_spectral(10.0, "um".into(), "cm-1".into()).unwrap(),
-        1000.0
-    );
-    assert_eq!(
-        qb::convert_spectral(500.0, "nm".into(), "\u{b5}m".into()).unwrap(),
-        0.5
-    );
-    // c exact: 1 µm ↔ 299.792458 THz; CODATA 2018 hc/e = 1.239 841 984…e-6 eV·m.
-    assert!(
-        rel(
-            qb::convert_spectral(1.0, "um".into(), "THz".into()).unwrap(),
-            299.792_458
-        ) < 1e-15
-    );
-    assert!(
-        rel(
-            qb::convert_spectral(1.0, "eV".into(), "nm".into()).unwrap(),
-            1_239.841_984_332_002_6
-        ) < 1e-15
-    );
-    assert_eq!(
-        qb::spectral_unit_kind("meV".into()).unwrap(),
-        "photonEnergy"
-    );
-}
-
-#[wasm_bindgen_test]
-fn temperature_conversion_definitions() {
-    assert_eq!(
-        qb::convert_temperature(0.0, "degC".into(), "K".into()).unwrap(),
-        273.15
-    );
-    assert!(
-        rel(
-            qb::convert_temperature(212.0, "degF".into(), "K".into()).unwrap(),
-            373.15
-        ) < 1e-15
-    );
-    assert_eq!(
-        qb::convert_temperature_difference(9.0, "degF".into(), "K".into()).unwrap(),
-        5.0
-    );
-}
-
-#[wasm_bindgen_test]
-fn errors_are_quantaband_errors_with_codes() {
-    assert_eq!(
-        code_of(qb::convert_spectral(1.0, "furlong".into(), "nm".into()).unwrap_err()),
-        "UNKNOWN_UNIT"
-    );
-    assert_eq!(
-        code_of(qb::convert_spectral(0.0, "nm".into(), "um".into()).unwrap_err()),
-        "NON_POSITIVE_SPECTRAL"
-    );
-    assert_eq!(
-        code_of(qb::convert_spectral(f64::NAN, "nm".into(), "um".into()).unwrap_err()),
-        "NON_FINITE"
-    );
-    assert_eq!(
-        code_of(qb::convert_temperature(-300.0, "degC".into(), "K".into()).unwrap_err()),
-        "NON_POSITIVE_TEMPERATURE"
-    );
-    // still working afterwards
-    assert_eq!(
-        qb::convert_spectral(10.0, "um".into(), "cm-1".into()).unwrap(),
-        1000.0
-    );
-}
-
-#[wasm_bindgen_test]
-fn bulk_errors_carry_the_index() {
-    let err =
-        qb::convert_spectral_array(&[1.0, 2.0, -1.0, 0.0], "um".into(), "nm".into()).unwrap_err();
-    assert_eq!(index_of(&err), Some(2.0));
-    let msg = String::from(err.dyn_ref::<js_sys::Error>().unwrap().message());
-    assert!(msg.contains("index 2"), "{msg}");
-    assert_eq!(code_of(err), "NON_POSITIVE_SPECTRAL");
-    let ok = qb::convert_spectral_array(&[1.0, 2.0, 4.0], "um".into(), "cm-1".into()).unwrap();
-    assert_eq!(ok, vec![10_000.0, 5_000.0, 2_500.0]);
-}
-
-#[wasm_bindgen_test]
-fn constants_object() {
-    let c = qb::constants();
-    let get = |k: &str| Reflect::get(&c, &k.into()).unwrap().as_f64().unwrap();
-    assert_eq!(get("planckH"), 6.626_070_15e-34); // exact (SI 2019)
-    assert_eq!(get("c2Its90"), 0.014_388); // ITS-90
-    assert!(rel(get("stefanBoltzmannSigma"), 5.670_374_419e-8) < 1e-9); // CODATA 2018 table
-}
-
-/// A plain JS object from (key, value) pairs.
+/// A plain object from (key, value) pairs.
 fn obj(pairs: &[(&str, JsValue)]) -> JsValue {
-    let o = js_sys::Object::new();
+    let o = Object::new();
     for (k, v) in pairs {
         Reflect::set(&o, &(*k).into(), v).unwrap();
     }
     o.into()
 }
 
-fn um() -> JsValue {
-    obj(&[("unit", "um".into())])
+/// A view of `n` f64 at byte address `p` of the module's memory.
+fn view(p: u32, n: u32) -> Float64Array {
+    let mem: js_sys::WebAssembly::Memory = wasm_bindgen::memory().unchecked_into();
+    Float64Array::new_with_byte_offset_and_length(&mem.buffer(), p, n)
 }
 
 #[wasm_bindgen_test]
-fn spectrum_and_band_values() {
-    // mpmath (tests/data/gen_core.py, 40 digits): L_λ(10 µm, 300 K) = 9.924 033 330 070 695e6
-    // W·m⁻²·sr⁻¹·m⁻¹; 8–14 µm band radiance at 300 K = 54.933 461 376 839 69 W·m⁻²·sr⁻¹.
-    let l = qb::spectral_density(um(), 10.0, 300.0).unwrap();
-    assert!(rel(l, 9.924_033_330_070_695e6) < 1e-13);
-    let b = qb::band_integral(um(), 8.0, 14.0, 300.0).unwrap();
-    assert!(rel(b, 54.933_461_376_839_69) < 1e-12);
-    // the same band given in cm⁻¹
-    let cm = obj(&[("unit", "cm-1".into())]);
-    let b2 = qb::band_integral(cm, 1e4 / 14.0, 1e4 / 8.0, 300.0).unwrap();
-    assert!(rel(b2, 54.933_461_376_839_69) < 1e-12);
-    // inverse back to 300 K
-    let t = qb::brightness_temperature(um(), 10.0, 9.924_033_330_070_695e6).unwrap();
-    assert!(rel(t, 300.0) < 1e-13);
+fn conversions_are_definitions() {
+    assert_eq!(units::convert_unit(0, 10.0, "um", "cm-1"), 1000.0);
+    // c exact: 1 µm ↔ 299.792458 THz; CODATA 2018 hc/e = 1.239 841 984…e-6 eV·m.
+    assert!(rel(units::convert_unit(0, 1.0, "um", "THz"), 299.792_458) < 1e-15);
+    assert!(
+        rel(
+            units::convert_unit(0, 1.0, "eV", "nm"),
+            1_239.841_984_332_002_6
+        ) < 1e-15
+    );
+    assert_eq!(units::convert_unit(1, 0.0, "degC", "K"), 273.15);
+    assert_eq!(units::convert_unit(2, 9.0, "degF", "K"), 5.0);
+    assert_eq!(
+        units::spectral_unit_kind("meV").as_deref(),
+        Some("photonEnergy")
+    );
 }
 
 #[wasm_bindgen_test]
-fn bulk_spectrum_grid_is_row_major() {
-    let xs = [1.0, 4.0, 10.0];
-    let ts = [300.0, 1000.0];
-    let g = qb::spectral_density_grid(um(), &xs, &ts).unwrap();
-    assert_eq!(g.len(), 6);
-    for (i, &t) in ts.iter().enumerate() {
-        for (j, &x) in xs.iter().enumerate() {
-            assert_eq!(
-                g[i * xs.len() + j],
-                qb::spectral_density(um(), x, t).unwrap()
-            );
-        }
+fn errors_come_out_of_band() {
+    assert!(units::convert_unit(0, 0.0, "nm", "um").is_nan());
+    assert_eq!(taken().0, "NON_POSITIVE_SPECTRAL");
+    // taken once: the slot is empty afterwards
+    assert!(error::take_error().is_undefined());
+    assert!(units::convert_unit(0, 1.0, "furlong", "nm").is_nan());
+    assert_eq!(taken().0, "UNKNOWN_UNIT");
+    assert!(stats::bose_einstein(-0.5).is_nan());
+    let (code, msg) = taken();
+    assert_eq!(code, "DIVERGENT_OCCUPATION");
+    assert_eq!(
+        msg,
+        quantaband::stats::bose_einstein(-0.5)
+            .unwrap_err()
+            .to_string()
+    );
+    // and the module works on
+    assert_eq!(units::convert_unit(0, 10.0, "um", "cm-1"), 1000.0);
+    // the core's codes come first in the facade's one list
+    let codes: Vec<String> = js_sys::Array::from(&ERROR_CODES)
+        .iter()
+        .map(|c| c.as_string().unwrap())
+        .collect();
+    assert_eq!(&codes[..Error::ALL_CODES.len()], Error::ALL_CODES);
+    assert_eq!(error::core_codes(), Error::ALL_CODES.join(","));
+}
+
+#[wasm_bindgen_test]
+fn spectrum_read_through_serde_and_evaluated() {
+    let s = spectrum::SpectrumHandle::create(obj(&[("unit", "um".into())])).unwrap();
+    // L_λ(10 µm, 300 K) = 9.924 033 330 070 695e6 W·m⁻²·sr⁻¹·m⁻¹ (mpmath, tests/data/gen_core.py),
+    // per µm ×1e-6.
+    assert!(rel(s.point(10.0, 300.0), 9.924_033_330_070_695) < 1e-14);
+    // 8–14 µm band at 300 K: 54.933 461 376 839 69 W·m⁻²·sr⁻¹ (mpmath quad, core_reference.json)
+    assert!(rel(s.band(8.0, 14.0, 300.0), 54.933_461_376_839_69) < 1e-13);
+    assert!(rel(s.brightness_temperature(10.0, 9.924_033_330_070_695), 300.0) < 1e-13);
+    assert_eq!(
+        get(&s.units_js(), "density").as_string().unwrap(),
+        "W m^-2 sr^-1 um^-1"
+    );
+    assert!(s.point(10.0, -1.0).is_nan());
+    assert_eq!(
+        taken(),
+        (
+            "NON_POSITIVE_TEMPERATURE".into(),
+            "temperatureK must be > 0 K (got -1 K)".into()
+        )
+    );
+    // unknown and mistyped fields
+    assert!(spectrum::SpectrumHandle::create(obj(&[
+        ("unit", "um".into()),
+        ("emisivity", 0.5.into())
+    ]))
+    .is_none());
+    let (code, msg) = taken();
+    assert_eq!(code, "UNSUPPORTED");
+    assert!(
+        msg.starts_with("settings: unknown field \"emisivity\""),
+        "{msg}"
+    );
+    assert!(spectrum::SpectrumHandle::create(obj(&[
+        ("unit", "um".into()),
+        ("emissivity", "0.5".into())
+    ]))
+    .is_none());
+    assert_eq!(
+        taken(),
+        (
+            "WRONG_TYPE".into(),
+            "settings.emissivity must be a number (got a string)".into()
+        )
+    );
+}
+
+#[wasm_bindgen_test]
+fn bulk_calls_work_on_the_scratch_buffers() {
+    let s = spectrum::SpectrumHandle::create(obj(&[("unit", "um".into())])).unwrap();
+    let xs = [8.0, 10.0, 12.0, 14.0];
+    let p = scratch::scratch(0, 0, xs.len() as u32);
+    assert_ne!(p, 0);
+    view(p, 4).copy_from(&xs);
+    assert_eq!(s.bulk(0, 300.0, 0.0), 0.0);
+    let out = view(p, 4).to_vec();
+    for (x, y) in xs.iter().zip(&out) {
+        assert_eq!(*y, s.point(*x, 300.0));
     }
-    let err = qb::spectral_density_array(um(), &[1.0, -2.0], 300.0).unwrap_err();
-    assert_eq!(index_of(&err), Some(1.0));
-    assert_eq!(code_of(err), "NON_POSITIVE_SPECTRAL");
-    let big: Vec<f64> = (0..100_000).map(|i| 0.5 + f64::from(i) * 1e-4).collect();
-    assert_eq!(
-        qb::spectral_density_array(um(), &big, 1500.0)
-            .unwrap()
-            .len(),
-        big.len()
-    );
+    // an error stops the loop and carries the index
+    let p = scratch::scratch(0, 0, 3);
+    view(p, 3).copy_from(&[10.0, 10.0, -1.0]);
+    assert!(s.bulk(0, 300.0, 0.0).is_nan());
+    let e = from_pending(error::take_error());
+    assert_eq!(get(&e, "index").as_f64(), Some(2.0));
+    // a buffer the memory cannot hold is refused (0), not an abort
+    assert_eq!(scratch::scratch(0, 1, u32::MAX), 0);
+    assert_eq!(s.point(10.0, 300.0), out[1]);
 }
 
 #[wasm_bindgen_test]
-fn option_errors() {
-    let bad = obj(&[("unit", "um".into()), ("emisivity", 0.5.into())]);
-    assert_eq!(
-        code_of(qb::spectral_density(bad, 10.0, 300.0).unwrap_err()),
-        "UNSUPPORTED"
-    );
-    let bad = obj(&[("unit", "parsec".into())]);
-    assert_eq!(
-        code_of(qb::spectral_density(bad, 10.0, 300.0).unwrap_err()),
-        "UNKNOWN_UNIT"
-    );
-    let bad = obj(&[("unit", "um".into()), ("emissivity", 1.5.into())]);
-    assert_eq!(
-        code_of(qb::spectral_density(bad, 10.0, 300.0).unwrap_err()),
-        "OUT_OF_RANGE"
-    );
-    assert_eq!(
-        code_of(qb::band_integral(um(), 14.0, 8.0, 300.0).unwrap_err()),
-        "INVALID_BAND"
-    );
-    assert_eq!(
-        code_of(qb::spectral_density(JsValue::NULL, 10.0, 300.0).unwrap_err()),
-        "UNSUPPORTED"
-    );
-    // still working
-    assert!(qb::spectral_density(um(), 10.0, 300.0).is_ok());
-}
-
-#[wasm_bindgen_test]
-fn statistics() {
-    // mpmath (tests/data/stats_reference.json): ζ(3/2) = 2.612 375 348 685 488 3
-    let g = qb::bose_einstein_integral(1.5, 1.0).unwrap();
-    assert!(rel(g, 2.612_375_348_685_488) < 1e-15);
-    assert_eq!(
-        code_of(qb::bose_einstein(0.0).unwrap_err()),
-        "DIVERGENT_OCCUPATION"
-    );
-    assert_eq!(
-        code_of(qb::fermi_dirac_integral(1.0, 0.0).unwrap_err()),
-        "UNSUPPORTED"
-    );
-    let fd = qb::fermi_dirac_array(&[-1.0, 0.0, 1.0]).unwrap();
-    assert!((fd[0] + fd[2] - 1.0).abs() < 1e-15 && fd[1] == 0.5);
-}
-
-#[wasm_bindgen_test]
-fn thermometry_measurement_and_frame() {
+fn instrument_calibration_and_frame() {
     let curve = obj(&[
         ("kind", "sakumaHattori".into()),
-        ("aM", 1e-5.into()),
+        ("aM", 1.0e-5.into()),
         ("bMK", 1.8e-4.into()),
-        ("c", 1e6.into()),
+        ("c", 1.0e6.into()),
     ]);
     let cond = obj(&[
-        ("emissivity", 0.9.into()),
+        ("emissivity", 0.95.into()),
         ("reflectedTemperatureK", 295.0.into()),
     ]);
-    let s = qb::measured_signal(curve.clone(), 400.0, cond.clone()).unwrap();
-    let t = qb::object_temperature(curve.clone(), s, cond.clone()).unwrap();
-    assert!((t - 400.0).abs() < 1e-9);
-    let ts = qb::object_temperature_array(curve.clone(), &[s, s, 1.0], cond.clone()).unwrap_err();
-    assert_eq!(index_of(&ts), Some(2.0));
-    assert_eq!(code_of(ts), "NO_PHYSICAL_SOLUTION");
-    // a 4-pixel frame of Uint16 counts
-    let raw = js_sys::Uint16Array::from(&[20_000u16, 30_000, 0, 40_000][..]);
-    let opts = obj(&[("conditions", cond.clone()), ("output", "float64".into())]);
-    let r = qb::convert_frame(curve.clone(), raw.into(), opts).unwrap();
-    let get = |k: &str| Reflect::get(&r, &k.into()).unwrap();
-    assert_eq!(get("invalid").as_f64(), Some(1.0));
-    let temps: js_sys::Float64Array = get("temperaturesK").dyn_into().unwrap();
-    let exact = qb::object_temperature(curve.clone(), 30_000.0, cond.clone()).unwrap();
-    assert!((temps.get_index(1) - exact).abs() < 1e-6);
-    assert!(temps.get_index(2).is_nan());
-    let not_frame = qb::convert_frame(curve, js_sys::Array::new().into(), JsValue::UNDEFINED);
-    assert_eq!(code_of(not_frame.unwrap_err()), "UNSUPPORTED");
+    let inst = instrument::InstrumentHandle::create(obj(&[
+        ("model", curve),
+        ("conditions", cond.clone()),
+    ]))
+    .unwrap();
+    let s = inst.measured_signal(400.0);
+    assert!(rel(inst.object_temperature(s), 400.0) < 1e-12);
+    let budget = inst
+        .uncertainty_budget(s, obj(&[("emissivity", 0.01.into())]))
+        .unwrap();
+    assert!(
+        get(&budget, "combinedStandardUncertaintyK")
+            .as_f64()
+            .unwrap()
+            > 0.0
+    );
+    let cal = calibration::CalibrationHandle::create(obj(&[
+        ("aM", 1.0e-5.into()),
+        ("bMK", 1.8e-4.into()),
+        ("c", 1.0e6.into()),
+    ]))
+    .unwrap();
+    // a frame of f64 signals in f64 scratch 0, converted into f64 scratch 1
+    let pin = scratch::scratch(0, 0, 3);
+    view(pin, 3).copy_from(&[s, s, 1.0]);
+    let pout = scratch::scratch(0, 1, 3);
+    let r = cal
+        .convert_frame(0, true, false, obj(&[("conditions", cond)]))
+        .unwrap();
+    assert_eq!(get(&r, "valid").as_f64(), Some(2.0));
+    let t = view(pout, 3).to_vec();
+    assert!((t[0] - 400.0).abs() < 1e-6, "{t:?}");
+    assert!(t[2].is_nan());
+    // live objects are counted and released on drop
+    let before = testing::live_objects();
+    drop(cal);
+    assert_eq!(testing::live_objects(), before - 1);
 }
 
-/// The JavaScript message templates (src/wasm/error.js) reproduce the core's `Display` text for
-/// every variant (numbers chosen so that Rust's and JavaScript's number formatting agree).
+/// The facade's message templates (src/wasm/js/errors.js) reproduce the core's `Display` text
+/// for every variant (numbers chosen so that Rust's and JavaScript's formatting agree; argument
+/// names that the facade keeps as they are).
 #[wasm_bindgen_test]
 fn js_messages_match_the_core_display() {
-    use quantaband::Error;
     let all = [
         Error::NonFinite {
             arg: "a",
@@ -308,12 +274,20 @@ fn js_messages_match_the_core_display() {
         Error::NotConverged { what: "n" },
         Error::UnknownUnit { expected: "u" },
         Error::Unsupported { what: "x" },
+        Error::TooLarge {
+            arg: "xs",
+            limit: 10,
+            got: 11,
+        },
     ];
     assert_eq!(all.len(), Error::ALL_CODES.len());
     for e in all {
-        let js = JsValue::from(e);
-        let msg = String::from(js.dyn_ref::<js_sys::Error>().unwrap().message());
-        assert_eq!(msg, e.to_string(), "{e:?}");
-        assert_eq!(code_of(js), e.code());
+        let js = from_pending(error::pending_of(e, None));
+        assert_eq!(
+            get(&js, "message").as_string().unwrap(),
+            e.to_string(),
+            "{e:?}"
+        );
+        assert_eq!(get(&js, "code").as_string().unwrap(), e.code());
     }
 }

@@ -188,7 +188,7 @@ console.log(
   `page size: ${html.length} bytes (${kb(Buffer.byteLength(html))} KiB; wasm ${kb(wasm.length)} KiB raw, ` +
     `${kb(wasmGz.length)} KiB gzip, embedded as base64; script ${kb(js.length)} KiB; style ${kb(css.length)} KiB)`,
 );
-if (Buffer.byteLength(html) > 400 * 1024) console.warn('warning: page is larger than the 400 KiB budget');
+if (Buffer.byteLength(html) > 600 * 1024) console.warn('warning: page is larger than the 600 KiB budget');
 }
 
 if (process.argv[1] && resolve(process.argv[1]) === fileURLToPath(import.meta.url)) main();

@@ -1,40 +1,48 @@
-// Maps the benchmark cases onto the wasm package's exports. Each entry returns {fn, extra} when
-// the package has what the case needs, or null (the case is then reported as skipped), so the
-// bench never times a substitute under a wrong name.
+// Maps the benchmark cases onto the wasm package's public API: the prepared objects (Spectrum,
+// Instrument, CalibrationCurve), built once per case outside the timed call, as a user is meant
+// to use them, and the free functions. Each entry returns {fn, extra} when the package has what
+// the case needs, or null (the case is then reported as skipped), so the bench never times a
+// substitute under a wrong name.
 //
-// Inputs are given in SI units (`unit: "m"`) so they are bit-identical to the native and
-// reference inputs; the per-call cost includes reading the options object, as a user pays it.
+// Inputs are given in SI units (`unit: "m"`, densities per metre) so they are bit-identical to
+// the native and reference inputs. Bulk cases write into a preallocated output array, as
+// Baselines A and C do.
 
 import { COUNT_GAIN, COUNT_OFFSET, EMISSIVITY, PIXELS, SH, T_REFLECTED_K, maxAbsError } from "./scene.mjs";
 
 const has = (pkg, ...names) => names.every((n) => typeof pkg[n] === "function");
-const SI = Object.freeze({ unit: "m" });
 
 /** Builds a scalar case: `call()` is timed, its value recorded. */
 function scalar(call) {
   return { fn: call, extra: () => ({ value: call() }) };
 }
 
+/** The spectrum of every radiometric case: blackbody radiance per metre of wavelength. */
+const siSpectrum = (pkg) => new pkg.Spectrum({ unit: "m" });
+
 const CASES = [
   [
     "spectral_single",
     (pkg, { ref }) => {
-      if (!has(pkg, "spectralDensity")) return null;
+      if (!has(pkg, "Spectrum")) return null;
       const i = ref.spectral_single.inputs;
-      return scalar(() => pkg.spectralDensity(SI, i.wavelength_m, i.temperature_k));
+      const s = siSpectrum(pkg);
+      return scalar(() => s.point(i.wavelength_m, i.temperature_k));
     },
   ],
   [
     "spectrum_10k",
     (pkg, { ref, lambdas, sampleIdx }) => {
-      if (!has(pkg, "spectralDensityArray")) return null;
+      if (!has(pkg, "Spectrum")) return null;
       const t = ref.spectrum_10k.inputs.temperature_k;
-      const call = () => pkg.spectralDensityArray(SI, lambdas, t);
+      const s = siSpectrum(pkg);
+      const out = new Float64Array(lambdas.length);
+      const call = () => s.points(lambdas, t, out);
       return {
         fn: call,
         extra: () => {
-          const out = call();
-          return { sample_values: sampleIdx.map((k) => out[k]), note: "Float64Array in, new Float64Array out" };
+          call();
+          return { sample_values: sampleIdx.map((k) => out[k]), note: "Spectrum.points: Float64Array in, into a preallocated Float64Array" };
         },
       };
     },
@@ -42,56 +50,60 @@ const CASES = [
   ...["band_8_14_300", "band_1_2_1500"].map((kase) => [
     kase,
     (pkg, { ref }) => {
-      if (!has(pkg, "bandIntegral")) return null;
+      if (!has(pkg, "Spectrum")) return null;
       const i = ref[kase].inputs;
-      return scalar(() => pkg.bandIntegral(SI, i.lower_m, i.upper_m, i.temperature_k));
+      const s = siSpectrum(pkg);
+      return scalar(() => s.band(i.lower_m, i.upper_m, i.temperature_k));
     },
   ]),
   [
     "band_inverse_8_14",
     (pkg, { ref }) => {
-      const name = ["temperatureFromBand", "bandTemperature"].find((n) => has(pkg, n));
-      if (!name) return null;
+      if (!has(pkg, "Spectrum")) return null;
       const i = ref.band_inverse_8_14.inputs;
-      return scalar(() => pkg[name](SI, i.lower_m, i.upper_m, i.radiance));
+      const s = siSpectrum(pkg);
+      return scalar(() => s.bandTemperature(i.lower_m, i.upper_m, i.radiance));
     },
   ],
   [
     "response_signal_400",
     (pkg, { ref }) => {
-      if (!has(pkg, "modelSignal")) return null;
+      if (!has(pkg, "Instrument")) return null;
       const i = ref.response_signal_400.inputs;
-      const model = {
-        kind: "response",
-        wavelengths: Float64Array.from(i.wavelengths_m),
-        values: Float64Array.from(i.response),
-        unit: "m",
-      };
-      return scalar(() => pkg.modelSignal(model, i.temperature_k));
+      const instrument = new pkg.Instrument({
+        model: {
+          kind: "response",
+          wavelengths: Float64Array.from(i.wavelengths_m),
+          values: Float64Array.from(i.response),
+          unit: "m",
+        },
+      });
+      return scalar(() => instrument.signal(i.temperature_k));
     },
   ],
   [
     "sh_inverse",
     (pkg, { ref }) => {
-      if (!has(pkg, "modelTemperature")) return null;
+      if (!has(pkg, "CalibrationCurve")) return null;
       const i = ref.sh_inverse.inputs;
-      const model = { kind: "sakumaHattori", aM: i.a_m, bMK: i.b_m_k, c: i.c };
-      return scalar(() => pkg.modelTemperature(model, i.signal));
+      const curve = new pkg.CalibrationCurve({ aM: i.a_m, bMK: i.b_m_k, c: i.c });
+      return scalar(() => curve.temperature(i.signal));
     },
   ],
   [
     "frame_640x512",
     (pkg, { frame }) => {
-      if (!has(pkg, "convertFrame")) return null;
-      const curve = { kind: "sakumaHattori", aM: SH.a, bMK: SH.b, c: SH.c };
-      const options = { conditions: { emissivity: EMISSIVITY, reflectedTemperatureK: T_REFLECTED_K } };
-      const call = () => pkg.convertFrame(curve, frame.signals, options);
+      if (!has(pkg, "CalibrationCurve")) return null;
+      const curve = new pkg.CalibrationCurve({ aM: SH.a, bMK: SH.b, c: SH.c });
+      const out = new Float32Array(PIXELS);
+      const options = { conditions: { emissivity: EMISSIVITY, reflectedTemperatureK: T_REFLECTED_K }, out };
+      const call = () => curve.convertFrame(frame.signals, options);
       return {
         fn: () => call().valid,
         extra: () => ({
           pixels: PIXELS,
           max_abs_err_k: maxAbsError(call().temperaturesK, frame.exact),
-          note: "Float32Array in, Float32Array out (convertFrame, result object)",
+          note: "Float32Array in, into a preallocated Float32Array (CalibrationCurve.convertFrame, result object)",
         }),
       };
     },
@@ -99,20 +111,22 @@ const CASES = [
   [
     "frame_counts_640x512",
     (pkg, { frame }) => {
-      if (!has(pkg, "convertFrame") || !frame.counts) return null;
-      const curve = { kind: "sakumaHattori", aM: SH.a, bMK: SH.b, c: SH.c };
+      if (!has(pkg, "CalibrationCurve") || !frame.counts) return null;
+      const curve = new pkg.CalibrationCurve({ aM: SH.a, bMK: SH.b, c: SH.c });
+      const out = new Float32Array(PIXELS);
       const options = {
         gain: COUNT_GAIN,
         offset: COUNT_OFFSET,
         conditions: { emissivity: EMISSIVITY, reflectedTemperatureK: T_REFLECTED_K },
+        out,
       };
-      const call = () => pkg.convertFrame(curve, frame.counts, options);
+      const call = () => curve.convertFrame(frame.counts, options);
       return {
         fn: () => call().valid,
         extra: () => ({
           pixels: PIXELS,
           max_abs_err_k: maxAbsError(call().temperaturesK, frame.countsExact),
-          note: "Uint16Array counts in (gain/offset), Float32Array out (convertFrame, result object)",
+          note: "Uint16Array counts in (gain/offset), into a preallocated Float32Array (CalibrationCurve.convertFrame)",
         }),
       };
     },

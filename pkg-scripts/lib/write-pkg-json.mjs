@@ -6,9 +6,10 @@
 // Entry points:
 //   "node"    -> node.js: reads quantaband_bg.wasm with fs and calls initSync, so Node users need
 //                no init call;
-//   "default" -> quantaband.js (wasm-bindgen --target web): browsers, web workers and bundlers,
-//                which `await init()` once (it fetches quantaband_bg.wasm next to the module) or
-//                call `initSync({ module: bytes })`.
+//   "default" -> quantaband.js (the facade's web entry, over the wasm-bindgen --target web glue
+//                in quantaband_glue.js): browsers, web workers and bundlers, which `await init()`
+//                once (it fetches quantaband_bg.wasm next to the module) or call
+//                `initSync({ module: bytes })`.
 import { copyFileSync, readFileSync, readdirSync, statSync, writeFileSync } from 'node:fs';
 import { dirname, join, resolve } from 'node:path';
 import { fileURLToPath } from 'node:url';
@@ -43,7 +44,7 @@ copyFileSync(join(root, 'pkg-scripts', 'lib', 'node-entry.js'), join(pkgDir, 'no
 copyFileSync(join(root, 'README.md'), join(pkgDir, 'README.md'));
 copyFileSync(join(root, 'LICENSE'), join(pkgDir, 'LICENSE'));
 
-// Everything wasm-bindgen wrote (glue, types, wasm, an optional snippets/ folder) plus our files;
+// Everything in the staging folder (entries, lib/, glue, types, wasm) plus our files;
 // package.json, README and LICENSE are always packed by npm.
 const files = readdirSync(pkgDir)
   .filter((f) => !['package.json', 'README.md', 'LICENSE', '.gitignore'].includes(f))

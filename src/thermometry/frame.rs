@@ -254,6 +254,11 @@ impl FrameOutput for f64 {
 /// assert_eq!((sum.min_temperature_k, sum.max_temperature_k), (out[1], out[2]));
 /// ```
 #[derive(Debug, Clone, Copy, PartialEq)]
+#[cfg_attr(
+    feature = "serde",
+    derive(serde::Serialize, serde::Deserialize),
+    serde(rename_all = "camelCase", deny_unknown_fields)
+)]
 pub struct FrameSummary {
     /// Pixels converted to a temperature.
     pub valid: usize,

@@ -31,6 +31,11 @@ use crate::{Error, Result};
 /// assert_eq!(FixedPoint::Copper.temperature_k(), 1357.77);
 /// ```
 #[derive(Debug, Clone, Copy, PartialEq, Eq)]
+#[cfg_attr(
+    feature = "serde",
+    derive(serde::Serialize, serde::Deserialize),
+    serde(rename_all = "camelCase")
+)]
 pub enum FixedPoint {
     /// Freezing point of silver, T90 = 1234.93 K.
     Silver,
@@ -82,6 +87,11 @@ impl FixedPoint {
 /// assert!((r.t90_k - 1337.33).abs() < 1e-9 && r.difference_k.abs() < 1e-9);
 /// ```
 #[derive(Debug, Clone, Copy, PartialEq)]
+#[cfg_attr(
+    feature = "serde",
+    derive(serde::Serialize, serde::Deserialize),
+    serde(rename_all = "camelCase", deny_unknown_fields)
+)]
 pub struct RatioTemperatures {
     /// T90 with c2 = 0.014388 m·K (the ITS-90 value), K.
     pub t90_k: f64,

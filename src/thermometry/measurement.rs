@@ -52,6 +52,11 @@ use crate::{Error, Result};
 /// assert!(Conditions { window: Some(bad), ..Conditions::BLACKBODY }.validate().is_err());
 /// ```
 #[derive(Debug, Clone, Copy, PartialEq)]
+#[cfg_attr(
+    feature = "serde",
+    derive(serde::Serialize, serde::Deserialize),
+    serde(rename_all = "camelCase", deny_unknown_fields)
+)]
 pub struct Window {
     /// Transmittance τ_w, (0, 1].
     pub transmittance: f64,
@@ -75,6 +80,11 @@ pub struct Window {
 /// assert_eq!(Conditions { emissivity: 0.0, ..c }.validate().unwrap_err().code(), "OUT_OF_RANGE");
 /// ```
 #[derive(Debug, Clone, Copy, PartialEq)]
+#[cfg_attr(
+    feature = "serde",
+    derive(serde::Serialize, serde::Deserialize),
+    serde(rename_all = "camelCase", deny_unknown_fields)
+)]
 pub struct Conditions {
     /// Object emissivity ε in the instrument's band, (0, 1].
     pub emissivity: f64,

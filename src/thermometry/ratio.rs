@@ -66,12 +66,19 @@ impl<A: SignalModel + ?Sized, B: SignalModel + ?Sized> SignalModel for RatioMode
 /// assert!((rd.d_t_d_emissivity_ratio / expect - 1.0).abs() < 1e-9);
 /// ```
 #[derive(Debug, Clone, Copy, PartialEq)]
+#[cfg_attr(
+    feature = "serde",
+    derive(serde::Serialize, serde::Deserialize),
+    serde(rename_all = "camelCase", deny_unknown_fields)
+)]
 pub struct RatioReading {
     /// Temperature, K.
     pub temperature_k: f64,
     /// ∂T/∂r, K per unit ratio.
+    #[cfg_attr(feature = "serde", serde(rename = "dTdRatio"))]
     pub d_t_d_ratio: f64,
     /// ∂T/∂(ε1/ε2), K per unit emissivity ratio.
+    #[cfg_attr(feature = "serde", serde(rename = "dTdEmissivityRatio"))]
     pub d_t_d_emissivity_ratio: f64,
 }
 

@@ -82,6 +82,11 @@ pub struct SakumaHattori {
 /// assert!(rep.max_abs_residual_k < 1e-6 && rep.rms_residual_k <= rep.max_abs_residual_k);
 /// ```
 #[derive(Debug, Clone, Copy, PartialEq)]
+#[cfg_attr(
+    feature = "serde",
+    derive(serde::Serialize, serde::Deserialize),
+    serde(rename_all = "camelCase", deny_unknown_fields)
+)]
 pub struct FitReport {
     /// The fitted curve.
     pub curve: SakumaHattori,
@@ -247,7 +252,7 @@ impl SakumaHattori {
     ///
     /// # Errors
     /// - `LengthMismatch` if the slices differ in length;
-    /// - `TooFewPoints` for fewer than 3 points;
+    /// - `TooFewPoints` for fewer than 3 points; `TooLarge` for more than [`MAX_FIT_POINTS`];
     /// - `NonFinite` / `NonPositiveTemperature` / `NonPositive` for a bad point;
     /// - `DegenerateFit` for a repeated temperature, signals not strictly increasing with
     ///   temperature, or singular normal equations;
@@ -298,26 +303,19 @@ impl SakumaHattori {
         if n < 3 {
             return Err(Error::TooFewPoints { needed: 3, got: n });
         }
+        if n > MAX_FIT_POINTS {
+            return Err(Error::TooLarge {
+                arg: "temperatures_k",
+                limit: MAX_FIT_POINTS,
+                got: n,
+            });
+        }
         for (&t, &s) in temperatures_k.iter().zip(signals) {
             temperature("temperatures_k", t)?;
             positive("signals", s)?;
         }
-        for i in 0..n {
-            for j in (i + 1)..n {
-                let dt = temperatures_k[i] - temperatures_k[j];
-                let ds = signals[i] - signals[j];
-                if dt == 0.0 {
-                    return Err(Error::DegenerateFit {
-                        reason: "repeated temperature",
-                    });
-                }
-                if !(dt * ds > 0.0) {
-                    return Err(Error::DegenerateFit {
-                        reason: "signals must increase strictly with temperature",
-                    });
-                }
-            }
-        }
+        let mut residuals_k = residuals_k;
+        check_increasing(temperatures_k, signals, residuals_k.as_deref_mut())?;
         let c2v = c2.c2();
         // Start: ln S = ln C − (c2/A)/T (least-squares line in 1/T).
         let nf = n as f64;
@@ -577,6 +575,113 @@ type Residual<'a> = dyn Fn(&[f64; 3], usize) -> Option<(f64, [f64; 3])> + 'a;
 /// gives residual i and its gradient, or `None` where p is outside the model's domain. Returns
 /// the parameters and the iteration count. `resid` is a trait object so that the solver is
 /// compiled once for its three callers (a cold path; this keeps the wasm module small).
+/// The most calibration points [`SakumaHattori::fit`] accepts. Each Levenberg–Marquardt
+/// iteration is O(n) and a fit takes at most 1000, so this bounds the time of any fit; a
+/// typical fit at the limit took 35 ms natively (12–14 iterations, one run on a 2-core VM).
+pub const MAX_FIT_POINTS: usize = 10_000;
+
+const NOT_INCREASING: Error = Error::DegenerateFit {
+    reason: "signals must increase strictly with temperature",
+};
+const REPEATED: Error = Error::DegenerateFit {
+    reason: "repeated temperature",
+};
+
+/// Checks that the signals increase strictly with temperature over every pair of points (and
+/// that no temperature repeats). Points given in increasing or decreasing order of temperature
+/// take one O(n) pass over neighbours; otherwise the order of the points by temperature is
+/// sorted (heapsort, O(n log n)) in `scratch` (the residuals buffer, overwritten later), or in
+/// a temporary vector with the `alloc` feature.
+fn check_increasing(t: &[f64], s: &[f64], scratch: Option<&mut [f64]>) -> Result<()> {
+    let up = t.windows(2).all(|w| w[0] < w[1]);
+    if up || t.windows(2).all(|w| w[0] > w[1]) {
+        for (wt, ws) in t.windows(2).zip(s.windows(2)) {
+            if !((wt[1] - wt[0]) * (ws[1] - ws[0]) > 0.0) {
+                return Err(NOT_INCREASING);
+            }
+        }
+        return Ok(());
+    }
+    match scratch {
+        Some(idx) => sorted_check(t, s, idx),
+        #[cfg(feature = "alloc")]
+        None => {
+            let mut idx = alloc::vec::Vec::new();
+            if idx.try_reserve_exact(t.len()).is_err() {
+                return Err(Error::OutOfRange {
+                    arg: "temperatures_k length",
+                    value: t.len() as f64,
+                    range: "lengths the memory can hold",
+                });
+            }
+            idx.resize(t.len(), 0.0);
+            sorted_check(t, s, &mut idx)
+        }
+        #[cfg(not(feature = "alloc"))]
+        None => Err(Error::Unsupported {
+            what: "points not in order of temperature need a residuals buffer without the alloc \
+                   feature",
+        }),
+    }
+}
+
+/// `check_increasing` for points in any order: sorts the indices 0..n by temperature in `idx`
+/// (as f64, exact below 2^53) and checks neighbours.
+fn sorted_check(t: &[f64], s: &[f64], idx: &mut [f64]) -> Result<()> {
+    let n = t.len();
+    let idx = match idx.get_mut(..n) {
+        Some(i) => i,
+        None => {
+            return Err(Error::LengthMismatch {
+                expected: n,
+                got: idx.len(),
+            })
+        }
+    };
+    for (i, v) in idx.iter_mut().enumerate() {
+        *v = i as f64;
+    }
+    let key = |v: f64| t.get(v as usize).copied().unwrap_or(f64::NAN);
+    // heapsort (ascending) of idx by key
+    let sift = |idx: &mut [f64], mut root: usize, end: usize| loop {
+        let mut child = 2 * root + 1;
+        if child >= end {
+            break;
+        }
+        if child + 1 < end && key(idx[child]) < key(idx[child + 1]) {
+            child += 1;
+        }
+        if key(idx[root]) < key(idx[child]) {
+            idx.swap(root, child);
+            root = child;
+        } else {
+            break;
+        }
+    };
+    for start in (0..n / 2).rev() {
+        sift(idx, start, n);
+    }
+    for end in (1..n).rev() {
+        idx.swap(0, end);
+        sift(idx, 0, end);
+    }
+    for w in idx.windows(2) {
+        let (a, b) = (w[0] as usize, w[1] as usize);
+        let (ta, tb) = (key(w[0]), key(w[1]));
+        if ta == tb {
+            return Err(REPEATED);
+        }
+        let (sa, sb) = (
+            s.get(a).copied().unwrap_or(f64::NAN),
+            s.get(b).copied().unwrap_or(f64::NAN),
+        );
+        if !(sb > sa) {
+            return Err(NOT_INCREASING);
+        }
+    }
+    Ok(())
+}
+
 fn levenberg_marquardt(
     p0: [f64; 3],
     n: usize,

@@ -36,6 +36,11 @@ use crate::{Error, Result};
 /// assert_eq!((s.reflected_temperature, s.path_temperature), (0.0, 0.0));
 /// ```
 #[derive(Debug, Clone, Copy, PartialEq)]
+#[cfg_attr(
+    feature = "serde",
+    derive(serde::Serialize, serde::Deserialize),
+    serde(rename_all = "camelCase", deny_unknown_fields)
+)]
 pub struct Sensitivities {
     /// The object temperature the signal gives, K.
     pub temperature_k: f64,
@@ -67,7 +72,10 @@ pub struct Sensitivities {
 ///
 /// # Errors
 /// Those of [`object_temperature`]; `NoSolution` if dS/dT is 0 at the solution (signal
-/// underflow).
+/// underflow). `OutOfRange` naming the reflected or path temperature when its model signal
+/// overflows and a sensitivity would be infinite; an input whose weight is zero (the path
+/// temperature with τ = 1, the reflected temperature with ε = 1) has sensitivity 0 whatever its
+/// value.
 ///
 /// # Accuracy
 /// Analytic; agrees with mpmath numerical differentiation of a 40-digit solve to ≤ 1e-9
@@ -105,20 +113,57 @@ pub fn sensitivities<M: SignalModel + ?Sized>(
             what: "dS/dT vanishes at the solution (signal underflow)",
         });
     }
-    let c = |df_dp: f64| -df_dp / df_dt;
-    Ok(Sensitivities {
+    let c = |df_dp: f64| if df_dp == 0.0 { 0.0 } else { -df_dp / df_dt };
+    // A term whose weight is zero contributes exactly 0, even when the model signal of its
+    // temperature overflows (0·∞ would be NaN): such an input does not matter.
+    let weighted = |w: f64, v: f64| if w == 0.0 { 0.0 } else { w * v };
+    let s = Sensitivities {
         temperature_k: t,
         signal: 1.0 / df_dt,
         emissivity: c(tw * tau * (s_t - s_r)),
-        reflected_temperature: c(tw * tau * (1.0 - eps) * ds_r),
-        path_transmittance: c(tw * (eps * s_t + (1.0 - eps) * s_r - s_p)),
-        path_temperature: c(tw * (1.0 - tau) * ds_p),
+        reflected_temperature: c(weighted(tw * tau * (1.0 - eps), ds_r)),
+        path_transmittance: c(tw * (eps * s_t + weighted(1.0 - eps, s_r) - s_p)),
+        path_temperature: c(weighted(tw * (1.0 - tau), ds_p)),
+    };
+    let all = [
+        s.signal,
+        s.emissivity,
+        s.reflected_temperature,
+        s.path_transmittance,
+        s.path_temperature,
+    ];
+    if all.iter().all(|v| v.is_finite()) {
+        return Ok(s);
+    }
+    // An input that matters overflowed: name the temperature whose model signal did.
+    let finite_at = |v: f64, d: f64| v.is_finite() && d.is_finite();
+    Err(if !finite_at(s_r, ds_r) {
+        Error::OutOfRange {
+            arg: "reflected_temperature_k",
+            value: conditions.reflected_temperature_k,
+            range: "temperatures whose model signal is finite",
+        }
+    } else if !finite_at(s_p, ds_p) {
+        Error::OutOfRange {
+            arg: "path_temperature_k",
+            value: conditions.path_temperature_k,
+            range: "temperatures whose model signal is finite",
+        }
+    } else {
+        Error::NoSolution {
+            what: "the sensitivity coefficients overflow at this reading",
+        }
     })
 }
 
 /// Standard uncertainties of the inputs (uncorrelated), in the inputs' units (signal units,
 /// dimensionless, K); `Default` is all zeros. See [`uncertainty_budget`] for an example.
 #[derive(Debug, Clone, Copy, PartialEq, Default)]
+#[cfg_attr(
+    feature = "serde",
+    derive(serde::Serialize, serde::Deserialize),
+    serde(rename_all = "camelCase", deny_unknown_fields, default)
+)]
 pub struct StandardUncertainties {
     /// u(signal), signal units.
     pub signal: f64,
@@ -146,6 +191,11 @@ pub struct StandardUncertainties {
 /// assert_eq!(b.entries[4].input, BudgetInput::PathTemperature);
 /// ```
 #[derive(Debug, Clone, Copy, PartialEq, Eq)]
+#[cfg_attr(
+    feature = "serde",
+    derive(serde::Serialize, serde::Deserialize),
+    serde(rename_all = "camelCase")
+)]
 pub enum BudgetInput {
     /// The measured signal.
     Signal,
@@ -162,6 +212,11 @@ pub enum BudgetInput {
 /// One line of an uncertainty budget (sensitivity in K per input unit, contribution in K).
 /// See [`uncertainty_budget`] for an example.
 #[derive(Debug, Clone, Copy, PartialEq)]
+#[cfg_attr(
+    feature = "serde",
+    derive(serde::Serialize, serde::Deserialize),
+    serde(rename_all = "camelCase", deny_unknown_fields)
+)]
 pub struct BudgetEntry {
     /// The input.
     pub input: BudgetInput,
@@ -178,6 +233,11 @@ pub struct BudgetEntry {
 /// An uncertainty budget for the object temperature (temperatures and uncertainties in K),
 /// returned by [`uncertainty_budget`], which shows an example.
 #[derive(Debug, Clone, Copy, PartialEq)]
+#[cfg_attr(
+    feature = "serde",
+    derive(serde::Serialize, serde::Deserialize),
+    serde(rename_all = "camelCase", deny_unknown_fields)
+)]
 pub struct UncertaintyBudget {
     /// The object temperature, K.
     pub temperature_k: f64,
@@ -198,8 +258,9 @@ pub struct UncertaintyBudget {
 /// ```
 ///
 /// # Errors
-/// `NonFinite` for a non-finite uncertainty, `OutOfRange` (range `[0, inf)`) for a negative one;
-/// those of [`sensitivities`].
+/// `NonFinite` for a non-finite uncertainty, `OutOfRange` (range `[0, inf)`) for a negative one,
+/// or for one whose contribution to the variance overflows; those of [`sensitivities`]. Every
+/// returned number is finite.
 ///
 /// # Accuracy
 /// First-order propagation (GUM eq. 10): exact for the linearised model; agrees with the
@@ -282,6 +343,23 @@ pub fn uncertainty_budget<M: SignalModel + ?Sized>(
         for e in entries.iter_mut() {
             e.variance_share = e.contribution_k * e.contribution_k / var;
         }
+    }
+    if !var.is_finite() {
+        // finite sensitivities times a huge (finite) uncertainty: name the first such input
+        let arg = us
+            .iter()
+            .zip(cs)
+            .find(|((_, u), c)| !(c * u).is_finite() || !(c * u * c * u).is_finite())
+            .map_or("u", |((arg, _), _)| *arg);
+        let value = us
+            .iter()
+            .find(|(a, _)| *a == arg)
+            .map_or(f64::NAN, |(_, u)| *u);
+        return Err(Error::OutOfRange {
+            arg,
+            value,
+            range: "uncertainties whose contribution to the variance is finite",
+        });
     }
     Ok(UncertaintyBudget {
         temperature_k: s.temperature_k,

@@ -1,40 +1,33 @@
-//! JavaScript binding layer (only with the `wasm` feature).
+//! WebAssembly exports (only with the `wasm` feature): the low-level half of the JavaScript
+//! package. The public package entry is the hand-written facade in `src/wasm/js/`, which wraps
+//! these exports; nothing here is meant to be called by users directly.
 //!
-//! This layer validates JavaScript arguments, converts user units with [`crate::units`], calls
-//! the core and turns every [`crate::Error`] into one thrown `QuantabandError` with a stable
-//! `code`. It holds no physics. Names are camelCase (`js_name`); options objects are read with
-//! js-sys `Reflect` (smaller than serde) and reject unknown fields; every options and result type
-//! is declared for TypeScript in a `typescript_custom_section` next to the functions using it.
+//! Rules of this layer (see DEVELOPERS.md, "JavaScript boundary"):
+//! - no physics: it reads configuration through the core's serde types ([`config`]), converts
+//!   user units with [`crate::units`], calls the core and hands errors to the facade;
+//! - no export throws and none returns a `Result`: a failing export stores its error and
+//!   returns NaN / `undefined` ([`error`]);
+//! - prepared objects (`QbSpectrum`, `QbInstrument`, `QbCalibration`) are parsed once by their
+//!   `create` and then take plain numbers; bulk forms read and write module-owned scratch
+//!   buffers ([`scratch`]) that the facade fills;
+//! - one file per area, so a new capability adds a file here and one in `src/wasm/js/`.
 //!
-//! The module is `pub` only so that the `wasm-bindgen-test` suites (`tests/wasm_node.rs`,
-//! `tests/wasm_browser.rs`) can call the bindings from Rust; Rust users call the core directly.
-//!
-//! No function here can panic on any input: array lengths are checked, options are checked
-//! field by field, and errors are returned, because a panic aborts the whole wasm instance.
+//! The module is `pub` so that the `wasm-bindgen-test` suites (`tests/wasm_node.rs`,
+//! `tests/wasm_browser.rs`) can call the exports from Rust.
 // The wasm-bindgen macros expand to `unsafe` blocks; the physics modules keep `forbid`.
 #![allow(unsafe_code)]
+// Internal exports: each is documented (JSDoc and TypeScript) on the facade method or function
+// that wraps it, in src/wasm/js/; the module is hidden from the crate docs.
+#![allow(missing_docs)]
 
-#[cfg(all(target_arch = "wasm32", not(feature = "std")))]
-mod runtime;
-
-/// What `std`'s prelude would bring; the package build is `no_std` (see `runtime.rs`).
-mod prelude {
-    pub(crate) use alloc::string::{String, ToString};
-    pub(crate) use alloc::vec::Vec;
-}
-
-mod bands;
-mod convert;
-mod error;
-mod opts;
-mod photon_gas;
-mod radiometry;
-mod stats;
-mod thermometry;
-
-pub use bands::*;
-pub use convert::*;
-pub use photon_gas::*;
-pub use radiometry::*;
-pub use stats::*;
-pub use thermometry::*;
+pub mod calibration;
+pub(crate) mod config;
+pub mod error;
+pub mod fractions;
+pub mod instrument;
+pub mod its90;
+pub mod scratch;
+pub mod spectrum;
+pub mod stats;
+pub mod testing;
+pub mod units;

@@ -1,60 +1,189 @@
-// Deterministic random calls of every export with arguments of every kind (numbers at the edges
-// of the f64 range, NaN/±∞, strings, options objects, typed arrays, null, undefined). A panic
-// would abort the instance (release builds use panic = abort) and a bad glue path could trap:
-// either shows up as a WebAssembly.RuntimeError. Allowed outcomes: a result, a QuantabandError,
-// or the glue's own TypeError for null/undefined where a typed array is expected.
+// Seeded, time-bounded fuzz of the whole public API: every free function, every constructor and
+// static factory, every method of live (and freed) prepared objects, called with arguments of
+// every kind a caller can produce: numbers at the edges of the f64 range, NaN/±∞, strings,
+// bigints, symbols, null/undefined, booleans, plain arrays, typed arrays of every type (also
+// detached ones and ones whose `length` lies), array-likes with absurd lengths, Proxies (with
+// throwing traps, revoked), objects with throwing or re-entrant getters, configurations near the
+// valid ones. Allowed outcomes: a result (never a NaN returned as a success) or a
+// QuantabandError with a listed code. After EVERY call a known-good call must return its exact
+// value, and at the end memory, the externref table and the live-object count are checked.
+//
+// QB_FUZZ_SEED=N and QB_FUZZ_SECONDS=S override the seed (default fixed) and the time bound
+// (default 12 s, at most 60 000 calls).
 import { test } from 'node:test';
 import assert from 'node:assert/strict';
 import { qb } from './helpers.mjs';
 
-test('40 000 random calls: no trap, no poisoned instance', () => {
-  const fns = Object.entries(qb).filter(
-    ([k, v]) => typeof v === 'function' && !['default', 'initSync', 'QuantabandError'].includes(k),
-  );
-  let seed = 20261201;
-  const rnd = () => (seed = (seed * 1103515245 + 12345) % 2 ** 31) / 2 ** 31;
+const SEED = Number(process.env.QB_FUZZ_SEED ?? 20261203);
+const SECONDS = Number(process.env.QB_FUZZ_SECONDS ?? 12);
+const MAX_CALLS = 60_000;
+
+test(`fuzz: seeded random calls of every function and method (seed ${SEED}, ≤ ${SECONDS} s)`, (t) => {
+  let seed = SEED >>> 0;
+  const rnd = () => {
+    // xorshift32
+    seed ^= seed << 13;
+    seed >>>= 0;
+    seed ^= seed >>> 17;
+    seed ^= seed << 5;
+    seed >>>= 0;
+    return seed / 2 ** 32;
+  };
   const pick = (a) => a[Math.floor(rnd() * a.length)];
-  const nums = [0, -0, 1, -1, 300, 1e-320, 5e-324, 1e308, -1e308, NaN, Infinity, -Infinity, 0.5, 1.5, 2.5, 1e9, 1e-9, 650, 10, 2 ** 31];
-  const strs = ['um', 'nm', 'K', 'degC', 'eV', 'cm-1', 'Hz', 'gold', 'energy', 'float64', '', 'µm'];
+
+  const ref = new qb.Spectrum({ unit: 'um' });
+  const KNOWN = ref.point(10, 300);
+  const KNOWN_FD = qb.fermiDirac(2);
+
+  const nums = [0, -0, 1, -1, 300, 1e-320, 5e-324, 1e308, -1e308, NaN, Infinity, -Infinity, 0.5, 1.5, 2.5, 1e9, 1e-9, 650, 10, 8, 14, 2 ** 31, 1e5, 1e-3];
+  const strs = ['um', 'nm', 'K', 'degC', 'eV', 'cm-1', 'Hz', 'gold', 'energy', 'float64', 'float32', '', 'µm', 'its90', 'x'.repeat(200)];
   const models = [
     { kind: 'spectralPoint', wavelength: 10, unit: 'um' },
     { kind: 'response', wavelengths: [8, 14], values: [1, 1], unit: 'um' },
     { kind: 'sakumaHattori', aM: 1e-5, bMK: 1.8e-4, c: 1e6 },
     { kind: 'sakumaHattori', aM: 1e-5, bMK: -1, c: 1e6 },
     { kind: 'response', wavelengths: [1e-300, 1e300], values: [1, 1], unit: 'm' },
+    { kind: 'response', wavelengths: new Float32Array([3, 5]), values: [1, 0], unit: 'um' },
   ];
+  const grow = () => ref.points(new Float64Array(50_000).fill(10), 300)[0];
+  const weird = () => {
+    const k = Math.floor(rnd() * 12);
+    switch (k) {
+      case 0: {
+        const a = new Float64Array(3);
+        structuredClone(a.buffer, { transfer: [a.buffer] });
+        return a;
+      }
+      case 1: {
+        const a = new Float32Array([pick(nums), pick(nums)]);
+        Object.defineProperty(a, 'length', { value: pick([0, 1, 1e9, -1]) });
+        return a;
+      }
+      case 2:
+        return { length: pick([-1, 2 ** 31, 1.5, NaN, '2', 3]), 0: 1, 1: 2, 2: 3 };
+      case 3:
+        return new Proxy({}, { get() { throw new Error('trap'); }, ownKeys() { throw new Error('trap'); } });
+      case 4: {
+        const { proxy, revoke } = Proxy.revocable({ unit: 'um' }, {});
+        revoke();
+        return proxy;
+      }
+      case 5:
+        return { unit: 'um', get emissivity() { throw new Error('getter'); } };
+      case 6:
+        return { unit: 'um', get emissivity() { grow(); return 0.5; } };
+      case 7:
+        return { length: 2, get 0() { grow(); return 10; }, 1: 11 };
+      case 8:
+        return new BigInt64Array(2);
+      case 9:
+        return pick([10n, Symbol('s'), () => 1, new Date(0), new Map()]);
+      case 10:
+        return Object.create({ unit: 'um' });
+      default:
+        return [pick(nums), pick(strs)];
+    }
+  };
+  const pool = { spectra: [], instruments: [], curves: [] };
   const arg = () => {
     const r = rnd();
-    if (r < 0.35) return pick(nums);
-    if (r < 0.5) return pick(strs);
-    if (r < 0.6) return { unit: pick(strs), emissivity: pick(nums), variable: pick(['wavelength', 'frequency', 'x']) };
-    if (r < 0.7) return pick(models);
-    if (r < 0.78) return new Float64Array(Array.from({ length: Math.floor(rnd() * 6) }, () => pick(nums)));
-    if (r < 0.82) return new Uint16Array([0, 2, 65535]);
-    if (r < 0.86) return { emissivity: pick(nums), reflectedTemperatureK: pick(nums), pathTransmittance: pick(nums), pathTemperatureK: pick(nums) };
-    if (r < 0.9) return { lower: pick(nums), upper: pick(nums) };
-    if (r < 0.93) return null;
-    if (r < 0.96) return undefined;
-    return [pick(nums), pick(nums)];
+    if (r < 0.3) return pick(nums);
+    if (r < 0.4) return pick(strs);
+    if (r < 0.48) return { unit: pick(strs), emissivity: pick(nums), variable: pick(['wavelength', 'frequency', 'x']) };
+    if (r < 0.55) return pick(models);
+    if (r < 0.6) return { model: pick(models), conditions: { emissivity: pick(nums), reflectedTemperatureK: pick(nums) } };
+    if (r < 0.68) return new Float64Array(Array.from({ length: Math.floor(rnd() * 6) }, () => pick(nums)));
+    if (r < 0.71) return new Uint16Array([0, 2, 65535]);
+    if (r < 0.75) return { emissivity: pick(nums), reflectedTemperatureK: pick(nums), pathTransmittance: pick(nums), pathTemperatureK: pick(nums) };
+    if (r < 0.78) return { gain: pick(nums), output: pick(strs), emissivity: pick([undefined, new Float32Array(3)]) };
+    if (r < 0.8) return pick(pool.instruments) ?? null;
+    if (r < 0.83) return null;
+    if (r < 0.86) return undefined;
+    if (r < 0.88) return pick([true, false]);
+    return weird();
   };
-  const outcomes = { result: 0, quantabandError: 0, glueTypeError: 0 };
-  for (let i = 0; i < 40_000; i++) {
-    const [name, f] = pick(fns);
-    const args = Array.from({ length: f.length }, arg);
-    try {
-      f(...args);
-      outcomes.result++;
-    } catch (e) {
-      if (e instanceof qb.QuantabandError) {
-        assert.ok(qb.ERROR_CODES.includes(e.code));
-        outcomes.quantabandError++;
-      } else if (e instanceof TypeError && /null|undefined/.test(e.message)) {
-        outcomes.glueTypeError++;
-      } else {
-        assert.fail(`${name}(${args.map(String).join(', ')}) threw ${e.constructor.name}: ${e.message}`);
-      }
+
+  const CLASSES = new Set(['Spectrum', 'Instrument', 'CalibrationCurve', 'QuantabandError']);
+  const fns = Object.entries(qb).filter(([k, v]) => typeof v === 'function' && !CLASSES.has(k) && !['default', 'init', 'initSync'].includes(k));
+  const methods = (cls) => Object.entries(Object.getOwnPropertyDescriptors(cls.prototype)).filter(([m, d]) => m !== 'constructor' && m !== 'free' && typeof d.value === 'function').map(([m]) => m);
+  const targets = [
+    ...fns.map(([name, f]) => ({ name, call: (args) => f(...args), arity: f.length })),
+    { name: 'new Spectrum', call: (a) => pool.spectra.push(new qb.Spectrum(a[0])), arity: 1 },
+    { name: 'new Instrument', call: (a) => pool.instruments.push(new qb.Instrument(a[0])), arity: 1 },
+    { name: 'new CalibrationCurve', call: (a) => pool.curves.push(new qb.CalibrationCurve(a[0])), arity: 1 },
+    { name: 'CalibrationCurve.fit', call: (a) => pool.curves.push(qb.CalibrationCurve.fit(a[0], a[1], a[2])), arity: 3 },
+    { name: 'CalibrationCurve.fitInstrument', call: (a) => pool.curves.push(qb.CalibrationCurve.fitInstrument(a[0], a[1], a[2], a[3])), arity: 4 },
+    { name: 'CalibrationCurve.fromResponse', call: (a) => pool.curves.push(qb.CalibrationCurve.fromResponse(a[0], a[1])), arity: 2 },
+  ];
+  for (const [kind, cls] of [['spectra', qb.Spectrum], ['instruments', qb.Instrument], ['curves', qb.CalibrationCurve]]) {
+    for (const m of methods(cls)) {
+      targets.push({
+        name: `${cls.name}.${m}`,
+        call: (a) => {
+          const o = pick(pool[kind]);
+          if (o === undefined) return undefined;
+          return o[m](...a);
+        },
+        arity: Object.getOwnPropertyDescriptor(cls.prototype, m).value.length + 2,
+      });
     }
   }
-  assert.ok(outcomes.result > 1000 && outcomes.quantabandError > 1000, JSON.stringify(outcomes));
-  assert.equal(qb.spectralDensity({ unit: 'um' }, 10, 300), 9924033.330070695);
+  // seed the pools with valid objects
+  pool.spectra.push(new qb.Spectrum({ unit: 'um' }), new qb.Spectrum({ unit: 'cm-1', quantity: 'photon' }));
+  pool.instruments.push(new qb.Instrument({ model: models[1] }), new qb.Instrument({ model: models[0], conditions: { emissivity: 0.9, reflectedTemperatureK: 300 } }));
+  pool.curves.push(new qb.CalibrationCurve({ aM: 1e-5, bMK: 1.8e-4, c: 1e6 }));
+  // and one freed object of each class (its calls must be DISPOSED)
+  for (const [k, make] of [['spectra', () => new qb.Spectrum({ unit: 'nm' })], ['instruments', () => new qb.Instrument({ model: models[2] })], ['curves', () => new qb.CalibrationCurve({ aM: 1, bMK: 0, c: 1 })]]) {
+    const o = make();
+    o.free();
+    pool[k].push(o);
+  }
+
+  const before = { table: qb.__testing.tableSize() };
+  const outcomes = { result: 0, quantabandError: 0 };
+  const codes = {};
+  const deadline = Date.now() + SECONDS * 1000;
+  let calls = 0;
+  for (; calls < MAX_CALLS && Date.now() < deadline; calls++) {
+    const tgt = pick(targets);
+    // mostly well-typed numbers in the arity of the target, sometimes anything in any number
+    const n = rnd() < 0.7 ? tgt.arity - (tgt.name.includes('.') ? 2 : 0) : Math.floor(rnd() * (tgt.arity + 2));
+    const args = Array.from({ length: Math.max(0, n) }, () => (rnd() < 0.85 ? pick(nums) : arg()));
+    let result;
+    try {
+      result = tgt.call(args);
+      outcomes.result++;
+    } catch (e) {
+      if (!(e instanceof qb.QuantabandError)) {
+        assert.fail(`call ${calls}: ${tgt.name}(${args.map((x) => { try { return String(x); } catch { return typeof x; } }).join(', ')}) threw ${e && e.constructor && e.constructor.name}: ${e && e.message}`);
+      }
+      assert.ok(qb.ERROR_CODES.includes(e.code), e.code);
+      codes[e.code] = (codes[e.code] ?? 0) + 1;
+      outcomes.quantabandError++;
+    }
+    if (typeof result === 'number') assert.ok(!Number.isNaN(result), `${tgt.name} returned NaN as a success`);
+    // the known-good calls after every call: exact values
+    if (ref.point(10, 300) !== KNOWN || qb.fermiDirac(2) !== KNOWN_FD) assert.fail(`instance state changed after call ${calls} (${tgt.name})`);
+    // free some objects now and then (their later calls must be DISPOSED)
+    if (rnd() < 0.02) {
+      const kind = pick(['spectra', 'instruments', 'curves']);
+      const i = Math.floor(rnd() * pool[kind].length);
+      if (i > 0) {
+        pool[kind][i].free();
+        // most freed objects leave the pool; a few stay to be called (DISPOSED)
+        if (rnd() < 0.8) pool[kind].splice(i, 1);
+      }
+    }
+    // keep the pools small
+    for (const k of Object.keys(pool)) {
+      while (pool[k].length > 12) pool[k].splice(1 + Math.floor(rnd() * (pool[k].length - 1)), 1)[0].free();
+    }
+  }
+  t.diagnostic(`${calls} calls in ≤ ${SECONDS} s: ${JSON.stringify(outcomes)}; codes ${JSON.stringify(codes)}`);
+  assert.ok(calls >= 2000, `only ${calls} calls ran`);
+  assert.ok(outcomes.result > calls / 20 && outcomes.quantabandError > calls / 5, JSON.stringify(outcomes));
+  for (const code of ['WRONG_TYPE', 'DETACHED_BUFFER', 'DISPOSED', 'UNSUPPORTED', 'NON_FINITE']) assert.ok(codes[code] > 0, `no ${code} seen`);
+  assert.equal(qb.__testing.tableSize(), before.table, 'the externref table grew');
+  for (const k of Object.keys(pool)) for (const o of pool[k]) o.free();
+  assert.equal(ref.point(10, 300), KNOWN);
 });

@@ -6,6 +6,14 @@ import { test } from 'node:test';
 import assert from 'node:assert/strict';
 import { qb, close, rel, throwsCode, loadReference } from './helpers.mjs';
 
+/** One prepared Spectrum per distinct settings (the prepared-object pattern). */
+const spectra = new Map();
+function S(settings) {
+  const key = JSON.stringify(settings);
+  if (!spectra.has(key)) spectra.set(key, new qb.Spectrum(settings));
+  return spectra.get(key);
+}
+
 const SI_UNIT = { wavelength: 'm', wavenumber: 'm-1', frequency: 'Hz' };
 const KERNEL = {
   photon: 'photon',
@@ -57,32 +65,32 @@ test('every core reference case through the JS API', (t) => {
     };
     switch (c.kind) {
       case 'spectral':
-        got = qb.spectralDensity(spec, Number(c.x), Number(c.temperature_k));
+        got = S(spec).point(Number(c.x), Number(c.temperature_k));
         tol = 1e-13;
         bucket = 'spectral';
         break;
       case 'spectral_d_dt':
-        got = qb.spectralDensityDT(spec, Number(c.x), Number(c.temperature_k));
+        got = S(spec).derivative(Number(c.x), Number(c.temperature_k));
         tol = 1e-13;
         bucket = 'spectral';
         break;
       case 'band':
-        got = qb.bandIntegral(spec, Number(c.lower), Number(c.upper), Number(c.temperature_k));
+        got = S(spec).band(Number(c.lower), Number(c.upper), Number(c.temperature_k));
         tol = bandTol(c);
         bucket = 'band';
         break;
       case 'band_d_dt':
-        got = qb.bandIntegralDT(spec, Number(c.lower), Number(c.upper), Number(c.temperature_k));
+        got = S(spec).bandDerivative(Number(c.lower), Number(c.upper), Number(c.temperature_k));
         tol = bandTol(c);
         bucket = 'band';
         break;
       case 'band_fraction':
-        got = qb.bandFraction(spec, Number(c.lower), Number(c.upper), Number(c.temperature_k));
+        got = S(spec).bandFraction(Number(c.lower), Number(c.upper), Number(c.temperature_k));
         tol = bandTol(c);
         bucket = 'band';
         break;
       case 'band_zero':
-        got = qb.bandIntegral(spec, Number(c.lower), Number(c.upper), Number(c.temperature_k));
+        got = S(spec).band(Number(c.lower), Number(c.upper), Number(c.temperature_k));
         assert.ok(got >= 0 && got < 1e-280, `band_zero ${c.note}: ${got}`);
         counts[c.kind] = (counts[c.kind] ?? 0) + 1;
         continue;
@@ -137,26 +145,52 @@ test('every core reference case through the JS API', (t) => {
 test('same band through any coordinate unit gives the same integral', () => {
   // 8–14 µm at 300 K, mpmath quad of 2hc²/λ⁵/(e^{c2/λT}−1) (CODATA 2018): 54.93346137683969.
   const want = 54.93346137683969;
-  close(qb.bandIntegral({ unit: 'um' }, 8, 14, 300), want, 1e-13, '8-14 um');
-  close(qb.bandIntegral({ unit: 'nm' }, 8000, 14000, 300), want, 1e-13, 'in nm');
-  close(qb.bandIntegral({ unit: 'cm-1' }, 1e4 / 14, 1e4 / 8, 300), want, 1e-13, 'in cm-1');
-  close(qb.bandIntegral({ unit: 'um', variable: 'frequency' }, 8, 14, 300), want, 1e-13, 'um limits, per-Hz density');
-  close(qb.bandIntegral({ unit: 'THz' }, 299.792458 / 14, 299.792458 / 8, 300), want, 1e-13, 'in THz');
-  close(qb.bandIntegral({ unit: 'eV', variable: 'wavenumber' }, 1.2398419843320026 / 14, 1.2398419843320026 / 8, 300), want, 1e-13, 'in eV');
+  close(S({ unit: 'um' }).band(8, 14, 300), want, 1e-13, '8-14 um');
+  close(S({ unit: 'nm' }).band(8000, 14000, 300), want, 1e-13, 'in nm');
+  close(S({ unit: 'cm-1' }).band(1e4 / 14, 1e4 / 8, 300), want, 1e-13, 'in cm-1');
+  close(S({ unit: 'um', variable: 'frequency' }).band(8, 14, 300), want, 1e-13, 'um limits, per-Hz density');
+  close(S({ unit: 'THz' }).band(299.792458 / 14, 299.792458 / 8, 300), want, 1e-13, 'in THz');
+  close(S({ unit: 'eV', variable: 'wavenumber' }).band(1.2398419843320026 / 14, 1.2398419843320026 / 8, 300), want, 1e-13, 'in eV');
+});
+
+test('the density is per the unit the caller chose (default: per the coordinate unit)', () => {
+  // L_λ(10 µm, 300 K) = 9.924033330070695e6 W·m⁻²·sr⁻¹·m⁻¹ (mpmath, tests/data/gen_core.py):
+  // per µm that is ×1e-6, per nm ×1e-9 (SI prefixes); per cm⁻¹ of wavenumber at 1000 cm⁻¹,
+  // L_σ = λ²·L_λ = 9.924033330070695e-4 W·m⁻²·sr⁻¹/(m⁻¹) = 9.924033330070695e-2 per cm⁻¹.
+  close(S({ unit: 'um' }).point(10, 300), 9.924033330070695, 1e-14, 'per um');
+  close(S({ unit: 'um', densityUnit: 'm' }).point(10, 300), 9.924033330070695e6, 1e-14, 'per m');
+  close(S({ unit: 'um', densityUnit: 'nm' }).point(10, 300), 9.924033330070695e-3, 1e-14, 'per nm');
+  close(S({ unit: 'cm-1' }).point(1000, 300), 9.924033330070695e-2, 1e-13, 'per cm-1');
+  close(S({ unit: 'um' }).derivative(10, 300), 1.5997156725132194e-1, 1e-13, 'dL/dT per um');
+  assert.deepEqual({ ...S({ unit: 'um' }).units }, {
+    coordinate: 'um',
+    densityPer: 'um',
+    density: 'W m^-2 sr^-1 um^-1',
+    densityDerivative: 'W m^-2 sr^-1 um^-1 K^-1',
+    total: 'W m^-2 sr^-1',
+    totalDerivative: 'W m^-2 sr^-1 K^-1',
+  });
+  assert.equal(S({ unit: 'GHz', quantity: 'photon', geometry: 'exitance' }).units.density, 's^-1 m^-2 GHz^-1');
+  assert.equal(S({ unit: 'cm-1' }).units.density, 'W m^-2 sr^-1 cm');
+  assert.equal(S({ unit: 'eV', variable: 'frequency' }).units.densityPer, 'Hz');
+  assert.equal(S({ unit: 'µm' }).settings.unit, 'um', 'canonical name of an alias');
+  throwsCode(() => new qb.Spectrum({ unit: 'um', densityUnit: 'Hz' }), 'UNSUPPORTED');
+  // the inverse reads the value per the same unit
+  close(S({ unit: 'um' }).brightnessTemperature(10, 9.924033330070695), 300, 1e-13, 'T from a per-um value');
 });
 
 test('totals, peaks and grey bodies', () => {
   const sigma = 5.670374419e-8; // CODATA 2018 (NIST table, 10 digits)
-  close(qb.spectrumTotal({ unit: 'um', geometry: 'exitance' }, 300), sigma * 300 ** 4, 1e-9, 'σT⁴');
-  close(qb.spectrumTotal({ unit: 'um' }, 300), (sigma * 300 ** 4) / Math.PI, 1e-9, 'σT⁴/π');
-  close(qb.spectrumTotalDT({ unit: 'um', geometry: 'exitance' }, 300), 4 * sigma * 300 ** 3, 1e-9, '4σT³');
-  close(qb.spectrumTotal({ unit: 'um', geometry: 'exitance', emissivity: 0.5 }, 300), 0.5 * sigma * 300 ** 4, 1e-9, 'εσT⁴');
-  close(qb.spectrumTotal({ unit: 'um', geometry: 'exitance', refractiveIndex: 1.5 }, 300), 2.25 * sigma * 300 ** 4, 1e-9, 'n²σT⁴');
+  close(S({ unit: 'um', geometry: 'exitance' }).total(300), sigma * 300 ** 4, 1e-9, 'σT⁴');
+  close(S({ unit: 'um' }).total(300), (sigma * 300 ** 4) / Math.PI, 1e-9, 'σT⁴/π');
+  close(S({ unit: 'um', geometry: 'exitance' }).totalDerivative(300), 4 * sigma * 300 ** 3, 1e-9, '4σT³');
+  close(S({ unit: 'um', geometry: 'exitance', emissivity: 0.5 }).total(300), 0.5 * sigma * 300 ** 4, 1e-9, 'εσT⁴');
+  close(S({ unit: 'um', geometry: 'exitance', refractiveIndex: 1.5 }).total(300), 2.25 * sigma * 300 ** 4, 1e-9, 'n²σT⁴');
   // Wien displacement b = 2.897771955e-3 m·K (CODATA 2018): peak at 5000 K in µm.
-  close(qb.spectrumPeak({ unit: 'um' }, 5000), 2.897771955e-3 / 5000 * 1e6, 1e-9, 'Wien b');
-  close(qb.spectrumPeak({ unit: 'm' }, 5000), 2.897771955e-3 / 5000, 1e-9, 'Wien b, m');
+  close(S({ unit: 'um' }).peak(5000), 2.897771955e-3 / 5000 * 1e6, 1e-9, 'Wien b');
+  close(S({ unit: 'm' }).peak(5000), 2.897771955e-3 / 5000, 1e-9, 'Wien b, m');
   // b′ = 5.878925757e10 Hz/K (CODATA 2018), frequency peak in GHz.
-  close(qb.spectrumPeak({ unit: 'GHz' }, 100), 5.878925757e10 * 100 / 1e9, 1e-9, "Wien b'");
+  close(S({ unit: 'GHz' }).peak(100), 5.878925757e10 * 100 / 1e9, 1e-9, "Wien b'");
   // Stefan–Boltzmann: cavity energy density u = 4σT⁴/c.
   close(qb.energyDensity(1000), (4 * sigma * 1e12) / 299792458, 1e-9, 'u = aT^4');
   // photon number density n = 16π ζ(3) (kT/hc)³ (closed form, ζ(3) = 1.2020569031595942).
@@ -166,101 +200,99 @@ test('totals, peaks and grey bodies', () => {
   close(qb.meanPhotonEnergy(1000), qb.energyDensity(1000) / qb.photonNumberDensity(1000), 1e-12, '<E> = u/n');
 });
 
-test('units of the results', () => {
-  assert.deepEqual(qb.spectrumUnits({ unit: 'um' }), {
-    coordinate: 'um',
-    spectralDensity: 'W m^-2 sr^-1 m^-1',
-    spectralDensityDT: 'W m^-2 sr^-1 m^-1 K^-1',
-    total: 'W m^-2 sr^-1',
-    totalDT: 'W m^-2 sr^-1 K^-1',
-  });
-  assert.equal(qb.spectrumUnits({ unit: 'GHz', quantity: 'photon', geometry: 'exitance' }).spectralDensity, 's^-1 m^-2 Hz^-1');
-});
-
-test('bulk spectra: array, grid (row-major, one row per temperature), d/dT', () => {
+test('bulk forms equal the point forms; out arrays are filled and returned', () => {
   const xs = new Float64Array([0.5, 1, 2, 5, 10, 20]);
   const temps = new Float64Array([300, 1000, 3000]);
-  const spec = { unit: 'um', quantity: 'photon' };
-  const row = qb.spectralDensityArray(spec, xs, 1000);
+  const sp = S({ unit: 'um', quantity: 'photon' });
+  const row = sp.points(xs, 1000);
   assert.ok(row instanceof Float64Array);
-  const grid = qb.spectralDensityGrid(spec, xs, temps);
-  assert.ok(grid instanceof Float64Array);
-  assert.equal(grid.length, xs.length * temps.length);
+  for (let j = 0; j < xs.length; j++) assert.equal(row[j], sp.point(xs[j], 1000));
+  const out = new Float64Array(xs.length);
+  assert.equal(sp.points(Array.from(xs), 1000, out), out, 'out is returned');
+  assert.deepEqual(Array.from(out), Array.from(row), 'a plain array gives the same values');
+  const um = S({ unit: 'um' });
+  const bands = um.bands(8, 14, temps);
+  const bandsDT = um.bandDerivatives(8, 14, temps);
   for (let i = 0; i < temps.length; i++) {
-    for (let j = 0; j < xs.length; j++) {
-      assert.equal(grid[i * xs.length + j], qb.spectralDensity(spec, xs[j], temps[i]));
-    }
+    assert.equal(bands[i], um.band(8, 14, temps[i]));
+    assert.equal(bandsDT[i], um.bandDerivative(8, 14, temps[i]));
   }
-  assert.deepEqual(Array.from(row), Array.from(grid.subarray(xs.length, 2 * xs.length)));
-  const bands = qb.bandIntegralArray({ unit: 'um' }, 8, 14, temps);
-  const bandsDT = qb.bandIntegralDTArray({ unit: 'um' }, 8, 14, temps);
-  for (let i = 0; i < temps.length; i++) {
-    assert.equal(bands[i], qb.bandIntegral({ unit: 'um' }, 8, 14, temps[i]));
-    assert.equal(bandsDT[i], qb.bandIntegralDT({ unit: 'um' }, 8, 14, temps[i]));
-  }
-  assert.equal(qb.spectralDensityGrid(spec, new Float64Array(0), temps).length, 0);
+  assert.equal(sp.points(new Float64Array(0), 300).length, 0);
+  // Float32Array and readonly arrays are accepted too
+  assert.equal(um.points(new Float32Array([10]), 300)[0], um.point(10, 300));
 });
 
 test('a million spectral points in one call', () => {
   const n = 1_000_000;
   const xs = new Float64Array(n);
   for (let i = 0; i < n; i++) xs[i] = 0.1 + (i * 30) / n; // 0.1 … 30 µm
-  const ys = qb.spectralDensityArray({ unit: 'um' }, xs, 1200);
+  const um = S({ unit: 'um' });
+  const ys = um.points(xs, 1200);
   assert.equal(ys.length, n);
-  for (const i of [0, 1, 77777, 500000, n - 1]) assert.equal(ys[i], qb.spectralDensity({ unit: 'um' }, xs[i], 1200));
+  for (const i of [0, 1, 77777, 500000, n - 1]) assert.equal(ys[i], um.point(xs[i], 1200));
   const temps = new Float64Array(n).map((_, i) => 200 + i * 1e-3);
-  const b = qb.bandIntegralArray({ unit: 'um' }, 8, 14, temps);
+  const b = um.bands(8, 14, temps);
   assert.equal(b.length, n);
-  assert.equal(b[n - 1], qb.bandIntegral({ unit: 'um' }, 8, 14, temps[n - 1]));
+  assert.equal(b[n - 1], um.band(8, 14, temps[n - 1]));
 });
 
 test('extreme but valid inputs give tiny or huge finite numbers, not NaN', () => {
   // 1 nm at 300 K: x ≈ 48 000, true value ~1e-20000 → 0 (below the f64 range).
-  assert.equal(qb.spectralDensity({ unit: 'nm' }, 1, 300), 0);
+  assert.equal(S({ unit: 'nm' }).point(1, 300), 0);
   // Rayleigh–Jeans region: 1 m at 1e6 K, finite and positive.
-  const rj = qb.spectralDensity({ unit: 'm' }, 1, 1e6);
+  const rj = S({ unit: 'm' }).point(1, 1e6);
   assert.ok(Number.isFinite(rj) && rj > 0);
   // RJ limit 2ckT/λ⁴ (c = 299792458, k = 1.380649e-23)
   close(rj, (2 * 299792458 * 1.380649e-23 * 1e6) / 1, 1e-6, 'Rayleigh-Jeans');
   // 1e-3 K: the spectrum at 1 cm is astronomically small but the total is finite.
-  assert.ok(Number.isFinite(qb.spectrumTotal({ unit: 'm' }, 1e-3)));
-  close(qb.spectrumTotal({ unit: 'm' }, 1e9), (5.670374419e-8 * 1e36) / Math.PI, 1e-9, 'σT⁴/π at 1e9 K');
+  assert.ok(Number.isFinite(S({ unit: 'm' }).total(1e-3)));
+  close(S({ unit: 'm' }).total(1e9), (5.670374419e-8 * 1e36) / Math.PI, 1e-9, 'σT⁴/π at 1e9 K');
+  // a coordinate whose SI form underflows is reported with the value given, not "got 0"
+  const e = throwsCode(() => S({ unit: 'nm' }).point(1e-320, 300), 'OUT_OF_RANGE');
+  assert.match(e.message, /^x must lie in .* \(got 1e-320\)$/);
 });
 
-test('inverses: brightness temperature, band temperature, band-ratio temperature', () => {
-  const um = { unit: 'um' };
+test('inverses: true (grey-body) and brightness temperature, band and band-ratio temperature', () => {
+  const um = S({ unit: 'um', densityUnit: 'm' });
   // forward values from the mpmath reference (see the table test) make the round trip external:
   // L_λ(10 µm, 300 K) = 9.924033330070695e6 and the 8–14 µm band at 300 K = 54.93346137683969.
-  close(qb.brightnessTemperature(um, 10, 9.924033330070695e6), 300, 1e-13, 'brightness T');
-  close(qb.temperatureFromBand(um, 8, 14, 54.93346137683969), 300, 1e-12, 'band T');
-  const grey = { unit: 'um', emissivity: 0.8 };
-  close(qb.brightnessTemperature(grey, 10, qb.spectralDensity(grey, 10, 700)), 700, 1e-13, 'grey-body T');
+  close(um.brightnessTemperature(10, 9.924033330070695e6), 300, 1e-13, 'brightness T');
+  close(um.temperature(10, 9.924033330070695e6), 300, 1e-13, 'ε = 1: true T = brightness T');
+  close(um.bandTemperature(8, 14, 54.93346137683969), 300, 1e-12, 'band T');
+  // A grey body (ε = 0.8) at 700 K: its true temperature is 700 K; its brightness temperature
+  // is that of the blackbody giving the same radiance, i.e. the T with L_bb(T) = 0.8·L_bb(700 K).
+  const grey = S({ unit: 'um', emissivity: 0.8 });
+  const v = grey.point(10, 700);
+  close(grey.temperature(10, v), 700, 1e-13, 'grey-body true T');
+  const tb = grey.brightnessTemperature(10, v);
+  close(S({ unit: 'um' }).point(10, tb), v, 1e-13, 'brightness T: blackbody with the same radiance');
+  assert.ok(tb < 700);
   const temps = new Float64Array([250, 300, 500, 1000, 2500]);
-  const vals = qb.bandIntegralArray(um, 3, 5, temps);
-  const back = qb.temperatureFromBandArray(um, 3, 5, vals);
+  const vals = um.bands(3, 5, temps);
+  const back = um.bandTemperatures(3, 5, vals);
   temps.forEach((t, i) => close(back[i], t, 1e-11, `band round trip ${t} K`));
-  const dens = qb.spectralDensityArray(um, new Float64Array([4, 4, 4]), 900);
-  qb.brightnessTemperatureArray(um, 4, dens).forEach((t) => close(t, 900, 1e-13, 'brightness array'));
-  dens.forEach((d) => close(qb.brightnessTemperature(um, 4, d), 900, 1e-13, 'brightness'));
-  throwsCode(() => qb.brightnessTemperature(um, 10, 0), 'NON_POSITIVE');
-  throwsCode(() => qb.temperatureFromBand(um, 14, 8, 1), 'INVALID_BAND');
-  throwsCode(() => qb.temperatureFromBandArray(um, 8, 14, new Float64Array([1, -1])), 'NON_POSITIVE', 1);
+  const dens = um.points(new Float64Array([4, 4, 4]), 900);
+  um.brightnessTemperatures(4, dens).forEach((t) => close(t, 900, 1e-13, 'brightness array'));
+  um.temperatures(4, dens).forEach((t) => close(t, 900, 1e-13, 'true T array'));
+  throwsCode(() => um.brightnessTemperature(10, 0), 'NON_POSITIVE');
+  throwsCode(() => um.bandTemperature(14, 8, 1), 'INVALID_BAND');
+  throwsCode(() => um.bandTemperatures(8, 14, new Float64Array([1, -1])), 'NON_POSITIVE', 1);
 });
 
 test('band-ratio temperature, d/dT and fraction arrays, kernel totals', () => {
-  const um = { unit: 'um' };
+  const um = S({ unit: 'um' });
   // two-colour with band integrals: an invented billet line, 0.9–1.0 µm over 1.0–1.1 µm at 1400 K
-  const r = qb.bandIntegral(um, 0.9, 1.0, 1400) / qb.bandIntegral(um, 1.0, 1.1, 1400);
-  close(qb.temperatureFromBandRatio(um, { lower: 0.9, upper: 1.0 }, { lower: 1.0, upper: 1.1 }, r, 1), 1400, 1e-11, 'band ratio');
-  throwsCode(() => qb.temperatureFromBandRatio(um, { lower: 0.9 }, { lower: 1, upper: 1.1 }, 1, 1), 'NON_FINITE');
-  throwsCode(() => qb.temperatureFromBandRatio(um, { lower: 0.9, upper: 1, width: 1 }, { lower: 1, upper: 1.1 }, 1, 1), 'UNSUPPORTED');
-  throwsCode(() => qb.temperatureFromBandRatio(um, { lower: 0.9, upper: 1 }, { lower: 1, upper: 1.1 }, -1, 1), 'NON_POSITIVE');
+  const r = um.band(0.9, 1.0, 1400) / um.band(1.0, 1.1, 1400);
+  close(um.bandRatioTemperature(0.9, 1.0, 1.0, 1.1, r, 1), 1400, 1e-11, 'band ratio');
+  close(um.bandRatioTemperature(0.9, 1.0, 1.0, 1.1, r), 1400, 1e-11, 'emissivity ratio defaults to 1');
+  throwsCode(() => um.bandRatioTemperature(0.9, undefined, 1, 1.1, 1, 1), 'WRONG_TYPE');
+  throwsCode(() => um.bandRatioTemperature(0.9, 1, 1, 1.1, -1, 1), 'NON_POSITIVE');
   const xs = new Float64Array([0.5, 1, 2, 5, 10, 20]);
   const temps = new Float64Array([300, 1000, 3000]);
-  const d = qb.spectralDensityDTArray({ unit: 'um' }, xs, 1000);
-  for (let j = 0; j < xs.length; j++) assert.equal(d[j], qb.spectralDensityDT({ unit: 'um' }, xs[j], 1000));
-  const fr = qb.bandFractionArray(um, 8, 14, temps);
-  for (let i = 0; i < temps.length; i++) assert.equal(fr[i], qb.bandFraction(um, 8, 14, temps[i]));
+  const d = um.derivatives(xs, 1000);
+  for (let j = 0; j < xs.length; j++) assert.equal(d[j], um.derivative(xs[j], 1000));
+  const fr = um.bandFractions(8, 14, temps);
+  for (let i = 0; i < temps.length; i++) assert.equal(fr[i], um.bandFraction(8, 14, temps[i]));
   close(qb.planckIntegralTotal('energy'), Math.PI ** 4 / 15, 1e-15, 'π⁴/15');
   close(qb.planckIntegralTotal('photon'), 2 * 1.2020569031595942, 1e-15, '2ζ(3)');
   throwsCode(() => qb.planckIntegral('quartic', 0, 1), 'UNSUPPORTED');
@@ -268,33 +300,34 @@ test('band-ratio temperature, d/dT and fraction arrays, kernel totals', () => {
 });
 
 test('radiometry errors: every bad input has its code, and the module recovers', () => {
-  const um = { unit: 'um' };
-  throwsCode(() => qb.spectralDensity(um, 10, 0), 'NON_POSITIVE_TEMPERATURE');
-  throwsCode(() => qb.spectralDensity(um, 10, -5), 'NON_POSITIVE_TEMPERATURE');
-  throwsCode(() => qb.spectralDensity(um, 10, NaN), 'NON_FINITE');
-  throwsCode(() => qb.spectralDensity(um, 0, 300), 'NON_POSITIVE_SPECTRAL');
-  throwsCode(() => qb.spectralDensity(um, -Infinity, 300), 'NON_FINITE');
-  throwsCode(() => qb.spectralDensity({ unit: 'um', emissivity: 0 }, 10, 300), 'OUT_OF_RANGE');
-  throwsCode(() => qb.spectralDensity({ unit: 'um', emissivity: 1.01 }, 10, 300), 'OUT_OF_RANGE');
-  throwsCode(() => qb.spectralDensity({ unit: 'um', refractiveIndex: -1 }, 10, 300), 'NON_POSITIVE');
-  throwsCode(() => qb.spectralDensity({ unit: 'um', emissivity: '0.5' }, 10, 300), 'NON_FINITE');
-  throwsCode(() => qb.spectralDensity({ unit: 'parsec' }, 10, 300), 'UNKNOWN_UNIT');
-  throwsCode(() => qb.spectralDensity({}, 10, 300), 'UNKNOWN_UNIT');
-  throwsCode(() => qb.spectralDensity({ unit: 'um', emisivity: 0.5 }, 10, 300), 'UNSUPPORTED');
-  throwsCode(() => qb.spectralDensity({ unit: 'um', quantity: 'photons' }, 10, 300), 'UNSUPPORTED');
-  throwsCode(() => qb.spectralDensity({ unit: 'um', variable: 'energy' }, 10, 300), 'UNSUPPORTED');
-  throwsCode(() => qb.spectralDensity({ unit: 'um', c2: 'ITS-90' }, 10, 300), 'UNSUPPORTED');
-  throwsCode(() => qb.spectralDensity({ unit: 'eV' }, 1, 300), 'UNSUPPORTED');
-  throwsCode(() => qb.spectralDensity(null, 10, 300), 'UNSUPPORTED');
-  throwsCode(() => qb.spectralDensity([1, 2], 10, 300), 'UNSUPPORTED');
-  throwsCode(() => qb.bandIntegral(um, 14, 8, 300), 'INVALID_BAND');
-  throwsCode(() => qb.bandIntegral(um, 8, 8, 300), 'INVALID_BAND');
-  throwsCode(() => qb.bandIntegral(um, -1, 8, 300), 'NON_POSITIVE_SPECTRAL');
-  throwsCode(() => qb.bandFraction(um, 8, 14, 0), 'NON_POSITIVE_TEMPERATURE');
+  const um = S({ unit: 'um' });
+  throwsCode(() => um.point(10, 0), 'NON_POSITIVE_TEMPERATURE');
+  throwsCode(() => um.point(10, -5), 'NON_POSITIVE_TEMPERATURE');
+  throwsCode(() => um.point(10, NaN), 'NON_FINITE');
+  throwsCode(() => um.point(0, 300), 'NON_POSITIVE_SPECTRAL');
+  throwsCode(() => um.point(-Infinity, 300), 'NON_FINITE');
+  throwsCode(() => new qb.Spectrum({ unit: 'um', emissivity: 0 }), 'OUT_OF_RANGE');
+  throwsCode(() => new qb.Spectrum({ unit: 'um', emissivity: 1.01 }), 'OUT_OF_RANGE');
+  throwsCode(() => new qb.Spectrum({ unit: 'um', refractiveIndex: -1 }), 'NON_POSITIVE');
+  throwsCode(() => new qb.Spectrum({ unit: 'um', emissivity: '0.5' }), 'WRONG_TYPE');
+  throwsCode(() => new qb.Spectrum({ unit: 'parsec' }), 'UNKNOWN_UNIT');
+  throwsCode(() => new qb.Spectrum({}), 'WRONG_TYPE');
+  throwsCode(() => new qb.Spectrum({ unit: 'um', emisivity: 0.5 }), 'UNSUPPORTED');
+  throwsCode(() => new qb.Spectrum({ unit: 'um', quantity: 'photons' }), 'UNSUPPORTED');
+  throwsCode(() => new qb.Spectrum({ unit: 'um', variable: 'energy' }), 'UNSUPPORTED');
+  throwsCode(() => new qb.Spectrum({ unit: 'um', c2: 'ITS-90' }), 'UNSUPPORTED');
+  throwsCode(() => new qb.Spectrum({ unit: 'eV' }), 'UNSUPPORTED');
+  throwsCode(() => new qb.Spectrum(null), 'WRONG_TYPE');
+  throwsCode(() => new qb.Spectrum([1, 2]), 'WRONG_TYPE');
+  throwsCode(() => um.band(14, 8, 300), 'INVALID_BAND');
+  throwsCode(() => um.band(8, 8, 300), 'INVALID_BAND');
+  throwsCode(() => um.band(-1, 8, 300), 'NON_POSITIVE_SPECTRAL');
+  throwsCode(() => um.bandFraction(8, 14, 0), 'NON_POSITIVE_TEMPERATURE');
   throwsCode(() => qb.lambdaTAtFraction(1.5), 'OUT_OF_RANGE');
-  throwsCode(() => qb.spectralDensityArray(um, new Float64Array([1, 2, 3, 0]), 300), 'NON_POSITIVE_SPECTRAL', 3);
-  throwsCode(() => qb.spectralDensityGrid(um, new Float64Array([1, 2]), new Float64Array([300, -1])), 'NON_POSITIVE_TEMPERATURE', 1);
-  throwsCode(() => qb.spectralDensityGrid(um, new Float64Array([1, NaN]), new Float64Array([300])), 'NON_FINITE', 1);
-  throwsCode(() => qb.bandIntegralArray(um, 8, 14, new Float64Array([300, 400, NaN])), 'NON_FINITE', 2);
-  throwsCode(() => qb.spectralDensityArray(um, new Float64Array([1]), 0), 'NON_POSITIVE_TEMPERATURE');
+  throwsCode(() => um.points(new Float64Array([1, 2, 3, 0]), 300), 'NON_POSITIVE_SPECTRAL', 3);
+  throwsCode(() => um.bands(8, 14, new Float64Array([300, 400, NaN])), 'NON_FINITE', 2);
+  throwsCode(() => um.points(new Float64Array([1]), 0), 'NON_POSITIVE_TEMPERATURE');
+  // messages use the JavaScript names
+  assert.match(throwsCode(() => um.point(10, -5), 'NON_POSITIVE_TEMPERATURE').message, /^temperatureK must be > 0 K/);
+  assert.match(throwsCode(() => new qb.Spectrum({ unit: 'um', refractiveIndex: -1 }), 'NON_POSITIVE').message, /^settings\.refractiveIndex must be > 0/);
 });

@@ -6,6 +6,16 @@ import { test } from 'node:test';
 import assert from 'node:assert/strict';
 import { qb, close, throwsCode, loadReference } from './helpers.mjs';
 
+/** One prepared Instrument per distinct model and conditions (the prepared-object pattern). */
+const instruments = new Map();
+function I(model, conditions) {
+  const key = JSON.stringify([model, conditions ?? null], (k, v) => (ArrayBuffer.isView(v) ? Array.from(v) : v));
+  if (!instruments.has(key)) instruments.set(key, new qb.Instrument(conditions === undefined ? { model } : { model, conditions }));
+  return instruments.get(key);
+}
+/** A calibration curve from a sakumaHattori model object. */
+const C = (m) => new qb.CalibrationCurve({ aM: m.aM, bMK: m.bMK, c: m.c, ...(m.c2 ? { c2: m.c2 } : {}) });
+
 const ref = loadReference('thermometry_reference.json');
 const resp = (name, unit = 'm') => ({
   kind: 'response',
@@ -30,40 +40,40 @@ test('response-weighted signals, derivatives and wavelengths (mpmath quad)', () 
   for (const c of ref.integrals) {
     const m = resp(c.response);
     const what = `${c.response} at ${c.temperature_k} K`;
-    close(qb.modelSignal(m, c.temperature_k), c.signal, 1e-10, `signal ${what}`);
-    close(qb.modelSignal(um_(c.response), c.temperature_k), c.signal, 1e-10, `signal (um table) ${what}`);
-    close(qb.modelTemperature(m, c.signal), c.temperature_k, 1e-11, `inverse ${what}`);
-    close(qb.modelSignalDT(m, c.temperature_k), c.d_signal_dt, 1e-10, `dS/dT ${what}`);
-    const mom = qb.signalMoments(m, c.temperature_k);
+    close(I(m).signal(c.temperature_k), c.signal, 1e-10, `signal ${what}`);
+    close(I(um_(c.response)).signal(c.temperature_k), c.signal, 1e-10, `signal (um table) ${what}`);
+    close(I(m).temperature(c.signal), c.temperature_k, 1e-11, `inverse ${what}`);
+    close(I(m).signalDerivative(c.temperature_k), c.d_signal_dt, 1e-10, `dS/dT ${what}`);
+    const mom = I(m).signalMoments(c.temperature_k);
     close(mom.mean, c.mean_wavelength_m, 1e-10, `mean wavelength ${what}`);
     // the spread is √(⟨λ²⟩ − ⟨λ⟩²): cancellation amplifies the integrals' rounding by
     // (mean/spread)², about 4e3 for the narrow far-tail cases (common practice, no source);
     // measured worst 9.2e-13 (triangle_650nm at 100 K), bound ≥ 1e-10 as in the core's docs
     close(mom.spread, c.spread_m, 1e-13 * Math.max(1e3, (c.mean_wavelength_m / c.spread_m) ** 2), `spread ${what}`);
-    close(qb.limitingEffectiveWavelength(m, c.temperature_k), c.limiting_effective_wavelength_m, 1e-11, `lambda_T ${what}`);
+    close(I(m).limitingEffectiveWavelength(c.temperature_k), c.limiting_effective_wavelength_m, 1e-11, `lambda_T ${what}`);
     // the same in micrometres: unit handling of the model
     const um = resp(c.response, 'um');
     um.wavelengths = um.wavelengths.map((x) => x * 1e6);
-    close(qb.modelSignal(um, c.temperature_k), c.signal, 1e-10, `signal (um table) ${what}`);
-    close(qb.limitingEffectiveWavelength(um, c.temperature_k), c.limiting_effective_wavelength_m * 1e6, 1e-11, `lambda_T in um ${what}`);
+    close(I(um).signal(c.temperature_k), c.signal, 1e-10, `signal (um table) ${what}`);
+    close(I(um).limitingEffectiveWavelength(c.temperature_k), c.limiting_effective_wavelength_m * 1e6, 1e-11, `lambda_T in um ${what}`);
     // inverse: blackbody temperature from the signal
-    close(qb.modelTemperature(m, c.signal), c.temperature_k, 1e-11, `inverse ${what}`);
+    close(I(m).temperature(c.signal), c.temperature_k, 1e-11, `inverse ${what}`);
   }
   for (const c of ref.response_moments) {
-    const mom = qb.responseMoments(resp(c.response));
+    const mom = I(resp(c.response)).responseMoments();
     close(mom.mean, c.mean_m, 1e-13, `response mean ${c.response}`);
     close(mom.spread, c.spread_m, 1e-12, `response spread ${c.response}`);
   }
   for (const c of ref.effective_wavelengths) {
-    close(qb.effectiveWavelength(resp(c.response), c.t1_k, c.t2_k), c.effective_wavelength_m, 1e-10, `lambda_e ${c.response}`);
+    close(I(resp(c.response)).effectiveWavelength(c.t1_k, c.t2_k), c.effective_wavelength_m, 1e-10, `lambda_e ${c.response}`);
   }
 });
 
 test('single-wavelength model and ITS-90 ratios', () => {
   for (const c of ref.spectral_points) {
     const m = { kind: 'spectralPoint', wavelength: c.wavelength_m * 1e9, unit: 'nm' };
-    close(qb.modelSignal(m, c.temperature_k), c.radiance, 1e-13, `L at ${c.wavelength_m} m`);
-    close(qb.modelSignalDT(m, c.temperature_k), c.d_radiance_dt, 1e-13, `dL/dT at ${c.wavelength_m} m`);
+    close(I(m).signal(c.temperature_k), c.radiance, 1e-13, `L at ${c.wavelength_m} m`);
+    close(I(m).signalDerivative(c.temperature_k), c.d_radiance_dt, 1e-13, `dL/dT at ${c.wavelength_m} m`);
   }
   for (const c of ref.its90) {
     const r = qb.its90Temperature(c.ratio, c.wavelength_m * 1e9, 'nm', c.fixed_point);
@@ -94,22 +104,22 @@ test('measurement equation with emissivity, path and window, and its inverse', (
       reflectedTemperatureK: c.window.reflected_temperature_k,
     },
   };
-  close(qb.measuredSignal(m, c.object_temperature_k, cond), c.signal, 1e-12, 'measured signal');
-  close(qb.objectTemperature(m, c.signal, cond), c.object_temperature_k, 1e-11, 'object temperature');
-  const { gain, background } = qb.measurementAffine(m, cond);
+  close(I(m, cond).measuredSignal(c.object_temperature_k), c.signal, 1e-12, 'measured signal');
+  close(I(m, cond).objectTemperature(c.signal), c.object_temperature_k, 1e-11, 'object temperature');
+  const { gain, background } = I(m, cond).measurementAffine();
   close(gain, c.window.transmittance * c.path_transmittance * c.emissivity, 1e-15, 'gain = tau_w tau eps');
-  close(gain * qb.modelSignal(m, c.object_temperature_k) + background, c.signal, 1e-12, 'affine form');
+  close(gain * I(m).signal(c.object_temperature_k) + background, c.signal, 1e-12, 'affine form');
   // bulk inverse equals the scalar one element by element
   const temps = new Float64Array([800, 950, 1100, 1400]);
-  const signals = qb.measuredSignalArray(m, temps, cond);
-  const back = qb.objectTemperatureArray(m, signals, cond);
+  const signals = I(m, cond).measuredSignals(temps);
+  const back = I(m, cond).objectTemperatures(signals);
   for (let i = 0; i < temps.length; i++) {
-    assert.equal(signals[i], qb.measuredSignal(m, temps[i], cond));
-    assert.equal(back[i], qb.objectTemperature(m, signals[i], cond));
+    assert.equal(signals[i], I(m, cond).measuredSignal(temps[i]));
+    assert.equal(back[i], I(m, cond).objectTemperature(signals[i]));
     close(back[i], temps[i], 1e-11, `round trip ${temps[i]} K`);
   }
   // blackbody in vacuum when conditions are omitted
-  close(qb.objectTemperature(m, qb.modelSignal(m, 1000)), 1000, 1e-11, 'no conditions');
+  close(I(m).objectTemperature(I(m).signal(1000)), 1000, 1e-11, 'no conditions');
 });
 
 test('uncertainty budget (GUM, mpmath.diff sensitivities)', () => {
@@ -122,12 +132,12 @@ test('uncertainty budget (GUM, mpmath.diff sensitivities)', () => {
     pathTransmittance: i.path_transmittance,
     pathTemperatureK: i.path_temperature_k,
   };
-  close(qb.measuredSignal(model, i.object_temperature_k, cond), b.signal, 1e-12, 'budget signal');
-  const s = qb.sensitivities(model, b.signal, cond);
+  close(I(model, cond).measuredSignal(i.object_temperature_k), b.signal, 1e-12, 'budget signal');
+  const s = I(model, cond).sensitivities(b.signal);
   close(s.temperatureK, i.object_temperature_k, 1e-12, 'T at reading');
   const sens = [s.signal, s.emissivity, s.reflectedTemperature, s.pathTransmittance, s.pathTemperature];
   sens.forEach((v, k) => close(v, b.sensitivities[k], 1e-8, `sensitivity ${k}`));
-  const u = qb.uncertaintyBudget(model, b.signal, cond, {
+  const u = I(model, cond).uncertaintyBudget(b.signal, {
     signal: i.u_signal_rel * b.signal,
     emissivity: i.u_emissivity,
     reflectedTemperatureK: i.u_reflected_temperature_k,
@@ -152,56 +162,65 @@ test('two-colour and ratio thermometry (mpmath findroot and diff)', () => {
   close(r.dTdEmissivityRatio, c.d_t_d_emissivity_ratio, 1e-8, 'dT/d(eps ratio)');
   const ch1 = { kind: 'spectralPoint', wavelength: c.wavelength1_m, unit: 'm' };
   const ch2 = { kind: 'spectralPoint', wavelength: c.wavelength2_m, unit: 'm' };
-  const rr = qb.ratioTemperature(ch1, ch2, c.ratio, c.emissivity_ratio, 1000);
+  const rr = I(ch1).ratioTemperature(I(ch2), c.ratio, c.emissivity_ratio, 1000);
   close(rr.temperatureK, c.temperature_k, 1e-12, 'ratioTemperature T');
 });
 
 test('Sakuma–Hattori fits', () => {
   const truth = { kind: 'sakumaHattori', aM: 3.9e-6, bMK: 2e-8, c: 5e4 };
   const t = new Float64Array([400, 600, 900, 1200, 1500]);
-  const s = t.map((x) => qb.modelSignal(truth, x));
-  const fit = qb.sakumaHattoriFit(t, s);
-  assert.equal(fit.curve.kind, 'sakumaHattori');
-  assert.equal(fit.curve.c2, 'codata2018');
-  close(fit.curve.aM, 3.9e-6, 1e-7, 'A recovered');
-  assert.ok(fit.maxAbsResidualK < 1e-7);
-  assert.ok(fit.residualsK instanceof Float64Array && fit.residualsK.length === t.length);
-  // the fitted curve object is itself a usable model
-  close(qb.modelTemperature(fit.curve, qb.modelSignal(truth, 1000)), 1000, 1e-8, 'fitted curve inverse');
+  const s = t.map((x) => I(truth).signal(x));
+  const fit = qb.CalibrationCurve.fit(t, s);
+  assert.equal(fit.coefficients.c2, 'codata2018');
+  close(fit.coefficients.aM, 3.9e-6, 1e-7, 'A recovered');
+  assert.ok(fit.fitReport.maxAbsResidualK < 1e-7);
+  assert.ok(fit.fitReport.residualsK instanceof Float64Array && fit.fitReport.residualsK.length === t.length);
+  // the fitted curve converts signals, and its coefficients make an instrument model
+  close(fit.temperature(I(truth).signal(1000)), 1000, 1e-8, 'fitted curve inverse');
+  close(I({ kind: 'sakumaHattori', ...fit.coefficients }).temperature(I(truth).signal(1000)), 1000, 1e-8, 'as a model');
+  // points in any order (and a plain array) give the same curve
+  const order = [3, 0, 4, 1, 2];
+  const mixed = qb.CalibrationCurve.fit(order.map((k) => t[k]), order.map((k) => s[k]));
+  close(mixed.coefficients.aM, fit.coefficients.aM, 1e-12, 'unordered points');
+  assert.equal(mixed.fitReport.residualsK.length, 5);
   const band = resp('rect_8_14um');
-  const fm = qb.sakumaHattoriFitModel(band, 250, 600);
-  const err = qb.maxInterpolationError(fm.curve, band, 250, 600, 200);
+  const fm = qb.CalibrationCurve.fitInstrument(I(band), 250, 600);
+  assert.equal(fm.fitReport.residualsK, undefined);
+  const err = fm.maxInterpolationError(I(band), 250, 600, 200);
   assert.ok(err.maxErrorK < 0.05 && err.atTemperatureK >= 250 && err.atTemperatureK <= 600, JSON.stringify(err));
-  const start = qb.sakumaHattoriFromResponse(resp('triangle_650nm'), 1337.33);
-  close(qb.modelTemperature(start, qb.modelSignal(resp('triangle_650nm'), 1337.33)), 1337.33, 1e-9, 'moment curve exact at T_ref');
+  const start = qb.CalibrationCurve.fromResponse(I(resp('triangle_650nm')), 1337.33);
+  close(start.temperature(I(resp('triangle_650nm')).signal(1337.33)), 1337.33, 1e-9, 'moment curve exact at T_ref');
+  assert.equal(start.fitReport, undefined);
 });
 
 test('bulk thermometry over a million readings', () => {
   const m = { kind: 'sakumaHattori', aM: 1e-5, bMK: 1.8e-4, c: 1e6 };
   const n = 1_000_000;
   const temps = new Float64Array(n).map((_, i) => 260 + (i % 1000) * 0.5);
-  const s = qb.measuredSignalArray(m, temps); // no conditions: a blackbody, signal = S(T)
-  const obj = qb.objectTemperatureArray(m, s, { emissivity: 0.95, reflectedTemperatureK: 293.15 });
+  const s = I(m).measuredSignals(temps); // no conditions: a blackbody, signal = S(T)
+  const obj = I(m, { emissivity: 0.95, reflectedTemperatureK: 293.15 }).objectTemperatures(s);
   assert.equal(obj.length, n);
-  const bb = qb.objectTemperatureArray(m, s);
+  const bb = I(m).objectTemperatures(s);
   for (const i of [0, 999, 123456, n - 1]) {
     close(bb[i], temps[i], 1e-12, `model inverse ${i}`);
-    assert.equal(obj[i], qb.objectTemperature(m, s[i], { emissivity: 0.95, reflectedTemperatureK: 293.15 }));
+    assert.equal(obj[i], I(m, { emissivity: 0.95, reflectedTemperatureK: 293.15 }).objectTemperature(s[i]));
   }
 });
 
 test('fit to a model, interpolation error, ratio errors', () => {
   const sp = { kind: 'spectralPoint', wavelength: 10, unit: 'um' };
   const rm = { kind: 'response', wavelengths: [8, 14], values: [1, 1], unit: 'um' };
-  throwsCode(() => qb.sakumaHattoriFitModel(rm, 600, 250), 'DEGENERATE_FIT');
-  throwsCode(() => qb.maxInterpolationError(sp, sp, 300, 400, 1), 'TOO_FEW_POINTS');
-  throwsCode(() => qb.maxInterpolationError(sp, sp, 300, 400, 2.5), 'OUT_OF_RANGE');
+  throwsCode(() => qb.CalibrationCurve.fitInstrument(I(rm), 600, 250), 'DEGENERATE_FIT');
+  const curve = qb.CalibrationCurve.fitInstrument(I(rm), 250, 600);
+  throwsCode(() => curve.maxInterpolationError(I(sp), 300, 400, 1), 'TOO_FEW_POINTS');
+  throwsCode(() => curve.maxInterpolationError(I(sp), 300, 400, 2.5), 'OUT_OF_RANGE');
+  throwsCode(() => curve.maxInterpolationError(sp, 300, 400, 10), 'WRONG_TYPE'); // a model object, not an Instrument
   throwsCode(() => qb.twoColourTemperature(1.05, 0.9, 'um', 0.5, 1), 'INVALID_BAND'); // channel 1 must be the shorter wavelength
   throwsCode(() => qb.twoColourTemperature(0.9, 1.05, 'um', 0.5, 1, 'its-90'), 'UNSUPPORTED');
-  throwsCode(() => qb.signalMoments(sp, 300), 'UNSUPPORTED');
+  throwsCode(() => I(sp).signalMoments(300), 'UNSUPPORTED');
   const m = { kind: 'sakumaHattori', aM: 1e-5, bMK: 1.8e-4, c: 1e6 };
   const t = new Float64Array([300, 500, 900]);
-  const back = qb.modelTemperatureArray(m, qb.modelSignalArray(m, t));
+  const back = I(m).temperatures(I(m).signals(t));
   t.forEach((x, i) => close(back[i], x, 1e-12, 'modelTemperatureArray'));
 });
 
@@ -214,17 +233,17 @@ test('frame conversion: Uint16/Float32/Float64 input, Float32/Float64 output, em
   const counts = new Uint16Array(w * h);
   for (let i = 0; i < counts.length; i++) counts[i] = 15000 + ((i * 7) % 20000);
   counts[5] = 0; // below the background: NaN
-  const r32 = qb.convertFrame(curve, counts, { gain: 2, offset: -5000, conditions: cond });
+  const r32 = C(curve).convertFrame(counts, { gain: 2, offset: -5000, conditions: cond });
   assert.ok(r32.temperaturesK instanceof Float32Array);
   assert.equal(r32.temperaturesK.length, w * h);
   assert.equal(r32.valid + r32.invalid, w * h);
   assert.equal(r32.invalid, 1);
   assert.ok(Number.isNaN(r32.temperaturesK[5]));
-  const r64 = qb.convertFrame(curve, counts, { gain: 2, offset: -5000, conditions: cond, output: 'float64' });
+  const r64 = C(curve).convertFrame(counts, { gain: 2, offset: -5000, conditions: cond, output: 'float64' });
   assert.ok(r64.temperaturesK instanceof Float64Array);
   let worst = 0;
   for (const i of [0, 1, 777, 12345, w * h - 1]) {
-    const exact = qb.objectTemperature(curve, 2 * counts[i] - 5000, cond);
+    const exact = I(curve, cond).objectTemperature(2 * counts[i] - 5000);
     worst = Math.max(worst, Math.abs(r64.temperaturesK[i] - exact));
     assert.ok(Math.abs(r32.temperaturesK[i] - exact) <= 6e-8 * exact + 1e-9);
   }
@@ -236,24 +255,23 @@ test('frame conversion: Uint16/Float32/Float64 input, Float32/Float64 output, em
   assert.equal(r32.maxTemperatureK, hi);
   // Float32 and Float64 signal frames give the same as counts converted by hand
   const sig = Float64Array.from(counts, (c) => 2 * c - 5000);
-  const rs = qb.convertFrame(curve, sig, { conditions: cond, output: 'float64' });
+  const rs = C(curve).convertFrame(sig, { conditions: cond, output: 'float64' });
   for (const i of [0, 999]) close(rs.temperaturesK[i], r64.temperaturesK[i], 1e-12, 'signal frame');
-  const rf = qb.convertFrame(curve, Float32Array.from(sig), { conditions: cond });
+  const rf = C(curve).convertFrame(Float32Array.from(sig), { conditions: cond });
   assert.equal(rf.temperaturesK.length, sig.length);
   // per-pixel emissivity map
   const eps = new Float32Array(counts.length).fill(0.95);
   eps[3] = 1.5; // invalid → NaN
-  const re = qb.convertFrame(curve, counts, { gain: 2, offset: -5000, conditions: cond, emissivity: eps, output: 'float64' });
+  const re = C(curve).convertFrame(counts, { gain: 2, offset: -5000, conditions: cond, emissivity: eps, output: 'float64' });
   assert.equal(re.invalid, 2);
   assert.ok(Number.isNaN(re.temperaturesK[3]));
   close(re.temperaturesK[0], r64.temperaturesK[0], 1e-6, 'map of 0.95 = scalar 0.95 (f32 emissivity)');
   // errors
-  throwsCode(() => qb.convertFrame(curve, [1, 2, 3]), 'UNSUPPORTED');
-  throwsCode(() => qb.convertFrame({ kind: 'spectralPoint', wavelength: 10, unit: 'um' }, counts), 'UNSUPPORTED');
-  throwsCode(() => qb.convertFrame(curve, counts, { gain: 0 }), 'NON_POSITIVE');
-  throwsCode(() => qb.convertFrame(curve, counts, { emissivity: new Float32Array(3) }), 'LENGTH_MISMATCH');
-  throwsCode(() => qb.convertFrame(curve, counts, { output: 'int16' }), 'UNSUPPORTED');
-  throwsCode(() => qb.convertFrame(curve, counts, { gian: 1 }), 'UNSUPPORTED');
+  throwsCode(() => C(curve).convertFrame([1, 2, 3]), 'WRONG_TYPE');
+  throwsCode(() => C(curve).convertFrame(counts, { gain: 0 }), 'NON_POSITIVE');
+  throwsCode(() => C(curve).convertFrame(counts, { emissivity: new Float32Array(3) }), 'LENGTH_MISMATCH');
+  throwsCode(() => C(curve).convertFrame(counts, { output: 'int16' }), 'UNSUPPORTED');
+  throwsCode(() => C(curve).convertFrame(counts, { gian: 1 }), 'UNSUPPORTED');
 });
 
 test('frame conversion in single precision (simd128 block loop): within 1 mK, f64 fallback bit-identical', () => {
@@ -265,8 +283,8 @@ test('frame conversion in single precision (simd128 block loop): within 1 mK, f6
   const cond = { emissivity: 0.9, reflectedTemperatureK: 293.15 };
   const n = 640 * 480;
   const scene = Float64Array.from({ length: n }, (_, i) => 250 + (350 * ((i * 7919) % n)) / n);
-  const sig32 = Float32Array.from(qb.measuredSignalArray(curve, scene, cond));
-  const exact = qb.objectTemperatureArray(curve, Float64Array.from(sig32), cond);
+  const sig32 = Float32Array.from(I(curve, cond).measuredSignals(scene));
+  const exact = I(curve, cond).objectTemperatures(Float64Array.from(sig32));
   const check = (out, want, what) => {
     let worst = 0;
     let differs = 0;
@@ -279,20 +297,20 @@ test('frame conversion in single precision (simd128 block loop): within 1 mK, f6
     assert.ok(differs > 0, `${what}: identical to the f64 loop`);
     return worst;
   };
-  const rs = qb.convertFrame(curve, sig32, { conditions: cond });
+  const rs = C(curve).convertFrame(sig32, { conditions: cond });
   assert.equal(rs.valid, n);
   check(rs.temperaturesK, exact, 'f32 signals');
   // counts: signal = 2·count − 20 (an invented 16-bit readout)
   const counts = Uint16Array.from(sig32, (s) => Math.round((s + 20) / 2));
   assert.ok(counts.every((c) => c > 0 && c < 65535), 'counts in range');
-  const exactCounts = qb.objectTemperatureArray(curve, Float64Array.from(counts, (c) => 2 * c - 20), cond);
-  const rc = qb.convertFrame(curve, counts, { gain: 2, offset: -20, conditions: cond });
+  const exactCounts = I(curve, cond).objectTemperatures(Float64Array.from(counts, (c) => 2 * c - 20));
+  const rc = C(curve).convertFrame(counts, { gain: 2, offset: -20, conditions: cond });
   check(rc.temperaturesK, exactCounts, 'u16 counts');
   // one pixel outside the single-precision range (2000 K): the whole frame takes the f64 loop
   const hot = Float32Array.from(sig32);
-  hot[n - 1] = qb.measuredSignal(curve, 2000, cond);
-  const rh = qb.convertFrame(curve, hot, { conditions: cond });
-  const r64 = qb.convertFrame(curve, hot, { conditions: cond, output: 'float64' });
+  hot[n - 1] = I(curve, cond).measuredSignal(2000);
+  const rh = C(curve).convertFrame(hot, { conditions: cond });
+  const r64 = C(curve).convertFrame(hot, { conditions: cond, output: 'float64' });
   for (let i = 0; i < n; i++) {
     if (rh.temperaturesK[i] !== Math.fround(r64.temperaturesK[i])) {
       assert.fail(`fallback frame differs from the f64 loop at ${i}: ${rh.temperaturesK[i]} vs ${r64.temperaturesK[i]}`);
@@ -303,32 +321,39 @@ test('frame conversion in single precision (simd128 block loop): within 1 mK, f6
 test('thermometry errors carry their codes; the module recovers after each', () => {
   const sp = { kind: 'spectralPoint', wavelength: 10, unit: 'um' };
   const rm = { kind: 'response', wavelengths: [8, 14], values: [1, 1], unit: 'um' };
-  throwsCode(() => qb.objectTemperature(sp, 1, { emissivity: 0.5, reflectedTemperatureK: 1000 }), 'NO_PHYSICAL_SOLUTION');
-  throwsCode(() => qb.objectTemperatureArray(sp, new Float64Array([1e9, 2e9, 1]), { emissivity: 0.5, reflectedTemperatureK: 1000 }), 'NO_PHYSICAL_SOLUTION', 2);
-  throwsCode(() => qb.objectTemperature(sp, 1e7, { emissivity: 0.5 }), 'NON_FINITE'); // reflected T required
-  throwsCode(() => qb.objectTemperature(sp, 1e7, { emissivity: 1.5, reflectedTemperatureK: 300 }), 'OUT_OF_RANGE');
-  throwsCode(() => qb.objectTemperature(sp, 1e7, { window: { transmittance: 0.7, reflectance: 0.4, temperatureK: 300, reflectedTemperatureK: 300 } }), 'OUT_OF_RANGE');
-  throwsCode(() => qb.objectTemperature(sp, 1e7, { emisivity: 0.9 }), 'UNSUPPORTED');
-  throwsCode(() => qb.modelTemperature(sp, -1), 'NON_POSITIVE');
-  throwsCode(() => qb.modelTemperature(sp, Infinity), 'NON_FINITE');
-  throwsCode(() => qb.modelSignal(sp, 0), 'NON_POSITIVE_TEMPERATURE');
-  throwsCode(() => qb.modelSignal({ kind: 'spectralPoint', wavelength: 10, unit: 'cm-1' }, 300), 'UNSUPPORTED');
-  throwsCode(() => qb.modelSignal({ kind: 'spectralPoint', wavelength: -1, unit: 'um' }, 300), 'NON_POSITIVE_SPECTRAL');
-  throwsCode(() => qb.modelSignal({ kind: 'thermocouple' }, 300), 'UNSUPPORTED');
-  throwsCode(() => qb.modelSignal({ ...rm, wavelengths: [8, 14, 20] }, 300), 'LENGTH_MISMATCH');
-  throwsCode(() => qb.modelSignal({ ...rm, wavelengths: [8], values: [1] }, 300), 'TOO_FEW_POINTS');
-  throwsCode(() => qb.modelSignal({ ...rm, wavelengths: [14, 8] }, 300), 'NOT_INCREASING');
-  throwsCode(() => qb.modelSignal({ ...rm, values: [0, 0] }, 300), 'NON_POSITIVE');
-  throwsCode(() => qb.modelSignal({ ...rm, values: [1, 'x'] }, 300), 'NON_FINITE');
-  throwsCode(() => qb.modelSignal({ ...rm, wavelengths: [8, -1] }, 300), 'NON_POSITIVE_SPECTRAL', 1);
-  throwsCode(() => qb.responseMoments(sp), 'UNSUPPORTED');
-  throwsCode(() => qb.sakumaHattoriFit(new Float64Array([300, 400]), new Float64Array([1, 2])), 'TOO_FEW_POINTS');
-  throwsCode(() => qb.sakumaHattoriFit(new Float64Array([300, 400, 500]), new Float64Array([1, 2])), 'LENGTH_MISMATCH');
-  throwsCode(() => qb.sakumaHattoriFit(new Float64Array([300, 300, 500]), new Float64Array([1, 2, 3])), 'DEGENERATE_FIT');
+  throwsCode(() => I(sp, { emissivity: 0.5, reflectedTemperatureK: 1000 }).objectTemperature(1), 'NO_PHYSICAL_SOLUTION');
+  throwsCode(() => I(sp, { emissivity: 0.5, reflectedTemperatureK: 1000 }).objectTemperatures(new Float64Array([1e9, 2e9, 1])), 'NO_PHYSICAL_SOLUTION', 2);
+  throwsCode(() => I(sp, { emissivity: 0.5 }).objectTemperature(1e7), 'UNSUPPORTED'); // reflected T required
+  throwsCode(() => I(sp, { emissivity: 1.5, reflectedTemperatureK: 300 }).objectTemperature(1e7), 'OUT_OF_RANGE');
+  throwsCode(() => I(sp, { window: { transmittance: 0.7, reflectance: 0.4, temperatureK: 300, reflectedTemperatureK: 300 } }), 'OUT_OF_RANGE');
+  throwsCode(() => I(sp, { emisivity: 0.9 }), 'UNSUPPORTED');
+  throwsCode(() => I(sp).temperature(-1), 'NON_POSITIVE');
+  throwsCode(() => I(sp).temperature(Infinity), 'NON_FINITE');
+  throwsCode(() => I(sp).signal(0), 'NON_POSITIVE_TEMPERATURE');
+  throwsCode(() => I({ kind: 'spectralPoint', wavelength: 10, unit: 'cm-1' }), 'UNSUPPORTED');
+  throwsCode(() => I({ kind: 'spectralPoint', wavelength: -1, unit: 'um' }), 'NON_POSITIVE_SPECTRAL');
+  throwsCode(() => I({ kind: 'thermocouple' }), 'UNSUPPORTED');
+  throwsCode(() => I({ ...rm, wavelengths: [8, 14, 20] }), 'LENGTH_MISMATCH');
+  throwsCode(() => I({ ...rm, wavelengths: [8], values: [1] }), 'TOO_FEW_POINTS');
+  throwsCode(() => I({ ...rm, wavelengths: [14, 8] }), 'NOT_INCREASING');
+  throwsCode(() => I({ ...rm, values: [0, 0] }), 'NON_POSITIVE');
+  const e = throwsCode(() => I({ ...rm, values: [1, 'x'] }), 'WRONG_TYPE');
+  assert.equal(e.message, 'definition.model.values[1] must be a number (got a string)');
+  throwsCode(() => I({ ...rm, wavelengths: [8, -1] }), 'NON_POSITIVE_SPECTRAL');
+  throwsCode(() => I(sp).responseMoments(), 'UNSUPPORTED');
+  throwsCode(() => qb.CalibrationCurve.fit(new Float64Array([300, 400]), new Float64Array([1, 2])), 'TOO_FEW_POINTS');
+  throwsCode(() => qb.CalibrationCurve.fit(new Float64Array([300, 400, 500]), new Float64Array([1, 2])), 'LENGTH_MISMATCH');
+  throwsCode(() => qb.CalibrationCurve.fit(new Float64Array([300, 300, 500]), new Float64Array([1, 2, 3])), 'DEGENERATE_FIT');
 
   throwsCode(() => qb.fixedPointTemperature('tin'), 'UNSUPPORTED');
   throwsCode(() => qb.its90Temperature(-1, 650, 'nm', 'gold'), 'NON_POSITIVE');
-  throwsCode(() => qb.sakumaHattoriFit(new Float64Array([300, 400, 500]), new Float64Array([1, 2, 3]), 'its-90'), 'UNSUPPORTED');
-  throwsCode(() => qb.uncertaintyBudget(sp, 1e7, undefined, { emissivity: -0.1 }), 'OUT_OF_RANGE');
-  throwsCode(() => qb.modelSignal({ kind: 'sakumaHattori', aM: 0, bMK: 0, c: 1 }, 300), 'NON_POSITIVE');
+  throwsCode(() => qb.CalibrationCurve.fit(new Float64Array([300, 400, 500]), new Float64Array([1, 2, 3]), { c2: 'its-90' }), 'UNSUPPORTED');
+  throwsCode(() => I(sp).uncertaintyBudget(1e7, { emissivity: -0.1 }), 'OUT_OF_RANGE');
+  throwsCode(() => I({ kind: 'sakumaHattori', aM: 0, bMK: 0, c: 1 }), 'NON_POSITIVE');
+  throwsCode(() => new qb.CalibrationCurve({ aM: 0, bMK: 0, c: 1 }), 'NON_POSITIVE');
+  // a freed instrument: DISPOSED, not a trap
+  const gone = new qb.Instrument({ model: sp });
+  gone.free();
+  throwsCode(() => gone.signal(300), 'DISPOSED');
+  gone.free(); // twice is harmless
 });

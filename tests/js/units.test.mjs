@@ -54,6 +54,13 @@ test('bad units and impossible temperatures throw QuantabandError', () => {
   throwsCode(() => qb.convertTemperature(-500, 'degF', 'degC'), 'NON_POSITIVE_TEMPERATURE');
   throwsCode(() => qb.convertTemperatureArray(new Float64Array([300, 0]), 'K', 'degC'), 'NON_POSITIVE_TEMPERATURE', 1);
   throwsCode(() => qb.convertTemperatureDifference(NaN, 'K', 'degF'), 'NON_FINITE');
+  // a conversion whose result leaves the f64 range reports the value given
+  assert.match(throwsCode(() => qb.convertSpectral(1e-320, 'um', 'Hz'), 'OUT_OF_RANGE').message, /\(got 1e-320\)$/);
+  // no coercion of strings, booleans or null into numbers
+  throwsCode(() => qb.convertTemperature('25', 'degC', 'K'), 'WRONG_TYPE');
+  throwsCode(() => qb.convertTemperature(25, 5, 'K'), 'WRONG_TYPE');
+  throwsCode(() => qb.convertSpectralArray('123', 'um', 'nm'), 'WRONG_TYPE');
+  throwsCode(() => qb.convertSpectralArray(5, 'um', 'nm'), 'WRONG_TYPE');
 });
 
 test('a million-element conversion in one call', () => {
@@ -78,9 +85,16 @@ test('constants are CODATA 2018 / ITS-90 values', () => {
 });
 
 test('error class contract', () => {
-  assert.deepEqual([...qb.ERROR_CODES].length, 16);
+  // the one list: the core's codes (Rust Error::ALL_CODES, in order) then the boundary codes
+  assert.deepEqual([...qb.ERROR_CODES], [
+    ...qb.__testing.coreCodes(),
+    'WRONG_TYPE',
+    'DETACHED_BUFFER',
+    'DISPOSED',
+    'NOT_INITIALIZED',
+  ]);
   assert.ok(Object.isFrozen(qb.ERROR_CODES));
-  assert.equal(new Set(qb.ERROR_CODES).size, 16);
+  assert.equal(new Set(qb.ERROR_CODES).size, qb.ERROR_CODES.length);
   const e = throwsCode(() => qb.convertSpectral(0, 'nm', 'um'), 'NON_POSITIVE_SPECTRAL');
   assert.ok(qb.ERROR_CODES.includes(e.code));
   assert.equal(e.index, undefined);

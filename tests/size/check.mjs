@@ -2,8 +2,8 @@
 //
 //   node tests/size/check.mjs [--report-only] [FILE.wasm]     (default: pkg/quantaband_bg.wasm)
 //
-// Budget (project rule, issue 4): raw <= 150 KB and gzip <= 60 KB for the full API, with
-// 1 KB = 1000 bytes (the stricter reading). Exit 1 when the module is over either limit
+// Budget (issue 11; issue 4 set 150 KB / 60 KB for the no_std build this replaced): raw <= 320 KB
+// and gzip <= 128 KB for the full API, with 1 KB = 1000 bytes (the stricter reading). Exit 1 when the module is over either limit
 // (--report-only: print the figures, never fail). For the package's own module it also writes
 // the figures as JSON to target/size-report.json.
 import { mkdirSync, readFileSync, writeFileSync } from 'node:fs';
@@ -11,8 +11,8 @@ import { dirname, join, resolve } from 'node:path';
 import { fileURLToPath } from 'node:url';
 import { gzipSync, constants } from 'node:zlib';
 
-export const RAW_LIMIT = 150_000;
-export const GZIP_LIMIT = 60_000;
+export const RAW_LIMIT = 320_000;
+export const GZIP_LIMIT = 128_000;
 
 const args = process.argv.slice(2);
 let reportOnly = false;

@@ -1,5 +1,5 @@
-// Fails to compile if any export of the package's public surface is typed `any` (the generated
-// .d.ts must give real types). `IsAny<T>` is true only for `any`.
+// Fails to compile if anything a user touches is typed `any`: every export, and every method
+// and property of the classes. `IsAny<T>` is true only for `any`.
 import type * as QB from '../../pkg/quantaband.js';
 
 type IsAny<T> = 0 extends 1 & T ? true : false;
@@ -9,19 +9,16 @@ type AnyParam<F> = F extends (...args: infer P) => unknown
     : false
   : false;
 type AnyReturn<F> = F extends (...args: never[]) => infer R ? IsAny<R> : false;
+type HasAny<F> = IsAny<F> extends true ? true : AnyParam<F> extends true ? true : AnyReturn<F>;
 
-/** Names of exports whose parameters or return type contain a top-level `any`. */
-type Offenders = {
-  [K in keyof typeof QB]: IsAny<(typeof QB)[K]> extends true
-    ? K
-    : AnyParam<(typeof QB)[K]> extends true
-      ? K
-      : AnyReturn<(typeof QB)[K]> extends true
-        ? K
-        : never;
-}[keyof typeof QB];
+/** Names of exports whose type, parameters or return type contain a top-level `any`. */
+type Offenders = { [K in keyof typeof QB]: HasAny<(typeof QB)[K]> extends true ? K : never }[keyof typeof QB];
+/** Members of an instance type with `any` in them. */
+type MemberOffenders<T> = { [K in keyof T]: HasAny<T[K]> extends true ? K : never }[keyof T];
 
-// `initSync`/`default` (wasm-bindgen's loader) are typed by wasm-bindgen itself and are excluded.
-type Checked = Exclude<Offenders, 'initSync' | 'default'>;
-const noAnyExports: [Checked] extends [never] ? true : Checked = true;
-export { noAnyExports };
+const noAnyExports: [Offenders] extends [never] ? true : Offenders = true;
+const noAnySpectrum: [MemberOffenders<QB.Spectrum>] extends [never] ? true : MemberOffenders<QB.Spectrum> = true;
+const noAnyInstrument: [MemberOffenders<QB.Instrument>] extends [never] ? true : MemberOffenders<QB.Instrument> = true;
+const noAnyCurve: [MemberOffenders<QB.CalibrationCurve>] extends [never] ? true : MemberOffenders<QB.CalibrationCurve> = true;
+const noAnyStatics: [MemberOffenders<typeof QB.CalibrationCurve>] extends [never] ? true : MemberOffenders<typeof QB.CalibrationCurve> = true;
+export { noAnyExports, noAnySpectrum, noAnyInstrument, noAnyCurve, noAnyStatics };

@@ -13,14 +13,13 @@ export async function runProbe(m, ref) {
       umToPerCm: m.convertSpectral(10, 'um', 'cm-1'),
     },
   };
-  // Blackbody spectral radiance per wavelength (SI, wavelength given in metres).
-  const opts = { unit: 'm' };
-  out.radiance = ref.cases.map((c) => m.spectralDensity(opts, c.wavelength_m, c.temperature_k));
-  out.radianceArray = Array.from(
-    m.spectralDensityArray(opts, new Float64Array([ref.cases[0].wavelength_m]), ref.cases[0].temperature_k),
-  );
+  // Blackbody spectral radiance per wavelength (SI, wavelength given in metres): a prepared
+  // Spectrum, freed at the end.
+  const spectrum = new m.Spectrum({ unit: 'm' });
+  out.radiance = ref.cases.map((c) => spectrum.point(c.wavelength_m, c.temperature_k));
+  out.radianceArray = Array.from(spectrum.points([ref.cases[0].wavelength_m], ref.cases[0].temperature_k));
   try {
-    m.spectralDensity(opts, ref.cases[0].wavelength_m, -1);
+    spectrum.point(ref.cases[0].wavelength_m, -1);
     out.badTemperature = 'no error thrown for T = -1 K';
   } catch (e) {
     out.badTemperature = { instanceOfClass: e instanceof m.QuantabandError, code: e.code };
@@ -43,6 +42,13 @@ export async function runProbe(m, ref) {
     out.badElement = { code: e.code, index: e.index };
   }
   out.afterError = m.convertTemperature(ref.units[0].celsius, 'degC', 'K');
-  out.radianceAfterError = m.spectralDensity(opts, ref.cases[0].wavelength_m, ref.cases[0].temperature_k);
+  out.radianceAfterError = spectrum.point(ref.cases[0].wavelength_m, ref.cases[0].temperature_k);
+  spectrum.free();
+  try {
+    spectrum.point(ref.cases[0].wavelength_m, ref.cases[0].temperature_k);
+    out.afterFree = 'no error thrown after free()';
+  } catch (e) {
+    out.afterFree = e.code;
+  }
   return out;
 }

@@ -1,0 +1,379 @@
+//! The prepared calibration curve (`CalibrationCurve` in the facade,
+//! `src/wasm/js/calibration.js`): a Sakuma–Hattori curve from its coefficients or from a fit,
+//! its signal, inverse and derivative, and whole-frame conversion through the measurement
+//! equation into the caller's buffers.
+
+use alloc::vec::Vec;
+use serde::{Deserialize, Serialize};
+use wasm_bindgen::prelude::*;
+
+use super::config::read;
+use super::error::{in_config, number, some, to_js, Fail};
+use super::instrument::InstrumentHandle;
+use super::scratch::{map_in_place, status, with_f32, with_f64, with_u16, KIND_F32, KIND_U16};
+use super::testing::Live;
+use crate::constants::C2Convention;
+use crate::definition::MeasurementConditions;
+use crate::error::{self as check, Error};
+use crate::thermometry::{
+    max_interpolation_error_k, FitReport, FrameConverter, FrameSummary, SakumaHattori, SignalModel,
+};
+
+/// A checked curve, with the report of the fit that made it (if any).
+#[wasm_bindgen(js_name = QbCalibration)]
+pub struct CalibrationHandle {
+    curve: SakumaHattori,
+    report: Option<FitReport>,
+    residuals: Vec<f64>,
+    _live: Live,
+}
+
+/// The coefficients of a curve as given (checked by `SakumaHattori::new`, whose error keeps its
+/// code; the core's own `Deserialize` for the curve reports it as text).
+#[derive(Deserialize)]
+#[serde(rename_all = "camelCase", deny_unknown_fields)]
+struct Coefficients {
+    a_m: f64,
+    #[serde(rename = "bMK")]
+    b_mk: f64,
+    c: f64,
+    #[serde(default)]
+    c2: C2Convention,
+}
+
+/// Options of the fits.
+#[derive(Deserialize, Default)]
+#[serde(rename_all = "camelCase", deny_unknown_fields)]
+struct FitOptions {
+    #[serde(default)]
+    c2: C2Convention,
+}
+
+/// The fit report as returned to JavaScript (the core's report plus the residuals of the
+/// points, which only a fit through points has).
+#[derive(Serialize)]
+#[serde(rename_all = "camelCase")]
+struct Report<'a> {
+    rms_residual_k: f64,
+    max_abs_residual_k: f64,
+    iterations: u32,
+    #[serde(skip_serializing_if = "<[f64]>::is_empty")]
+    residuals_k: &'a [f64],
+}
+
+/// Per-frame settings of a frame conversion. The facade reads the arrays itself and passes
+/// `true` for `emissivity` and `out` when they are given; it also chooses the output buffer
+/// from `output`, which is checked here.
+#[derive(Deserialize, Default)]
+#[serde(rename_all = "camelCase", deny_unknown_fields)]
+struct FrameSettings {
+    #[serde(default = "one")]
+    gain: f64,
+    #[serde(default)]
+    offset: f64,
+    #[serde(default)]
+    conditions: MeasurementConditions,
+    #[serde(default)]
+    #[allow(dead_code)]
+    output: FrameOutput,
+    #[serde(default)]
+    #[allow(dead_code)]
+    emissivity: Option<bool>,
+    #[serde(default)]
+    #[allow(dead_code)]
+    out: Option<bool>,
+}
+
+/// Element type of the returned temperatures.
+#[derive(Deserialize, Default)]
+#[serde(rename_all = "camelCase")]
+enum FrameOutput {
+    #[default]
+    Float32,
+    Float64,
+}
+
+fn one() -> f64 {
+    1.0
+}
+
+#[derive(Serialize)]
+#[serde(rename_all = "camelCase")]
+struct FrameResult {
+    valid: usize,
+    invalid: usize,
+    min_temperature_k: f64,
+    max_temperature_k: f64,
+    background_signal: f64,
+}
+
+#[derive(Serialize)]
+#[serde(rename_all = "camelCase")]
+struct InterpolationError {
+    max_error_k: f64,
+    at_temperature_k: f64,
+}
+
+/// `nPoints` as a count in [0, 1e7] (OUT_OF_RANGE otherwise, so no call runs for hours).
+fn count(arg: &'static str, n: f64) -> crate::Result<usize> {
+    check::finite(arg, n)?;
+    if (0.0..=1.0e7).contains(&n) && n.fract() == 0.0 {
+        Ok(n as usize)
+    } else {
+        Err(Error::OutOfRange {
+            arg,
+            value: n,
+            range: "integers in [0, 10000000]",
+        })
+    }
+}
+
+impl CalibrationHandle {
+    fn from_curve(curve: SakumaHattori) -> Self {
+        CalibrationHandle {
+            curve,
+            report: None,
+            residuals: Vec::new(),
+            _live: Live::new(),
+        }
+    }
+}
+
+#[wasm_bindgen(js_class = QbCalibration)]
+impl CalibrationHandle {
+    /// A curve from its coefficients `{ aM, bMK, c, c2? }` (plain-data copy).
+    pub fn create(coefficients: JsValue) -> Option<CalibrationHandle> {
+        some((|| {
+            let c: Coefficients = read(coefficients, "coefficients")?;
+            let curve =
+                SakumaHattori::new(c.a_m, c.b_mk, c.c, c.c2).map_err(in_config("coefficients"))?;
+            Ok(Self::from_curve(curve))
+        })())
+    }
+
+    /// Least-squares fit through the points in f64 scratch buffers 0 (temperatures, K) and 1
+    /// (signals); the residuals go to the handle.
+    pub fn fit(options: JsValue) -> Option<CalibrationHandle> {
+        some((|| {
+            let o: FitOptions = read(options, "options")?;
+            with_f64(|b| {
+                let [t, s, _] = b;
+                let mut residuals = Vec::new();
+                if residuals.try_reserve_exact(t.len()).is_err() {
+                    return Err(Fail::from(Error::TooLarge {
+                        arg: "temperaturesK",
+                        limit: crate::thermometry::sakuma_hattori::MAX_FIT_POINTS,
+                        got: t.len(),
+                    }));
+                }
+                residuals.resize(t.len(), 0.0);
+                let r = SakumaHattori::fit(t, s, o.c2, Some(&mut residuals))?;
+                Ok(CalibrationHandle {
+                    curve: r.curve,
+                    report: Some(r),
+                    residuals,
+                    _live: Live::new(),
+                })
+            })
+        })())
+    }
+
+    /// Fit to an exact instrument model over [tMinK, tMaxK].
+    #[wasm_bindgen(js_name = fitInstrument)]
+    pub fn fit_instrument(
+        instrument: &InstrumentHandle,
+        t_min: f64,
+        t_max: f64,
+        options: JsValue,
+    ) -> Option<CalibrationHandle> {
+        some((|| {
+            let o: FitOptions = read(options, "options")?;
+            check::temperature("tMinK", t_min)?;
+            check::temperature("tMaxK", t_max)?;
+            let r = instrument
+                .model
+                .run(|m| SakumaHattori::fit_model(m, t_min, t_max, o.c2))?;
+            Ok(CalibrationHandle {
+                curve: r.curve,
+                report: Some(r),
+                residuals: Vec::new(),
+                _live: Live::new(),
+            })
+        })())
+    }
+
+    /// Starting curve from a response model's moments, exact at `referenceTemperatureK`.
+    #[wasm_bindgen(js_name = fromResponse)]
+    pub fn from_response(instrument: &InstrumentHandle, t_ref: f64) -> Option<CalibrationHandle> {
+        some((|| {
+            check::temperature("referenceTemperatureK", t_ref)?;
+            let c = instrument.with_response(|rs, _| SakumaHattori::from_response(rs, t_ref))?;
+            Ok(Self::from_curve(c))
+        })())
+    }
+
+    /// `{ aM, bMK, c, c2 }`.
+    pub fn coefficients(&self) -> JsValue {
+        to_js(&self.curve).unwrap_or(JsValue::UNDEFINED)
+    }
+
+    /// The fit report, or `undefined` for a curve made from coefficients.
+    #[wasm_bindgen(js_name = fitReport)]
+    pub fn fit_report(&self) -> JsValue {
+        match &self.report {
+            None => JsValue::UNDEFINED,
+            Some(r) => to_js(&Report {
+                rms_residual_k: r.rms_residual_k,
+                max_abs_residual_k: r.max_abs_residual_k,
+                iterations: r.iterations,
+                residuals_k: &self.residuals,
+            })
+            .unwrap_or(JsValue::UNDEFINED),
+        }
+    }
+
+    pub fn signal(&self, t: f64) -> f64 {
+        number(
+            (|| {
+                check::temperature("temperatureK", t)?;
+                self.curve.signal(t)
+            })()
+            .map_err(Fail::from),
+        )
+    }
+
+    #[wasm_bindgen(js_name = signalDerivative)]
+    pub fn signal_derivative(&self, t: f64) -> f64 {
+        number(
+            (|| {
+                check::temperature("temperatureK", t)?;
+                self.curve.d_signal_dt(t)
+            })()
+            .map_err(Fail::from),
+        )
+    }
+
+    pub fn temperature(&self, signal: f64) -> f64 {
+        number(
+            (|| {
+                check::positive("signal", signal)?;
+                self.curve.temperature(signal)
+            })()
+            .map_err(Fail::from),
+        )
+    }
+
+    /// Bulk forms over f64 scratch buffer 0: 0 signals, 1 signal derivatives, 2 temperatures.
+    pub fn bulk(&self, op: u32) -> f64 {
+        let c = &self.curve;
+        status(match op {
+            0 => map_in_place(|t| {
+                check::temperature("temperaturesK", t)?;
+                c.signal(t)
+            }),
+            1 => map_in_place(|t| {
+                check::temperature("temperaturesK", t)?;
+                c.d_signal_dt(t)
+            }),
+            _ => map_in_place(|s| {
+                check::positive("signals", s)?;
+                c.temperature(s)
+            }),
+        })
+    }
+
+    /// max |T_curve(S_exact(T)) − T| against an instrument's exact model.
+    #[wasm_bindgen(js_name = maxInterpolationError)]
+    pub fn max_interpolation_error(
+        &self,
+        exact: &InstrumentHandle,
+        t_min: f64,
+        t_max: f64,
+        n_points: f64,
+    ) -> Option<JsValue> {
+        some((|| {
+            let n = count("nPoints", n_points)?;
+            check::temperature("tMinK", t_min)?;
+            check::temperature("tMaxK", t_max)?;
+            let (max_error_k, at_temperature_k) = exact
+                .model
+                .run(|m| max_interpolation_error_k(&self.curve, m, t_min, t_max, n))?;
+            to_js(&InterpolationError {
+                max_error_k,
+                at_temperature_k,
+            })
+        })())
+    }
+
+    /// Converts the frame in scratch (input: f64 buffer 0, f32 buffer 0 or u16 buffer 0 by
+    /// `input`; with an emissivity map, in f64 buffer 2 when `map`, the input is f64 buffer 0)
+    /// into f64 or f32 buffer 1.
+    #[wasm_bindgen(js_name = convertFrame)]
+    pub fn convert_frame(
+        &self,
+        input: u32,
+        out_f64: bool,
+        map: bool,
+        settings: JsValue,
+    ) -> Option<JsValue> {
+        some((|| {
+            let fs: FrameSettings = read(settings, "options")?;
+            let conditions = fs
+                .conditions
+                .conditions()
+                .map_err(in_config("options.conditions"))?;
+            let conv =
+                FrameConverter::new(&self.curve, &conditions, fs.gain, fs.offset).map_err(|e| {
+                    match e {
+                        Error::NonPositive { arg: "gain", value } => Error::NonPositive {
+                            arg: "options.gain",
+                            value,
+                        },
+                        Error::NonFinite { arg, value } => Error::NonFinite {
+                            arg: match arg {
+                                "gain" => "options.gain",
+                                "offset" => "options.offset",
+                                a => a,
+                            },
+                            value,
+                        },
+                        other => other,
+                    }
+                })?;
+            let summary = with_f64(|f| {
+                let [f0, f1, f2] = f;
+                let eps: Option<&[f64]> = if map { Some(f2) } else { None };
+                with_f32(|g| {
+                    let [g0, g1] = g;
+                    with_u16(|u| match (input, eps, out_f64) {
+                        // Emissivity maps: the facade passes the frame as f64 (one loop each
+                        // output type instead of one per input type).
+                        (_, Some(e), true) => conv.convert_with_emissivity(&f0[..], e, &mut f1[..]),
+                        (_, Some(e), false) => {
+                            conv.convert_with_emissivity(&f0[..], e, &mut g1[..])
+                        }
+                        (KIND_U16, None, true) => conv.convert(&u[..], &mut f1[..]),
+                        (KIND_U16, None, false) => conv.convert(&u[..], &mut g1[..]),
+                        (KIND_F32, None, true) => conv.convert(&g0[..], &mut f1[..]),
+                        (KIND_F32, None, false) => conv.convert(&g0[..], &mut g1[..]),
+                        (_, None, true) => conv.convert(&f0[..], &mut f1[..]),
+                        (_, None, false) => conv.convert(&f0[..], &mut g1[..]),
+                    })
+                })
+            })?;
+            let FrameSummary {
+                valid,
+                invalid,
+                min_temperature_k,
+                max_temperature_k,
+            } = summary;
+            to_js(&FrameResult {
+                valid,
+                invalid,
+                min_temperature_k,
+                max_temperature_k,
+                background_signal: conv.background(),
+            })
+        })())
+    }
+}

@@ -1,0 +1,216 @@
+// CalibrationCurve: a Sakuma–Hattori calibration curve (from coefficients or a fit), its signal,
+// inverse and derivative, and whole-frame conversion. Wraps QbCalibration
+// (src/wasm/calibration.rs).
+
+import { QuantabandError, disposed, typedArrayTag, wrongType } from './errors.js';
+import { _instrumentHandle as instrumentHandle } from './instrument.js';
+import {
+  F32,
+  F64,
+  MAX_LENGTH,
+  U16,
+  bulk,
+  config,
+  configKeeping,
+  fill,
+  glue,
+  num,
+  numbers,
+  optionalConfig,
+  output,
+  readBack,
+  ready,
+  reserve,
+  result,
+  some,
+} from './runtime.js';
+
+const SIGNALS = 0;
+const SIGNAL_DERIVATIVES = 1;
+const TEMPERATURES = 2;
+
+const FROM_HANDLE = Symbol('handle');
+
+/** Frame input types and their scratch kind. */
+const FRAME_INPUT = { Uint16Array: U16, Float32Array: F32, Float64Array: F64 };
+
+/**
+ * A Sakuma–Hattori calibration curve S(T) = C / (exp(c2 / (A·T + B)) − 1):
+ * `new CalibrationCurve({ aM, bMK, c, c2 })`, or a fit (`CalibrationCurve.fit`,
+ * `.fitInstrument`, `.fromResponse`).
+ */
+export class CalibrationCurve {
+  #h = null;
+  #coefficients;
+  #report;
+
+  constructor(coefficients, handle) {
+    let h;
+    if (coefficients === FROM_HANDLE) {
+      h = handle;
+    } else {
+      ready();
+      h = some(glue.QbCalibration.create(config(coefficients, 'coefficients')));
+    }
+    this.#h = h;
+    this.#coefficients = Object.freeze(h.coefficients());
+    const r = h.fitReport();
+    if (r !== undefined && r.residualsK !== undefined) r.residualsK = Float64Array.from(r.residualsK);
+    this.#report = r === undefined ? undefined : Object.freeze(r);
+  }
+
+  /** Least-squares curve through calibration points (temperatures in K, signals increasing). */
+  static fit(temperaturesK, signals, options) {
+    ready();
+    const o = optionalConfig(options, 'options');
+    const [t, nt] = numbers(temperaturesK, 'temperaturesK');
+    const [s, ns] = numbers(signals, 'signals');
+    const pt = reserve(F64, 0, nt);
+    const ps = reserve(F64, 1, ns);
+    fill(F64, pt, nt, t, 'temperaturesK');
+    fill(F64, ps, ns, s, 'signals');
+    return new CalibrationCurve(FROM_HANDLE, some(glue.QbCalibration.fit(o)));
+  }
+
+  /** Least-squares curve for an instrument's exact model over [tMinK, tMaxK]. */
+  static fitInstrument(instrument, tMinK, tMaxK, options) {
+    ready();
+    const h = instrumentHandle(instrument, 'instrument');
+    num(tMinK, 'tMinK');
+    num(tMaxK, 'tMaxK');
+    const o = optionalConfig(options, 'options');
+    return new CalibrationCurve(FROM_HANDLE, some(glue.QbCalibration.fitInstrument(h, tMinK, tMaxK, o)));
+  }
+
+  /** Starting curve from a response instrument's moments, exact at referenceTemperatureK. */
+  static fromResponse(instrument, referenceTemperatureK) {
+    ready();
+    const h = instrumentHandle(instrument, 'instrument');
+    num(referenceTemperatureK, 'referenceTemperatureK');
+    return new CalibrationCurve(FROM_HANDLE, some(glue.QbCalibration.fromResponse(h, referenceTemperatureK)));
+  }
+
+  /** `{ aM, bMK, c, c2 }` (frozen). */
+  get coefficients() {
+    return this.#coefficients;
+  }
+
+  /** The report of the fit that made this curve (undefined for a curve from coefficients). */
+  get fitReport() {
+    return this.#report;
+  }
+
+  #live() {
+    const h = this.#h;
+    if (h === null) throw disposed('CalibrationCurve');
+    return h;
+  }
+
+  /** Releases the object's WebAssembly memory now (later calls throw DISPOSED). */
+  free() {
+    const h = this.#h;
+    if (h !== null) {
+      this.#h = null;
+      h.free();
+    }
+  }
+
+  signal(temperatureK) {
+    const h = this.#live();
+    num(temperatureK, 'temperatureK');
+    return result(h.signal(temperatureK));
+  }
+
+  signalDerivative(temperatureK) {
+    const h = this.#live();
+    num(temperatureK, 'temperatureK');
+    return result(h.signalDerivative(temperatureK));
+  }
+
+  temperature(signal) {
+    const h = this.#live();
+    num(signal, 'signal');
+    return result(h.temperature(signal));
+  }
+
+  signals(temperaturesK, out) {
+    const h = this.#live();
+    return bulk(temperaturesK, 'temperaturesK', out, () => h.bulk(SIGNALS));
+  }
+
+  signalDerivatives(temperaturesK, out) {
+    const h = this.#live();
+    return bulk(temperaturesK, 'temperaturesK', out, () => h.bulk(SIGNAL_DERIVATIVES));
+  }
+
+  temperatures(signals, out) {
+    const h = this.#live();
+    return bulk(signals, 'signals', out, () => h.bulk(TEMPERATURES));
+  }
+
+  /** max |T_curve(S_exact(T)) − T| against an instrument's exact model. */
+  maxInterpolationError(instrument, tMinK, tMaxK, nPoints) {
+    const h = this.#live();
+    const e = instrumentHandle(instrument, 'instrument');
+    num(tMinK, 'tMinK');
+    num(tMaxK, 'tMaxK');
+    num(nPoints, 'nPoints');
+    return some(h.maxInterpolationError(e, tMinK, tMaxK, nPoints));
+  }
+
+  /**
+   * Converts a frame of raw values (Uint16Array counts or Float32Array/Float64Array signals)
+   * to object temperatures. options: { gain, offset, conditions, emissivity, output, out }.
+   */
+  convertFrame(raw, options) {
+    const h = this.#live();
+    const tag = typedArrayTag(raw);
+    const kind = tag === undefined ? undefined : FRAME_INPUT[tag];
+    if (kind === undefined) throw wrongType('raw', 'a Uint16Array, Float32Array or Float64Array', raw);
+    const [src, n] = numbers(raw, 'raw');
+    // Split the options: the arrays stay here (read once, not copied), the rest is read by the
+    // module (which sees `true` in their place).
+    let settings = {};
+    let emissivity;
+    let out;
+    if (options !== undefined) {
+      const [copy, kept] = configKeeping(options, 'options', ['emissivity', 'out']);
+      if (copy === null || typeof copy !== 'object' || Array.isArray(copy) || ArrayBuffer.isView(copy)) {
+        throw wrongType('options', 'an object', options);
+      }
+      settings = copy;
+      emissivity = kept.emissivity;
+      out = kept.out;
+    }
+    const f64Out = settings.output === 'float64';
+    const target = output(out, n, f64Out ? 'Float64Array' : 'Float32Array', 'options.out');
+    let eps = null;
+    if (emissivity !== undefined) {
+      const [e, m] = numbers(emissivity, 'options.emissivity', MAX_LENGTH);
+      if (m !== n) {
+        throw new QuantabandError('LENGTH_MISMATCH', `options.emissivity must have ${n} elements, one per pixel (got ${m})`);
+      }
+      eps = e;
+    }
+    // Reserve every buffer first, then write (no memory growth between the views).
+    const inKind = eps === null ? kind : F64;
+    const pIn = reserve(inKind, 0, n);
+    const outKind = f64Out ? F64 : F32;
+    const pOut = reserve(outKind, 1, n);
+    const pEps = eps === null ? 0 : reserve(F64, 2, n);
+    fill(inKind, pIn, n, src, 'raw');
+    if (eps !== null) fill(F64, pEps, n, eps, 'options.emissivity');
+    const summary = some(h.convertFrame(inKind, f64Out, eps !== null, settings));
+    const temperaturesK = readBack(outKind, pOut, n, target);
+    return {
+      temperaturesK,
+      valid: summary.valid,
+      invalid: summary.invalid,
+      minTemperatureK: summary.minTemperatureK,
+      maxTemperatureK: summary.maxTemperatureK,
+      backgroundSignal: summary.backgroundSignal,
+    };
+  }
+}
+
+if (typeof Symbol.dispose === 'symbol') CalibrationCurve.prototype[Symbol.dispose] = CalibrationCurve.prototype.free;
