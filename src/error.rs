@@ -129,6 +129,19 @@ pub enum Error {
         /// What is unsupported and what is.
         what: &'static str,
     },
+    /// A correlation matrix that is not a valid one: not symmetric, a diagonal entry other than
+    /// 1, an entry outside [−1, 1], or not positive semi-definite. Code `INVALID_CORRELATION`.
+    InvalidCorrelation {
+        /// What is wrong.
+        reason: &'static str,
+        /// Row of the offending entry (0-based; for "not positive semi-definite", the pivot at
+        /// which the Cholesky factorisation failed).
+        row: usize,
+        /// Column of the offending entry (0-based).
+        column: usize,
+        /// The offending value (the entry, or the failed pivot).
+        value: f64,
+    },
 }
 
 impl Error {
@@ -158,6 +171,7 @@ impl Error {
             Error::NotConverged { .. } => "NOT_CONVERGED",
             Error::UnknownUnit { .. } => "UNKNOWN_UNIT",
             Error::Unsupported { .. } => "UNSUPPORTED",
+            Error::InvalidCorrelation { .. } => "INVALID_CORRELATION",
         }
     }
 
@@ -179,6 +193,7 @@ impl Error {
         "NOT_CONVERGED",
         "UNKNOWN_UNIT",
         "UNSUPPORTED",
+        "INVALID_CORRELATION",
     ];
 }
 
@@ -226,6 +241,15 @@ impl fmt::Display for Error {
             Error::NotConverged { what } => write!(f, "did not converge: {what}"),
             Error::UnknownUnit { expected } => write!(f, "unknown unit; expected a {expected}"),
             Error::Unsupported { what } => write!(f, "unsupported: {what}"),
+            Error::InvalidCorrelation {
+                reason,
+                row,
+                column,
+                value,
+            } => write!(
+                f,
+                "invalid correlation matrix: {reason} (entry [{row}][{column}] = {value})"
+            ),
         }
     }
 }

@@ -40,3 +40,9 @@ pub use uncertainty::{
     sensitivities, uncertainty_budget, BudgetEntry, BudgetInput, Sensitivities,
     StandardUncertainties, UncertaintyBudget,
 };
+
+// Uncertainty evaluation (JCGM 100 / JCGM 101), calibration transfer.
+pub mod gum;
+pub mod monte_carlo;
+pub mod random;
+pub mod student_t;
