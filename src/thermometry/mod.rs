@@ -28,7 +28,7 @@ pub mod uncertainty;
 
 pub use frame::{FrameConverter, FrameSummary};
 pub use its90::{
-    its90_temperature, radiance_ratio, temperature_from_ratio, FixedPoint, RatioTemperatures,
+    its90_temperature, radiance_ratio, temperature_from_ratio, FixedPoint, Its90Temperature,
 };
 pub use measurement::{measured_signal, object_temperature, Conditions, Window};
 pub use model::{SignalModel, SpectralPoint};
@@ -46,3 +46,4 @@ pub mod gum;
 pub mod monte_carlo;
 pub mod random;
 pub mod student_t;
+pub mod measurement_gum;
