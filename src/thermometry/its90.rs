@@ -570,14 +570,18 @@ pub fn fixed_point_curve<M: SignalModel + ?Sized>(
     c2: C2Convention,
 ) -> Result<FixedPointCurve> {
     let mut fp = fixed_points;
-    fp.sort_by(|a, b| a.temperature_k().total_cmp(&b.temperature_k()));
+    fp.sort_unstable_by(|a, b| a.temperature_k().total_cmp(&b.temperature_k()));
     if fp[0] == fp[1] || fp[1] == fp[2] {
         return Err(Error::DegenerateFit {
             reason: "three different fixed points are needed",
         });
     }
     let t = fp.map(FixedPoint::temperature_k);
-    let signals = [model.signal(t[0])?, model.signal(t[1])?, model.signal(t[2])?];
+    let signals = [
+        model.signal(t[0])?,
+        model.signal(t[1])?,
+        model.signal(t[2])?,
+    ];
     let fit = SakumaHattori::fit(&t, &signals, c2, None)?;
     Ok(FixedPointCurve {
         curve: fit.curve,

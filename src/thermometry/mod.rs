@@ -42,8 +42,9 @@ pub use uncertainty::{
 };
 
 // Uncertainty evaluation (JCGM 100 / JCGM 101), calibration transfer.
+pub mod calibration_transfer;
 pub mod gum;
+pub mod measurement_gum;
 pub mod monte_carlo;
 pub mod random;
 pub mod student_t;
-pub mod measurement_gum;

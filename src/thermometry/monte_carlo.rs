@@ -505,6 +505,7 @@ impl MonteCarlo {
 
     /// Draws one set of input values into `x`.
     #[inline]
+    #[allow(clippy::needless_range_loop)] // x, the estimates and the inputs share the index
     fn draw(&mut self, x: &mut [f64; MAX_INPUTS]) {
         let n = self.n;
         if self.correlated {
@@ -783,7 +784,7 @@ fn symmetric_interval(sorted: &[f64], p: f64) -> (f64, f64) {
     let q = coverage_count(m, p);
     let d = m - q;
     // r = (M − q)/2 if an integer, else the integer part of (M − q + 1)/2; 1-based, ≥ 1.
-    let r = (if d % 2 == 0 { d / 2 } else { (d + 1) / 2 }).max(1);
+    let r = d.div_ceil(2).max(1);
     let lo = sorted.get(r - 1).copied().unwrap_or(f64::NAN);
     let hi = sorted
         .get((r + q - 1).min(m - 1))

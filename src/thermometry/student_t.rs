@@ -39,7 +39,7 @@ use crate::float::{erfc, exp, ln, ln_1p, ln_gamma, sqrt};
 use crate::{Error, Result};
 
 /// ln √π.
-const LN_SQRT_PI: f64 = 0.572_364_942_924_700_087_071_713_675_677;
+const LN_SQRT_PI: f64 = 0.572_364_942_924_700_1;
 /// 1/√2.
 const FRAC_1_SQRT_2: f64 = core::f64::consts::FRAC_1_SQRT_2;
 /// Above this many degrees of freedom the t distribution equals the normal one in f64.
@@ -203,7 +203,7 @@ fn fisher_normal_deviate(t: f64, nu: f64) -> f64 {
 pub(crate) fn density(t: f64, nu: f64) -> f64 {
     if !(nu < NU_NORMAL) {
         // 1/√(2π)
-        return 0.398_942_280_401_432_677_939_946_059_934_4 * exp(-0.5 * t * t);
+        return 0.398_942_280_401_432_7 * exp(-0.5 * t * t);
     }
     let ln_f = -ln_beta_half(0.5 * nu) - 0.5 * ln(nu) - 0.5 * (nu + 1.0) * ln_1p_square_over(t, nu);
     exp(ln_f)
