@@ -115,7 +115,11 @@ fn calibration_transfer_matches_mpmath() {
              relative, covariance {w_cov:.1e}; |sum dT/dT_i - 1| {w_sum:.1e}",
             case["name"]
         );
-        assert!(w_t < 1e-11 && w_s < 1e-11 && w_u < 1e-11, "{}", case["name"]);
+        assert!(
+            w_t < 1e-11 && w_s < 1e-11 && w_u < 1e-11,
+            "{}",
+            case["name"]
+        );
     }
 }
 
