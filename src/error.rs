@@ -139,6 +139,19 @@ pub enum Error {
         /// The number given.
         got: usize,
     },
+    /// A correlation matrix that is not a valid one: not symmetric, a diagonal entry other than
+    /// 1, an entry outside [−1, 1], or not positive semi-definite. Code `INVALID_CORRELATION`.
+    InvalidCorrelation {
+        /// What is wrong.
+        reason: &'static str,
+        /// Row of the offending entry (0-based; for "not positive semi-definite", the pivot at
+        /// which the Cholesky factorisation failed).
+        row: usize,
+        /// Column of the offending entry (0-based).
+        column: usize,
+        /// The offending value (the entry, or the failed pivot).
+        value: f64,
+    },
 }
 
 impl Error {
@@ -169,6 +182,7 @@ impl Error {
             Error::UnknownUnit { .. } => "UNKNOWN_UNIT",
             Error::Unsupported { .. } => "UNSUPPORTED",
             Error::TooLarge { .. } => "TOO_LARGE",
+            Error::InvalidCorrelation { .. } => "INVALID_CORRELATION",
         }
     }
 
@@ -191,6 +205,7 @@ impl Error {
         "UNKNOWN_UNIT",
         "UNSUPPORTED",
         "TOO_LARGE",
+        "INVALID_CORRELATION",
     ];
 }
 
@@ -241,6 +256,15 @@ impl fmt::Display for Error {
             Error::TooLarge { arg, limit, got } => write!(
                 f,
                 "{arg} has {got} elements; at most {limit} are accepted"
+            ),
+            Error::InvalidCorrelation {
+                reason,
+                row,
+                column,
+                value,
+            } => write!(
+                f,
+                "invalid correlation matrix: {reason} (entry [{row}][{column}] = {value})"
             ),
         }
     }

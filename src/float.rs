@@ -155,3 +155,10 @@ pub(crate) fn ln_gamma(x: f64) -> f64 {
 pub(crate) fn gamma(x: f64) -> f64 {
     libm::tgamma(x)
 }
+
+/// Complementary error function erfc(x) = 1 − erf(x), accurate in the upper tail.
+#[cfg_attr(feature = "std", inline(always))]
+#[cfg_attr(not(feature = "std"), inline(never))]
+pub(crate) fn erfc(x: f64) -> f64 {
+    libm::erfc(x)
+}

@@ -279,6 +279,12 @@ fn js_messages_match_the_core_display() {
             limit: 10,
             got: 11,
         },
+        Error::InvalidCorrelation {
+            reason: "not symmetric",
+            row: 1,
+            column: 2,
+            value: 0.25,
+        },
     ];
     assert_eq!(all.len(), Error::ALL_CODES.len());
     for e in all {

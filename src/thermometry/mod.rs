@@ -28,7 +28,7 @@ pub mod uncertainty;
 
 pub use frame::{FrameConverter, FrameSummary};
 pub use its90::{
-    its90_temperature, radiance_ratio, temperature_from_ratio, FixedPoint, RatioTemperatures,
+    its90_temperature, radiance_ratio, temperature_from_ratio, FixedPoint, Its90Temperature,
 };
 pub use measurement::{measured_signal, object_temperature, Conditions, Window};
 pub use model::{SignalModel, SpectralPoint};
@@ -52,3 +52,10 @@ pub use raman::{
     anti_stokes_stokes_ratio, raman_frequency_factor, raman_temperature, RamanDetection,
     RamanReading,
 };
+// Uncertainty evaluation (JCGM 100 / JCGM 101), calibration transfer.
+pub mod calibration_transfer;
+pub mod gum;
+pub mod measurement_gum;
+pub mod monte_carlo;
+pub mod random;
+pub mod student_t;

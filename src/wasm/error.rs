@@ -100,26 +100,37 @@ struct Pending {
     message: Option<String>,
 }
 
-/// The text fields and the numbers of `e`, in declaration order.
-fn fields(e: &Error) -> ([&'static str; 2], [f64; 2]) {
+/// The text fields and the numbers of `e`, in declaration order (integers that a message shows
+/// as a bracketed position are pre-formatted as text).
+fn fields(e: &Error) -> ([String; 2], [f64; 2]) {
+    let t = |a: &str, b: &str| [String::from(a), String::from(b)];
     match *e {
         Error::NonFinite { arg, value }
         | Error::NonPositiveTemperature { arg, value }
         | Error::NonPositiveSpectral { arg, value }
-        | Error::NonPositive { arg, value } => ([arg, ""], [value, 0.0]),
-        Error::OutOfRange { arg, value, range } => ([arg, range], [value, 0.0]),
-        Error::InvalidBand { lower, upper } => (["", ""], [lower, upper]),
+        | Error::NonPositive { arg, value } => (t(arg, ""), [value, 0.0]),
+        Error::OutOfRange { arg, value, range } => (t(arg, range), [value, 0.0]),
+        Error::InvalidBand { lower, upper } => (t("", ""), [lower, upper]),
         Error::NoSolution { what } | Error::NotConverged { what } | Error::Unsupported { what } => {
-            ([what, ""], [0.0; 2])
+            (t(what, ""), [0.0; 2])
         }
-        Error::NoPhysicalSolution { signal, background } => (["", ""], [signal, background]),
-        Error::DivergentOccupation { x } => (["", ""], [x, 0.0]),
-        Error::LengthMismatch { expected, got } => (["", ""], [expected as f64, got as f64]),
-        Error::TooFewPoints { needed, got } => (["", ""], [needed as f64, got as f64]),
-        Error::NotIncreasing { arg, index } => ([arg, ""], [index as f64, 0.0]),
-        Error::DegenerateFit { reason } => ([reason, ""], [0.0; 2]),
-        Error::UnknownUnit { expected } => ([expected, ""], [0.0; 2]),
-        Error::TooLarge { arg, limit, got } => ([arg, ""], [limit as f64, got as f64]),
+        Error::NoPhysicalSolution { signal, background } => (t("", ""), [signal, background]),
+        Error::DivergentOccupation { x } => (t("", ""), [x, 0.0]),
+        Error::LengthMismatch { expected, got } => (t("", ""), [expected as f64, got as f64]),
+        Error::TooFewPoints { needed, got } => (t("", ""), [needed as f64, got as f64]),
+        Error::NotIncreasing { arg, index } => (t(arg, ""), [index as f64, 0.0]),
+        Error::DegenerateFit { reason } => (t(reason, ""), [0.0; 2]),
+        Error::UnknownUnit { expected } => (t(expected, ""), [0.0; 2]),
+        Error::TooLarge { arg, limit, got } => (t(arg, ""), [limit as f64, got as f64]),
+        Error::InvalidCorrelation {
+            reason,
+            row,
+            column,
+            value,
+        } => (
+            [String::from(reason), alloc::format!("[{row}][{column}]")],
+            [value, 0.0],
+        ),
     }
 }
 
@@ -129,7 +140,7 @@ pub fn pending_of(e: Error, index: Option<usize>) -> JsValue {
     let (texts, numbers) = fields(&e);
     to_js(&Pending {
         code: e.code(),
-        texts: [String::from(texts[0]), String::from(texts[1])],
+        texts,
         numbers,
         index,
         message: None,
@@ -158,14 +169,15 @@ pub fn take_error() -> JsValue {
                     | Error::NotIncreasing { .. }
                     | Error::TooLarge { .. }
             );
+            let [first, second] = texts;
             let first = if has_arg && !path.is_empty() {
-                alloc::format!("{path}.{}", texts[0])
+                alloc::format!("{path}.{first}")
             } else {
-                String::from(texts[0])
+                first
             };
             Pending {
                 code: e.code(),
-                texts: [first, String::from(texts[1])],
+                texts: [first, second],
                 numbers,
                 index,
                 message: None,

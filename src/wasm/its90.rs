@@ -34,17 +34,17 @@ fn c2(name: &str) -> Result<C2Convention, Fail> {
 }
 
 fn fixed_point(name: &str) -> Result<FixedPoint, Fail> {
-    match name {
-        "silver" => Ok(FixedPoint::Silver),
-        "gold" => Ok(FixedPoint::Gold),
-        "copper" => Ok(FixedPoint::Copper),
-        _ => Err(Fail::Binding(
-            "UNSUPPORTED",
-            alloc::format!(
-                "fixedPoint must be one of \"silver\", \"gold\", \"copper\" (got \"{name}\")"
-            ),
-        )),
-    }
+    FixedPoint::ALL
+        .into_iter()
+        .find(|f| f.name() == name)
+        .ok_or_else(|| {
+            Fail::Binding(
+                "UNSUPPORTED",
+                alloc::format!(
+                    "fixedPoint must be one of \"indium\", \"tin\", \"zinc\", \"aluminium\", \"silver\", \"gold\", \"copper\" (got \"{name}\")"
+                ),
+            )
+        })
 }
 
 #[wasm_bindgen(js_name = fixedPointTemperature)]

@@ -78,8 +78,9 @@ test('single-wavelength model and ITS-90 ratios', () => {
   for (const c of ref.its90) {
     const r = qb.its90Temperature(c.ratio, c.wavelength_m * 1e9, 'nm', c.fixed_point);
     close(r.t90K, c.t90_k, 1e-13, `T90 ${c.fixed_point} r=${c.ratio}`);
-    close(r.tCodataK, c.t_codata_k, 1e-13, `T(CODATA c2) ${c.fixed_point}`);
-    assert.ok(Math.abs(r.differenceK - c.difference_k) < 1e-9, `difference ${r.differenceK} vs ${c.difference_k}`);
+    close(r.tCodataC2K, c.t_codata_k, 1e-13, `T(CODATA c2) ${c.fixed_point}`);
+    assert.ok(Math.abs(r.c2EffectK - c.difference_k) < 1e-9, `c2 effect ${r.c2EffectK} vs ${c.difference_k}`);
+    assert.equal(r.belowSilverPoint, c.t90_k < 1234.93, `below-silver flag at ${c.t90_k} K`);
     const tx = qb.fixedPointTemperature(c.fixed_point);
     close(qb.temperatureFromRatio(c.ratio, c.wavelength_m, 'm', tx, 'its90'), c.t90_k, 1e-13, 'temperatureFromRatio');
     close(qb.radianceRatio(c.t90_k, c.wavelength_m, 'm', tx, 'its90'), c.ratio, 1e-12, 'radianceRatio');
@@ -87,6 +88,8 @@ test('single-wavelength model and ITS-90 ratios', () => {
   assert.equal(qb.fixedPointTemperature('gold'), 1337.33); // ITS-90 Table 1
   assert.equal(qb.fixedPointTemperature('silver'), 1234.93);
   assert.equal(qb.fixedPointTemperature('copper'), 1357.77);
+  assert.equal(qb.fixedPointTemperature('zinc'), 692.677); // ITS-90 Table 1 (from memory)
+  assert.throws(() => qb.its90Temperature(1, 650, 'nm', 'zinc'), (e) => e.code === 'UNSUPPORTED');
 });
 
 test('measurement equation with emissivity, path and window, and its inverse', () => {

@@ -23,6 +23,7 @@ const CORE_CODES = [
   'UNKNOWN_UNIT',
   'UNSUPPORTED',
   'TOO_LARGE',
+  'INVALID_CORRELATION',
 ];
 
 /** Codes raised only at the JavaScript boundary. */
@@ -80,6 +81,7 @@ const MESSAGES = {
   UNKNOWN_UNIT: (s) => `unknown unit; expected a ${s[0]}`,
   UNSUPPORTED: (s) => `unsupported: ${s[0]}`,
   TOO_LARGE: (s, n) => `${s[0]} has ${n[1]} elements; at most ${n[0]} are accepted`,
+  INVALID_CORRELATION: (s, n) => `invalid correlation matrix: ${s[0]} (entry ${s[1]} = ${n[0]})`,
 };
 
 /** Core argument names whose JavaScript name is not their camelCase form. */

@@ -98,16 +98,18 @@ export interface Constants {
 }
 export function constants(): Constants;
 
-/** An ITS-90 fixed point used as radiance reference. */
-export type FixedPoint = "silver" | "gold" | "copper";
-/** Temperature of a radiance ratio with both values of c2. */
-export interface RatioTemperatures {
-  /** With c2 = 0.014388 m·K (ITS-90), K. */
+/** An ITS-90 defining fixed point (freezing point); the ratio relation takes silver, gold or copper. */
+export type FixedPoint = "indium" | "tin" | "zinc" | "aluminium" | "silver" | "gold" | "copper";
+/** A radiance-ratio temperature on ITS-90 (an ITS-90 temperature, not a thermodynamic one). */
+export interface Its90Temperature {
+  /** T90 from the ITS-90 ratio relation with c2 = 0.014388 m·K, K. */
   readonly t90K: number;
-  /** With c2 = hc/k (CODATA 2018), K. */
-  readonly tCodataK: number;
-  /** tCodataK − t90K, K (the effect of c2 alone). */
-  readonly differenceK: number;
+  /** The same relation evaluated with c2 = hc/k (CODATA 2018), K. */
+  readonly tCodataC2K: number;
+  /** tCodataC2K − t90K, K: the effect of the value of c2 alone — NOT T − T90. */
+  readonly c2EffectK: number;
+  /** True when T90 is below the silver point, where ITS-90 does not define T90 by this relation (the value is an extrapolation). */
+  readonly belowSilverPoint: boolean;
 }
 /** T90 of an ITS-90 fixed point, K. */
 export function fixedPointTemperature(fixedPoint: FixedPoint): number;
@@ -115,7 +117,7 @@ export function fixedPointTemperature(fixedPoint: FixedPoint): number;
 export function temperatureFromRatio(ratio: number, wavelength: number, unit: WavelengthUnit, referenceTemperatureK: number, c2?: C2Convention): number;
 /** L(λ, T)/L(λ, T_ref). */
 export function radianceRatio(temperatureK: number, wavelength: number, unit: WavelengthUnit, referenceTemperatureK: number, c2?: C2Convention): number;
-/** T90 from a radiance ratio to a fixed point, with the CODATA-c2 value for comparison. */
-export function its90Temperature(ratio: number, wavelength: number, unit: WavelengthUnit, fixedPoint: FixedPoint): RatioTemperatures;
+/** T90 from a radiance ratio to the silver, gold or copper point, with the CODATA-c2 value for comparison (UNSUPPORTED for another fixed point). */
+export function its90Temperature(ratio: number, wavelength: number, unit: WavelengthUnit, fixedPoint: FixedPoint): Its90Temperature;
 /** Two-colour temperature from L(λ1)/L(λ2) and ε1/ε2 (channel 1 the shorter wavelength). */
 export function twoColourTemperature(wavelength1: number, wavelength2: number, unit: WavelengthUnit, ratio: number, emissivityRatio: number, c2?: C2Convention): RatioReading;
