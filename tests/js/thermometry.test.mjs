@@ -348,7 +348,7 @@ test('thermometry errors carry their codes; the module recovers after each', () 
   throwsCode(() => qb.CalibrationCurve.fit(new Float64Array([300, 400, 500]), new Float64Array([1, 2])), 'LENGTH_MISMATCH');
   throwsCode(() => qb.CalibrationCurve.fit(new Float64Array([300, 300, 500]), new Float64Array([1, 2, 3])), 'DEGENERATE_FIT');
 
-  throwsCode(() => qb.fixedPointTemperature('tin'), 'UNSUPPORTED');
+  throwsCode(() => qb.fixedPointTemperature('platinum'), 'UNSUPPORTED');
   throwsCode(() => qb.its90Temperature(-1, 650, 'nm', 'gold'), 'NON_POSITIVE');
   throwsCode(() => qb.CalibrationCurve.fit(new Float64Array([300, 400, 500]), new Float64Array([1, 2, 3]), { c2: 'its-90' }), 'UNSUPPORTED');
   throwsCode(() => I(sp).uncertaintyBudget(1e7, { emissivity: -0.1 }), 'OUT_OF_RANGE');

@@ -193,7 +193,7 @@ new Instrument({ model: curveModel, conditions: { window: { transmittance: 0.9 }
 // @ts-expect-error the argument is a definition { model, conditions }, not a model
 new Instrument(curveModel);
 // @ts-expect-error fixed point literal
-its90Temperature(10, 650, 'nm', 'tin');
+its90Temperature(10, 650, 'nm', 'platinum');
 // @ts-expect-error frames are typed arrays, not plain arrays
 curve.convertFrame([1, 2, 3]);
 // @ts-expect-error output element type literal
