@@ -129,6 +129,38 @@ pub enum Error {
         /// What is unsupported and what is.
         what: &'static str,
     },
+    /// An element of a table is invalid: not finite, outside its allowed range, or (for two
+    /// tables that must sum to at most 1, such as a window's transmittance and reflectance)
+    /// their sum above 1 there. Code `INVALID_TABLE_ENTRY`.
+    InvalidTableEntry {
+        /// The table and column, e.g. `"emissivity.values"`.
+        arg: &'static str,
+        /// Index of the offending element (0-based).
+        index: usize,
+        /// The value received (the sum, for a sum that exceeds its bound).
+        value: f64,
+        /// The allowed range, e.g. `"[0, 1]"`.
+        range: &'static str,
+    },
+    /// A wavelength at which a table is needed lies outside the table's grid, and the table was
+    /// not given constant end values. Code `OUTSIDE_TABLE`.
+    OutsideTable {
+        /// The table, e.g. `"emissivity"`.
+        arg: &'static str,
+        /// The wavelength needed, m.
+        wavelength_m: f64,
+        /// The table's first wavelength, m.
+        first_m: f64,
+        /// The table's last wavelength, m.
+        last_m: f64,
+    },
+    /// A line of a text table cannot be used. Code `INVALID_LINE`.
+    InvalidLine {
+        /// The line number (1-based, counting every line of the text).
+        line: usize,
+        /// What is wrong with it.
+        reason: &'static str,
+    },
 }
 
 impl Error {
@@ -158,6 +190,9 @@ impl Error {
             Error::NotConverged { .. } => "NOT_CONVERGED",
             Error::UnknownUnit { .. } => "UNKNOWN_UNIT",
             Error::Unsupported { .. } => "UNSUPPORTED",
+            Error::InvalidTableEntry { .. } => "INVALID_TABLE_ENTRY",
+            Error::OutsideTable { .. } => "OUTSIDE_TABLE",
+            Error::InvalidLine { .. } => "INVALID_LINE",
         }
     }
 
@@ -179,6 +214,9 @@ impl Error {
         "NOT_CONVERGED",
         "UNKNOWN_UNIT",
         "UNSUPPORTED",
+        "INVALID_TABLE_ENTRY",
+        "OUTSIDE_TABLE",
+        "INVALID_LINE",
     ];
 }
 
@@ -226,6 +264,23 @@ impl fmt::Display for Error {
             Error::NotConverged { what } => write!(f, "did not converge: {what}"),
             Error::UnknownUnit { expected } => write!(f, "unknown unit; expected a {expected}"),
             Error::Unsupported { what } => write!(f, "unsupported: {what}"),
+            Error::InvalidTableEntry {
+                arg,
+                index,
+                value,
+                range,
+            } => write!(f, "{arg}[{index}] must lie in {range} (got {value})"),
+            Error::OutsideTable {
+                arg,
+                wavelength_m,
+                first_m,
+                last_m,
+            } => write!(
+                f,
+                "{arg} is needed at {wavelength_m} m, outside its wavelength grid \
+                 [{first_m}, {last_m}] m (give the table constant end values to extend it)"
+            ),
+            Error::InvalidLine { line, reason } => write!(f, "line {line} of the table text: {reason}"),
         }
     }
 }

@@ -40,3 +40,8 @@ pub use uncertainty::{
     sensitivities, uncertainty_budget, BudgetEntry, BudgetInput, Sensitivities,
     StandardUncertainties, UncertaintyBudget,
 };
+
+// Spectral (non-grey) inputs: tables, the spectral measurement equation, workflows that start
+// from an indicated temperature.
+pub mod spectral;
+pub mod table;
