@@ -315,11 +315,12 @@ fn step_ln(lambda_m: f64, temperature_k: f64, c2_mk: f64) -> f64 {
 /// Splits [a, b] into the geometric pieces of the module docs (each ≤ a factor e^0.3 in λ and
 /// ≤ 6 in x = c2/(λ·`step_temperature_k`); the part where L_λ at `skip_temperature_k` is below
 /// e⁻⁵⁰ of its largest value on [a, b] skipped) and hands each piece [lo, hi] to `piece`.
-/// Shared by [`ResponseSignal`] (per response segment, both temperatures T) and the spectral
+/// Shared by [`ResponseSignal`] (per response segment; both temperatures T) and the spectral
 /// measurement equation ([`super::spectral`], per interval of the union of its tables' grids,
-/// with several terms at different temperatures: steps for the coldest, skip for the hottest —
-/// where the hottest term's L_λ is below e⁻⁵⁰ of its maximum, so is every colder one's, since
-/// L_λ(λ,T′)/L_λ(λ,T) increases with λ for T′ < T).
+/// for terms at several nearby temperatures at once: steps for the coldest, skip for the
+/// hottest — where the hottest term's L_λ is below e⁻⁵⁰ of its maximum on [a, b], so is every
+/// colder one's, because L_λ(λ,T′)/L_λ(λ,T) increases with λ for T′ < T and the skipped part
+/// lies below the hottest term's maximum).
 pub(crate) fn march_pieces<F>(
     a: f64,
     b: f64,
@@ -358,8 +359,9 @@ where
 
 /// Exponent k (0 ≤ k ≤ 1000) such that 2⁻ᵏ·L_λ·e^`extra_ln` stays below ~1e300 for every
 /// wavelength ≥ `shortest_m` (`extra_ln` bounds the logarithm of any further factor of the
-/// integrand, e.g. λ/(hc) for photon units; 0 for plain L_λ). Planck's L_λ never exceeds its Rayleigh–Jeans value (c1/c2)·T/λ⁴
-/// (x/(eˣ − 1) ≤ 1), and that bound is largest at the shortest wavelength. k > 0 only for
+/// integrand, e.g. λ/(hc) for photon units; 0 for plain L_λ). Planck's L_λ never exceeds its
+/// Rayleigh–Jeans value (c1/c2)·T/λ⁴ (x/(eˣ − 1) ≤ 1), and that bound is largest at the
+/// shortest wavelength. k > 0 only for
 /// T ≳ 1e290 K at micrometre wavelengths, where the nodes' L_λ would overflow although the
 /// integrals (and their ratios) are ordinary numbers; k is 0 for every ordinary temperature,
 /// leaving the arithmetic unchanged.

@@ -41,12 +41,24 @@
 //! Gauss–Legendre rule. No piece straddles a table point, so there is no interpolation error:
 //! the rule integrates polynomial × Planck function, which is analytic in a Bernstein ellipse
 //! around the piece, and its error is bounded by Trefethen's theorem (ATAP Thm 19.3):
-//! |I − I₂₀| ≤ (64/15)·M·ρ⁻⁴⁰/(ρ² − 1)·h, with h the half-length of the piece, M the largest
-//! |integrand| on the ellipse E_ρ. `tests/data/gen_spectral.py` evaluates that bound for the
-//! worst pieces the subdivision allows (degree-5 polynomial factor, x from 0 to 10⁴): it is below
-//! 1e-15 relative to the piece's integral (see the generator's output in
-//! `tests/data/spectral_reference.json`, key `quadrature_bound`). Measured against mpmath
-//! `quad` of the same interpolant at 40 digits: see [`spectral_measured_signal`].
+//! |I − I_n| ≤ (64/15)·M·ρ^(−2n)/(ρ² − 1)·h, with h the half-length of the piece and M the
+//! largest |integrand| on the Bernstein ellipse E_ρ. Short pieces (fine tables) take a 4-, 6- or
+//! 8-point rule instead of the 20-point one (see the table below). `tests/data/gen_spectral.py`
+//! evaluates the bound for the worst pieces of each class (a product of up to 4 linear factors,
+//! bounded on E_ρ by (1 + a_ρ)⁴ times its coefficients and on the piece from below by the
+//! multilinear minimum; x = c2/(λT) from 1e-3 to 1e4, energy and photon units): at most 3.5e-17
+//! of the piece's integral (key `quadrature_bound` of `tests/data/spectral_reference.json`).
+//! Every integrand is ≥ 0, so the same relative bound holds for the whole band: the quadrature
+//! is exact for the interpolants to rounding. Measured against mpmath `quad` of the same
+//! interpolants: see [`spectral_measured_signal`].
+//!
+//! ```text
+//! rule    pieces (ln(q/p) ≤ w and Δx = x(p) − x(q) ≤ δ)    a-priori bound, relative
+//! 4-pt    w ≤ 0.001, δ ≤ 0.02                               3.5e-17
+//! 6-pt    w ≤ 0.01,  δ ≤ 0.2                                6.2e-20
+//! 8-pt    w ≤ 0.03,  δ ≤ 0.6                                1.2e-22
+//! 20-pt   every piece of the subdivision (w ≤ 0.3, δ ≤ 6)   9.0e-37
+//! ```
 //!
 //! Each term is integrated at its own temperature (so the pieces and the skipped short-wave
 //! tail suit that temperature, exactly as in [`super::response::ResponseSignal`]); terms whose
@@ -591,6 +603,10 @@ impl<'a> Cursor<'a> {
     }
 }
 
+/// Temperatures within this factor of each other are integrated in one walk (the pieces, made
+/// for the coldest, are then at most this factor finer than the hottest needs).
+const GROUP_RATIO: f64 = 2.0;
+
 /// What one output of [`Prepared::terms`] integrates against its weight.
 #[derive(Clone, Copy, PartialEq)]
 enum Of {
@@ -713,11 +729,25 @@ impl<'a, 'b> Prepared<'a, 'b> {
         Ok(())
     }
 
-    /// N integrals in one walk over the band: output j is ∫ w_j(factors)·L(λ, T_j) dλ or
-    /// ∫ w_j·∂L/∂T(λ, T_j) dλ as `spec[j]` says (0 for [`Of::Skip`]). Planck's law is evaluated
-    /// once per node and distinct temperature; the pieces suit the coldest temperature and the
-    /// short-wave skip the hottest ([`march_pieces`]).
+    /// N integrals: output j is ∫ w_j(factors)·L(λ, T_j) dλ or ∫ w_j·∂L/∂T(λ, T_j) dλ as
+    /// `spec[j]` says (0 for [`Of::Skip`]). Outputs at the same temperature share the Planck
+    /// evaluations; temperatures within a factor [`GROUP_RATIO`] share one walk over the band
+    /// (pieces for the coldest, skip for the hottest, [`march_pieces`]), others get their own.
     fn terms<const N: usize, W>(&self, spec: [Of; N], w: W) -> Result<[f64; N]>
+    where
+        W: Fn(&[f64; NF]) -> [f64; N],
+    {
+        let (mut acc, ks) = self.scaled_terms(spec, w)?;
+        for (s, &k) in acc.iter_mut().zip(ks.iter()) {
+            *s *= crate::float::powi(2.0, k);
+        }
+        Ok(acc)
+    }
+
+    /// [`Prepared::terms`] before the scale is restored: output j is 2^(−k_j) times its value
+    /// (k_j = 0 except where L would overflow, T ≳ 1e290 K), so that ratios of outputs at one
+    /// temperature stay finite where the values themselves overflow.
+    fn scaled_terms<const N: usize, W>(&self, spec: [Of; N], w: W) -> Result<([f64; N], [i32; N])>
     where
         W: Fn(&[f64; NF]) -> [f64; N],
     {
@@ -748,12 +778,11 @@ impl<'a, 'b> Prepared<'a, 'b> {
             }
         }
         let mut acc = [0.0; N];
+        let mut out_k = [0i32; N];
         let ts = ts.get(..m).unwrap_or(&[]);
         if ts.is_empty() {
-            return Ok(acc);
+            return Ok((acc, out_k));
         }
-        let t_hot = ts.iter().fold(0.0f64, |a, &b| a.max(b));
-        let t_cold = ts.iter().fold(f64::INFINITY, |a, &b| a.min(b));
         // Per-temperature scale 2⁻ᵏ (k > 0 only where L would overflow, T ≳ 1e290 K).
         let extra_ln = if self.photon {
             crate::float::ln(
@@ -763,60 +792,95 @@ impl<'a, 'b> Prepared<'a, 'b> {
             0.0
         };
         let mut ks = [0i32; N];
-        let mut scales = [1.0; N];
-        for ((k, sc), &t) in ks.iter_mut().zip(scales.iter_mut()).zip(ts) {
+        for (k, &t) in ks.iter_mut().zip(ts) {
             *k = node_scale_exp(self.lo, t, self.c2_mk, extra_ln);
-            *sc = crate::float::powi(2.0, -*k);
         }
         let (conv, photon, c2) = (self.c2, self.photon, self.c2_mk);
-        self.for_each_interval(|a, b, lins| {
-            march_pieces(a, b, t_hot, t_cold, c2, |p, q| {
-                let rule = rule_for(p, q, t_cold, c2);
-                let part = integrate_rule(rule, p, q, |x| {
-                    let d = x - a;
-                    let mut v = [0.0; NF];
-                    for (vi, l) in v.iter_mut().zip(lins.iter()) {
-                        *vi = l.v + l.s * d;
-                    }
-                    let mut l = [0.0; N];
-                    let mut dl = [0.0; N];
-                    for (s, &t) in ts.iter().enumerate() {
-                        let (sc, nd) = (scales.get(s).copied(), need_d.get(s).copied());
-                        let sc = sc.unwrap_or(1.0);
-                        let (ls, dls) = if nd == Some(true) {
-                            quantity_radiance_and_dt(x, t, conv, photon, sc)?
-                        } else {
-                            (quantity_radiance(x, t, conv, photon, sc)?, 0.0)
-                        };
-                        if let (Some(a), Some(b)) = (l.get_mut(s), dl.get_mut(s)) {
-                            *a = ls;
-                            *b = dls;
-                        }
-                    }
-                    let wv = w(&v);
-                    let mut out = [0.0; N];
-                    for (j, o) in out.iter_mut().enumerate() {
-                        let s = slot.get(j).copied().unwrap_or(0);
-                        let wj = wv.get(j).copied().unwrap_or(0.0);
-                        *o = match spec.get(j) {
-                            Some(Of::L(_)) => wj * l.get(s).copied().unwrap_or(0.0),
-                            Some(Of::Dl(_)) => wj * dl.get(s).copied().unwrap_or(0.0),
-                            _ => 0.0,
-                        };
-                    }
-                    Ok(out)
-                })?;
-                for (s, p) in acc.iter_mut().zip(part.iter()) {
-                    *s += p;
-                }
-                Ok(())
-            })
-        })?;
-        for (j, s) in acc.iter_mut().enumerate() {
-            let k = slot.get(j).and_then(|&sl| ks.get(sl)).copied().unwrap_or(0);
-            *s *= crate::float::powi(2.0, k);
+        // Temperatures within a factor GROUP_RATIO of each other share a walk (pieces for the
+        // group's coldest, short-wave skip for its hottest: march_pieces); widely different ones
+        // get their own, so a very cold term does not force tiny steps on a hot one.
+        let mut order = [0usize; N];
+        for (i, o) in order.iter_mut().enumerate() {
+            *o = i;
         }
-        Ok(acc)
+        let order = order.get_mut(..m).unwrap_or(&mut []);
+        order.sort_unstable_by(|&i, &j| {
+            let (a, b) = (ts.get(i).copied(), ts.get(j).copied());
+            a.partial_cmp(&b).unwrap_or(core::cmp::Ordering::Equal)
+        });
+        let mut first = 0;
+        while first < order.len() {
+            let t_cold = order
+                .get(first)
+                .and_then(|&i| ts.get(i))
+                .copied()
+                .unwrap_or(1.0);
+            let mut last = first;
+            while order
+                .get(last + 1)
+                .and_then(|&i| ts.get(i))
+                .is_some_and(|&t| t <= GROUP_RATIO * t_cold)
+            {
+                last += 1;
+            }
+            let group = order.get(first..=last).unwrap_or(&[]);
+            let t_hot = group
+                .last()
+                .and_then(|&i| ts.get(i))
+                .copied()
+                .unwrap_or(t_cold);
+            self.for_each_interval(|a, b, lins| {
+                march_pieces(a, b, t_hot, t_cold, c2, |p, q| {
+                    let rule = rule_for(p, q, t_cold, c2);
+                    let part = integrate_rule(rule, p, q, |x| {
+                        let d = x - a;
+                        let mut v = [0.0; NF];
+                        for (vi, l) in v.iter_mut().zip(lins.iter()) {
+                            *vi = l.v + l.s * d;
+                        }
+                        let mut l = [0.0; N];
+                        let mut dl = [0.0; N];
+                        for &s in group {
+                            let t = ts.get(s).copied().unwrap_or(1.0);
+                            let sc = crate::float::powi(2.0, -ks.get(s).copied().unwrap_or(0));
+                            let (ls, dls) = if need_d.get(s) == Some(&true) {
+                                quantity_radiance_and_dt(x, t, conv, photon, sc)?
+                            } else {
+                                (quantity_radiance(x, t, conv, photon, sc)?, 0.0)
+                            };
+                            if let (Some(a), Some(b)) = (l.get_mut(s), dl.get_mut(s)) {
+                                *a = ls;
+                                *b = dls;
+                            }
+                        }
+                        let wv = w(&v);
+                        let mut out = [0.0; N];
+                        for (j, o) in out.iter_mut().enumerate() {
+                            let s = slot.get(j).copied().unwrap_or(0);
+                            if !group.contains(&s) {
+                                continue;
+                            }
+                            let wj = wv.get(j).copied().unwrap_or(0.0);
+                            *o = match spec.get(j) {
+                                Some(Of::L(_)) => wj * l.get(s).copied().unwrap_or(0.0),
+                                Some(Of::Dl(_)) => wj * dl.get(s).copied().unwrap_or(0.0),
+                                _ => 0.0,
+                            };
+                        }
+                        Ok(out)
+                    })?;
+                    for (acc_j, p) in acc.iter_mut().zip(part.iter()) {
+                        *acc_j += p;
+                    }
+                    Ok(())
+                })
+            })?;
+            first = last + 1;
+        }
+        for (j, k) in out_k.iter_mut().enumerate() {
+            *k = slot.get(j).and_then(|&sl| ks.get(sl)).copied().unwrap_or(0);
+        }
+        Ok((acc, out_k))
     }
 
     /// ∫ of the object weight R·τ_w·τ_p·ε dλ (trapezoid per union interval: a scale for the
@@ -916,15 +980,8 @@ impl<'a, 'b> Prepared<'a, 'b> {
 }
 
 /// The Gauss–Legendre rule for a piece [p, q] at temperature T: the shortest rule whose
-/// proven error bound (module docs) is below 1e-16 relative for pieces of this size.
-///
-/// ```text
-/// rule   piece allowed (ln(q/p) ≤ w, Δx = c2/T·(1/p − 1/q) ≤ δ)   bound (relative)
-/// 4-pt   w ≤ 0.001, δ ≤ 0.02                                          3.4e-17
-/// 6-pt   w ≤ 0.01,  δ ≤ 0.2                                           6.2e-20
-/// 8-pt   w ≤ 0.03,  δ ≤ 0.6                                           1.1e-22
-/// 20-pt  any piece of the subdivision (w ≤ 0.3, δ ≤ 6)                9.5e-37
-/// ```
+/// a-priori error bound (module docs' table) is below 1e-16 relative for pieces of this size
+/// (Δx = c2/T·(1/p − 1/q)).
 #[inline]
 fn rule_for(p: f64, q: f64, temperature_k: f64, c2_mk: f64) -> &'static Rule {
     // e^0.001, e^0.01, e^0.03 (rounded down, so the test is at most as wide as stated)
@@ -1070,8 +1127,9 @@ pub fn spectral_signal_terms(
 /// Quadrature exact for the piecewise-linear tables to the rule's bound (module docs, < 1e-15
 /// relative per piece). Measured against mpmath `quad` of the same interpolants at 40 digits
 /// (`tests/data/gen_spectral.py`, `tests/thermometry_spectral.rs`): ≤ 2e-15 relative over the
-/// reference cases (200-point tables, photon response, constant ends, 50 K to 3000 K). Grey
-/// inputs give [`super::measurement::measured_signal`]'s number to ≤ 3e-16 relative.
+/// reference cases (200-point tables, photon response, constant ends, 50 K to 3000 K; measured
+/// 1.3e-15). Grey inputs give [`super::measurement::measured_signal`]'s number to ≤ 4e-16
+/// relative (measured 3.3e-16).
 ///
 /// # Examples
 /// ```
@@ -1114,8 +1172,11 @@ pub fn spectral_measured_signal(
 /// [`spectral_signal_terms`].
 ///
 /// # Accuracy
-/// Newton stops at a step below 4e-16·T; round trips T → signal → T agree within 1e-9 K, and
-/// grey inputs give [`super::measurement::object_temperature`]'s number to ≤ 1e-12 K (tests).
+/// Newton stops at a step below 4e-16·T. From mpmath signals the reference temperatures are
+/// recovered to ≤ 5e-16 relative; round trips and the grey comparison with
+/// [`super::measurement::object_temperature`] (≤ 7e-13 K where T is well conditioned) agree
+/// within the effect of a 4e-15 relative signal difference — a cold object under a warm
+/// background is ill-conditioned: |ΔT| = |Δs|·∂T/∂s (tests).
 ///
 /// # Examples
 /// ```
@@ -1230,7 +1291,9 @@ pub fn band_effective(
 ) -> Result<BandEffective> {
     temperature("temperature_k", temperature_k)?;
     let p = Prepared::new(instrument, conditions)?;
-    let [s, e, rt, tp, tw, rw, g] = p.terms([Of::L(temperature_k); 7], |v| {
+    // One temperature, one scale: the ratios need no rescaling (and stay finite where the
+    // integrals overflow).
+    let ([s, e, rt, tp, tw, rw, g], _) = p.scaled_terms([Of::L(temperature_k); 7], |v| {
         let rl = v[R];
         [
             rl,
@@ -1319,8 +1382,9 @@ pub struct SpectralSensitivities {
 /// Those of [`spectral_object_temperature`]; `NoSolution` if ∂F/∂T is 0 at the solution.
 ///
 /// # Accuracy
-/// Analytic; agrees with mpmath numerical differentiation of a 40-digit solve of the same
-/// equation to ≤ 1e-9 relative (`tests/thermometry_spectral.rs`).
+/// Analytic; agrees with central finite differences of 30-digit mpmath root-finding solves of
+/// the same equation to 1.5e-15 relative (22 coefficients, opaque and semi-transparent target
+/// behind a window; `tests/thermometry_spectral.rs` asserts 1e-9).
 ///
 /// # Examples
 /// ```
