@@ -152,6 +152,38 @@ pub enum Error {
         /// The offending value (the entry, or the failed pivot).
         value: f64,
     },
+    /// An element of a table is invalid: not finite, outside its allowed range, or (for two
+    /// tables that must sum to at most 1, such as a window's transmittance and reflectance)
+    /// their sum above 1 there. Code `INVALID_TABLE_ENTRY`.
+    InvalidTableEntry {
+        /// The table and column, e.g. `"emissivity.values"`.
+        arg: &'static str,
+        /// Index of the offending element (0-based).
+        index: usize,
+        /// The value received (the sum, for a sum that exceeds its bound).
+        value: f64,
+        /// The allowed range, e.g. `"[0, 1]"`.
+        range: &'static str,
+    },
+    /// A wavelength at which a table is needed lies outside the table's grid, and the table was
+    /// not given constant end values. Code `OUTSIDE_TABLE`.
+    OutsideTable {
+        /// The table, e.g. `"emissivity"`.
+        arg: &'static str,
+        /// The wavelength needed, m.
+        wavelength_m: f64,
+        /// The table's first wavelength, m.
+        first_m: f64,
+        /// The table's last wavelength, m.
+        last_m: f64,
+    },
+    /// A line of a text table cannot be used. Code `INVALID_LINE`.
+    InvalidLine {
+        /// The line number (1-based, counting every line of the text).
+        line: usize,
+        /// What is wrong with it.
+        reason: &'static str,
+    },
 }
 
 impl Error {
@@ -183,6 +215,9 @@ impl Error {
             Error::Unsupported { .. } => "UNSUPPORTED",
             Error::TooLarge { .. } => "TOO_LARGE",
             Error::InvalidCorrelation { .. } => "INVALID_CORRELATION",
+            Error::InvalidTableEntry { .. } => "INVALID_TABLE_ENTRY",
+            Error::OutsideTable { .. } => "OUTSIDE_TABLE",
+            Error::InvalidLine { .. } => "INVALID_LINE",
         }
     }
 
@@ -206,6 +241,9 @@ impl Error {
         "UNSUPPORTED",
         "TOO_LARGE",
         "INVALID_CORRELATION",
+        "INVALID_TABLE_ENTRY",
+        "OUTSIDE_TABLE",
+        "INVALID_LINE",
     ];
 }
 
@@ -266,6 +304,23 @@ impl fmt::Display for Error {
                 f,
                 "invalid correlation matrix: {reason} (entry [{row}][{column}] = {value})"
             ),
+            Error::InvalidTableEntry {
+                arg,
+                index,
+                value,
+                range,
+            } => write!(f, "{arg}[{index}] must lie in {range} (got {value})"),
+            Error::OutsideTable {
+                arg,
+                wavelength_m,
+                first_m,
+                last_m,
+            } => write!(
+                f,
+                "{arg} is needed at {wavelength_m} m, outside its wavelength grid \
+                 [{first_m}, {last_m}] m (give the table constant end values to extend it)"
+            ),
+            Error::InvalidLine { line, reason } => write!(f, "line {line} of the table text: {reason}"),
         }
     }
 }

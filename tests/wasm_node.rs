@@ -285,6 +285,22 @@ fn js_messages_match_the_core_display() {
             column: 2,
             value: 0.25,
         },
+        Error::InvalidTableEntry {
+            arg: "emissivity.values",
+            index: 3,
+            value: 1.5,
+            range: "[0, 1]",
+        },
+        Error::OutsideTable {
+            arg: "emissivity",
+            wavelength_m: 0.5,
+            first_m: 0.25,
+            last_m: 0.375,
+        },
+        Error::InvalidLine {
+            line: 7,
+            reason: "expected two numbers",
+        },
     ];
     assert_eq!(all.len(), Error::ALL_CODES.len());
     for e in all {

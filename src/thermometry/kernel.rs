@@ -59,3 +59,52 @@ pub(crate) fn scaled_radiance(
         .with_emissivity(scale)
         .spectral(wavelength_m, temperature_k)
 }
+
+/// (s·L, s·∂L/∂T) per wavelength in energy (W·m⁻³·sr⁻¹) or photon (photons·s⁻¹·m⁻³·sr⁻¹)
+/// units, for a scale factor s in (0, 1] (an exact power of two, as in
+/// [`scaled_radiance_and_dt`]). Used by the spectral measurement equation.
+///
+/// # Errors
+/// Those of [`Spectrum::spectral`].
+#[inline]
+pub(crate) fn quantity_radiance_and_dt(
+    wavelength_m: f64,
+    temperature_k: f64,
+    c2: C2Convention,
+    photon: bool,
+    scale: f64,
+) -> Result<(f64, f64)> {
+    let s = spectrum(c2, photon, scale);
+    Ok((
+        s.spectral(wavelength_m, temperature_k)?,
+        s.spectral_d_dt(wavelength_m, temperature_k)?,
+    ))
+}
+
+/// s·L alone (see [`quantity_radiance_and_dt`]).
+///
+/// # Errors
+/// Those of [`Spectrum::spectral`].
+#[inline]
+pub(crate) fn quantity_radiance(
+    wavelength_m: f64,
+    temperature_k: f64,
+    c2: C2Convention,
+    photon: bool,
+    scale: f64,
+) -> Result<f64> {
+    spectrum(c2, photon, scale).spectral(wavelength_m, temperature_k)
+}
+
+#[inline]
+fn spectrum(c2: C2Convention, photon: bool, scale: f64) -> Spectrum {
+    let q = if photon {
+        crate::planck::Quantity::Photon
+    } else {
+        crate::planck::Quantity::Energy
+    };
+    Spectrum::BLACKBODY
+        .with_c2(c2)
+        .with_quantity(q)
+        .with_emissivity(scale)
+}

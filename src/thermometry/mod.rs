@@ -59,3 +59,21 @@ pub mod measurement_gum;
 pub mod monte_carlo;
 pub mod random;
 pub mod student_t;
+// Spectral (non-grey) inputs: tables, the spectral measurement equation, workflows that start
+// from an indicated temperature.
+pub mod indicated;
+pub mod spectral;
+pub mod table;
+pub use frame::PixelCorrections;
+pub use indicated::{
+    correct_reading, correct_reading_spectral, emissivity_by_contact, emissivity_by_reference,
+    reflected_temperature, ReferenceEmissivity,
+};
+pub use spectral::{
+    band_effective, spectral_measured_signal, spectral_object_temperature, spectral_sensitivities,
+    spectral_signal_terms, BandEffective, SignalTerms, SpectralConditions, SpectralInstrument,
+    SpectralSensitivities, SpectralValue, SpectralWindow,
+};
+#[cfg(feature = "alloc")]
+pub use table::SpectralTableBuf;
+pub use table::{Ends, SpectralTable, TableKind};

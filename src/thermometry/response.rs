@@ -312,6 +312,84 @@ fn step_ln(lambda_m: f64, temperature_k: f64, c2_mk: f64) -> f64 {
     }
 }
 
+/// Splits [a, b] into the geometric pieces of the module docs (each ≤ a factor e^0.3 in λ and
+/// ≤ 6 in x = c2/(λ·`step_temperature_k`); the part where L_λ at `skip_temperature_k` is below
+/// e⁻⁵⁰ of its largest value on [a, b] skipped) and hands each piece [lo, hi] to `piece`.
+/// Shared by [`ResponseSignal`] (per response segment; both temperatures T) and the spectral
+/// measurement equation ([`super::spectral`], per interval of the union of its tables' grids,
+/// for terms at several nearby temperatures at once: steps for the coldest, skip for the
+/// hottest — where the hottest term's L_λ is below e⁻⁵⁰ of its maximum on [a, b], so is every
+/// colder one's, because L_λ(λ,T′)/L_λ(λ,T) increases with λ for T′ < T and the skipped part
+/// lies below the hottest term's maximum).
+pub(crate) fn march_pieces<F>(
+    a: f64,
+    b: f64,
+    skip_temperature_k: f64,
+    step_temperature_k: f64,
+    c2_mk: f64,
+    mut piece: F,
+) -> Result<()>
+where
+    F: FnMut(f64, f64) -> Result<()>,
+{
+    let temperature_k = step_temperature_k;
+    let mut lo = effective_start(a, b, skip_temperature_k, c2_mk);
+    // The guard only bounds the loop; the steps reach b long before it.
+    for _ in 0..100_000 {
+        if lo >= b {
+            break;
+        }
+        let h = step_ln(lo, temperature_k, c2_mk);
+        let mut hi = lo * crate::float::exp(h);
+        if !(hi > lo) {
+            // No progress: h is below one ulp, i.e. x = c2/(λT) > 6/1.1e-16 ≈ 5e16 at lo
+            // and beyond on this segment. There L_λ ≤ 2hc²λ⁻⁵e⁻ˣ with ln(2hc²λ⁻⁵) < 3800
+            // for any positive f64 λ, so the rest of the segment is far below the f64 range:
+            // skip it instead of spinning through the guard on empty pieces.
+            break;
+        }
+        if hi * crate::float::exp(0.5 * h) >= b {
+            hi = b; // merge a short remainder into this piece
+        }
+        piece(lo, hi)?;
+        lo = hi;
+    }
+    Ok(())
+}
+
+/// Exponent k (0 ≤ k ≤ 1000) such that 2⁻ᵏ·L_λ·e^`extra_ln` stays below ~1e300 for every
+/// wavelength ≥ `shortest_m` (`extra_ln` bounds the logarithm of any further factor of the
+/// integrand, e.g. λ/(hc) for photon units; 0 for plain L_λ). Planck's L_λ never exceeds its
+/// Rayleigh–Jeans value (c1/c2)·T/λ⁴ (x/(eˣ − 1) ≤ 1), and that bound is largest at the
+/// shortest wavelength. k > 0 only for
+/// T ≳ 1e290 K at micrometre wavelengths, where the nodes' L_λ would overflow although the
+/// integrals (and their ratios) are ordinary numbers; k is 0 for every ordinary temperature,
+/// leaving the arithmetic unchanged.
+pub(crate) fn node_scale_exp(
+    shortest_m: f64,
+    temperature_k: f64,
+    c2_mk: f64,
+    extra_ln: f64,
+) -> i32 {
+    let ln_bound = crate::float::ln(crate::constants::C1L / c2_mk)
+        + crate::float::ln(temperature_k)
+        - 4.0 * crate::float::ln(shortest_m)
+        + extra_ln;
+    let excess = ln_bound - 690.0; // ln 1e300 ≈ 690.8
+    if excess > 0.0 {
+        // Finite: T and λ are finite and positive, so |ln_bound| < 4000.
+        // excess/ln 2 > 0 here, so truncation + 1 rounds up (one spare factor of 2 at most).
+        let k = excess / core::f64::consts::LN_2;
+        if k >= 999.0 {
+            1000
+        } else {
+            k as i32 + 1
+        }
+    } else {
+        0
+    }
+}
+
 /// The signal of an instrument with spectral response R viewing a blackbody:
 /// S(T) = ∫ R(λ)·L_λ(λ, T) dλ, in W·m⁻²·sr⁻¹ per unit relative response.
 ///
@@ -421,27 +499,9 @@ impl<'a> ResponseSignal<'a> {
         let c2 = self.c2_mk;
         for (a, b, ra, rb) in self.response.segments() {
             let slope = (rb - ra) / (b - a);
-            let mut lo = effective_start(a, b, temperature_k, c2);
-            // The guard only bounds the loop; the steps reach b long before it.
-            for _ in 0..100_000 {
-                if lo >= b {
-                    break;
-                }
-                let h = step_ln(lo, temperature_k, c2);
-                let mut hi = lo * crate::float::exp(h);
-                if !(hi > lo) {
-                    // No progress: h is below one ulp, i.e. x = c2/(λT) > 6/1.1e-16 ≈ 5e16 at lo
-                    // and beyond on this segment. There L_λ ≤ 2hc²λ⁻⁵e⁻ˣ with ln(2hc²λ⁻⁵) < 3800
-                    // for any positive f64 λ, so the rest of the segment is far below the f64
-                    // range: skip it instead of spinning through the guard on empty pieces.
-                    break;
-                }
-                if hi * crate::float::exp(0.5 * h) >= b {
-                    hi = b; // merge a short remainder into this piece
-                }
-                piece(lo, hi, a, ra, slope)?;
-                lo = hi;
-            }
+            march_pieces(a, b, temperature_k, temperature_k, c2, |lo, hi| {
+                piece(lo, hi, a, ra, slope)
+            })?;
         }
         Ok(())
     }
@@ -453,30 +513,10 @@ impl<'a> ResponseSignal<'a> {
         Ok((s * up, ds * up))
     }
 
-    /// Exponent k (0 ≤ k ≤ 1000) such that 2⁻ᵏ·L_λ stays below ~1e300 on the whole table.
-    /// Planck's L_λ never exceeds its Rayleigh–Jeans value (c1/c2)·T/λ⁴ (x/(eˣ − 1) ≤ 1), and
-    /// that bound is largest at the shortest tabulated wavelength. k > 0 only for T ≳ 1e290 K
-    /// at micrometre wavelengths, where the nodes' L_λ would overflow although the integrals
-    /// (and their ratios) are ordinary numbers; k is 0 for every ordinary temperature, leaving
-    /// the arithmetic unchanged.
+    /// Exponent k (0 ≤ k ≤ 1000) such that 2⁻ᵏ·L_λ stays below ~1e300 on the whole table
+    /// (see [`node_scale_exp`]).
     fn node_scale_exp(&self, temperature_k: f64) -> i32 {
-        let lam0 = self.response.support_m().0;
-        let ln_bound = crate::float::ln(crate::constants::C1L / self.c2_mk)
-            + crate::float::ln(temperature_k)
-            - 4.0 * crate::float::ln(lam0);
-        let excess = ln_bound - 690.0; // ln 1e300 ≈ 690.8
-        if excess > 0.0 {
-            // Finite: T and λ are finite and positive, so |ln_bound| < 4000.
-            // excess/ln 2 > 0 here, so truncation + 1 rounds up (one spare factor of 2 at most).
-            let k = excess / core::f64::consts::LN_2;
-            if k >= 999.0 {
-                1000
-            } else {
-                k as i32 + 1
-            }
-        } else {
-            0
-        }
+        node_scale_exp(self.response.support_m().0, temperature_k, self.c2_mk, 0.0)
     }
 
     /// (2⁻ᵏ·S, 2⁻ᵏ·dS/dT, k) with k from [`Self::node_scale_exp`].

@@ -131,6 +131,22 @@ fn fields(e: &Error) -> ([String; 2], [f64; 2]) {
             [String::from(reason), alloc::format!("[{row}][{column}]")],
             [value, 0.0],
         ),
+        Error::InvalidTableEntry {
+            arg,
+            index,
+            value,
+            range,
+        } => (t(arg, range), [value, index as f64]),
+        Error::OutsideTable {
+            arg,
+            wavelength_m,
+            first_m,
+            last_m,
+        } => (
+            [String::from(arg), alloc::format!("[{first_m}, {last_m}]")],
+            [wavelength_m, 0.0],
+        ),
+        Error::InvalidLine { line, reason } => (t(reason, ""), [line as f64, 0.0]),
     }
 }
 
@@ -168,6 +184,8 @@ pub fn take_error() -> JsValue {
                     | Error::OutOfRange { .. }
                     | Error::NotIncreasing { .. }
                     | Error::TooLarge { .. }
+                    | Error::InvalidTableEntry { .. }
+                    | Error::OutsideTable { .. }
             );
             let [first, second] = texts;
             let first = if has_arg && !path.is_empty() {

@@ -1,8 +1,9 @@
 // The error contract, one reachable trigger per stable code, each followed by a good call (the
 // instance is not poisoned). NOT_CONVERGED is the one code without a trigger: the core's
 // iterations report it only as a guard that its tests never observed (see its rustdoc);
-// NOT_INITIALIZED is triggered in a fresh module (tests/js/init.test.mjs). INVALID_CORRELATION
-// has no JavaScript caller until the uncertainty (GUM) bindings exist; its Rust tests cover it.
+// NOT_INITIALIZED is triggered in a fresh module (tests/js/init.test.mjs). INVALID_CORRELATION,
+// INVALID_TABLE_ENTRY, OUTSIDE_TABLE and INVALID_LINE have no JavaScript caller until the
+// uncertainty and spectral-table bindings exist; their Rust tests cover them.
 import { test } from 'node:test';
 import assert from 'node:assert/strict';
 import { qb, throwsCode } from './helpers.mjs';
@@ -39,14 +40,21 @@ const TRIGGERS = {
   DISPOSED: () => freed.point(500, 300),
 };
 
-test('every stable code except NOT_CONVERGED, INVALID_CORRELATION and NOT_INITIALIZED is reachable here', () => {
+test('every stable code except NOT_CONVERGED, NOT_INITIALIZED and the codes of unbound capabilities is reachable here', () => {
   const reached = new Set();
   for (const [code, fn] of Object.entries(TRIGGERS)) {
     const e = throwsCode(fn, code);
     reached.add(e.code);
   }
   const missing = qb.ERROR_CODES.filter((c) => !reached.has(c));
-  assert.deepEqual(missing, ['NOT_CONVERGED', 'INVALID_CORRELATION', 'NOT_INITIALIZED']);
+  assert.deepEqual(missing, [
+    'NOT_CONVERGED',
+    'INVALID_CORRELATION',
+    'INVALID_TABLE_ENTRY',
+    'OUTSIDE_TABLE',
+    'INVALID_LINE',
+    'NOT_INITIALIZED',
+  ]);
 });
 
 test('ERROR_CODES is the Rust core list followed by the boundary codes, and the README table', async () => {

@@ -24,6 +24,9 @@ const CORE_CODES = [
   'UNSUPPORTED',
   'TOO_LARGE',
   'INVALID_CORRELATION',
+  'INVALID_TABLE_ENTRY',
+  'OUTSIDE_TABLE',
+  'INVALID_LINE',
 ];
 
 /** Codes raised only at the JavaScript boundary. */
@@ -82,6 +85,10 @@ const MESSAGES = {
   UNSUPPORTED: (s) => `unsupported: ${s[0]}`,
   TOO_LARGE: (s, n) => `${s[0]} has ${n[1]} elements; at most ${n[0]} are accepted`,
   INVALID_CORRELATION: (s, n) => `invalid correlation matrix: ${s[0]} (entry ${s[1]} = ${n[0]})`,
+  INVALID_TABLE_ENTRY: (s, n) => `${s[0]}[${n[1]}] must lie in ${s[1]} (got ${n[0]})`,
+  OUTSIDE_TABLE: (s, n) =>
+    `${s[0]} is needed at ${n[0]} m, outside its wavelength grid ${s[1]} m (give the table constant end values to extend it)`,
+  INVALID_LINE: (s, n) => `line ${n[0]} of the table text: ${s[0]}`,
 };
 
 /** Core argument names whose JavaScript name is not their camelCase form. */
@@ -112,6 +119,8 @@ const ARG_CODES = new Set([
   'OUT_OF_RANGE',
   'NOT_INCREASING',
   'TOO_LARGE',
+  'INVALID_TABLE_ENTRY',
+  'OUTSIDE_TABLE',
 ]);
 
 /** The error of a stored failure `p` ({ code, texts, numbers, index?, message? }). */
