@@ -35,25 +35,25 @@ function markerSection(text, name) {
   return rest.slice(0, end.index);
 }
 
-/** The text under a heading line (exact), up to the next heading of the same or higher level. */
+/**
+ * The text under a heading line (exact, and the only such line), up to the next heading of the
+ * same or a higher level outside code fences (fences are tracked from the heading on, so an
+ * unbalanced fence elsewhere in the file does not matter).
+ */
 function headingSection(text, heading) {
   const level = /^#+/.exec(heading)?.[0].length;
   if (!level) fail(`not a heading: ${heading}`);
   const lines = text.split('\n');
+  const at = lines.flatMap((l, i) => (l === heading ? [i] : []));
+  if (at.length !== 1) fail(`README.md has ${at.length} lines "${heading}" (want exactly 1)`);
   let inFence = false;
-  let start = -1;
   const out = [];
-  for (const line of lines) {
+  for (const line of lines.slice(at[0] + 1)) {
     if (/^(```|~~~)/.test(line)) inFence = !inFence;
-    if (start < 0) {
-      if (!inFence && line === heading) start = out.length;
-      continue;
-    }
     const h = !inFence && /^(#+)\s/.exec(line);
     if (h && h[1].length <= level) break;
     out.push(line);
   }
-  if (start < 0) fail(`README.md has no heading "${heading}"`);
   return out.join('\n');
 }
 
