@@ -74,7 +74,8 @@ impl<A: SignalModel + ?Sized, B: SignalModel + ?Sized> SignalModel for RatioMode
 pub struct RatioReading {
     /// Temperature, K.
     pub temperature_k: f64,
-    /// ∂T/∂r, K per unit ratio.
+    /// ∂T/∂r, K per unit ratio (+∞ only where the true value is above `f64::MAX`: a ratio so
+    /// small that ∂r/∂T is below the f64 range).
     #[cfg_attr(feature = "serde", serde(rename = "dTdRatio"))]
     pub d_t_d_ratio: f64,
     /// ∂T/∂(ε1/ε2), K per unit emissivity ratio.
@@ -147,7 +148,8 @@ pub fn ratio_temperature<A: SignalModel + ?Sized, B: SignalModel + ?Sized>(
     Ok(RatioReading {
         temperature_k: t,
         d_t_d_ratio: dt_dr,
-        d_t_d_emissivity_ratio: -g / (dg * emissivity_ratio),
+        // (g/dg) first: dg·ρ can underflow to 0 where the quotient is ordinary.
+        d_t_d_emissivity_ratio: -(g / dg) / emissivity_ratio,
     })
 }
 

@@ -135,6 +135,16 @@ fn bad_token(text: &str, inf: Inf) -> Option<&'static str> {
     None
 }
 
+/// At most 2000 characters of a `Debug` text, for failure messages.
+fn clip(text: &str) -> String {
+    if text.len() <= 2000 {
+        text.to_string()
+    } else {
+        let cut = (0..=2000).rev().find(|&i| text.is_char_boundary(i)).unwrap_or(0);
+        format!("{} …", &text[..cut])
+    }
+}
+
 /// Checks an error: its `Display` text is produced without panicking and its code is listed.
 pub fn check_err(what: &str, e: &Error) -> Result<(), TestCaseError> {
     let text = e.to_string();
@@ -159,7 +169,8 @@ pub fn check<T: Debug>(
             let text = format!("{v:?}");
             if let Some(bad) = bad_token(&text, inf) {
                 return Err(TestCaseError::fail(format!(
-                    "{what}: Ok result contains {bad}: {text}"
+                    "{what}: Ok result contains {bad}: {}",
+                    clip(&text)
                 )));
             }
             Ok(())
@@ -178,7 +189,8 @@ pub fn finite<T: Debug>(what: &str, value: &T) -> Result<(), TestCaseError> {
     let text = format!("{value:?}");
     if let Some(bad) = bad_token(&text, Inf::Never) {
         return Err(TestCaseError::fail(format!(
-            "{what}: value contains {bad}: {text}"
+            "{what}: value contains {bad}: {}",
+            clip(&text)
         )));
     }
     Ok(())
