@@ -594,7 +594,7 @@ fn correlation_matrices() -> impl Strategy<Value = Vec<f64>> {
 fn fuzz_gum() {
     fuzz(
         "gum",
-        2500,
+        1500,
         (
             prop::collection::vec(input_uncertainties(), 0..6),
             slice(&arg(-10.0, 10.0), false, 0, 40),

@@ -38,7 +38,7 @@ use quantaband::Error;
 pub const SEED: u64 = 0x7175_616e_7461_6661; // "quantafa"
 
 /// Wall-clock budget of one fuzz test at scale 1, in seconds.
-pub const BUDGET_S: f64 = 20.0;
+pub const BUDGET_S: f64 = 30.0;
 
 /// The case multiplier from `QUANTABAND_FUZZ_SCALE` (default 1; values < 1 are allowed).
 pub fn scale() -> f64 {
