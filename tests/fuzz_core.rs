@@ -215,11 +215,27 @@ fn fuzz_spectrum_methods() {
         |(s, v)| {
             let (x, t) = (v[0], v[1]);
             check("Spectrum::validate", &Spectrum::validate(&s), Inf::Never)?;
-            check("SpectralVariable::arg_name", &Ok::<_, Error>(SpectralVariable::arg_name(s.variable)), Inf::Never)?;
-            check("Spectrum::spectral", &Spectrum::spectral(&s, x, t), PLANCK_INF)?;
-            check("Spectrum::spectral_d_dt", &Spectrum::spectral_d_dt(&s, x, t), PLANCK_INF)?;
+            check(
+                "SpectralVariable::arg_name",
+                &Ok::<_, Error>(SpectralVariable::arg_name(s.variable)),
+                Inf::Never,
+            )?;
+            check(
+                "Spectrum::spectral",
+                &Spectrum::spectral(&s, x, t),
+                PLANCK_INF,
+            )?;
+            check(
+                "Spectrum::spectral_d_dt",
+                &Spectrum::spectral_d_dt(&s, x, t),
+                PLANCK_INF,
+            )?;
             check("Spectrum::total", &Spectrum::total(&s, t), PLANCK_INF)?;
-            check("Spectrum::total_d_dt", &Spectrum::total_d_dt(&s, t), PLANCK_INF)?;
+            check(
+                "Spectrum::total_d_dt",
+                &Spectrum::total_d_dt(&s, t),
+                PLANCK_INF,
+            )?;
             check("Spectrum::peak", &Spectrum::peak(&s, t), PLANCK_INF)?;
             Ok(())
         },
@@ -238,26 +254,82 @@ fn fuzz_planck_free_functions() {
         |v| {
             let (l, s, f, t) = (v[0], v[1], v[2], v[3]);
             let i = PLANCK_INF;
-            check("spectral_radiance_wavelength", &planck::spectral_radiance_wavelength(l, t), i)?;
-            check("spectral_radiance_wavenumber", &planck::spectral_radiance_wavenumber(s, t), i)?;
-            check("spectral_radiance_frequency", &planck::spectral_radiance_frequency(f, t), i)?;
-            check("spectral_photon_radiance_wavelength", &planck::spectral_photon_radiance_wavelength(l, t), i)?;
-            check("spectral_photon_radiance_frequency", &planck::spectral_photon_radiance_frequency(f, t), i)?;
-            check("spectral_photon_radiance_wavenumber", &planck::spectral_photon_radiance_wavenumber(s, t), i)?;
-            check("d_spectral_radiance_wavenumber_dt", &planck::d_spectral_radiance_wavenumber_dt(s, t), i)?;
-            check("spectral_exitance_wavelength", &planck::spectral_exitance_wavelength(l, t), i)?;
-            check("d_spectral_radiance_wavelength_dt", &planck::d_spectral_radiance_wavelength_dt(l, t), i)?;
-            check("d_spectral_radiance_frequency_dt", &planck::d_spectral_radiance_frequency_dt(f, t), i)?;
+            check(
+                "spectral_radiance_wavelength",
+                &planck::spectral_radiance_wavelength(l, t),
+                i,
+            )?;
+            check(
+                "spectral_radiance_wavenumber",
+                &planck::spectral_radiance_wavenumber(s, t),
+                i,
+            )?;
+            check(
+                "spectral_radiance_frequency",
+                &planck::spectral_radiance_frequency(f, t),
+                i,
+            )?;
+            check(
+                "spectral_photon_radiance_wavelength",
+                &planck::spectral_photon_radiance_wavelength(l, t),
+                i,
+            )?;
+            check(
+                "spectral_photon_radiance_frequency",
+                &planck::spectral_photon_radiance_frequency(f, t),
+                i,
+            )?;
+            check(
+                "spectral_photon_radiance_wavenumber",
+                &planck::spectral_photon_radiance_wavenumber(s, t),
+                i,
+            )?;
+            check(
+                "d_spectral_radiance_wavenumber_dt",
+                &planck::d_spectral_radiance_wavenumber_dt(s, t),
+                i,
+            )?;
+            check(
+                "spectral_exitance_wavelength",
+                &planck::spectral_exitance_wavelength(l, t),
+                i,
+            )?;
+            check(
+                "d_spectral_radiance_wavelength_dt",
+                &planck::d_spectral_radiance_wavelength_dt(l, t),
+                i,
+            )?;
+            check(
+                "d_spectral_radiance_frequency_dt",
+                &planck::d_spectral_radiance_frequency_dt(f, t),
+                i,
+            )?;
             check("total_exitance", &planck::total_exitance(t), i)?;
             check("total_radiance", &planck::total_radiance(t), i)?;
-            check("total_photon_exitance", &planck::total_photon_exitance(t), i)?;
-            check("photon_number_density", &planck::photon_number_density(t), i)?;
+            check(
+                "total_photon_exitance",
+                &planck::total_photon_exitance(t),
+                i,
+            )?;
+            check(
+                "photon_number_density",
+                &planck::photon_number_density(t),
+                i,
+            )?;
             check("energy_density", &planck::energy_density(t), i)?;
             check("mean_photon_energy_j", &planck::mean_photon_energy_j(t), i)?;
             check("peak_wavelength_m", &planck::peak_wavelength_m(t), i)?;
             check("peak_frequency_hz", &planck::peak_frequency_hz(t), i)?;
-            check("peak_photon_wavelength_m", &planck::peak_photon_wavelength_m(t), i)?;
-            check("peak_photon_frequency_hz", &planck::peak_photon_frequency_hz(t), i)?;
+            check(
+                "peak_photon_wavelength_m",
+                &planck::peak_photon_wavelength_m(t),
+                i,
+            )?;
+            check(
+                "peak_photon_frequency_hz",
+                &planck::peak_photon_frequency_hz(t),
+                i,
+            )?;
             Ok(())
         },
     );
@@ -283,7 +355,11 @@ fn fuzz_band_functions() {
                 ok("band_fraction", &band_fraction(&s, lo, hi, t))?;
             }
             // Open-ended band (upper limit f64::MAX), as the design module uses it.
-            check("band open", &band::band(&s, a, f64::MAX, t), Inf::Documented)?;
+            check(
+                "band open",
+                &band::band(&s, a, f64::MAX, t),
+                Inf::Documented,
+            )?;
             Ok(())
         },
     );
@@ -305,9 +381,15 @@ fn fuzz_band_dimensionless() {
             ok("fraction_below", &fraction_below(lt))?;
             ok("photon_fraction_below", &photon_fraction_below(lt))?;
             ok("lambda_t_at_fraction", &lambda_t_at_fraction(f))?;
-            ok("photon_lambda_t_at_fraction", &photon_lambda_t_at_fraction(f))?;
+            ok(
+                "photon_lambda_t_at_fraction",
+                &photon_lambda_t_at_fraction(f),
+            )?;
             ok("planck_integral", &planck_integral(k, x1, x2))?;
-            ok("planck_integral", &planck_integral(k, x1.min(x2), x1.max(x2)))?;
+            ok(
+                "planck_integral",
+                &planck_integral(k, x1.min(x2), x1.max(x2)),
+            )?;
             ok("planck_integral_upper", &planck_integral_upper(k, x1))?;
             ok("planck_integral_lower", &planck_integral_lower(k, x2))?;
             Ok(())
@@ -332,17 +414,39 @@ fn fuzz_inverse() {
             let (x, t, value, ratio, e_ratio) = (v[0], v[4], v[5], v[6], v[7]);
             let b1 = (v[0].min(v[1]), v[0].max(v[1]));
             let b2 = (v[2].min(v[3]), v[2].max(v[3]));
-            ok("temperature_from_spectral", &temperature_from_spectral(&s, x, value))?;
-            ok("brightness_temperature", &brightness_temperature(&s, x, value))?;
-            ok("temperature_from_band", &temperature_from_band(&s, b1.0, b1.1, value))?;
-            ok("temperature_from_band_ratio", &temperature_from_band_ratio(&s, b1, b2, ratio, e_ratio))?;
+            ok(
+                "temperature_from_spectral",
+                &temperature_from_spectral(&s, x, value),
+            )?;
+            ok(
+                "brightness_temperature",
+                &brightness_temperature(&s, x, value),
+            )?;
+            ok(
+                "temperature_from_band",
+                &temperature_from_band(&s, b1.0, b1.1, value),
+            )?;
+            ok(
+                "temperature_from_band_ratio",
+                &temperature_from_band_ratio(&s, b1, b2, ratio, e_ratio),
+            )?;
             // Round-trip shaped inputs: the forward value at t.
             if let Ok(l) = Spectrum::spectral(&s, x, t) {
-                ok("temperature_from_spectral (forward)", &temperature_from_spectral(&s, x, l))?;
-                ok("brightness_temperature (forward)", &brightness_temperature(&s, x, l))?;
+                ok(
+                    "temperature_from_spectral (forward)",
+                    &temperature_from_spectral(&s, x, l),
+                )?;
+                ok(
+                    "brightness_temperature (forward)",
+                    &brightness_temperature(&s, x, l),
+                )?;
             }
-            if let (Ok(l1), Ok(l2)) = (band::band(&s, b1.0, b1.1, t), band::band(&s, b2.0, b2.1, t)) {
-                ok("temperature_from_band (forward)", &temperature_from_band(&s, b1.0, b1.1, l1))?;
+            if let (Ok(l1), Ok(l2)) = (band::band(&s, b1.0, b1.1, t), band::band(&s, b2.0, b2.1, t))
+            {
+                ok(
+                    "temperature_from_band (forward)",
+                    &temperature_from_band(&s, b1.0, b1.1, l1),
+                )?;
                 ok(
                     "temperature_from_band_ratio (forward)",
                     &temperature_from_band_ratio(&s, b1, b2, l1 / l2, e_ratio),
@@ -370,7 +474,12 @@ fn fuzz_units() {
         "units",
         4000,
         (
-            (spectral_units(), spectral_units(), spectral_kinds(), spectral_kinds()),
+            (
+                spectral_units(),
+                spectral_units(),
+                spectral_kinds(),
+                spectral_kinds(),
+            ),
             (temperature_units(), temperature_units()),
             args(&[value, temp]),
             prop_oneof![names, free_text.prop_map(|s: String| s)],
@@ -378,7 +487,11 @@ fn fuzz_units() {
         |((u1, u2, k1, k2), (t1, t2), v, name)| {
             let (x, t) = (v[0], v[1]);
             // convert_si: "A result beyond the f64 range is ∞ or 0 only when the true value is."
-            check("SpectralKind::convert_si", &SpectralKind::convert_si(k1, "x", x, k2), Inf::Documented)?;
+            check(
+                "SpectralKind::convert_si",
+                &SpectralKind::convert_si(k1, "x", x, k2),
+                Inf::Documented,
+            )?;
             prop_assert!(!SpectralKind::name(k1).is_empty());
             let _ = SpectralKind::si_unit(k1);
             ok("SpectralUnit::parse", &SpectralUnit::parse(&name))?;
@@ -389,21 +502,54 @@ fn fuzz_units() {
             prop_assert!(factor.is_finite() && factor > 0.0);
             ok("SpectralUnit::to_si", &SpectralUnit::to_si(u1, "x", x))?;
             // from_si: "A result beyond the f64 range is +∞ or 0 only when the true value is."
-            check("SpectralUnit::from_si", &SpectralUnit::from_si(u1, "x", x), Inf::Documented)?;
+            check(
+                "SpectralUnit::from_si",
+                &SpectralUnit::from_si(u1, "x", x),
+                Inf::Documented,
+            )?;
             // convert_spectral: "A valid input whose true result lies outside the f64 range
             // gives ∞ or 0."
-            check("convert_spectral", &convert_spectral("x", x, u1, u2), Inf::Documented)?;
-            ok("convert_spectral_checked", &convert_spectral_checked("x", x, u1, u2))?;
+            check(
+                "convert_spectral",
+                &convert_spectral("x", x, u1, u2),
+                Inf::Documented,
+            )?;
+            ok(
+                "convert_spectral_checked",
+                &convert_spectral_checked("x", x, u1, u2),
+            )?;
             prop_assert!(!TemperatureUnit::name(t1).is_empty());
-            ok("TemperatureUnit::to_kelvin", &TemperatureUnit::to_kelvin(t1, "t", t))?;
+            ok(
+                "TemperatureUnit::to_kelvin",
+                &TemperatureUnit::to_kelvin(t1, "t", t),
+            )?;
             // from_kelvin, difference_from_kelvin and the two conversions through them: "A result
             // beyond the f64 range (°F or °R above `f64::MAX`/1.8 K) is +∞" (±∞ for differences).
             let d = Inf::Documented;
-            check("TemperatureUnit::from_kelvin", &TemperatureUnit::from_kelvin(t1, "t", t), d)?;
-            ok("TemperatureUnit::difference_to_kelvin", &TemperatureUnit::difference_to_kelvin(t1, "t", t))?;
-            check("TemperatureUnit::difference_from_kelvin", &TemperatureUnit::difference_from_kelvin(t1, "t", t), d)?;
-            check("convert_temperature", &convert_temperature("t", t, t1, t2), d)?;
-            check("convert_temperature_difference", &convert_temperature_difference("t", t, t1, t2), d)?;
+            check(
+                "TemperatureUnit::from_kelvin",
+                &TemperatureUnit::from_kelvin(t1, "t", t),
+                d,
+            )?;
+            ok(
+                "TemperatureUnit::difference_to_kelvin",
+                &TemperatureUnit::difference_to_kelvin(t1, "t", t),
+            )?;
+            check(
+                "TemperatureUnit::difference_from_kelvin",
+                &TemperatureUnit::difference_from_kelvin(t1, "t", t),
+                d,
+            )?;
+            check(
+                "convert_temperature",
+                &convert_temperature("t", t, t1, t2),
+                d,
+            )?;
+            check(
+                "convert_temperature_difference",
+                &convert_temperature_difference("t", t, t1, t2),
+                d,
+            )?;
             Ok(())
         },
     );
@@ -530,7 +676,12 @@ fn spectrum_settings() -> impl Strategy<Value = SpectrumSettings> {
 const MODEL_INF: Inf = Inf::Documented;
 
 /// Calls every `SignalModel` method of a model (also used through `dyn SignalModel`).
-fn exercise_model(what: &str, m: &dyn SignalModel, t: f64, signal: f64) -> Result<(), TestCaseError> {
+fn exercise_model(
+    what: &str,
+    m: &dyn SignalModel,
+    t: f64,
+    signal: f64,
+) -> Result<(), TestCaseError> {
     check(what, &m.signal(t), MODEL_INF)?;
     check(what, &m.d_signal_dt(t), MODEL_INF)?;
     check(what, &m.signal_and_derivative(t), MODEL_INF)?;
@@ -556,24 +707,50 @@ fn fuzz_definition() {
         ),
         |(settings, mc, model, v, a)| {
             let (t, signal) = (a[0], a[1]);
-            ok("SpectrumSettings::resolved_variable", &SpectrumSettings::resolved_variable(&settings))?;
-            ok("SpectrumSettings::spectrum", &SpectrumSettings::spectrum(&settings))?;
-            ok("SpectrumSettings::density_unit", &SpectrumSettings::density_unit(&settings))?;
-            ok("SpectrumSettings::density_factor", &SpectrumSettings::density_factor(&settings))?;
+            ok(
+                "SpectrumSettings::resolved_variable",
+                &SpectrumSettings::resolved_variable(&settings),
+            )?;
+            ok(
+                "SpectrumSettings::spectrum",
+                &SpectrumSettings::spectrum(&settings),
+            )?;
+            ok(
+                "SpectrumSettings::density_unit",
+                &SpectrumSettings::density_unit(&settings),
+            )?;
+            ok(
+                "SpectrumSettings::density_factor",
+                &SpectrumSettings::density_factor(&settings),
+            )?;
             let _ = variable_kind(v);
-            ok("MeasurementConditions::conditions", &MeasurementConditions::conditions(&mc))?;
+            ok(
+                "MeasurementConditions::conditions",
+                &MeasurementConditions::conditions(&mc),
+            )?;
             let prepared = InstrumentModel::prepare(&model);
             ok("InstrumentModel::prepare", &prepared)?;
             if let Ok(p) = prepared {
                 exercise_model("PreparedModel (dyn)", &p, t, signal)?;
-                check("<PreparedModel as SignalModel>::signal", &<PreparedModel as SignalModel>::signal(&p, t), MODEL_INF)?;
-                check("<PreparedModel as SignalModel>::d_signal_dt", &<PreparedModel as SignalModel>::d_signal_dt(&p, t), MODEL_INF)?;
+                check(
+                    "<PreparedModel as SignalModel>::signal",
+                    &<PreparedModel as SignalModel>::signal(&p, t),
+                    MODEL_INF,
+                )?;
+                check(
+                    "<PreparedModel as SignalModel>::d_signal_dt",
+                    &<PreparedModel as SignalModel>::d_signal_dt(&p, t),
+                    MODEL_INF,
+                )?;
                 check(
                     "<PreparedModel as SignalModel>::signal_and_derivative",
                     &<PreparedModel as SignalModel>::signal_and_derivative(&p, t),
                     MODEL_INF,
                 )?;
-                ok("<PreparedModel as SignalModel>::temperature", &<PreparedModel as SignalModel>::temperature(&p, signal))?;
+                ok(
+                    "<PreparedModel as SignalModel>::temperature",
+                    &<PreparedModel as SignalModel>::temperature(&p, signal),
+                )?;
                 let mut seen = 0;
                 let r = PreparedModel::with_model(&p, &mut |m| {
                     seen += 1;

@@ -21,9 +21,7 @@ use quantaband::design::merit::{
     netd_from_d_star_optics, netd_from_noise, noise_bandwidth_hz, BackgroundView, DStarShape,
     Mechanism,
 };
-use quantaband::design::scene::{
-    Band, InBand, InBandRadiance, Line, ModelRadiance, RadianceKind,
-};
+use quantaband::design::scene::{Band, InBand, InBandRadiance, Line, ModelRadiance, RadianceKind};
 use quantaband::design::sources::{
     cavity_emissivity_gouffe, spot_diameter_focused_m, spot_diameter_m, spot_fill,
     sse_corrected_signal, sse_corrected_temperature, sse_relative_change, Cavity,
@@ -78,7 +76,9 @@ fn optics() -> impl Strategy<Value = Optics> {
         positive(0.7, 8.0).any(),
         unit_open_closed().any(),
         cones(),
-        arg(0.0, 0.5).edges(&[0.0, std::f64::consts::FRAC_PI_2]).any(),
+        arg(0.0, 0.5)
+            .edges(&[0.0, std::f64::consts::FRAC_PI_2])
+            .any(),
     )
         .prop_map(|(f, tau, cone, theta)| {
             let o = Optics::new(f, tau);
@@ -88,20 +88,25 @@ fn optics() -> impl Strategy<Value = Optics> {
 }
 
 fn radiances() -> impl Strategy<Value = InBandRadiance> {
-    (kinds(), positive(1e-3, 1e20).any(), positive(1e-5, 1e18).any()).prop_map(|(kind, l, dl)| {
-        InBandRadiance {
+    (
+        kinds(),
+        positive(1e-3, 1e20).any(),
+        positive(1e-5, 1e18).any(),
+    )
+        .prop_map(|(kind, l, dl)| InBandRadiance {
             kind,
             radiance: l,
             d_radiance_dt: dl,
-        }
-    })
+        })
 }
 
 fn conversions() -> impl Strategy<Value = Conversion> {
     prop_oneof![
         positive(0.1, 10.0)
             .any()
-            .prop_map(|a| Conversion::Responsivity { amperes_per_watt: a }),
+            .prop_map(|a| Conversion::Responsivity {
+                amperes_per_watt: a
+            }),
         unit_open_closed()
             .any()
             .prop_map(|e| Conversion::QuantumEfficiency { efficiency: e }),
@@ -112,10 +117,8 @@ fn conversions() -> impl Strategy<Value = Conversion> {
 fn views() -> impl Strategy<Value = BackgroundView> {
     prop_oneof![
         Just(BackgroundView::Hemisphere),
-        (positive(0.7, 8.0).any(), cones()).prop_map(|(f, cone)| BackgroundView::ColdStop {
-            f_number: f,
-            cone
-        }),
+        (positive(0.7, 8.0).any(), cones())
+            .prop_map(|(f, cone)| BackgroundView::ColdStop { f_number: f, cone }),
     ]
 }
 
@@ -177,15 +180,40 @@ fn fuzz_throughput_and_detector() {
             // projected_solid_angle_sr: "The small-angle form is +∞ only where its true value
             // π/(4F²) is above `f64::MAX`"; etendue_from_f_number: the same.
             let d = Inf::Documented;
-            check("projected_solid_angle_sr", &projected_solid_angle_sr(f, cone), d)?;
-            check("etendue_from_f_number", &etendue_from_f_number(area, f, cone), d)?;
-            dok("etendue_from_aperture", &etendue_from_aperture(area, ap, dist, cone))?;
-            dok("etendue_between_discs", &etendue_between_discs(ap * 0.1, ap, dist, cone))?;
-            dok("etendue_between_discs (raw)", &etendue_between_discs(area, f, dist, cone))?;
+            check(
+                "projected_solid_angle_sr",
+                &projected_solid_angle_sr(f, cone),
+                d,
+            )?;
+            check(
+                "etendue_from_f_number",
+                &etendue_from_f_number(area, f, cone),
+                d,
+            )?;
+            dok(
+                "etendue_from_aperture",
+                &etendue_from_aperture(area, ap, dist, cone),
+            )?;
+            dok(
+                "etendue_between_discs",
+                &etendue_between_discs(ap * 0.1, ap, dist, cone),
+            )?;
+            dok(
+                "etendue_between_discs (raw)",
+                &etendue_between_discs(area, f, dist, cone),
+            )?;
             ok("Optics::validate", &Optics::validate(&o))?;
             // irradiance_factor_sr / focal_plane_irradiance: "A true ... above `f64::MAX` ... is +∞".
-            check("Optics::irradiance_factor_sr", &Optics::irradiance_factor_sr(&o), d)?;
-            check("focal_plane_irradiance", &focal_plane_irradiance(scene.radiance, &o), d)?;
+            check(
+                "Optics::irradiance_factor_sr",
+                &Optics::irradiance_factor_sr(&o),
+                d,
+            )?;
+            check(
+                "focal_plane_irradiance",
+                &focal_plane_irradiance(scene.radiance, &o),
+                d,
+            )?;
             let pf = pixel_flux(&scene, &o, area);
             dok("pixel_flux", &pf)?;
             ok("Conversion::validate", &Conversion::validate(&conv))?;
@@ -202,11 +230,21 @@ fn fuzz_throughput_and_detector() {
                 Conversion::QuantumEfficiency { efficiency } => efficiency,
                 _ => 0.7,
             };
-            dok("responsivity_from_quantum_efficiency", &responsivity_from_quantum_efficiency(eff, l))?;
+            dok(
+                "responsivity_from_quantum_efficiency",
+                &responsivity_from_quantum_efficiency(eff, l),
+            )?;
             // quantum_efficiency_from_responsivity: "A true value above `f64::MAX` ... is +∞".
-            check("quantum_efficiency_from_responsivity", &quantum_efficiency_from_responsivity(f, l), d)?;
+            check(
+                "quantum_efficiency_from_responsivity",
+                &quantum_efficiency_from_responsivity(f, l),
+                d,
+            )?;
             dok("dark_electrons", &dark_electrons(idark, tint))?;
-            ok("noise_budget", &noise_budget(nb, nb * 0.1, idark * 1e12, rn))?;
+            ok(
+                "noise_budget",
+                &noise_budget(nb, nb * 0.1, idark * 1e12, rn),
+            )?;
             let det = Detector {
                 pixel_area_m2: area,
                 conversion: conv,
@@ -216,7 +254,10 @@ fn fuzz_throughput_and_detector() {
                 read_noise_electrons: rn,
             };
             ok("Detector::validate", &Detector::validate(&det))?;
-            report_check("Detector::evaluate", &Detector::evaluate(&det, &scene, &o, nb))?;
+            report_check(
+                "Detector::evaluate",
+                &Detector::evaluate(&det, &scene, &o, nb),
+            )?;
             Ok(())
         },
     );
@@ -254,18 +295,42 @@ fn fuzz_merit() {
             dok("d_star_from_nep", &d_star_from_nep(p, area, bw))?;
             dok("netd_from_d_star", &netd_from_d_star(dstar, area, bw, p))?;
             dok("d_star_from_netd", &d_star_from_netd(netd, area, bw, p))?;
-            dok("d_power_dt_w_per_k", &d_power_dt_w_per_k(&scene, shape, &o, area))?;
-            dok("netd_from_d_star_optics", &netd_from_d_star_optics(dstar, shape, &scene, &o, area, bw))?;
-            dok("d_star_from_netd_optics", &d_star_from_netd_optics(netd, shape, &scene, &o, area, bw))?;
+            dok(
+                "d_power_dt_w_per_k",
+                &d_power_dt_w_per_k(&scene, shape, &o, area),
+            )?;
+            dok(
+                "netd_from_d_star_optics",
+                &netd_from_d_star_optics(dstar, shape, &scene, &o, area, bw),
+            )?;
+            dok(
+                "d_star_from_netd_optics",
+                &d_star_from_netd_optics(netd, shape, &scene, &o, area, bw),
+            )?;
             dok("netd_from_noise", &netd_from_noise(bw, dstar))?;
-            dok("BackgroundView::projected_solid_angle_sr", &BackgroundView::projected_solid_angle_sr(&view))?;
+            dok(
+                "BackgroundView::projected_solid_angle_sr",
+                &BackgroundView::projected_solid_angle_sr(&view),
+            )?;
             // background_photon_flux: "Valid inputs whose true flux is above `f64::MAX` ... give +∞."
-            check("background_photon_flux", &background_photon_flux(lc, tb, &view), Inf::Documented)?;
+            check(
+                "background_photon_flux",
+                &background_photon_flux(lc, tb, &view),
+                Inf::Documented,
+            )?;
             // blip_d_star_from_flux: "A true D* above `f64::MAX` ... is +∞."
-            check("blip_d_star_from_flux", &blip_d_star_from_flux(lc, eta, flux, mech), Inf::Documented)?;
+            check(
+                "blip_d_star_from_flux",
+                &blip_d_star_from_flux(lc, eta, flux, mech),
+                Inf::Documented,
+            )?;
             // blip_d_star: "the D* is formed from logarithms and stays finite (∞ only beyond
             // f64::MAX)".
-            check("blip_d_star", &blip_d_star(lc, eta, tb, &view, mech), Inf::Documented)?;
+            check(
+                "blip_d_star",
+                &blip_d_star(lc, eta, tb, &view, mech),
+                Inf::Documented,
+            )?;
             Ok(())
         },
     );
@@ -322,9 +387,15 @@ fn fuzz_scene() {
                 SpectralVariable::Frequency => (2.997_924_58e8 / (l * ratio), 2.997_924_58e8 / l),
             };
             let b = Band::new(s, lo, hi);
-            ok("<Band as InBand>::in_band", &<Band as InBand>::in_band(&b, t))?;
+            ok(
+                "<Band as InBand>::in_band",
+                &<Band as InBand>::in_band(&b, t),
+            )?;
             let open = Band::new(s, lo, f64::MAX);
-            ok("<Band as InBand>::in_band (open)", &<Band as InBand>::in_band(&open, t))?;
+            ok(
+                "<Band as InBand>::in_band (open)",
+                &<Band as InBand>::in_band(&open, t),
+            )?;
             let bw = Band::wavelength(l, l * ratio, q);
             ok("Band::wavelength in_band", &bw.in_band(t))?;
             let line = Line {
@@ -332,12 +403,18 @@ fn fuzz_scene() {
                 centre: lo,
                 width: width * lo / l,
             };
-            ok("<Line as InBand>::in_band", &<Line as InBand>::in_band(&line, t))?;
+            ok(
+                "<Line as InBand>::in_band",
+                &<Line as InBand>::in_band(&line, t),
+            )?;
             // A model's signal as an in-band radiance.
             if let Ok(m) = SpectralPoint::new(l, Default::default()) {
                 let mr = ModelRadiance::new(&m, kind);
                 prop_assert_eq!(ModelRadiance::kind(&mr), kind);
-                ok("<ModelRadiance as InBand>::in_band", &<ModelRadiance<SpectralPoint> as InBand>::in_band(&mr, t))?;
+                ok(
+                    "<ModelRadiance as InBand>::in_band",
+                    &<ModelRadiance<SpectralPoint> as InBand>::in_band(&mr, t),
+                )?;
                 let dynm: &dyn InBand = &mr;
                 ok("dyn InBand::in_band", &dynm.in_band(t))?;
             }
@@ -349,7 +426,11 @@ fn fuzz_scene() {
 fn cavities() -> impl Strategy<Value = Cavity> {
     (
         any::<bool>(),
-        args(&[positive(1e-3, 0.05), positive(1e-2, 0.5), positive(1e-4, 0.05)]),
+        args(&[
+            positive(1e-3, 0.05),
+            positive(1e-2, 0.5),
+            positive(1e-4, 0.05),
+        ]),
     )
         .prop_map(|(cyl, v)| {
             let (radius_m, depth_m, aperture_radius_m) = (v[0], v[1], v[2]);
@@ -393,18 +474,34 @@ fn fuzz_sources() {
                 (v[0], v[1], v[2], v[3], v[4], v[5], v[6], v[7], v[8]);
             ok("Cavity::validate", &Cavity::validate(&cav))?;
             ok("Cavity::area_ratios", &Cavity::area_ratios(&cav))?;
-            ok("cavity_emissivity_gouffe", &cavity_emissivity_gouffe(ew, &cav))?;
+            ok(
+                "cavity_emissivity_gouffe",
+                &cavity_emissivity_gouffe(ew, &cav),
+            )?;
             // sse_relative_change: "A true change above `f64::MAX` is +∞."
             let rc = sse_relative_change(sm, sc);
             check("sse_relative_change", &rc, Inf::Documented)?;
             dok("sse_corrected_signal", &sse_corrected_signal(signal, sm))?;
             if let Ok(m) = RectangularBand::new(8e-6, 14e-6, Default::default()) {
-                dok("sse_corrected_temperature", &sse_corrected_temperature(&m, signal, rc.unwrap_or(sm)))?;
+                dok(
+                    "sse_corrected_temperature",
+                    &sse_corrected_temperature(&m, signal, rc.unwrap_or(sm)),
+                )?;
             }
             // spot_diameter_m: "A true diameter above `f64::MAX` ... is +∞."
-            check("spot_diameter_m", &spot_diameter_m(dist, dsr), Inf::Documented)?;
-            dok("spot_diameter_focused_m", &spot_diameter_focused_m(dist, ap, dist * 0.5, fspot))?;
-            dok("spot_diameter_focused_m (raw)", &spot_diameter_focused_m(dist, ap, dsr, fspot))?;
+            check(
+                "spot_diameter_m",
+                &spot_diameter_m(dist, dsr),
+                Inf::Documented,
+            )?;
+            dok(
+                "spot_diameter_focused_m",
+                &spot_diameter_focused_m(dist, ap, dist * 0.5, fspot),
+            )?;
+            dok(
+                "spot_diameter_focused_m (raw)",
+                &spot_diameter_focused_m(dist, ap, dsr, fspot),
+            )?;
             dok("spot_fill", &spot_fill(target, fspot))?;
             Ok(())
         },

@@ -90,11 +90,17 @@ fn fn_name(rest: &str) -> String {
 /// Names of the `pub struct` / `pub enum` types (methods of private helper types that
 /// implement a public trait are not API), plus the primitive pixel types.
 fn public_types(files: &[PathBuf]) -> Vec<String> {
-    let mut out: Vec<String> = ["u16", "f32", "f64"].iter().map(|s| s.to_string()).collect();
+    let mut out: Vec<String> = ["u16", "f32", "f64"]
+        .iter()
+        .map(|s| s.to_string())
+        .collect();
     for f in files {
         for line in fs::read_to_string(f).unwrap().lines() {
             let t = line.trim_start();
-            if let Some(rest) = t.strip_prefix("pub struct ").or_else(|| t.strip_prefix("pub enum ")) {
+            if let Some(rest) = t
+                .strip_prefix("pub struct ")
+                .or_else(|| t.strip_prefix("pub enum "))
+            {
                 out.push(fn_name(rest));
             }
         }
@@ -192,12 +198,12 @@ fn every_public_function_is_fuzzed() {
         .unwrap()
         .map(|e| e.unwrap().path())
         .filter(|p| {
-            p.file_name()
-                .and_then(|n| n.to_str())
-                .is_some_and(|n| n.starts_with("fuzz_")
+            p.file_name().and_then(|n| n.to_str()).is_some_and(|n| {
+                n.starts_with("fuzz_")
                     && n.ends_with(".rs")
                     && n != "fuzz_inventory.rs"
-                    && n != "fuzz_regressions.rs")
+                    && n != "fuzz_regressions.rs"
+            })
         })
         .collect();
     names.sort();
@@ -227,7 +233,11 @@ fn every_public_function_is_fuzzed() {
             if needles[0].starts_with('<') {
                 let qualified = &needles[0];
                 let tail = qualified.split_once(" as ").map(|x| x.1).unwrap_or("");
-                let ty = qualified.trim_start_matches('<').split(' ').next().unwrap_or("");
+                let ty = qualified
+                    .trim_start_matches('<')
+                    .split(' ')
+                    .next()
+                    .unwrap_or("");
                 !fuzz_text.lines().any(|l| {
                     l.contains(qualified.as_str())
                         || (l.contains(&format!("<{ty}<")) && l.contains(&format!(" as {tail}")))
@@ -238,7 +248,10 @@ fn every_public_function_is_fuzzed() {
         })
         .map(|(name, _)| name)
         .collect();
-    eprintln!("fuzz inventory: {} public functions and methods", items.len());
+    eprintln!(
+        "fuzz inventory: {} public functions and methods",
+        items.len()
+    );
     assert!(
         missing.is_empty(),
         "{} public functions are not called by any tests/fuzz_*.rs:\n{}",

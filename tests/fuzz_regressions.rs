@@ -9,7 +9,9 @@
 
 use quantaband::constants::C2Convention;
 use quantaband::design::detector::{electron_rate, noise_budget, Conversion};
-use quantaband::design::merit::{background_photon_flux, BackgroundView};
+use quantaband::design::merit::{
+    background_photon_flux, blip_d_star_from_flux, BackgroundView, Mechanism,
+};
 use quantaband::design::scene::{InBandRadiance, RadianceKind};
 use quantaband::design::sources::{cavity_emissivity_gouffe, Cavity};
 use quantaband::design::throughput::{
@@ -23,11 +25,11 @@ use quantaband::thermometry::gum::{
     propagate, type_a, type_a_correlation, Coverage, InputUncertainty,
 };
 use quantaband::thermometry::its90::ratio_temperature_sensitivities;
-use quantaband::thermometry::random::Sampler;
-use quantaband::thermometry::ratio::two_colour_temperature;
 use quantaband::thermometry::raman::{
     anti_stokes_stokes_ratio, raman_frequency_factor, raman_temperature, RamanDetection,
 };
+use quantaband::thermometry::random::Sampler;
+use quantaband::thermometry::ratio::two_colour_temperature;
 use quantaband::thermometry::spectral::SpectralValue;
 use quantaband::thermometry::student_t::{student_t_cdf, student_t_quantile};
 use quantaband::units::{convert_temperature_difference, TemperatureUnit};
@@ -49,13 +51,9 @@ fn fahrenheit_difference_near_f64_max_is_finite() {
         .difference_to_kelvin("dt", M)
         .unwrap();
     assert!(rel(got, want) < 1e-15, "{got:e}");
-    let got = convert_temperature_difference(
-        "dt",
-        -M,
-        TemperatureUnit::Rankine,
-        TemperatureUnit::Kelvin,
-    )
-    .unwrap();
+    let got =
+        convert_temperature_difference("dt", -M, TemperatureUnit::Rankine, TemperatureUnit::Kelvin)
+            .unwrap();
     assert!(rel(got, -want) < 1e-15, "{got:e}");
 }
 
@@ -90,7 +88,10 @@ fn y_factor_receiver_fields_with_hot_load_at_f64_max_are_finite() {
     )
     .unwrap();
     assert!(rel(r.planck_k, 179.769_313_486_231_57) < 1e-12, "{r:?}");
-    assert!(rel(r.callen_welton_k, -345.201_957_483_859_11) < 1e-12, "{r:?}");
+    assert!(
+        rel(r.callen_welton_k, -345.201_957_483_859_11) < 1e-12,
+        "{r:?}"
+    );
 }
 
 #[test]
@@ -106,7 +107,10 @@ fn carrier_density_with_tiny_n_and_huge_eta_is_finite() {
     // F_{1/2}(1e250) is beyond the f64 range but N·F_{1/2} is not; the Boltzmann error was −1.
     // mpmath: 1e-100·quad(sqrt(t)/(exp(t − η) + 1))/Γ(3/2) at η = 1e250
     let c = band_carrier_density(1e-100, 1e250).unwrap();
-    assert!(rel(c.density_per_m3, 7.522_527_780_636_749_8e274) < 1e-13, "{c:?}");
+    assert!(
+        rel(c.density_per_m3, 7.522_527_780_636_749_8e274) < 1e-13,
+        "{c:?}"
+    );
     assert_eq!(c.boltzmann_relative_error, f64::INFINITY);
 }
 
@@ -120,7 +124,10 @@ fn fermi_levels_with_density_of_states_beyond_f64_are_finite() {
     assert!(rel(ef, 1.699_642_140_210_858_4e-19) < 1e-13, "{ef:e}");
     // mpmath: E_g/2 + (kT/2)·ln(N_v/N_c) (both bands non-degenerate)
     let i = s.intrinsic(1.0).unwrap();
-    assert!(rel(i.fermi_level_j, 8.523_140_729_091_429_8e-20) < 1e-13, "{i:?}");
+    assert!(
+        rel(i.fermi_level_j, 8.523_140_729_091_429_8e-20) < 1e-13,
+        "{i:?}"
+    );
 }
 
 // ---------------------------------------------------------------------------------------------
@@ -130,7 +137,10 @@ fn fermi_levels_with_density_of_states_beyond_f64_are_finite() {
 fn type_a_of_huge_observations_is_finite() {
     // Σ(q − q̄)² overflowed (and the sum of [M, M] gave a NaN mean). mpmath: 1.896e154/√2
     let a = type_a(&[1.896_150_381_621_835_5e154, 0.0]).unwrap();
-    assert!(rel(a.standard_deviation, 1.340_780_792_994_259_8e154) < 1e-15, "{a:?}");
+    assert!(
+        rel(a.standard_deviation, 1.340_780_792_994_259_8e154) < 1e-15,
+        "{a:?}"
+    );
     let b = type_a(&[M, M]).unwrap();
     assert_eq!((b.mean, b.standard_deviation), (M, 0.0));
     // mpmath: Pearson r of (M, −M, M/2) and (1, 2, 3)
@@ -206,7 +216,9 @@ fn student_t_deviates_for_infinite_and_huge_degrees_of_freedom_are_normal() {
 #[test]
 fn spectral_value_constant_nan_is_an_error() {
     // Constant(NaN).value_at returned Ok(NaN).
-    let e = SpectralValue::Constant(f64::NAN).value_at(1e-6).unwrap_err();
+    let e = SpectralValue::Constant(f64::NAN)
+        .value_at(1e-6)
+        .unwrap_err();
     assert_eq!(e.code(), "NON_FINITE");
     assert!(SpectralValue::Constant(f64::INFINITY)
         .value_at(1e-6)
@@ -235,7 +247,10 @@ fn raman_at_extreme_inputs_is_finite() {
     let theta = rd.mode_temperature_k;
     let t = rd.temperature_k;
     assert!(rd.d_t_d_ratio.is_finite() && rd.d_t_d_ratio > 0.0, "{rd:?}");
-    assert!(rel(rd.d_t_d_ratio, (t / theta) * (t / ratio)) < 1e-15, "{rd:?}");
+    assert!(
+        rel(rd.d_t_d_ratio, (t / theta) * (t / ratio)) < 1e-15,
+        "{rd:?}"
+    );
 }
 
 #[test]
@@ -251,7 +266,10 @@ fn two_colour_with_a_subnormal_ratio_finds_the_right_temperature() {
         C2Convention::Codata2018,
     )
     .unwrap();
-    assert!(rel(rd.temperature_k, 161.457_143_846_687_55) < 1e-12, "{rd:?}");
+    assert!(
+        rel(rd.temperature_k, 161.457_143_846_687_55) < 1e-12,
+        "{rd:?}"
+    );
     assert!(
         rel(rd.d_t_d_emissivity_ratio, -3.324_155_081_398_716e302) < 1e-9,
         "{rd:?}"
@@ -268,8 +286,14 @@ fn ratio_temperature_sensitivities_at_extreme_temperature_are_finite() {
         C2Convention::Codata2018,
     )
     .unwrap();
-    assert!(rel(s.temperature_k, 2.542_872_055_023_358_4e156) < 1e-12, "{s:?}");
-    assert!(rel(s.d_t_d_ratio, 1.607_009_394_388_811_7e-32) < 1e-12, "{s:?}");
+    assert!(
+        rel(s.temperature_k, 2.542_872_055_023_358_4e156) < 1e-12,
+        "{s:?}"
+    );
+    assert!(
+        rel(s.d_t_d_ratio, 1.607_009_394_388_811_7e-32) < 1e-12,
+        "{s:?}"
+    );
     // r = 1 at λ = f64::MIN_POSITIVE: T = T_X, (T/λ)·0 was ∞·0 = NaN; the true value is 0.
     let s =
         ratio_temperature_sensitivities(1.0, f64::MIN_POSITIVE, 200.0, C2Convention::Codata2018)
@@ -302,7 +326,10 @@ fn noise_budget_total_without_spurious_overflow() {
     assert_eq!(n.total_electrons, 1e200);
     // mpmath: sqrt(2·M)
     let n = noise_budget(M, M, 0.0, 0.0).unwrap();
-    assert!(rel(n.total_electrons, 1.896_150_381_621_835_2e154) < 1e-15, "{n:?}");
+    assert!(
+        rel(n.total_electrons, 1.896_150_381_621_835_2e154) < 1e-15,
+        "{n:?}"
+    );
 }
 
 #[test]
@@ -337,8 +364,13 @@ fn background_flux_through_an_overflowing_solid_angle_is_finite() {
 #[test]
 fn small_angle_etendue_of_discs_600_orders_apart_is_finite() {
     // After scaling by the largest length, a and h underflowed: 0/0. mpmath: π²(r1 r2/d)²
-    let got = etendue_between_discs(1e-300, 2.114_468_239_128_189_3e63, 5e-324, ConeForm::SmallAngle)
-        .unwrap();
+    let got = etendue_between_discs(
+        1e-300,
+        2.114_468_239_128_189_3e63,
+        5e-324,
+        ConeForm::SmallAngle,
+    )
+    .unwrap();
     assert!(rel(got, 1.129_829_164_781_595_1e173) < 1e-12, "{got:e}");
 }
 
@@ -350,4 +382,12 @@ fn zero_radiance_through_an_overflowing_optics_factor_is_zero() {
     let scene = InBandRadiance::new(RadianceKind::Energy, 0.0, 0.0).unwrap();
     let p = pixel_flux(&scene, &optics, 1e-10).unwrap();
     assert_eq!((p.flux, p.d_flux_dt), (0.0, 0.0));
+}
+
+#[test]
+fn blip_d_star_with_huge_wavelength_and_subnormal_efficiency_is_finite() {
+    // λ/hc = ∞ times √(η/2) = 0 (η/2 rounded to 0) was NaN.
+    // mpmath: M/(h c)·sqrt(5e-324/2)/sqrt(1e10)
+    let got = blip_d_star_from_flux(M, 5e-324, 1e10, Mechanism::Photovoltaic).unwrap();
+    assert!(rel(got, 1.422_381_706_636_385_8e166) < 1e-14, "{got:e}");
 }

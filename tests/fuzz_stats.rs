@@ -5,20 +5,19 @@
 mod common;
 
 use common::{arg, args, check, fuzz, ok, Arg, Inf};
-use proptest::test_runner::TestCaseError;
 use proptest::prelude::*;
+use proptest::test_runner::TestCaseError;
 use quantaband::stats::{
     available_noise_power_density, available_noise_power_density_with_zero_point,
     band_carrier_density, bose_critical_temperature, bose_einstein, bose_einstein_energy,
     bose_einstein_integral, effective_density_of_states, fermi_dirac, fermi_dirac_energy,
     fermi_dirac_integral, inverse_fermi_dirac_half, load_noise_temperature, maxwell_boltzmann,
-    maxwell_boltzmann_energy, mean_photon_energy, photon_density_of_states,
-    photon_energy_density, photon_entropy_density, photon_number_density, photon_pressure,
+    maxwell_boltzmann_energy, mean_photon_energy, photon_density_of_states, photon_energy_density,
+    photon_entropy_density, photon_number_density, photon_pressure,
     physical_temperature_from_rayleigh_jeans, quantum_noise_temperature,
     rayleigh_jeans_brightness_temperature, spectral_energy_density_energy,
     spectral_energy_density_frequency, thermal_photon_number, varshni_band_gap, y_factor,
-    y_factor_noise_temperature, BoseOrder, CarrierDensity, FdOrder, LoadNoiseModel,
-    Semiconductor,
+    y_factor_noise_temperature, BoseOrder, CarrierDensity, FdOrder, LoadNoiseModel, Semiconductor,
 };
 use quantaband::Error;
 
@@ -87,16 +86,32 @@ fn fuzz_occupancies() {
             check("bose_einstein", &bose_einstein(x), Inf::Documented)?;
             // bose_einstein_energy: "Returns `+∞` when `E > μ` but `(E − μ)/kT` is below the
             // smallest subnormal".
-            check("bose_einstein_energy", &bose_einstein_energy(e, mu, t), Inf::Documented)?;
-            check("bose_einstein_energy", &bose_einstein_energy(e, e * (1.0 - 1e-12), t), Inf::Documented)?;
+            check(
+                "bose_einstein_energy",
+                &bose_einstein_energy(e, mu, t),
+                Inf::Documented,
+            )?;
+            check(
+                "bose_einstein_energy",
+                &bose_einstein_energy(e, e * (1.0 - 1e-12), t),
+                Inf::Documented,
+            )?;
             // thermal_photon_number: "Returns `+∞` when `hf/kT` is below the smallest subnormal".
-            check("thermal_photon_number", &thermal_photon_number(f, t), Inf::Documented)?;
+            check(
+                "thermal_photon_number",
+                &thermal_photon_number(f, t),
+                Inf::Documented,
+            )?;
             ok("fermi_dirac", &fermi_dirac(x))?;
             ok("fermi_dirac_energy", &fermi_dirac_energy(e, mu, t))?;
             // maxwell_boltzmann: "Returns `+∞` for `x < −709.78` (true value above f64 range)";
             // the module docs say the same of the energy form.
             check("maxwell_boltzmann", &maxwell_boltzmann(x), Inf::Documented)?;
-            check("maxwell_boltzmann_energy", &maxwell_boltzmann_energy(e, mu, t), Inf::Documented)?;
+            check(
+                "maxwell_boltzmann_energy",
+                &maxwell_boltzmann_energy(e, mu, t),
+                Inf::Documented,
+            )?;
             Ok(())
         },
     );
@@ -117,7 +132,11 @@ fn fuzz_quantum_integrals() {
         "quantum integrals",
         4000,
         (
-            prop::sample::select(vec![FdOrder::MinusHalf, FdOrder::Half, FdOrder::ThreeHalves]),
+            prop::sample::select(vec![
+                FdOrder::MinusHalf,
+                FdOrder::Half,
+                FdOrder::ThreeHalves,
+            ]),
             prop_oneof![
                 Just(BoseOrder::ThreeHalves),
                 Just(BoseOrder::FiveHalves),
@@ -133,14 +152,22 @@ fn fuzz_quantum_integrals() {
             ok("FdOrder::from_j", &FdOrder::from_j(j))?;
             ok("FdOrder::from_j (own order)", &FdOrder::from_j(jj))?;
             // fermi_dirac_integral: "for j = 3/2 overflows to `+∞` only for η > 1.5e123".
-            check("fermi_dirac_integral", &fermi_dirac_integral(fd, eta), Inf::Documented)?;
+            check(
+                "fermi_dirac_integral",
+                &fermi_dirac_integral(fd, eta),
+                Inf::Documented,
+            )?;
             ok("inverse_fermi_dirac_half", &inverse_fermi_dirac_half(y))?;
             let ss = BoseOrder::s(be);
             prop_assert!(!ss.is_nan());
             ok("BoseOrder::from_s", &BoseOrder::from_s(s))?;
             ok("bose_einstein_integral", &bose_einstein_integral(be, z))?;
             // bose_critical_temperature: "A true T_c above `f64::MAX` ... returns `+∞`".
-            check("bose_critical_temperature", &bose_critical_temperature(n, m), Inf::Documented)?;
+            check(
+                "bose_critical_temperature",
+                &bose_critical_temperature(n, m),
+                Inf::Documented,
+            )?;
             Ok(())
         },
     );
@@ -162,25 +189,56 @@ fn fuzz_photon_gas() {
         args(&[frequency(), temperature(), energy(), temperature()]),
         |v| {
             let (f, t, e, tb) = (v[0], v[1], v[2], v[3]);
-            ok("quantum_noise_temperature", &quantum_noise_temperature(f, t))?;
-            ok("rayleigh_jeans_brightness_temperature", &rayleigh_jeans_brightness_temperature(f, t))?;
-            ok("physical_temperature_from_rayleigh_jeans", &physical_temperature_from_rayleigh_jeans(f, tb))?;
+            ok(
+                "quantum_noise_temperature",
+                &quantum_noise_temperature(f, t),
+            )?;
+            ok(
+                "rayleigh_jeans_brightness_temperature",
+                &rayleigh_jeans_brightness_temperature(f, t),
+            )?;
+            ok(
+                "physical_temperature_from_rayleigh_jeans",
+                &physical_temperature_from_rayleigh_jeans(f, tb),
+            )?;
             if let Ok(b) = rayleigh_jeans_brightness_temperature(f, t) {
-                ok("physical_temperature_from_rayleigh_jeans (forward)", &physical_temperature_from_rayleigh_jeans(f, b))?;
+                ok(
+                    "physical_temperature_from_rayleigh_jeans (forward)",
+                    &physical_temperature_from_rayleigh_jeans(f, b),
+                )?;
             }
-            ok("available_noise_power_density", &available_noise_power_density(f, t))?;
+            ok(
+                "available_noise_power_density",
+                &available_noise_power_density(f, t),
+            )?;
             ok(
                 "available_noise_power_density_with_zero_point",
                 &available_noise_power_density_with_zero_point(f, t),
             )?;
             check("photon_number_density", &photon_number_density(t), GAS_INF)?;
             check("photon_energy_density", &photon_energy_density(t), GAS_INF)?;
-            check("photon_entropy_density", &photon_entropy_density(t), GAS_INF)?;
+            check(
+                "photon_entropy_density",
+                &photon_entropy_density(t),
+                GAS_INF,
+            )?;
             check("photon_pressure", &photon_pressure(t), GAS_INF)?;
             check("mean_photon_energy", &mean_photon_energy(t), GAS_INF)?;
-            check("photon_density_of_states", &photon_density_of_states(e), GAS_INF)?;
-            check("spectral_energy_density_energy", &spectral_energy_density_energy(e, t), GAS_INF)?;
-            check("spectral_energy_density_frequency", &spectral_energy_density_frequency(f, t), GAS_INF)?;
+            check(
+                "photon_density_of_states",
+                &photon_density_of_states(e),
+                GAS_INF,
+            )?;
+            check(
+                "spectral_energy_density_energy",
+                &spectral_energy_density_energy(e, t),
+                GAS_INF,
+            )?;
+            check(
+                "spectral_energy_density_frequency",
+                &spectral_energy_density_frequency(f, t),
+                GAS_INF,
+            )?;
             Ok(())
         },
     );
@@ -198,19 +256,41 @@ fn fuzz_noise_sources() {
         4000,
         (
             models(),
-            args(&[frequency(), temperature(), receiver, temperature(), temperature(), y]),
+            args(&[
+                frequency(),
+                temperature(),
+                receiver,
+                temperature(),
+                temperature(),
+                y,
+            ]),
         ),
         |(model, v)| {
             let (f, t, tr, a, b, y) = (v[0], v[1], v[2], v[3], v[4], v[5]);
             let (hot, cold) = (a.max(b), a.min(b));
-            ok("load_noise_temperature", &load_noise_temperature(f, t, model))?;
+            ok(
+                "load_noise_temperature",
+                &load_noise_temperature(f, t, model),
+            )?;
             // y_factor: "A true Y above `f64::MAX` ... returns +∞."
-            check("y_factor", &y_factor(tr, hot, cold, f, model), Inf::Documented)?;
-            check("y_factor (swapped)", &y_factor(tr, cold, hot, f, model), Inf::Documented)?;
+            check(
+                "y_factor",
+                &y_factor(tr, hot, cold, f, model),
+                Inf::Documented,
+            )?;
+            check(
+                "y_factor (swapped)",
+                &y_factor(tr, cold, hot, f, model),
+                Inf::Documented,
+            )?;
             // y_factor_noise_temperature: "A field whose true value is beyond the f64 range (`y`
             // within a few ulp of 1 with a hot load near `f64::MAX`) is ±∞."
             let d = Inf::Documented;
-            check("y_factor_noise_temperature", &y_factor_noise_temperature(y, hot, cold, f, model), d)?;
+            check(
+                "y_factor_noise_temperature",
+                &y_factor_noise_temperature(y, hot, cold, f, model),
+                d,
+            )?;
             if let Ok(yy) = y_factor(tr, hot, cold, f, model) {
                 check(
                     "y_factor_noise_temperature (forward)",
@@ -255,7 +335,11 @@ fn fuzz_semiconductor() {
             let (me, mh, eg, a, b, t, ef, n, nc, eta) =
                 (v[0], v[1], v[2], v[3], v[4], v[5], v[6], v[7], v[8], v[9]);
             // effective_density_of_states: "A true value above `f64::MAX` ... returns +∞."
-            check("effective_density_of_states", &effective_density_of_states(me, t), Inf::Documented)?;
+            check(
+                "effective_density_of_states",
+                &effective_density_of_states(me, t),
+                Inf::Documented,
+            )?;
             ok("varshni_band_gap", &varshni_band_gap(eg, a, b, t))?;
             carrier("band_carrier_density", nc, &band_carrier_density(nc, eta))?;
             let sc = Semiconductor::new(me, mh, eg, a, b);
@@ -269,7 +353,10 @@ fn fuzz_semiconductor() {
                 varshni_beta_k: b,
             };
             for s in [sc.ok(), Some(raw)].into_iter().flatten() {
-                ok("Semiconductor::band_gap_j", &Semiconductor::band_gap_j(&s, t))?;
+                ok(
+                    "Semiconductor::band_gap_j",
+                    &Semiconductor::band_gap_j(&s, t),
+                )?;
                 // "+∞ where the true value is above `f64::MAX`, as for
                 // [`effective_density_of_states`]".
                 check(

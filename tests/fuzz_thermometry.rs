@@ -31,7 +31,9 @@ use quantaband::thermometry::its90::{
     fixed_point_curve, its90_temperature, radiance_ratio, ratio_temperature_sensitivities,
     temperature_from_ratio, FixedPoint, FixedPointCurve, RatioSensitivities,
 };
-use quantaband::thermometry::measurement::{measured_signal, object_temperature, Conditions, Window};
+use quantaband::thermometry::measurement::{
+    measured_signal, object_temperature, Conditions, Window,
+};
 use quantaband::thermometry::measurement_gum::{
     measurement_budget, measurement_estimates, measurement_sensitivities, MeasurementEquation,
     MeasurementInput, MeasurementSensitivities,
@@ -60,7 +62,9 @@ use quantaband::thermometry::spectral::{
 };
 use quantaband::thermometry::student_t::{coverage_factor, student_t_cdf, student_t_quantile};
 use quantaband::thermometry::table::{Ends, SpectralTable, SpectralTableBuf, TableKind};
-use quantaband::thermometry::uncertainty::{sensitivities, uncertainty_budget, StandardUncertainties};
+use quantaband::thermometry::uncertainty::{
+    sensitivities, uncertainty_budget, StandardUncertainties,
+};
 use quantaband::units::SpectralUnit;
 use quantaband::Error;
 
@@ -178,7 +182,11 @@ fn with_model(
             let t = SpectralTable::new(kind, w, v);
             ok("SpectralTable::new", &t)?;
             if let Ok(t) = t {
-                let ends = if *constant { Ends::Constant } else { Ends::Reject };
+                let ends = if *constant {
+                    Ends::Constant
+                } else {
+                    Ends::Reject
+                };
                 let m = SpectralInstrument::new(SpectralTable::with_ends(t, ends), c2);
                 ok("SpectralInstrument::new", &m)?;
                 if let Ok(m) = m {
@@ -255,7 +263,10 @@ fn input_uncertainties() -> impl Strategy<Value = InputUncertainty> {
 
 fn coverages() -> impl Strategy<Value = Coverage> {
     prop_oneof![
-        arg(0.5, 0.999).edges(&[0.0, 1.0, 0.9545]).any().prop_map(Coverage::Probability),
+        arg(0.5, 0.999)
+            .edges(&[0.0, 1.0, 0.9545])
+            .any()
+            .prop_map(Coverage::Probability),
         arg(1.0, 3.0).edges(&[0.0]).any().prop_map(Coverage::Factor),
     ]
 }
@@ -271,9 +282,16 @@ const MODEL_INF: Inf = Inf::Documented;
 fn exercise_model(m: &dyn SignalModel, t: f64, f: f64, s_raw: f64) -> Result<(), TestCaseError> {
     check("signal", &m.signal(t), MODEL_INF)?;
     check("d_signal_dt", &m.d_signal_dt(t), MODEL_INF)?;
-    check("signal_and_derivative", &m.signal_and_derivative(t), MODEL_INF)?;
+    check(
+        "signal_and_derivative",
+        &m.signal_and_derivative(t),
+        MODEL_INF,
+    )?;
     ok("temperature (raw signal)", &m.temperature(s_raw))?;
-    ok("invert_monotone (raw signal)", &invert_monotone(m, s_raw, t))?;
+    ok(
+        "invert_monotone (raw signal)",
+        &invert_monotone(m, s_raw, t),
+    )?;
     if let Ok(s) = m.signal(t) {
         ok("temperature", &m.temperature(s * f))?;
         ok("invert_monotone", &invert_monotone(m, s * f, 1000.0))?;
@@ -287,7 +305,11 @@ fn fuzz_signal_models() {
     fuzz(
         "signal models",
         500,
-        (model_cases(), c2s(), args(&[temperature(), factor(), signal, temperature()])),
+        (
+            model_cases(),
+            c2s(),
+            args(&[temperature(), factor(), signal, temperature()]),
+        ),
         |(case, c2, v)| {
             let (t, f, s_raw, t2) = (v[0], v[1], v[2], v[3]);
             with_model(&case, c2, &mut |m| exercise_model(m, t, f, s_raw))?;
@@ -296,52 +318,103 @@ fn fuzz_signal_models() {
                 ModelCase::Point(l) => {
                     if let Ok(m) = SpectralPoint::new(*l, c2) {
                         prop_assert!(SpectralPoint::wavelength_m(&m) > 0.0);
-                        check("<SpectralPoint as SignalModel>::signal", &<SpectralPoint as SignalModel>::signal(&m, t), MODEL_INF)?;
-                        check("<SpectralPoint as SignalModel>::d_signal_dt", &<SpectralPoint as SignalModel>::d_signal_dt(&m, t), MODEL_INF)?;
+                        check(
+                            "<SpectralPoint as SignalModel>::signal",
+                            &<SpectralPoint as SignalModel>::signal(&m, t),
+                            MODEL_INF,
+                        )?;
+                        check(
+                            "<SpectralPoint as SignalModel>::d_signal_dt",
+                            &<SpectralPoint as SignalModel>::d_signal_dt(&m, t),
+                            MODEL_INF,
+                        )?;
                         check(
                             "<SpectralPoint as SignalModel>::signal_and_derivative",
                             &<SpectralPoint as SignalModel>::signal_and_derivative(&m, t),
                             MODEL_INF,
                         )?;
-                        ok("<SpectralPoint as SignalModel>::temperature", &<SpectralPoint as SignalModel>::temperature(&m, s_raw))?;
+                        ok(
+                            "<SpectralPoint as SignalModel>::temperature",
+                            &<SpectralPoint as SignalModel>::temperature(&m, s_raw),
+                        )?;
                     }
                 }
                 ModelCase::Rect(a, b) => {
                     if let Ok(m) = RectangularBand::new(*a, *b, c2) {
                         let (lo, hi) = RectangularBand::limits_m(&m);
                         prop_assert!(lo < hi);
-                        check("<RectangularBand as SignalModel>::signal", &<RectangularBand as SignalModel>::signal(&m, t), MODEL_INF)?;
-                        check("<RectangularBand as SignalModel>::d_signal_dt", &<RectangularBand as SignalModel>::d_signal_dt(&m, t), MODEL_INF)?;
-                        ok("<RectangularBand as SignalModel>::temperature", &<RectangularBand as SignalModel>::temperature(&m, s_raw))?;
+                        check(
+                            "<RectangularBand as SignalModel>::signal",
+                            &<RectangularBand as SignalModel>::signal(&m, t),
+                            MODEL_INF,
+                        )?;
+                        check(
+                            "<RectangularBand as SignalModel>::d_signal_dt",
+                            &<RectangularBand as SignalModel>::d_signal_dt(&m, t),
+                            MODEL_INF,
+                        )?;
+                        ok(
+                            "<RectangularBand as SignalModel>::temperature",
+                            &<RectangularBand as SignalModel>::temperature(&m, s_raw),
+                        )?;
                     }
                 }
                 ModelCase::Response(w, v) => {
                     if let Ok(r) = Response::new(w, v) {
-                        prop_assert_eq!(Response::wavelengths_m(&r).len(), Response::values(&r).len());
+                        prop_assert_eq!(
+                            Response::wavelengths_m(&r).len(),
+                            Response::values(&r).len()
+                        );
                         let (lo, hi) = Response::support_m(&r);
                         prop_assert!(lo < hi);
                         ok("Response::value_at", &Response::value_at(&r, t * 1e-9))?;
                         ok("Response::value_at", &Response::value_at(&r, s_raw))?;
-                        ok("Response::mean_and_spread_m", &Response::mean_and_spread_m(&r))?;
+                        ok(
+                            "Response::mean_and_spread_m",
+                            &Response::mean_and_spread_m(&r),
+                        )?;
                         let m = ResponseSignal::new(r, c2);
                         let _ = ResponseSignal::response(&m);
                         prop_assert!(ResponseSignal::c2_mk(&m) > 0.0);
-                        ok("ResponseSignal::mean_wavelength_m", &ResponseSignal::mean_wavelength_m(&m, t))?;
-                        ok("ResponseSignal::mean_and_spread_m", &ResponseSignal::mean_and_spread_m(&m, t))?;
+                        ok(
+                            "ResponseSignal::mean_wavelength_m",
+                            &ResponseSignal::mean_wavelength_m(&m, t),
+                        )?;
+                        ok(
+                            "ResponseSignal::mean_and_spread_m",
+                            &ResponseSignal::mean_and_spread_m(&m, t),
+                        )?;
                         ok(
                             "ResponseSignal::limiting_effective_wavelength_m",
                             &ResponseSignal::limiting_effective_wavelength_m(&m, t),
                         )?;
-                        ok("ResponseSignal::effective_wavelength_m", &ResponseSignal::effective_wavelength_m(&m, t, t2))?;
-                        check("<ResponseSignal as SignalModel>::signal", &<ResponseSignal as SignalModel>::signal(&m, t), MODEL_INF)?;
-                        check("<ResponseSignal as SignalModel>::d_signal_dt", &<ResponseSignal as SignalModel>::d_signal_dt(&m, t), MODEL_INF)?;
+                        ok(
+                            "ResponseSignal::effective_wavelength_m",
+                            &ResponseSignal::effective_wavelength_m(&m, t, t2),
+                        )?;
+                        check(
+                            "<ResponseSignal as SignalModel>::signal",
+                            &<ResponseSignal as SignalModel>::signal(&m, t),
+                            MODEL_INF,
+                        )?;
+                        check(
+                            "<ResponseSignal as SignalModel>::d_signal_dt",
+                            &<ResponseSignal as SignalModel>::d_signal_dt(&m, t),
+                            MODEL_INF,
+                        )?;
                         check(
                             "<ResponseSignal as SignalModel>::signal_and_derivative",
                             &<ResponseSignal as SignalModel>::signal_and_derivative(&m, t),
                             MODEL_INF,
                         )?;
-                        ok("<ResponseSignal as SignalModel>::temperature", &<ResponseSignal as SignalModel>::temperature(&m, s_raw))?;
-                        ok("SakumaHattori::from_response", &SakumaHattori::from_response(&m, t))?;
+                        ok(
+                            "<ResponseSignal as SignalModel>::temperature",
+                            &<ResponseSignal as SignalModel>::temperature(&m, s_raw),
+                        )?;
+                        ok(
+                            "SakumaHattori::from_response",
+                            &SakumaHattori::from_response(&m, t),
+                        )?;
                     }
                 }
                 ModelCase::Curve(a, b, c) => {
@@ -353,24 +426,43 @@ fn fuzz_signal_models() {
                             SakumaHattori::c2_mk(&m),
                         );
                         finite("SakumaHattori parameters", &p)?;
-                        check("<SakumaHattori as SignalModel>::signal", &<SakumaHattori as SignalModel>::signal(&m, t), MODEL_INF)?;
-                        check("<SakumaHattori as SignalModel>::d_signal_dt", &<SakumaHattori as SignalModel>::d_signal_dt(&m, t), MODEL_INF)?;
+                        check(
+                            "<SakumaHattori as SignalModel>::signal",
+                            &<SakumaHattori as SignalModel>::signal(&m, t),
+                            MODEL_INF,
+                        )?;
+                        check(
+                            "<SakumaHattori as SignalModel>::d_signal_dt",
+                            &<SakumaHattori as SignalModel>::d_signal_dt(&m, t),
+                            MODEL_INF,
+                        )?;
                         check(
                             "<SakumaHattori as SignalModel>::signal_and_derivative",
                             &<SakumaHattori as SignalModel>::signal_and_derivative(&m, t),
                             MODEL_INF,
                         )?;
-                        ok("<SakumaHattori as SignalModel>::temperature", &<SakumaHattori as SignalModel>::temperature(&m, s_raw))?;
+                        ok(
+                            "<SakumaHattori as SignalModel>::temperature",
+                            &<SakumaHattori as SignalModel>::temperature(&m, s_raw),
+                        )?;
                     }
                 }
                 ModelCase::Spectral(w, v, photon, _) => {
-                    let kind = if *photon { TableKind::PhotonResponse } else { TableKind::EnergyResponse };
+                    let kind = if *photon {
+                        TableKind::PhotonResponse
+                    } else {
+                        TableKind::EnergyResponse
+                    };
                     if let Ok(tab) = SpectralTable::new(kind, w, v) {
                         if let Ok(m) = SpectralInstrument::new(tab, c2) {
                             let _ = SpectralInstrument::response(&m);
                             prop_assert_eq!(SpectralInstrument::is_photon(&m), *photon);
                             prop_assert!(SpectralInstrument::c2_mk(&m) > 0.0);
-                            check("<SpectralInstrument as SignalModel>::signal", &<SpectralInstrument as SignalModel>::signal(&m, t), MODEL_INF)?;
+                            check(
+                                "<SpectralInstrument as SignalModel>::signal",
+                                &<SpectralInstrument as SignalModel>::signal(&m, t),
+                                MODEL_INF,
+                            )?;
                             check(
                                 "<SpectralInstrument as SignalModel>::d_signal_dt",
                                 &<SpectralInstrument as SignalModel>::d_signal_dt(&m, t),
@@ -426,7 +518,13 @@ fn fuzz_measurement_equation() {
             standard_uncertainties(),
             prop::collection::vec(input_uncertainties(), 9),
             coverages(),
-            args(&[temperature(), factor(), unit_open_closed(), temperature(), temperature()]),
+            args(&[
+                temperature(),
+                factor(),
+                unit_open_closed(),
+                temperature(),
+                temperature(),
+            ]),
         ),
         |(case, c2, (cond, actual), su, inputs, coverage, v)| {
             let (t, f, eps, t2, t3) = (v[0], v[1], v[2], v[3], v[4]);
@@ -452,27 +550,51 @@ fn fuzz_measurement_equation() {
                 prop_assert_eq!(est.len(), 9);
                 let arr: [InputUncertainty; 9] = inputs.clone().try_into().unwrap();
                 let b = measurement_budget(m, s, &cond, &arr, None, coverage);
-                let bound = b.as_ref().map_or(0.0, |b| b.entries.iter().map(|e| e.component.abs()).sum());
+                let bound = b
+                    .as_ref()
+                    .map_or(0.0, |b| b.entries.iter().map(|e| e.component.abs()).sum());
                 gum_check("measurement_budget", b.as_ref().map(|b| &b.result), bound)?;
                 if let Ok(b) = &b {
-                    ok("measurement_budget entries", &Ok::<_, Error>((b.temperature_k, b.entries.map(|e| (e.sensitivity, e.component, e.variance_share)))))?;
+                    ok(
+                        "measurement_budget entries",
+                        &Ok::<_, Error>((
+                            b.temperature_k,
+                            b.entries
+                                .map(|e| (e.sensitivity, e.component, e.variance_share)),
+                        )),
+                    )?;
                 }
                 let eq = MeasurementEquation::new(m, &cond);
                 ok("MeasurementEquation::evaluate", &eq.evaluate(&est))?;
                 ok(
                     "<MeasurementEquation as MonteCarloModel>::evaluate",
-                    &<MeasurementEquation<dyn SignalModel> as MonteCarloModel>::evaluate(&eq, &est[..5]),
+                    &<MeasurementEquation<dyn SignalModel> as MonteCarloModel>::evaluate(
+                        &eq,
+                        &est[..5],
+                    ),
                 )?;
                 // Indicated-temperature workflows.
                 ok("correct_reading", &correct_reading(m, t, &cond, &actual))?;
-                ok("reflected_temperature", &reflected_temperature(m, t, &cond, eps * 0.99, t2))?;
-                ok("emissivity_by_contact", &emissivity_by_contact(m, t, &cond, t2, t3))?;
-                ok("emissivity_by_reference", &emissivity_by_reference(m, t, t2, &cond, eps, t3))?;
+                ok(
+                    "reflected_temperature",
+                    &reflected_temperature(m, t, &cond, eps * 0.99, t2),
+                )?;
+                ok(
+                    "emissivity_by_contact",
+                    &emissivity_by_contact(m, t, &cond, t2, t3),
+                )?;
+                ok(
+                    "emissivity_by_reference",
+                    &emissivity_by_reference(m, t, t2, &cond, eps, t3),
+                )?;
                 // Ratio thermometry: the model against a second spectral point.
                 if let Ok(p2) = SpectralPoint::new(12e-6, c2) {
                     ratio_check("ratio_temperature", &ratio_temperature(m, &p2, f, eps, t))?;
                     if let (Ok(a), Ok(b)) = (m.signal(t), p2.signal(t)) {
-                        ratio_check("ratio_temperature (forward)", &ratio_temperature(m, &p2, a / b, 1.0, 1000.0))?;
+                        ratio_check(
+                            "ratio_temperature (forward)",
+                            &ratio_temperature(m, &p2, a / b, 1.0, 1000.0),
+                        )?;
                     }
                 }
                 Ok(())
@@ -486,7 +608,10 @@ fn fuzz_measurement_equation() {
 fn ratio_check(what: &str, r: &Result<RatioReading, Error>) -> Result<(), TestCaseError> {
     check(what, r, Inf::Documented)?;
     if let Ok(r) = r {
-        ok(what, &Ok::<_, Error>((r.temperature_k, r.d_t_d_emissivity_ratio)))?;
+        ok(
+            what,
+            &Ok::<_, Error>((r.temperature_k, r.d_t_d_emissivity_ratio)),
+        )?;
     }
     Ok(())
 }
@@ -496,17 +621,35 @@ fn fuzz_two_colour() {
     fuzz(
         "two colour",
         3000,
-        (c2s(), args(&[wavelength(), wavelength(), arg(1e-3, 1e3).edges(&[0.0, 1.0]), unit_open_closed(), temperature()])),
+        (
+            c2s(),
+            args(&[
+                wavelength(),
+                wavelength(),
+                arg(1e-3, 1e3).edges(&[0.0, 1.0]),
+                unit_open_closed(),
+                temperature(),
+            ]),
+        ),
         |(c2, v)| {
             let (l1, l2, r, e, t) = (v[0], v[1], v[2], v[3], v[4]);
-            ratio_check("two_colour_temperature", &two_colour_temperature(l1.min(l2), l1.max(l2), r, e, c2))?;
-            ratio_check("two_colour_temperature (order)", &two_colour_temperature(l1, l2, r, e, c2))?;
+            ratio_check(
+                "two_colour_temperature",
+                &two_colour_temperature(l1.min(l2), l1.max(l2), r, e, c2),
+            )?;
+            ratio_check(
+                "two_colour_temperature (order)",
+                &two_colour_temperature(l1, l2, r, e, c2),
+            )?;
             // Consistent data from Planck's law at t.
             if let (Ok(a), Ok(b)) = (
                 quantaband::planck::spectral_radiance_wavelength(l1.min(l2), t),
                 quantaband::planck::spectral_radiance_wavelength(l1.max(l2), t),
             ) {
-                ratio_check("two_colour_temperature (forward)", &two_colour_temperature(l1.min(l2), l1.max(l2), a / b, 1.0, c2))?;
+                ratio_check(
+                    "two_colour_temperature (forward)",
+                    &two_colour_temperature(l1.min(l2), l1.max(l2), a / b, 1.0, c2),
+                )?;
             }
             Ok(())
         },
@@ -528,10 +671,23 @@ fn gum_check(what: &str, r: Result<&GumResult, &Error>, bound: f64) -> Result<()
             let uc = g.combined_standard_uncertainty;
             let uc_ok = uc.is_finite() || bound >= f64::MAX;
             let big_u = g.expanded_uncertainty;
-            let u_ok = big_u.is_finite() || !uc.is_finite() || !(g.coverage_factor * uc).is_finite();
-            prop_assert!(uc_ok && u_ok, "{}: u_c = {:e}, U = {:e}, Σ|c u| = {:e}", what, uc, big_u, bound);
+            let u_ok =
+                big_u.is_finite() || !uc.is_finite() || !(g.coverage_factor * uc).is_finite();
+            prop_assert!(
+                uc_ok && u_ok,
+                "{}: u_c = {:e}, U = {:e}, Σ|c u| = {:e}",
+                what,
+                uc,
+                big_u,
+                bound
+            );
             // coverage_factor: "+∞ for a factor beyond the f64 range".
-            prop_assert!(g.coverage_factor >= 0.0, "{}: k = {}", what, g.coverage_factor);
+            prop_assert!(
+                g.coverage_factor >= 0.0,
+                "{}: k = {}",
+                what,
+                g.coverage_factor
+            );
             prop_assert!(!GumMethod::describe(&g.method).is_empty());
             Ok(())
         }
@@ -568,7 +724,12 @@ fn correlation_matrices() -> impl Strategy<Value = Vec<f64>> {
                     m[i * n + j] = if i == j {
                         1.0
                     } else {
-                        unit[i].iter().zip(&unit[j]).map(|(a, b)| a * b).sum::<f64>().clamp(-1.0, 1.0)
+                        unit[i]
+                            .iter()
+                            .zip(&unit[j])
+                            .map(|(a, b)| a * b)
+                            .sum::<f64>()
+                            .clamp(-1.0, 1.0)
                     };
                 }
             }
@@ -601,14 +762,28 @@ fn fuzz_gum() {
             slice(&arg(-10.0, 10.0), false, 0, 40),
             correlation_matrices(),
             coverages(),
-            args(&[arg(0.0, 10.0).edges(&[0.0]), arg(1.0, 100.0).edges(&[0.0, f64::INFINITY]), arg(-5.0, 5.0), arg(0.5, 0.999).edges(&[0.0, 1.0])]),
+            args(&[
+                arg(0.0, 10.0).edges(&[0.0]),
+                arg(1.0, 100.0).edges(&[0.0, f64::INFINITY]),
+                arg(-5.0, 5.0),
+                arg(0.5, 0.999).edges(&[0.0, 1.0]),
+            ]),
         ),
         |(inputs, x, y, matrix, coverage, v)| {
             let (u, dof, t, p) = (v[0], v[1], v[2], v[3]);
             input_check("InputUncertainty::type_b", &InputUncertainty::type_b(u))?;
-            input_check("InputUncertainty::type_a", &InputUncertainty::type_a(u, dof))?;
-            input_check("InputUncertainty::rectangular", &InputUncertainty::rectangular(u))?;
-            input_check("InputUncertainty::triangular", &InputUncertainty::triangular(u))?;
+            input_check(
+                "InputUncertainty::type_a",
+                &InputUncertainty::type_a(u, dof),
+            )?;
+            input_check(
+                "InputUncertainty::rectangular",
+                &InputUncertainty::rectangular(u),
+            )?;
+            input_check(
+                "InputUncertainty::triangular",
+                &InputUncertainty::triangular(u),
+            )?;
             input_check("InputUncertainty::arcsine", &InputUncertainty::arcsine(u))?;
             for i in &inputs {
                 ok("InputUncertainty::validate", &InputUncertainty::validate(i))?;
@@ -622,33 +797,67 @@ fn fuzz_gum() {
             let corr = Correlation::new(&matrix);
             ok("Correlation::new", &corr)?;
             let mut work = vec![0.0; matrix.len()];
-            ok("Correlation::with_workspace", &Correlation::with_workspace(&matrix, &mut work))?;
+            ok(
+                "Correlation::with_workspace",
+                &Correlation::with_workspace(&matrix, &mut work),
+            )?;
             let n = inputs.len();
-            let sens: Vec<f64> = x.iter().copied().chain(std::iter::repeat(1.0)).take(n).collect();
+            let sens: Vec<f64> = x
+                .iter()
+                .copied()
+                .chain(std::iter::repeat(1.0))
+                .take(n)
+                .collect();
             let bound = |s: &[f64], u: &[InputUncertainty]| -> f64 {
-                s.iter().zip(u).map(|(c, u)| (c * u.standard_uncertainty).abs()).sum()
+                s.iter()
+                    .zip(u)
+                    .map(|(c, u)| (c * u.standard_uncertainty).abs())
+                    .sum()
             };
             let mut entries = vec![GumEntry::default(); n];
             let r = propagate(&sens, &inputs, None, coverage, Some(&mut entries));
             gum_check("propagate", r.as_ref(), bound(&sens, &inputs))?;
             if r.is_ok() {
-                let e: Vec<(f64, f64)> = entries.iter().map(|e| (e.component, e.variance_share)).collect();
+                let e: Vec<(f64, f64)> = entries
+                    .iter()
+                    .map(|e| (e.component, e.variance_share))
+                    .collect();
                 ok("propagate entries", &Ok::<_, Error>(e))?;
             }
-            gum_check("propagate (raw sensitivities)", propagate(&x, &inputs, None, coverage, None).as_ref(), bound(&x, &inputs))?;
+            gum_check(
+                "propagate (raw sensitivities)",
+                propagate(&x, &inputs, None, coverage, None).as_ref(),
+                bound(&x, &inputs),
+            )?;
             if let Ok(c) = &corr {
                 let k = Correlation::size(c);
                 prop_assert_eq!(Correlation::matrix(c).len(), k * k);
-                finite("Correlation::get", &(Correlation::get(c, 0, 0), Correlation::get(c, k, 0), Correlation::get(c, usize::MAX, usize::MAX)))?;
-                let inputs_k: Vec<InputUncertainty> = inputs.iter().copied().cycle().take(k).collect();
+                finite(
+                    "Correlation::get",
+                    &(
+                        Correlation::get(c, 0, 0),
+                        Correlation::get(c, k, 0),
+                        Correlation::get(c, usize::MAX, usize::MAX),
+                    ),
+                )?;
+                let inputs_k: Vec<InputUncertainty> =
+                    inputs.iter().copied().cycle().take(k).collect();
                 let sens_k = vec![1.0; inputs_k.len()];
                 // Σ|c_i u_i| bounds u_c also with correlations (|r_ij| ≤ 1).
-                gum_check("propagate (correlated)", propagate(&sens_k, &inputs_k, Some(c), coverage, None).as_ref(), bound(&sens_k, &inputs_k))?;
+                gum_check(
+                    "propagate (correlated)",
+                    propagate(&sens_k, &inputs_k, Some(c), coverage, None).as_ref(),
+                    bound(&sens_k, &inputs_k),
+                )?;
             }
             ok("student_t_cdf", &student_t_cdf(t, dof))?;
             // student_t_quantile: "A quantile beyond the f64 range is otherwise returned as ±∞";
             // coverage_factor: "+∞ for a factor beyond the f64 range".
-            check("student_t_quantile", &student_t_quantile(p, dof), Inf::Documented)?;
+            check(
+                "student_t_quantile",
+                &student_t_quantile(p, dof),
+                Inf::Documented,
+            )?;
             check("coverage_factor", &coverage_factor(p, dof), Inf::Documented)?;
             // Loose check of that claim: an infinite quantile needs a heavy tail (ν < 1, where
             // |t| ~ (1/q)^(1/ν) can leave the f64 range for q ≥ 5e-324 only if ν < 0.43).
@@ -668,7 +877,16 @@ fn fuzz_random() {
     fuzz(
         "random",
         2000,
-        (any::<u64>(), any::<[u64; 4]>(), distributions(), args(&[arg(-10.0, 10.0), arg(0.0, 10.0).edges(&[0.0]), arg(1.0, 100.0).edges(&[f64::INFINITY])])),
+        (
+            any::<u64>(),
+            any::<[u64; 4]>(),
+            distributions(),
+            args(&[
+                arg(-10.0, 10.0),
+                arg(0.0, 10.0).edges(&[0.0]),
+                arg(1.0, 100.0).edges(&[f64::INFINITY]),
+            ]),
+        ),
         |(seed, state, dist, v)| {
             let (est, u, dof) = (v[0], v[1], v[2]);
             let mut s = seed;
@@ -685,14 +903,29 @@ fn fuzz_random() {
             let _ = Sampler::generator(&sm);
             let uu = Sampler::uniform(&mut sm);
             prop_assert!(uu > 0.0 && uu < 1.0);
-            finite("Sampler::standard_normal", &Sampler::standard_normal(&mut sm))?;
+            finite(
+                "Sampler::standard_normal",
+                &Sampler::standard_normal(&mut sm),
+            )?;
             // student_t and sample: "the caller guarantees ν > 0"; with a valid input they must
             // give a number.
             if dof > 0.0 {
-                finite("Sampler::student_t", &Sampler::student_t(&mut sm, dof.max(1.0)))?;
+                finite(
+                    "Sampler::student_t",
+                    &Sampler::student_t(&mut sm, dof.max(1.0)),
+                )?;
             }
-            if est.is_finite() && u.is_finite() && u >= 0.0 && est.abs() < 1e300 && u < 1e300 && dof >= 1.0 {
-                finite("Sampler::sample", &Sampler::sample(&mut sm, dist, est, u, dof))?;
+            if est.is_finite()
+                && u.is_finite()
+                && u >= 0.0
+                && est.abs() < 1e300
+                && u < 1e300
+                && dof >= 1.0
+            {
+                finite(
+                    "Sampler::sample",
+                    &Sampler::sample(&mut sm, dist, est, u, dof),
+                )?;
             }
             Ok(())
         },
@@ -732,15 +965,31 @@ fn fuzz_monte_carlo() {
         (
             any::<u64>(),
             arg(0.5, 0.99).edges(&[0.0, 1.0, 1.0 - 1e-7]).any(),
-            prop_oneof![Just(TrialCount::Adaptive), (0usize..400).prop_map(|trials| TrialCount::Fixed { trials })],
+            prop_oneof![
+                Just(TrialCount::Adaptive),
+                (0usize..400).prop_map(|trials| TrialCount::Fixed { trials })
+            ],
             0u8..8,
-            prop::sample::select(vec![IntervalKind::ProbabilisticallySymmetric, IntervalKind::Shortest]),
+            prop::sample::select(vec![
+                IntervalKind::ProbabilisticallySymmetric,
+                IntervalKind::Shortest,
+            ]),
             prop::collection::vec(input_uncertainties(), 0..4),
             slice(&arg(-3.0, 3.0), false, 0, 6),
             (mc_models(), 0usize..400, 0usize..600),
             slice(&arg(-5.0, 5.0), true, 0, 300),
         ),
-        |(seed, p, trials, digits, interval, inputs, estimates, (model, max_trials, values_len), sorted)| {
+        |(
+            seed,
+            p,
+            trials,
+            digits,
+            interval,
+            inputs,
+            estimates,
+            (model, max_trials, values_len),
+            sorted,
+        )| {
             let config = MonteCarloConfig {
                 seed,
                 coverage_probability: p,
@@ -760,9 +1009,15 @@ fn fuzz_monte_carlo() {
                 let f = mc_model(model);
                 let progress = MonteCarlo::run(&mut mc, &f, &mut values, max_trials);
                 ok("MonteCarlo::run", &progress)?;
-                ok("MonteCarlo::progress", &Ok::<_, Error>(MonteCarlo::progress(&mc)))?;
+                ok(
+                    "MonteCarlo::progress",
+                    &Ok::<_, Error>(MonteCarlo::progress(&mc)),
+                )?;
                 if matches!(progress, Ok(p) if p.status == RunStatus::Running) {
-                    ok("MonteCarlo::run (again)", &MonteCarlo::run(&mut mc, &f, &mut values, max_trials))?;
+                    ok(
+                        "MonteCarlo::run (again)",
+                        &MonteCarlo::run(&mut mc, &f, &mut values, max_trials),
+                    )?;
                 }
                 let r = MonteCarlo::finish(&mc, &mut values);
                 ok("MonteCarlo::finish", &r)?;
@@ -806,23 +1061,48 @@ fn fuzz_its90() {
     fuzz(
         "its90",
         3000,
-        (fixed_points(), c2s(), args(&[arg(1e-6, 1e6).edges(&[0.0, 1.0]), wavelength(), temperature(), temperature()])),
+        (
+            fixed_points(),
+            c2s(),
+            args(&[
+                arg(1e-6, 1e6).edges(&[0.0, 1.0]),
+                wavelength(),
+                temperature(),
+                temperature(),
+            ]),
+        ),
         |(fp, c2, v)| {
             let (r, l, t, tx) = (v[0], v[1], v[2], v[3]);
             let tk = FixedPoint::temperature_k(fp);
             prop_assert!(tk > 0.0 && FixedPoint::temperature_c(fp).is_finite());
             prop_assert!(!FixedPoint::name(fp).is_empty());
             let _ = FixedPoint::defines_ratio_relation(fp);
-            ok("temperature_from_ratio", &temperature_from_ratio(r, l, tx, c2))?;
+            ok(
+                "temperature_from_ratio",
+                &temperature_from_ratio(r, l, tx, c2),
+            )?;
             // radiance_ratio: "it overflows to ∞ or underflows to 0 only where the true ratio
             // is outside the f64 range".
-            check("radiance_ratio", &radiance_ratio(t, l, tx, c2), Inf::Documented)?;
+            check(
+                "radiance_ratio",
+                &radiance_ratio(t, l, tx, c2),
+                Inf::Documented,
+            )?;
             ok("its90_temperature", &its90_temperature(r, l, fp))?;
-            sens_check("ratio_temperature_sensitivities", &ratio_temperature_sensitivities(r, l, tx, c2))?;
+            sens_check(
+                "ratio_temperature_sensitivities",
+                &ratio_temperature_sensitivities(r, l, tx, c2),
+            )?;
             if let Ok(rr) = radiance_ratio(t, l, tk, c2) {
                 ok("its90_temperature (forward)", &its90_temperature(rr, l, fp))?;
-                ok("temperature_from_ratio (forward)", &temperature_from_ratio(rr, l, tk, c2))?;
-                sens_check("ratio_temperature_sensitivities (forward)", &ratio_temperature_sensitivities(rr, l, tk, c2))?;
+                ok(
+                    "temperature_from_ratio (forward)",
+                    &temperature_from_ratio(rr, l, tk, c2),
+                )?;
+                sens_check(
+                    "ratio_temperature_sensitivities (forward)",
+                    &ratio_temperature_sensitivities(rr, l, tk, c2),
+                )?;
             }
             Ok(())
         },
@@ -840,11 +1120,19 @@ fn fuzz_fits() {
             [fixed_points(), fixed_points(), fixed_points()],
             slice(&arg(300.0, 2500.0), true, 3, 120),
             slice(&arg(-1e-4, 1e-4).edges(&[0.0]), false, 3, 120),
-            args(&[temperature(), temperature(), arg(2.0, 60.0).edges(&[0.0, 1.0, 2.0])]),
+            args(&[
+                temperature(),
+                temperature(),
+                arg(2.0, 60.0).edges(&[0.0, 1.0, 2.0]),
+            ]),
         ),
         |(case, c2, fps, temps, noise, v)| {
             let (t1, t2, n) = (v[0], v[1], v[2]);
-            let n_points = if n.is_finite() && n >= 0.0 { (n as usize).min(200) } else { 0 };
+            let n_points = if n.is_finite() && n >= 0.0 {
+                (n as usize).min(200)
+            } else {
+                0
+            };
             with_model(&case, c2, &mut |m| {
                 // Signals from the model (relative noise added), or raw adversarial values.
                 let signals: Vec<f64> = temps
@@ -855,11 +1143,17 @@ fn fuzz_fits() {
                 let mut residuals = vec![0.0; temps.len()];
                 let fit = SakumaHattori::fit(&temps, &signals, c2, Some(&mut residuals));
                 ok("SakumaHattori::fit", &fit)?;
-                ok("SakumaHattori::fit (raw signals)", &SakumaHattori::fit(&temps, &noise, c2, None))?;
+                ok(
+                    "SakumaHattori::fit (raw signals)",
+                    &SakumaHattori::fit(&temps, &noise, c2, None),
+                )?;
                 let fm = SakumaHattori::fit_model(m, t1, t2, c2);
                 ok("SakumaHattori::fit_model", &fm)?;
                 if let Ok(fit) = &fit {
-                    ok("max_interpolation_error_k", &max_interpolation_error_k(&fit.curve, m, t1, t2, n_points))?;
+                    ok(
+                        "max_interpolation_error_k",
+                        &max_interpolation_error_k(&fit.curve, m, t1, t2, n_points),
+                    )?;
                 }
                 let fpc = fixed_point_curve(m, fps, c2);
                 ok("fixed_point_curve", &fpc)?;
@@ -885,18 +1179,31 @@ fn fuzz_fits() {
                 ok("CalibrationTransfer::fit", &ct)?;
                 if let Ok(ct) = &ct {
                     let _ = CalibrationTransfer::curve(ct);
-                    finite("CalibrationTransfer::rms_residual_k", &CalibrationTransfer::rms_residual_k(ct))?;
-                    finite("CalibrationTransfer::parameter_covariance", &CalibrationTransfer::parameter_covariance(ct))?;
-                    finite("CalibrationTransfer::parameter_correlation", &CalibrationTransfer::parameter_correlation(ct))?;
+                    finite(
+                        "CalibrationTransfer::rms_residual_k",
+                        &CalibrationTransfer::rms_residual_k(ct),
+                    )?;
+                    finite(
+                        "CalibrationTransfer::parameter_covariance",
+                        &CalibrationTransfer::parameter_covariance(ct),
+                    )?;
+                    finite(
+                        "CalibrationTransfer::parameter_correlation",
+                        &CalibrationTransfer::parameter_correlation(ct),
+                    )?;
                     let s = m.signal(t1).unwrap_or(t1);
                     let mut dt = vec![0.0; points.len()];
                     let mut ds = vec![0.0; points.len()];
-                    let r = CalibrationTransfer::reading(ct, s, s * 1e-3, Some(&mut dt), Some(&mut ds));
+                    let r =
+                        CalibrationTransfer::reading(ct, s, s * 1e-3, Some(&mut dt), Some(&mut ds));
                     ok("CalibrationTransfer::reading", &r)?;
                     if r.is_ok() {
                         finite("CalibrationTransfer::reading derivatives", &(&dt, &ds))?;
                     }
-                    ok("CalibrationTransfer::reading (raw)", &CalibrationTransfer::reading(ct, t2, n, None, None))?;
+                    ok(
+                        "CalibrationTransfer::reading (raw)",
+                        &CalibrationTransfer::reading(ct, t2, n, None, None),
+                    )?;
                 }
                 Ok(())
             })
@@ -946,7 +1253,10 @@ fn spectral_value(case: &ValueCase, kind: TableKind) -> Option<SpectralValue<'_>
     match case {
         ValueCase::Constant(c) => Some(SpectralValue::Constant(*c)),
         ValueCase::Table(w, v, c) => SpectralTable::new(kind, w, v).ok().map(|t| {
-            SpectralValue::Table(SpectralTable::with_ends(t, if *c { Ends::Constant } else { Ends::Reject }))
+            SpectralValue::Table(SpectralTable::with_ends(
+                t,
+                if *c { Ends::Constant } else { Ends::Reject },
+            ))
         }),
     }
 }
@@ -968,11 +1278,39 @@ fn fuzz_spectral() {
         250,
         (
             (response_table(), any::<bool>(), c2s()),
-            (value_cases(unit_open_closed()), prop::option::weighted(0.3, value_cases(arg(0.0, 0.5).edges(&[0.0, 1.0]))), value_cases(unit_open_closed())),
-            prop::option::weighted(0.3, (value_cases(unit_open_closed()), value_cases(arg(0.0, 0.3).edges(&[0.0, 1.0])))),
-            (prop::collection::vec(text_line, 0..12), prop::sample::select(KINDS.to_vec()), prop::sample::select(vec![SpectralUnit::Micrometre, SpectralUnit::Nanometre, SpectralUnit::PerCentimetre, SpectralUnit::Terahertz, SpectralUnit::Electronvolt])),
+            (
+                value_cases(unit_open_closed()),
+                prop::option::weighted(0.3, value_cases(arg(0.0, 0.5).edges(&[0.0, 1.0]))),
+                value_cases(unit_open_closed()),
+            ),
+            prop::option::weighted(
+                0.3,
+                (
+                    value_cases(unit_open_closed()),
+                    value_cases(arg(0.0, 0.3).edges(&[0.0, 1.0])),
+                ),
+            ),
+            (
+                prop::collection::vec(text_line, 0..12),
+                prop::sample::select(KINDS.to_vec()),
+                prop::sample::select(vec![
+                    SpectralUnit::Micrometre,
+                    SpectralUnit::Nanometre,
+                    SpectralUnit::PerCentimetre,
+                    SpectralUnit::Terahertz,
+                    SpectralUnit::Electronvolt,
+                ]),
+            ),
             conditions(),
-            args(&[temperature(), temperature(), temperature(), temperature(), temperature(), factor(), wavelength()]),
+            args(&[
+                temperature(),
+                temperature(),
+                temperature(),
+                temperature(),
+                temperature(),
+                factor(),
+                wavelength(),
+            ]),
         ),
         |((resp, photon, c2), (eps, rho, tau), window, (lines, kind, unit), grey, v)| {
             let (t, tr, tp, tw, twr, f, l) = (v[0], v[1], v[2], v[3], v[4], v[5], v[6]);
@@ -987,11 +1325,17 @@ fn fuzz_spectral() {
                         let tab = SpectralTable::with_ends(tab, ends);
                         prop_assert_eq!(SpectralTable::kind(&tab), k);
                         prop_assert_eq!(SpectralTable::ends(&tab), ends);
-                        prop_assert_eq!(SpectralTable::wavelengths_m(&tab).len(), SpectralTable::values(&tab).len());
+                        prop_assert_eq!(
+                            SpectralTable::wavelengths_m(&tab).len(),
+                            SpectralTable::values(&tab).len()
+                        );
                         let (a, b) = SpectralTable::span_m(&tab);
                         prop_assert!(a < b);
                         ok("SpectralTable::value_at", &SpectralTable::value_at(&tab, l))?;
-                        ok("SpectralTable::value_at (inside)", &SpectralTable::value_at(&tab, 0.5 * (a + b)))?;
+                        ok(
+                            "SpectralTable::value_at (inside)",
+                            &SpectralTable::value_at(&tab, 0.5 * (a + b)),
+                        )?;
                     }
                 }
                 let buf = SpectralTableBuf::new(k, resp.0.clone(), resp.1.clone());
@@ -999,7 +1343,10 @@ fn fuzz_spectral() {
                 if let Ok(buf) = buf {
                     let buf = SpectralTableBuf::with_ends(buf, Ends::Constant);
                     prop_assert_eq!(SpectralTableBuf::kind(&buf), k);
-                    ok("SpectralTableBuf::as_table value_at", &SpectralTable::value_at(&SpectralTableBuf::as_table(&buf), l))?;
+                    ok(
+                        "SpectralTableBuf::as_table value_at",
+                        &SpectralTable::value_at(&SpectralTableBuf::as_table(&buf), l),
+                    )?;
                 }
             }
             let text = lines.join("\n");
@@ -1007,15 +1354,22 @@ fn fuzz_spectral() {
             ok("SpectralTableBuf::from_text", &parsed)?;
             // Spectral values and conditions.
             let eps_v = spectral_value(&eps, TableKind::Emissivity);
-            let rho_v = rho.as_ref().map(|r| spectral_value(r, TableKind::Reflectance));
+            let rho_v = rho
+                .as_ref()
+                .map(|r| spectral_value(r, TableKind::Reflectance));
             let tau_v = spectral_value(&tau, TableKind::Transmittance);
             let win_v = window.as_ref().map(|(wt, wr)| {
-                (spectral_value(wt, TableKind::Transmittance), spectral_value(wr, TableKind::Reflectance))
+                (
+                    spectral_value(wt, TableKind::Transmittance),
+                    spectral_value(wr, TableKind::Reflectance),
+                )
             });
             if let Some(e) = &eps_v {
                 ok("SpectralValue::value_at", &SpectralValue::value_at(e, l))?;
             }
-            let (Some(e), Some(tau_v)) = (eps_v, tau_v) else { return Ok(()) };
+            let (Some(e), Some(tau_v)) = (eps_v, tau_v) else {
+                return Ok(());
+            };
             let reflectance = match rho_v {
                 Some(Some(r)) => Some(r),
                 Some(None) => return Ok(()),
@@ -1039,22 +1393,45 @@ fn fuzz_spectral() {
                 path_temperature_k: tp,
                 window,
             };
-            ok("SpectralConditions::validate", &SpectralConditions::validate(&cond))?;
+            ok(
+                "SpectralConditions::validate",
+                &SpectralConditions::validate(&cond),
+            )?;
             let grey_s = SpectralConditions::from_grey(&grey);
-            ok("SpectralConditions::validate (grey)", &SpectralConditions::validate(&grey_s))?;
-            let rkind = if photon { TableKind::PhotonResponse } else { TableKind::EnergyResponse };
-            let Ok(rtab) = SpectralTable::new(rkind, &resp.0, &resp.1) else { return Ok(()) };
-            let Ok(inst) = SpectralInstrument::new(rtab, c2) else { return Ok(()) };
+            ok(
+                "SpectralConditions::validate (grey)",
+                &SpectralConditions::validate(&grey_s),
+            )?;
+            let rkind = if photon {
+                TableKind::PhotonResponse
+            } else {
+                TableKind::EnergyResponse
+            };
+            let Ok(rtab) = SpectralTable::new(rkind, &resp.0, &resp.1) else {
+                return Ok(());
+            };
+            let Ok(inst) = SpectralInstrument::new(rtab, c2) else {
+                return Ok(());
+            };
             for c in [&cond, &grey_s] {
                 let terms = spectral_signal_terms(&inst, t, c);
                 check("spectral_signal_terms", &terms, MODEL_INF)?;
                 let s = spectral_measured_signal(&inst, t, c);
                 check("spectral_measured_signal", &s, MODEL_INF)?;
                 let s = s.unwrap_or(1.0) * f;
-                ok("spectral_object_temperature", &spectral_object_temperature(&inst, s, c))?;
+                ok(
+                    "spectral_object_temperature",
+                    &spectral_object_temperature(&inst, s, c),
+                )?;
                 ok("band_effective", &band_effective(&inst, t, c))?;
-                ok("spectral_sensitivities", &spectral_sensitivities(&inst, s, c))?;
-                ok("correct_reading_spectral", &correct_reading_spectral(&inst, t, &grey, c))?;
+                ok(
+                    "spectral_sensitivities",
+                    &spectral_sensitivities(&inst, s, c),
+                )?;
+                ok(
+                    "correct_reading_spectral",
+                    &correct_reading_spectral(&inst, t, &grey, c),
+                )?;
             }
             Ok(())
         },
@@ -1077,7 +1454,12 @@ fn frame_check<O: FrameOutput + Into<f64>>(
             let vals: Vec<f64> = out.iter().map(|&o| o.into()).collect();
             let valid: Vec<f64> = vals.iter().copied().filter(|v| !v.is_nan()).collect();
             prop_assert_eq!(s.valid, valid.len(), "{}: valid count", what);
-            prop_assert_eq!(s.invalid, vals.len() - valid.len(), "{}: invalid count", what);
+            prop_assert_eq!(
+                s.invalid,
+                vals.len() - valid.len(),
+                "{}: invalid count",
+                what
+            );
             // FrameOutput::from_f64: "for `f32` a temperature above `f32::MAX` ... becomes +∞
             // and one below the f32 range 0, both still counted valid".
             let f32_out = std::mem::size_of::<O>() == 4;
@@ -1090,11 +1472,21 @@ fn frame_check<O: FrameOutput + Into<f64>>(
                 );
             }
             if valid.is_empty() {
-                prop_assert!(s.min_temperature_k.is_nan() && s.max_temperature_k.is_nan(), "{}: {:?}", what, s);
+                prop_assert!(
+                    s.min_temperature_k.is_nan() && s.max_temperature_k.is_nan(),
+                    "{}: {:?}",
+                    what,
+                    s
+                );
             } else {
                 let lo = valid.iter().copied().fold(f64::INFINITY, f64::min);
                 let hi = valid.iter().copied().fold(0.0, f64::max);
-                prop_assert_eq!((s.min_temperature_k, s.max_temperature_k), (lo, hi), "{}", what);
+                prop_assert_eq!(
+                    (s.min_temperature_k, s.max_temperature_k),
+                    (lo, hi),
+                    "{}",
+                    what
+                );
             }
             Ok(())
         }
@@ -1139,21 +1531,32 @@ fn fuzz_frame() {
             let _ = <f32 as FrameOutput>::from_f64(a);
             let _ = <f64 as FrameOutput>::from_f64(a);
             // min_max: "of a slice of non-negative values and NaN".
-            let nonneg: Vec<f64> = raw.iter().map(|x| if x.is_nan() || *x < 0.0 { f64::NAN } else { *x }).collect();
+            let nonneg: Vec<f64> = raw
+                .iter()
+                .map(|x| if x.is_nan() || *x < 0.0 { f64::NAN } else { *x })
+                .collect();
             let (lo, hi) = <f64 as FrameOutput>::min_max(&nonneg);
             let finite_vals: Vec<f64> = nonneg.iter().copied().filter(|v| !v.is_nan()).collect();
             if !finite_vals.is_empty() {
-                prop_assert_eq!(lo, finite_vals.iter().copied().fold(f64::INFINITY, f64::min));
+                prop_assert_eq!(
+                    lo,
+                    finite_vals.iter().copied().fold(f64::INFINITY, f64::min)
+                );
                 prop_assert_eq!(hi, finite_vals.iter().copied().fold(0.0, f64::max));
             }
             let nonneg32: Vec<f32> = nonneg.iter().map(|&v| v as f32).collect();
             let _ = <f32 as FrameOutput>::min_max(&nonneg32);
 
-            let Ok(curve) = SakumaHattori::new(a, b, c, c2) else { return Ok(()) };
+            let Ok(curve) = SakumaHattori::new(a, b, c, c2) else {
+                return Ok(());
+            };
             let conv = FrameConverter::new(&curve, &cond, g, o);
             ok("FrameConverter::new", &conv)?;
             let Ok(conv) = conv else { return Ok(()) };
-            finite("FrameConverter::background", &FrameConverter::background(&conv))?;
+            finite(
+                "FrameConverter::background",
+                &FrameConverter::background(&conv),
+            )?;
             let counts: Vec<u16> = raw.iter().map(|&x| x.clamp(0.0, 65535.0) as u16).collect();
             let raw32: Vec<f32> = raw.iter().map(|&x| x as f32).collect();
             let n = raw.len();
@@ -1170,7 +1573,11 @@ fn fuzz_frame() {
             // Emissivity maps: cycled to the frame length (or left short, an error).
             let cyc = |m: &Option<Vec<f64>>| -> Option<Vec<f32>> {
                 m.as_ref().map(|m| {
-                    if m.is_empty() { Vec::new() } else { m.iter().cycle().take(n).map(|&x| x as f32).collect() }
+                    if m.is_empty() {
+                        Vec::new()
+                    } else {
+                        m.iter().cycle().take(n).map(|&x| x as f32).collect()
+                    }
                 })
             };
             let emis32 = cyc(&emis).unwrap_or_else(|| vec![0.9; n]);
@@ -1179,9 +1586,17 @@ fn fuzz_frame() {
             let emis64: Vec<f64> = emis32.iter().map(|&x| f64::from(x)).collect();
             let r = FrameConverter::convert_with_emissivity(&conv, &raw, &emis64, &mut out64);
             frame_check("convert_with_emissivity f64", &r, &out64)?;
-            let (gain32, offset32, bad_v) = (cyc(&gain), cyc(&offset), bad.map(|b| {
-                if b.is_empty() { b } else { b.iter().cycle().take(n).copied().collect() }
-            }));
+            let (gain32, offset32, bad_v) = (
+                cyc(&gain),
+                cyc(&offset),
+                bad.map(|b| {
+                    if b.is_empty() {
+                        b
+                    } else {
+                        b.iter().cycle().take(n).copied().collect()
+                    }
+                }),
+            );
             let corr = PixelCorrections {
                 gain: gain32.as_deref(),
                 offset: offset32.as_deref(),
@@ -1216,13 +1631,28 @@ fn emissivity_models() -> impl Strategy<Value = EmissivityModel> {
 fn fit_methods(fit: &MultiwavelengthFit, l: f64) -> Result<(), TestCaseError> {
     let p = MultiwavelengthFit::parameter_count(fit);
     prop_assert!(p >= 2);
-    ok("MultiwavelengthFit::emissivity", &MultiwavelengthFit::emissivity(fit, l))?;
-    ok("MultiwavelengthFit::emissivity (centre)", &MultiwavelengthFit::emissivity(fit, fit.centre_wavelength_m))?;
-    finite("MultiwavelengthFit::slope_per_m", &MultiwavelengthFit::slope_per_m(fit))?;
+    ok(
+        "MultiwavelengthFit::emissivity",
+        &MultiwavelengthFit::emissivity(fit, l),
+    )?;
+    ok(
+        "MultiwavelengthFit::emissivity (centre)",
+        &MultiwavelengthFit::emissivity(fit, fit.centre_wavelength_m),
+    )?;
+    finite(
+        "MultiwavelengthFit::slope_per_m",
+        &MultiwavelengthFit::slope_per_m(fit),
+    )?;
     for i in 0..p + 2 {
-        finite("MultiwavelengthFit::standard_uncertainty", &MultiwavelengthFit::standard_uncertainty(fit, i))?;
+        finite(
+            "MultiwavelengthFit::standard_uncertainty",
+            &MultiwavelengthFit::standard_uncertainty(fit, i),
+        )?;
         for j in [0, i, p + 5] {
-            finite("MultiwavelengthFit::correlation", &MultiwavelengthFit::correlation(fit, i, j))?;
+            finite(
+                "MultiwavelengthFit::correlation",
+                &MultiwavelengthFit::correlation(fit, i, j),
+            )?;
         }
     }
     Ok(())
@@ -1263,7 +1693,9 @@ fn fuzz_multiwavelength() {
                 .zip(noise.iter().chain(std::iter::repeat(&0.0)))
                 .map(|(l, e)| {
                     let eps = (e0 * (1.0 + slope * (l / lmid - 1.0))).clamp(1e-3, 1.0);
-                    quantaband::planck::spectral_radiance_wavelength(*l, t).unwrap_or(*l) * eps * (1.0 + e)
+                    quantaband::planck::spectral_radiance_wavelength(*l, t).unwrap_or(*l)
+                        * eps
+                        * (1.0 + e)
                 })
                 .collect();
             let u: Vec<f64> = radiances.iter().map(|r| r.abs() * ur).collect();
@@ -1275,9 +1707,16 @@ fn fuzz_multiwavelength() {
                 finite("multiwavelength_fit brightness", &bright)?;
             }
             let defaults = MultiwavelengthOptions::default();
-            ok("multiwavelength_fit (raw)", &multiwavelength_fit(&w, &noise, &u, c2, &defaults, &mut bright))?;
-            let channels: Vec<SpectralPoint> = w.iter().filter_map(|l| SpectralPoint::new(*l, c2).ok()).collect();
-            let fit = multiwavelength_fit_channels(&channels, &w, &radiances, &u, &options, &mut bright);
+            ok(
+                "multiwavelength_fit (raw)",
+                &multiwavelength_fit(&w, &noise, &u, c2, &defaults, &mut bright),
+            )?;
+            let channels: Vec<SpectralPoint> = w
+                .iter()
+                .filter_map(|l| SpectralPoint::new(*l, c2).ok())
+                .collect();
+            let fit =
+                multiwavelength_fit_channels(&channels, &w, &radiances, &u, &options, &mut bright);
             ok("multiwavelength_fit_channels", &fit)?;
             if let Ok(fit) = &fit {
                 fit_methods(fit, lmid)?;
@@ -1294,25 +1733,48 @@ fn fuzz_raman() {
         4000,
         (
             prop::sample::select(vec![RamanDetection::Energy, RamanDetection::PhotonCounting]),
-            args(&[arg(1e3, 1e6).edges(&[0.0]), arg(0.2e-6, 1.1e-6).edges(&[0.0]), arg(1.0, 3000.0).edges(&[0.0]), arg(1e-6, 1.0).edges(&[0.0, 1.0])]),
+            args(&[
+                arg(1e3, 1e6).edges(&[0.0]),
+                arg(0.2e-6, 1.1e-6).edges(&[0.0]),
+                arg(1.0, 3000.0).edges(&[0.0]),
+                arg(1e-6, 1.0).edges(&[0.0, 1.0]),
+            ]),
         ),
         |(det, v)| {
             let (shift, lx, t, r) = (v[0], v[1], v[2], v[3]);
             let _ = RamanDetection::exponent(det);
-            ok("raman_frequency_factor", &raman_frequency_factor(shift, lx, det))?;
-            ok("anti_stokes_stokes_ratio", &anti_stokes_stokes_ratio(shift, lx, t, det))?;
+            ok(
+                "raman_frequency_factor",
+                &raman_frequency_factor(shift, lx, det),
+            )?;
+            ok(
+                "anti_stokes_stokes_ratio",
+                &anti_stokes_stokes_ratio(shift, lx, t, det),
+            )?;
             // RamanReading: d_t_d_ratio and relative_sensitivity_per_k are "+∞ only where the
             // true value is above `f64::MAX`"; the rest must be finite.
-            let raman_check = |what: &str, r: &Result<RamanReading, Error>| -> Result<(), TestCaseError> {
-                check(what, r, Inf::Documented)?;
-                if let Ok(r) = r {
-                    ok(what, &Ok::<_, Error>((r.temperature_k, r.phonon_occupancy, r.frequency_factor, r.mode_temperature_k)))?;
-                }
-                Ok(())
-            };
+            let raman_check =
+                |what: &str, r: &Result<RamanReading, Error>| -> Result<(), TestCaseError> {
+                    check(what, r, Inf::Documented)?;
+                    if let Ok(r) = r {
+                        ok(
+                            what,
+                            &Ok::<_, Error>((
+                                r.temperature_k,
+                                r.phonon_occupancy,
+                                r.frequency_factor,
+                                r.mode_temperature_k,
+                            )),
+                        )?;
+                    }
+                    Ok(())
+                };
             raman_check("raman_temperature", &raman_temperature(shift, lx, r, det))?;
             if let Ok(rr) = anti_stokes_stokes_ratio(shift, lx, t, det) {
-                raman_check("raman_temperature (forward)", &raman_temperature(shift, lx, rr, det))?;
+                raman_check(
+                    "raman_temperature (forward)",
+                    &raman_temperature(shift, lx, rr, det),
+                )?;
             }
             Ok(())
         },

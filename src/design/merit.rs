@@ -618,8 +618,15 @@ pub fn blip_d_star_from_flux(
     positive("background_photon_flux", background_photon_flux)?;
     let m = mechanism_factor(mechanism);
     let hc = PLANCK_H * SPEED_OF_LIGHT_C;
-    Ok(wavelength_m / hc * float::sqrt(quantum_efficiency / m)
-        / float::sqrt(background_photon_flux))
+    let d = wavelength_m / hc * float::sqrt(quantum_efficiency / m)
+        / float::sqrt(background_photon_flux);
+    if d.is_finite() && d > 0.0 {
+        return Ok(d);
+    }
+    // λ/hc overflowed (λ > 3.6e283 m) or η/m underflowed (η subnormal): ∞·0 = NaN, or a
+    // spurious ∞ or 0. √η/√m/√Φ first, then λ, then 1/hc (which only enlarges).
+    let k = float::sqrt(quantum_efficiency) / float::sqrt(m) / float::sqrt(background_photon_flux);
+    Ok(wavelength_m * k / hc)
 }
 
 fn mechanism_factor(mechanism: Mechanism) -> f64 {

@@ -281,7 +281,10 @@ pub fn band_carrier_density(
         // F_{1/2}(η) = η^{3/2}/Γ(5/2)·(1 + O(η⁻²)) may exceed f64::MAX while N·F does not:
         // ((N·η)/Γ(5/2))·√η, where N·η ≥ 5e-224 is normal and overflows only if N·F does.
         // 1/Γ(5/2) = 0.752 252 778 063 675 (mpmath); e^η/F is far beyond the f64 range.
-        ((n * eta) * 0.752_252_778_063_675 * float::sqrt(eta), f64::INFINITY)
+        (
+            (n * eta) * 0.752_252_778_063_675 * float::sqrt(eta),
+            f64::INFINITY,
+        )
     } else {
         let f = fermi_dirac_integral(FdOrder::Half, eta)?;
         (n * f, float::expm1(eta - float::ln(f)))

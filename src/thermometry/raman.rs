@@ -227,7 +227,11 @@ pub fn anti_stokes_stokes_ratio(
     let n = bose_einstein(x)?;
     // n/(n + 1) = exp(−x), formed from the occupancy without cancellation; 1/(1 + 1/n) where n
     // overflows (x below 1/f64::MAX), which n/(n + 1) would turn into ∞/∞.
-    Ok(f * if n.is_finite() { n / (n + 1.0) } else { 1.0 / (1.0 + 1.0 / n) })
+    Ok(f * if n.is_finite() {
+        n / (n + 1.0)
+    } else {
+        1.0 / (1.0 + 1.0 / n)
+    })
 }
 
 /// Temperature (K) from a measured anti-Stokes/Stokes ratio `ratio` (dimensionless, corrected

@@ -270,7 +270,11 @@ pub(crate) fn upper_quantile(q: f64, nu: f64) -> Result<f64> {
             // Underflow: far beyond the root.
             hi = hi.min(t);
             // √lo·√t: lo·t can overflow for heavy tails (ν ≤ 2, tiny q).
-            t = if lo > 0.0 { sqrt(lo) * sqrt(t) } else { 0.5 * t };
+            t = if lo > 0.0 {
+                sqrt(lo) * sqrt(t)
+            } else {
+                0.5 * t
+            };
             continue;
         }
         let g = ln(tail) - target;

@@ -140,7 +140,10 @@ fn clip(text: &str) -> String {
     if text.len() <= 2000 {
         text.to_string()
     } else {
-        let cut = (0..=2000).rev().find(|&i| text.is_char_boundary(i)).unwrap_or(0);
+        let cut = (0..=2000)
+            .rev()
+            .find(|&i| text.is_char_boundary(i))
+            .unwrap_or(0);
         format!("{} …", &text[..cut])
     }
 }
@@ -206,8 +209,8 @@ pub const SPECIALS: &[f64] = &[
     f64::NEG_INFINITY,
     0.0,
     -0.0,
-    5e-324,                   // smallest subnormal
-    -5e-324,                  //
+    5e-324,                     // smallest subnormal
+    -5e-324,                    //
     2.225_073_858_507_201e-308, // largest subnormal
     f64::MIN_POSITIVE,
     -f64::MIN_POSITIVE,
@@ -377,15 +380,18 @@ pub fn slice(elem: &Arg, increasing: bool, min_len: usize, long: usize) -> Boxed
         }
         v
     });
-    let special_at = (base.clone(), elem.adversarial(), any::<prop::sample::Index>()).prop_map(
-        |(mut v, s, i)| {
+    let special_at = (
+        base.clone(),
+        elem.adversarial(),
+        any::<prop::sample::Index>(),
+    )
+        .prop_map(|(mut v, s, i)| {
             if !v.is_empty() {
                 let k = i.index(v.len());
                 v[k] = s;
             }
             v
-        },
-    );
+        });
     let non_increasing = base.clone().prop_map(|mut v| {
         v.reverse();
         if v.len() >= 2 {

@@ -175,3 +175,6 @@ show("background_photon_flux", omega * band)
 # Etendue between discs, small angle: pi^2 (r1 r2/d)^2, r = D/2
 r1, r2, d = f(1e-300) / 2, f(2.1144682391281893e63) / 2, f(5e-324)
 show("etendue_between_discs small angle", pi ** 2 * (r1 * r2 / d) ** 2)
+
+# BLIP D* from a flux: lambda/(h c) sqrt(eta/2)/sqrt(Phi) at lambda = M, eta = 5e-324, Phi = 1e10
+show("blip_d_star_from_flux(MAX, 5e-324, 1e10, PV)", M / (h * c) * sqrt(f(5e-324) / 2) / sqrt(f(1e10)))
