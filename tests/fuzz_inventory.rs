@@ -66,7 +66,7 @@ fn impl_target(line: &str) -> (Option<String>, String) {
     let base = |t: &str| -> String {
         t.trim()
             .trim_start_matches('&')
-            .split(|c: char| c == '<' || c == ' ' || c == '{')
+            .split(['<', ' ', '{'])
             .next()
             .unwrap_or("")
             .rsplit("::")

@@ -7,6 +7,8 @@
 //! expression is named beside each literal. Constants: SI 2019 exact h, c, k, e and CODATA 2018
 //! m_e. `M` is f64::MAX = 2^1024·(1 − 2^-53).
 
+#![allow(clippy::excessive_precision)] // mpmath digits kept as printed
+
 use quantaband::constants::C2Convention;
 use quantaband::design::detector::{electron_rate, noise_budget, Conversion};
 use quantaband::design::merit::{

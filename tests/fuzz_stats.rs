@@ -313,7 +313,7 @@ fn fuzz_semiconductor() {
     let alpha = arg(0.0, 1e-3 * EV).edges(&[0.0]);
     let beta = arg(1.0, 2000.0).edges(&[0.0]);
     let t = arg(1.0, 3000.0).edges(&[0.0]);
-    let fermi = arg(-1.0 * EV, 7.0 * EV);
+    let fermi = arg(-EV, 7.0 * EV);
     let density = arg(1e6, 1e30).edges(&[0.0]);
     let eta = arg(-100.0, 100.0).edges(&[-3.0, 0.0]);
     fuzz(
