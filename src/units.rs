@@ -330,7 +330,8 @@ impl SpectralUnit {
     /// Converts a coordinate from the SI base unit of this unit's kind into this unit.
     ///
     /// # Errors
-    /// [`Error::NonFinite`] for NaN/±∞, [`Error::NonPositiveSpectral`] for `value_si` ≤ 0.
+    /// [`Error::NonFinite`] for NaN/±∞, [`Error::NonPositiveSpectral`] for `value_si` ≤ 0. A
+    /// result beyond the f64 range is +∞ or 0 only when the true value is.
     ///
     /// # Examples
     /// ```
@@ -562,6 +563,7 @@ impl TemperatureUnit {
     ///
     /// # Errors
     /// [`Error::NonFinite`] for NaN/±∞; [`Error::NonPositiveTemperature`] for `kelvin` ≤ 0.
+    /// A result beyond the f64 range (°F or °R above `f64::MAX`/1.8 K) is +∞, not an error.
     ///
     /// # Examples
     /// ```
@@ -598,6 +600,10 @@ impl TemperatureUnit {
         let d = error::finite(arg, delta)?;
         Ok(match self {
             TemperatureUnit::Kelvin | TemperatureUnit::Celsius => d,
+            // d·5 would overflow for |d| > f64::MAX/5 although d·5/9 does not.
+            TemperatureUnit::Fahrenheit | TemperatureUnit::Rankine if d.abs() > f64::MAX / 5.0 => {
+                d / 9.0 * 5.0
+            }
             TemperatureUnit::Fahrenheit | TemperatureUnit::Rankine => d * 5.0 / 9.0,
         })
     }
@@ -605,7 +611,8 @@ impl TemperatureUnit {
     /// Converts a temperature *difference* in kelvin to this unit (no offset).
     ///
     /// # Errors
-    /// [`Error::NonFinite`] for NaN/±∞.
+    /// [`Error::NonFinite`] for NaN/±∞. A result beyond the f64 range (°F or °R for
+    /// |ΔT| > `f64::MAX`/1.8 K) is ±∞, not an error.
     ///
     /// # Examples
     /// ```
@@ -624,7 +631,8 @@ impl TemperatureUnit {
 /// Converts an absolute temperature between two units.
 ///
 /// # Errors
-/// As [`TemperatureUnit::to_kelvin`].
+/// As [`TemperatureUnit::to_kelvin`]. A result beyond the f64 range is +∞ (see
+/// [`TemperatureUnit::from_kelvin`]).
 ///
 /// # Examples
 /// ```
@@ -646,7 +654,8 @@ pub fn convert_temperature(
 /// Converts a temperature difference between two units.
 ///
 /// # Errors
-/// [`Error::NonFinite`] for NaN/±∞.
+/// [`Error::NonFinite`] for NaN/±∞. A result beyond the f64 range is ±∞ (see
+/// [`TemperatureUnit::difference_from_kelvin`]).
 ///
 /// # Examples
 /// ```

@@ -54,6 +54,10 @@
 //! - **Shot noise** is Poisson (variance = mean number of electrons): photovoltaic or
 //!   integrating detectors. Photoconductors add recombination noise (variance × 2); that enters
 //!   only [`merit::blip_d_star`] through [`Mechanism::Photoconductive`].
+//! - **Range.** Valid inputs whose true result lies beyond the f64 range (a D* from a NETD of
+//!   1e-300 K, the small-angle solid angle of F = 1e-160, a spot from a distance-to-spot ratio of
+//!   1e-320…) return +∞ or 0, not an error and never NaN; products and quotients are ordered so
+//!   that this happens only where the true value is out of range.
 //!
 //! # Cautions
 //!

@@ -72,6 +72,7 @@ pub enum ConeForm {
 ///
 /// # Errors
 /// `NonFinite` / `NonPositive` for `f_number`.
+/// The small-angle form is +∞ only where its true value π/(4F²) is above `f64::MAX`.
 ///
 /// # Accuracy
 /// A few ulp; the exact form agrees with mpmath quadrature of ∫cos θ dΩ over the cone
@@ -110,6 +111,7 @@ pub fn projected_solid_angle_sr(f_number: f64, cone: ConeForm) -> Result<f64> {
 ///
 /// # Errors
 /// `NonFinite` / `NonPositive` for `area_m2` or `f_number`.
+/// +∞ only where the true value is above `f64::MAX` (see [`projected_solid_angle_sr`]).
 ///
 /// # Accuracy
 /// A few ulp: the area times [`projected_solid_angle_sr`] (quadrature check within 1.6e-16).
@@ -250,7 +252,15 @@ pub fn etendue_between_discs(
         }
         ConeForm::SmallAngle => {
             let q = a * b / h;
-            pi2 * q * q
+            let g = pi2 * q * q;
+            if !g.is_normal() {
+                // Lengths so far apart (beyond ~1e300) that a or h underflowed after scaling
+                // (0/0, or a spurious 0 or ∞): π²(r1·r2/d)² from logarithms (≈ 1e-13 relative).
+                return Ok(float::exp(
+                    2.0 * (float::ln(PI) + float::ln(r1) + float::ln(r2) - float::ln(d)),
+                ));
+            }
+            g
         }
     };
     Ok(g * m * m)
@@ -419,6 +429,7 @@ impl Optics {
     ///
     /// # Errors
     /// Those of [`Optics::validate`].
+    /// A true factor above `f64::MAX` (the small-angle form with F below about 1e-154) is +∞.
     ///
     /// # Accuracy
     /// A few ulp. The cos⁴ law itself is the small-aperture limit: the exact off-axis
@@ -459,6 +470,7 @@ impl Optics {
 ///
 /// # Errors
 /// `NonFinite` / `OutOfRange` (`radiance` negative); those of [`Optics::validate`].
+/// A true irradiance above `f64::MAX` (F-numbers far below 1) is +∞.
 ///
 /// # Accuracy
 /// A few ulp: L times [`Optics::irradiance_factor_sr`], whose solid angle agrees with mpmath
@@ -479,7 +491,17 @@ impl Optics {
 /// and Evaluation of Infrared Imaging Systems*, 3rd ed., SPIE Press (2008), ch. 2 — from memory.
 pub fn focal_plane_irradiance(radiance: f64, optics: &Optics) -> Result<f64> {
     super::scene::non_negative("radiance", radiance)?;
-    Ok(radiance * optics.irradiance_factor_sr()?)
+    Ok(times(radiance, optics.irradiance_factor_sr()?))
+}
+
+/// x·k, with 0 for x = 0 also when k overflowed to ∞ (small-angle F below ~1e-154), where the
+/// product would be NaN.
+fn times(x: f64, k: f64) -> f64 {
+    if x == 0.0 {
+        0.0
+    } else {
+        x * k
+    }
 }
 
 /// Flux on one pixel and its derivative with respect to the scene temperature.
@@ -553,7 +575,7 @@ pub fn pixel_flux(
     let k = optics.irradiance_factor_sr()? * pixel_area_m2;
     Ok(PixelFlux {
         kind: scene.kind,
-        flux: scene.radiance * k,
-        d_flux_dt: scene.d_radiance_dt * k,
+        flux: times(scene.radiance, k),
+        d_flux_dt: times(scene.d_radiance_dt, k),
     })
 }

@@ -145,6 +145,11 @@ pub(crate) fn upper_tail(t: f64, nu: f64) -> f64 {
     if t.is_infinite() {
         return 0.0;
     }
+    if nu < 1e-300 {
+        // Q = ½ − O(ν·ln t) with ln t ≤ 710: ½ to the last bit. Below, a = ν/2 would lose its
+        // bits (or round to 0 and give NaN).
+        return 0.5;
+    }
     let a = 0.5 * nu;
     let t2 = t * t;
     let x = 1.0 / (1.0 + t2 / nu);
@@ -264,7 +269,12 @@ pub(crate) fn upper_quantile(q: f64, nu: f64) -> Result<f64> {
         if !(tail > 0.0) {
             // Underflow: far beyond the root.
             hi = hi.min(t);
-            t = if lo > 0.0 { sqrt(lo * t) } else { 0.5 * t };
+            // √lo·√t: lo·t can overflow for heavy tails (ν ≤ 2, tiny q).
+            t = if lo > 0.0 {
+                sqrt(lo) * sqrt(t)
+            } else {
+                0.5 * t
+            };
             continue;
         }
         let g = ln(tail) - target;
@@ -289,12 +299,18 @@ pub(crate) fn upper_quantile(q: f64, nu: f64) -> Result<f64> {
             } else if lo == 0.0 {
                 0.25 * t
             } else {
-                sqrt(lo * hi)
+                // √lo·√hi: lo·hi overflows for quantiles beyond 1e154 (the density there may
+                // underflow, so this bisection in ln t is what converges).
+                sqrt(lo) * sqrt(hi)
             };
         }
         if !next.is_finite() {
-            // Quantile beyond the largest f64 (tiny ν with a small tail probability).
-            return Ok(f64::INFINITY);
+            if t < f64::MAX {
+                next = f64::MAX;
+            } else {
+                // Quantile beyond the largest f64 (tiny ν with a small tail probability).
+                return Ok(f64::INFINITY);
+            }
         }
         if (next - t).abs() <= 4e-16 * t || (hi.is_finite() && hi - lo <= 4e-16 * hi) {
             return Ok(next);
@@ -316,7 +332,9 @@ pub(crate) fn upper_quantile(q: f64, nu: f64) -> Result<f64> {
 ///
 /// # Errors
 /// `NonFinite` for NaN; `OutOfRange` for `probability` outside (0, 1) or ν ≤ 0 (range
-/// `(0, inf]`); `NotConverged` if the safeguarded Newton iteration fails (not observed).
+/// `(0, inf]`); `NotConverged` if the safeguarded Newton iteration fails (seen only for ν < 1
+/// with a tail probability far below 1e-100, where the quantile is beyond the f64 range).
+/// A quantile beyond the f64 range is otherwise returned as ±∞.
 ///
 /// # Accuracy
 /// Against mpmath at 50 digits (`findroot` on the incomplete beta function, confirmed by
@@ -364,7 +382,8 @@ pub fn student_t_quantile(probability: f64, degrees_of_freedom: f64) -> Result<f
 /// ```
 ///
 /// # Errors
-/// `NonFinite`; `OutOfRange` for p outside (0, 1) or ν ≤ 0.
+/// `NonFinite`; `OutOfRange` for p outside (0, 1) or ν ≤ 0; as [`student_t_quantile`]
+/// (`NotConverged`, or +∞ for a factor beyond the f64 range: ν far below 1 with p near 1).
 ///
 /// # Accuracy
 /// As [`student_t_quantile`] (the tail probability (1 − p)/2 is formed exactly).
