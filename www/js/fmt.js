@@ -49,14 +49,14 @@ export function formatNumber(v, o = {}) {
   const [m, e] = v.toExponential(digits - 1).split('e');
   const exp = Number(e);
   const plainMax = o.plainMax ?? digits;
-  if (exp >= -3 && exp < plainMax) {
+  if (exp >= -3 && exp < plainMax && o.plainMax !== -Infinity) {
     let s = v.toFixed(Math.max(0, digits - 1 - exp));
     if (o.trim) s = trimZeros(s);
     return s.replace('-', MINUS);
   }
   let mant = o.trim ? trimZeros(m) : m;
   mant = mant.replace('-', MINUS);
-  if (o.trim && (mant === '1' || mant === `${MINUS}1`) && o.bareDecade) return `${mant === '1' ? '' : MINUS}10${superscript(exp)}`;
+  if (o.trim && (mant === '1' || mant === `${MINUS}1`) && o.bareDecade) return exp === 0 ? mant : `${mant === '1' ? '' : MINUS}10${superscript(exp)}`;
   return `${mant}×10${superscript(exp)}`;
 }
 
@@ -66,7 +66,7 @@ export function formatNumber(v, o = {}) {
  */
 export function formatResolved(v, unit, o = {}) {
   const u = unit ? ` ${unit}` : '';
-  if (typeof v === 'number' && Number.isFinite(v) && o.resolution > 0 && Math.abs(v) < o.resolution) {
+  if (typeof v === 'number' && Number.isFinite(v) && v !== 0 && o.resolution > 0 && Math.abs(v) < o.resolution) {
     return `0${u} (below ${formatNumber(o.resolution, { digits: 1, trim: true })}${u})`;
   }
   return `${formatNumber(v, o)}${u}`;
@@ -81,9 +81,14 @@ export function formatTick(v, step) {
   return formatNumber(v, { digits, trim: true, plainMax: 5 });
 }
 
-/** A tick label for a logarithmic axis (decades are written 10ⁿ). */
-export function formatLogTick(v) {
-  return formatNumber(v, { digits: 3, trim: true, plainMax: 4, bareDecade: true });
+/**
+ * A tick label for a logarithmic axis: decades are written 10ⁿ; with `plain`, values from
+ * 0.001 to 9999 are written plainly (an axis spanning few decades).
+ */
+export function formatLogTick(v, plain = true) {
+  return plain
+    ? formatNumber(v, { digits: 3, trim: true, plainMax: 4, bareDecade: true })
+    : formatNumber(v, { digits: 3, trim: true, plainMax: -Infinity, bareDecade: true });
 }
 
 /** A value written back into an input field (12 significant digits, trimmed). */
@@ -193,14 +198,7 @@ export function parseTable(text, columns) {
   String(text ?? '').split(/\r?\n/).forEach((rawLine, k) => {
     const s = rawLine.trim();
     if (s === '' || s.startsWith('#')) return;
-    let cells;
-    if (/[;\t]/.test(s)) cells = s.split(/\s*[;\t]\s*/);
-    else if (s.includes(',')) {
-      const byComma = s.split(/\s*,\s*/);
-      const bySpace = s.split(/\s+/);
-      cells = byComma.length === columns ? byComma : bySpace.length === columns ? bySpace : byComma;
-    } else cells = s.split(/\s+/);
-    cells = cells.filter((c) => c !== '');
+    const { cells } = splitRow(s, columns);
     const parsed = cells.map((c) => {
       try {
         return parseNumber(c);
@@ -216,6 +214,34 @@ export function parseTable(text, columns) {
     lines.push(k + 1);
   });
   return { rows, lines };
+}
+
+/**
+ * Splits one table line into its cells (see parseTable) and names the separator used, so that
+ * a line can be written back with one cell changed: { cells, sep }.
+ */
+export function splitRow(line, columns) {
+  const s = line.trim();
+  let cells;
+  let sep;
+  if (/[;\t]/.test(s)) {
+    cells = s.split(/\s*[;\t]\s*/);
+    sep = s.includes(';') ? '; ' : '\t';
+  } else if (s.includes(',')) {
+    const byComma = s.split(/\s*,\s*/);
+    const bySpace = s.split(/\s+/);
+    if (byComma.length !== columns && bySpace.length === columns) {
+      cells = bySpace;
+      sep = ' ';
+    } else {
+      cells = byComma;
+      sep = ', ';
+    }
+  } else {
+    cells = s.split(/\s+/);
+    sep = ' ';
+  }
+  return { cells: cells.filter((c) => c !== ''), sep };
 }
 
 /** Escapes text for HTML. */

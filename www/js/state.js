@@ -1,15 +1,27 @@
 // Page state in the URL fragment: every control marked `data-state` is saved as id=value in
-// `#...` (only values that differ from the page's defaults), so a link reproduces the inputs.
+// `#…` when it differs from the page's default, so a copied link reproduces the inputs. The
+// page-wide temperature unit (#tu) is saved too. A fragment is applied in three steps: every
+// control back to its default, the page-wide unit applied as a user would (converting the
+// default values, so a default is never reinterpreted), then the saved values as they are.
+import { applyTemperatureUnit } from './fields.js';
 
 let defaults = new Map();
 let timer = null;
 
-function controls() {
-  return [...document.querySelectorAll('[data-state]')].filter((e) => e.id);
+function controls(root = document) {
+  return [...root.querySelectorAll('[data-state]')].filter((e) => e.id);
 }
 
 function valueOf(e) {
   return e.type === 'checkbox' ? (e.checked ? '1' : '0') : e.value;
+}
+
+function setValue(e, v) {
+  if (e.type === 'checkbox') e.checked = v === '1';
+  else if (e.tagName === 'SELECT' && ![...e.options].some((o) => o.value === v)) return false;
+  else e.value = v;
+  if (e.tagName === 'SELECT') e.dataset.prev = e.value;
+  return true;
 }
 
 /** Remembers the current (default) values; call once after the controls are built. */
@@ -41,17 +53,23 @@ export function saveState() {
   }, 150);
 }
 
+/** Puts the controls under `root` back to their defaults, in the page-wide temperature unit. */
+export function resetControls(root) {
+  for (const e of controls(root)) if (defaults.has(e.id) && !e.hasAttribute('data-global')) setValue(e, defaults.get(e.id));
+  const global = document.querySelector('select[data-global]');
+  if (global) applyTemperatureUnit(global.value, root);
+}
+
 /** Applies the state in the address; returns the ids restored. */
 export function restoreState(hash = location.hash) {
   const p = new URLSearchParams(hash.replace(/^#/, ''));
+  for (const e of controls()) if (defaults.has(e.id)) setValue(e, defaults.get(e.id));
+  const global = document.querySelector('select[data-global]');
+  if (global && p.has(global.id) && setValue(global, p.get(global.id))) applyTemperatureUnit(global.value);
   const done = [];
   for (const e of controls()) {
-    const v = p.has(e.id) ? p.get(e.id) : defaults.get(e.id);
-    if (v === undefined) continue;
-    if (e.type === 'checkbox') e.checked = v === '1';
-    else if (e.tagName === 'SELECT' && ![...e.options].some((o) => o.value === v)) continue;
-    else e.value = v;
-    if (p.has(e.id)) done.push(e.id);
+    if (e === global || !p.has(e.id)) continue;
+    if (setValue(e, p.get(e.id))) done.push(e.id);
   }
   return done;
 }
