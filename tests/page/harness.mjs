@@ -96,14 +96,15 @@ export function rel(a, b) {
 
 /** Parses downloaded CSV text (skipping "#" comments) into { header, rows }. */
 export function parseCsv(text) {
-  const lines = text.split(/\r?\n/).filter((l) => l && !l.startsWith('#'));
+  const lines = text.replace(/^\uFEFF/, '').split(/\r?\n/).filter((l) => l && !l.startsWith('#') && !l.startsWith('"#'));
   const split = (l) => l.match(/("([^"]|"")*"|[^,]*)(,|$)/g).filter((x) => x !== '').map((x) => x.replace(/,$/, '').replace(/^"|"$/g, '').replace(/""/g, '"'));
-  return { header: split(lines[0]), rows: lines.slice(1).map((l) => l.split(',').map(Number)) };
+  // An empty cell is an undefined value: NaN here (Number('') would be 0).
+  return { header: split(lines[0]), rows: lines.slice(1).map((l) => l.split(',').map((c) => (c === '' ? NaN : Number(c)))) };
 }
 
 /** Clicks a button that triggers a download and returns the downloaded text. */
 export async function downloadText(page, buttonSelector) {
   const [dl] = await Promise.all([page.waitForEvent('download'), page.click(buttonSelector)]);
-  const path = await dl.path();
-  return { name: dl.suggestedFilename(), text: readFileSync(path, 'utf8') };
+  const bytes = readFileSync(await dl.path());
+  return { name: dl.suggestedFilename(), text: bytes.toString('utf8'), bytes };
 }

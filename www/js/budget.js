@@ -21,7 +21,10 @@ export function temperatureDecimals(kelvin) {
  * input echoed back (its trailing zeros carry no information).
  */
 export function showTemperature(kelvin, unit, trim = false) {
-  return `${formatNumber(api.fromK(kelvin, unit), { decimals: temperatureDecimals(kelvin), trim })} ${symbol(unit)}`;
+  const v = api.fromK(kelvin, unit);
+  // Very small or very large kelvin values: significant digits (fixed decimals would hide them).
+  const o = unit === 'K' && (kelvin < 1e-3 || kelvin >= 1e7) ? { digits: 7, trim } : { decimals: temperatureDecimals(kelvin), trim };
+  return `${formatNumber(v, o)} ${symbol(unit)}`;
 }
 
 /**
@@ -55,12 +58,12 @@ export function fillBudget(table, rows, combinedK, temperatureK, unit) {
       r.name,
       r.value,
       r.u,
-      formatResolved(sens, sUnit, { digits: 4, resolution: sRes }),
-      showDifference(r.contributionK, unit, 2, resK),
-      formatResolved(100 * r.share, '%', { digits: 3, resolution: 1e-7 }),
+      { text: formatResolved(sens, sUnit, { digits: 4, resolution: sRes }), value: r.sensitivityK },
+      { text: showDifference(r.contributionK, unit, 2, resK), value: r.contributionK },
+      { text: formatResolved(100 * r.share, '%', { digits: 3, resolution: 1e-7 }), value: r.share },
     ];
   });
-  body.push([{ html: 'Combined standard uncertainty, <i>u</i><sub>c</sub>' }, '', '', '', showDifference(combinedK, unit, 2, resK), '100 %']);
+  body.push([{ html: 'Combined standard uncertainty, <i>u</i><sub>c</sub>' }, '', '', '', { text: showDifference(combinedK, unit, 2, resK), value: combinedK }, '100 %']);
   fillTable(table, ['Input', 'Value', { html: 'Standard uncertainty <i>u</i>' }, 'Sensitivity ∂T/∂x', { html: 'Contribution |∂T/∂x|·<i>u</i>' }, 'Share of variance'], body);
 }
 

@@ -417,7 +417,8 @@ export function showError(section, e) {
     const m = $(`${e.fieldId}-msg`);
     if (c && m && !c.closest('[hidden]')) {
       c.setAttribute('aria-invalid', 'true');
-      m.textContent = e.message;
+      const note = m.dataset.code === 'UNIT_NOT_CHANGED' ? ` ${m.textContent}` : ''; // keep a refused unit change in view
+      m.textContent = e.message + note;
       m.dataset.code = e.code;
       return;
     }

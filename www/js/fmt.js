@@ -93,7 +93,8 @@ export function formatLogTick(v, plain = true) {
 
 /** A value written back into an input field (12 significant digits, trimmed). */
 export function formatInput(v) {
-  return formatNumber(v, { digits: 12, trim: true, plainMax: 9 });
+  // A field holds what a user would type: the ASCII hyphen-minus, not U+2212.
+  return formatNumber(v, { digits: 12, trim: true, plainMax: 9 }).replace(MINUS, '-');
 }
 
 // ------------------------------------------------------------------------------- reading

@@ -289,8 +289,9 @@ function nearest(arr, v) {
 }
 
 /**
- * Builds a <table> from a header row and data rows. A cell is text, or { html } for markup
- * the page writes itself (subscripts).
+ * Builds a <table> from a header row and data rows. A cell is text, { html } for markup the
+ * page writes itself (subscripts), or { text, value } to keep the full-precision SI value in
+ * the cell's data-value.
  */
 export function fillTable(table, header, rows) {
   const cap = table.querySelector('caption');
@@ -310,8 +311,11 @@ export function fillTable(table, header, rows) {
     r.forEach((c, i) => {
       const cell = document.createElement(i === 0 ? 'th' : 'td');
       if (i === 0) cell.scope = 'row';
-      if (c && typeof c === 'object') cell.innerHTML = c.html;
-      else cell.textContent = c;
+      if (c && typeof c === 'object') {
+        if (c.html !== undefined) cell.innerHTML = c.html;
+        else cell.textContent = c.text;
+        if (c.value !== undefined) cell.dataset.value = String(c.value); // full precision, SI
+      } else cell.textContent = c;
       row.appendChild(cell);
     });
   }

@@ -170,8 +170,8 @@ export const calibSection = {
       ['A', 'A (≈ mean wavelength)', `${formatNumber(curve.aM / um, { digits: 7 })} µm`],
       ['B', 'B', `${formatNumber(curve.bMK / um, { digits: 7 })} µm·K`],
       ['C', 'C', `${formatNumber(curve.c, { digits: 7 })} counts`],
-      ['lm', 'Response: mean wavelength', `${formatNumber(moments.mean, { digits: 6 })} ${symbol(ru)}`],
-      ['ls', 'Response: spread (standard deviation)', `${formatNumber(moments.spread, { digits: 6 })} ${symbol(ru)}`],
+      ['lm', 'Response: mean wavelength', `${formatNumber(api.convertSpectral(moments.mean, ru, 'um'), { digits: 6 })} µm`],
+      ['ls', 'Response: spread (standard deviation)', `${formatNumber(api.convertSpectral(moments.spread, ru, 'um'), { digits: 6 })} µm`],
     ];
     const theory = api.curveFromResponse(respDef, tK[tK.length >> 1]);
     fitItems.push(['Ar', 'A predicted from the response', `${formatNumber(theory.aM / um, { digits: 6 })} µm`]);
@@ -188,7 +188,7 @@ export const calibSection = {
       const fitted = bare.signal(tK[i]);
       resShown[i] = api.diffFromK(fit.residualsK[i], ou) * 1e3; // T_curve(S_i) − T_i
       rows.push([
-        formatNumber(tShown[i], { decimals: temperatureDecimals(tK[i]) }),
+        formatNumber(tShown[i], { decimals: temperatureDecimals(tK[i]), trim: true }),
         formatNumber(sig[i], { digits: 7 }),
         formatNumber(fitted, { digits: 7 }),
         `${formatNumber((100 * (sig[i] - fitted)) / fitted, { digits: 3 })} %`,

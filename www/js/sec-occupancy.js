@@ -67,7 +67,7 @@ export const occupancySection = {
     const head = [`${xName} (${xLabel})`, 'level energy (J)', 'Bose-Einstein occupancy', 'Fermi-Dirac occupancy', 'Maxwell-Boltzmann occupancy'];
     last = {
       csv: toCsv(head, [...X].map((x, i) => [x, EJ[i], be[i], fd[i], mb[i]]),
-        [`quantaband occupancy; T = ${t} K; mu = ${muJ} J; Bose-Einstein cells are empty where E <= mu (undefined)`]),
+        [`quantaband occupancy; T = ${t} K; mu = ${muJ} J; Bose-Einstein cells are empty where E <= mu (no finite value there)`]),
     };
   },
 };
