@@ -52,6 +52,10 @@ test('opens from file://, becomes ready with no console errors and no network re
     await page.locator(`#${id}`).screenshot({ path: resolve(ARTIFACTS, `section-${id}.png`) });
   }
   await page.screenshot({ path: resolve(ARTIFACTS, 'page-full.png'), fullPage: true });
+  // Every number shown is written by the page's one formatter: no "e+5", no "NaN", no "K/1",
+  // no literal underscores in results, tables, legends and readouts.
+  const shown = await page.$$eval('dl.results, table.res, figure.plot, .assume, .scale', (els) => els.map((e) => e.innerText).join('\n'));
+  assert.doesNotMatch(shown, /\d[eE][+-]?\d|NaN|Infinity|undefined|K\/1\b|_/);
   assert.deepEqual(consoleErrors, []);
   assert.deepEqual(foreignRequests(requests), []);
   await context.close();

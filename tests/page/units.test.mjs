@@ -117,7 +117,21 @@ test('every input-unit menu converts its fields and changes no result', async ()
       for (const f of m.fields) {
         phys0[f.id] = f.kind === 'table' ? await tableFirstColumn(page, f.id) : physical(f.kind, f.text, original, lengthsOnly);
       }
-      for (const target of m.options.filter((o) => o !== original).concat([original])) {
+      // Every other temperature unit; for a spectral menu, the first unit of each other kind and
+      // one more unit of the same kind (µm → nm → cm⁻¹ → THz …); then back to the original.
+      const kindOf = (u) => (u in LENGTH ? 'length' : u in FREQ ? 'frequency' : u === 'cm-1' ? 'wavenumber' : u.endsWith('eV') ? 'energy' : u);
+      const seen = new Set([kindOf(original)]);
+      const targets = m.options.filter((o) => {
+        if (o === original) return false;
+        if (m.kind !== 'spectral' || !seen.has(kindOf(o))) {
+          seen.add(kindOf(o));
+          return true;
+        }
+        return false;
+      });
+      const same = m.options.find((o) => o !== original && kindOf(o) === kindOf(original));
+      if (m.kind === 'spectral' && same && !targets.includes(same)) targets.unshift(same);
+      for (const target of targets.concat([original])) {
         const from = await page.inputValue(`#${m.id}`);
         await select(page, m.id, target);
         assert.equal(await page.inputValue(`#${m.id}`), target, `${m.id} switched to ${target}`);
@@ -151,6 +165,7 @@ test('every input-unit menu converts its fields and changes no result', async ()
   }
   const all = (await menuInfo(page)).map((m) => m.id);
   assert.deepEqual(all.filter((id) => !tested.has(id)), [], 'every input-unit menu was switched');
+  console.log(`${tested.size} unit menus switched`);
   assert.deepEqual(consoleErrors, []);
   await context.close();
 });
