@@ -350,6 +350,7 @@ export function setupFields(root) {
     for (const id of (sel.dataset.for || '').split(/\s+/).filter(Boolean)) unitMenuOf.set(id, sel);
     if (sel.dataset.for) sel.addEventListener('change', () => convertMenu(sel));
   }
+  for (const q of root.querySelectorAll('.fld > .qty')) q.parentElement.classList.add('with-qty');
   for (const c of root.querySelectorAll('.fld input, .fld select, .fld textarea')) {
     if (!c.id || $(`${c.id}-msg`)) continue;
     const msg = document.createElement('p');

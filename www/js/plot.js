@@ -296,6 +296,7 @@ function nearest(arr, v) {
 export function fillTable(table, header, rows) {
   const cap = table.querySelector('caption');
   table.textContent = '';
+  table.dataset.filled = '';
   if (cap) table.appendChild(cap);
   const tr = table.createTHead().insertRow();
   for (const h of header) {
@@ -332,7 +333,10 @@ export function fillResults(dl, items) {
     else dt.textContent = label;
     const dd = document.createElement('dd');
     dd.textContent = value;
-    if (opts.big) dd.className = 'big';
+    if (opts.big) {
+      dd.className = 'big';
+      div.className = 'big';
+    }
     div.append(dt, dd);
     dl.appendChild(div);
   }

@@ -62,7 +62,7 @@ export const bandSection = {
     for (let i = 0; i < n; i++) {
       const c = (100 * dLs[i]) / Ls[i];
       rows.push([
-        formatNumber(shown[i], { decimals: temperatureDecimals(temps[i]) }),
+        formatNumber(shown[i], { decimals: temperatureDecimals(temps[i]), trim: true }),
         formatNumber(Ls[i], { digits: 6 }),
         formatNumber(Ps[i], { digits: 6 }),
         formatNumber(dLs[i] * perDeg, { digits: 6 }),
