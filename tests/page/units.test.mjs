@@ -9,7 +9,7 @@
 // and E = hν with h = 6.626 070 15×10⁻³⁴ J·s, e = 1.602 176 634×10⁻¹⁹ C (exact, SI 2019).
 import { test, before, after } from 'node:test';
 import assert from 'node:assert/strict';
-import { launch, open, select, settle, num, rel, parseCsv, downloadText } from './harness.mjs';
+import { launch, open, select, setValue, settle, num, rel, parseCsv, downloadText } from './harness.mjs';
 
 let browser;
 before(async () => {
@@ -240,6 +240,21 @@ test('one temperature unit for all sections: converted fields and results, kept 
   assert.equal(await second.page.inputValue('#tu'), 'degF');
   await select(second.page, 'tu', 'K');
   assert.deepEqual(await second.page.$$eval('[data-kind="temperature"], [data-kind="tdiff"]', (fs) => Object.fromEntries(fs.map((x) => [x.id, x.value]))), k);
+  // A field in a unit other than the page-wide one, or typed with its default text in the
+  // page-wide unit, comes back from the link in the same unit.
+  await select(second.page, 'tu', 'degC');
+  await select(second.page, 'bd-tu', 'K');
+  await setValue(second.page, 'bd-t', '350');
+  await setValue(second.page, 'oc-t', '300'); // 300 °C, the default text of a 300 K field
+  await second.page.waitForFunction(() => location.hash.includes('bd-t=350') && location.hash.includes('oc-t=300'));
+  const link = await second.page.evaluate(() => location.hash);
+  const third = await open(browser, link);
+  assert.equal(await third.page.inputValue('#bd-t'), '350');
+  assert.equal(await third.page.inputValue('#bd-tu'), 'K');
+  assert.equal(await third.page.inputValue('#oc-t'), '300');
+  assert.equal(await third.page.inputValue('#oc-tu'), 'degC');
+  assert.equal(await third.page.inputValue('#bd-t0'), '-23.15', 'an untouched field: its default, converted');
+  await third.context.close();
   // "Reset this section" restores its defaults in the page-wide unit.
   await select(second.page, 'tu', 'degC');
   await second.page.fill('#bd-t', '99');

@@ -46,6 +46,11 @@ export function labelOf(id) {
   return l ? l.textContent.replace(/\s*\([^)]*\)\s*$/, '').replace(/[:\s]+$/, '').trim() : id;
 }
 
+/** The unit menu governing field `id` (undefined for a field without one). */
+export function menuOf(id) {
+  return unitMenuOf.get(id);
+}
+
 /** The unit (core name) of field `id`: its menu's value or data-unit. */
 export function unitOf(id) {
   const s = unitMenuOf.get(id);

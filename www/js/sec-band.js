@@ -3,7 +3,7 @@ import { api } from './api.js';
 import { formatNumber } from './fmt.js';
 import { drawPlot, fillTable, fillResults } from './plot.js';
 import { toCsv, download } from './csv.js';
-import { tag, tagPair, number, kelvin, spectral, count, FieldError } from './fields.js';
+import { tag, tagPair, number, kelvin, spectral, count, FieldError, typed, unitText } from './fields.js';
 import { bandUnit, symbol } from './units.js';
 import { showTemperature, temperatureDecimals } from './budget.js';
 
@@ -50,7 +50,10 @@ export const bandSection = {
     // Sweep
     const t0 = kelvin('bd-t0');
     const t1 = kelvin('bd-t1');
-    if (!(t1 > t0)) throw new FieldError('bd-t1', `Sweep end must be above the sweep start.`);
+    if (!(t1 > t0)) {
+      const U = unitText('bd-t0');
+      throw new FieldError('bd-t1', `Sweep end (${typed('bd-t1')} ${U}) must be above the sweep start (${typed('bd-t0')} ${U}).`);
+    }
     const n = count('bd-n', 2, 200);
     const temps = Float64Array.from({ length: n }, (_, i) => t0 + ((t1 - t0) * i) / (n - 1));
     const Ls = energy.bands(lo, hi, temps);

@@ -1,9 +1,12 @@
 // Page state in the URL fragment: every control marked `data-state` is saved as id=value in
 // `#…` when it differs from the page's default, so a copied link reproduces the inputs. The
-// page-wide temperature unit (#tu) is saved too. A fragment is applied in three steps: every
-// control back to its default, the page-wide unit applied as a user would (converting the
-// default values, so a default is never reinterpreted), then the saved values as they are.
-import { applyTemperatureUnit } from './fields.js';
+// page-wide temperature unit (#tu) is saved too; a temperature menu's default is the page-wide
+// unit, and a field whose unit menu has moved from its default is always saved (its text alone
+// would not say which unit it is in). A fragment is applied in four steps: every control back
+// to its default; the page-wide unit applied as a user would (converting the default values);
+// the saved unit menus applied the same way; then the saved values as they are, each in the
+// unit its menu now shows. A default is therefore never reinterpreted in another unit.
+import { applyTemperatureUnit, convertMenu, menuOf } from './fields.js';
 
 let defaults = new Map();
 let timer = null;
@@ -32,9 +35,13 @@ export function captureDefaults() {
 /** The fragment text for the current state. */
 export function stateFragment() {
   const p = new URLSearchParams();
+  const global = document.querySelector('select[data-global]');
   for (const e of controls()) {
     const v = valueOf(e);
-    if (defaults.get(e.id) !== v) p.set(e.id, v);
+    const follows = global && e !== global && e.matches('select[data-unit="temperature"]');
+    const menu = menuOf(e.id);
+    const moved = menu && menu.value !== defaults.get(menu.id);
+    if ((follows ? global.value : defaults.get(e.id)) !== v || moved) p.set(e.id, v);
   }
   return p.toString();
 }
@@ -68,7 +75,11 @@ export function restoreState(hash = location.hash) {
   if (global && p.has(global.id) && setValue(global, p.get(global.id))) applyTemperatureUnit(global.value);
   const done = [];
   for (const e of controls()) {
-    if (e === global || !p.has(e.id)) continue;
+    if (e === global || !p.has(e.id) || !e.matches('select[data-unit][data-for]')) continue;
+    if ([...e.options].some((o) => o.value === p.get(e.id)) && convertMenu(e, p.get(e.id))) done.push(e.id);
+  }
+  for (const e of controls()) {
+    if (e === global || !p.has(e.id) || e.matches('select[data-unit][data-for]')) continue;
     if (setValue(e, p.get(e.id))) done.push(e.id);
   }
   return done;
