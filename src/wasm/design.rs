@@ -1,7 +1,8 @@
 //! Instrument design for JavaScript: the prepared pixel design (`DetectorDesign` in the facade,
 //! `src/wasm/js/design.js`), read once from a [`DesignDefinition`], and the design's free
 //! functions of plain numbers (throughput, figures of merit, background limit, source and spot
-//! corrections) behind one dispatching export.
+//! corrections) behind one dispatching export, `designNumber` (one export instead of twenty
+//! keeps the module small), plus `designSpotFill` for the one object result.
 //!
 //! Enumerations (cone form, background view, mechanism, cavity shape) arrive as small integer
 //! codes: the facade checks the strings the caller wrote and names the parameter in its errors.
@@ -12,7 +13,6 @@ use wasm_bindgen::prelude::*;
 
 use super::config::read;
 use super::error::{in_config, number, some, to_js, Fail};
-use super::instrument::InstrumentHandle;
 use super::scratch::{map_in_place, status};
 use super::testing::Live;
 use crate::design::definition::{DesignDefinition, PreparedDesign, SceneDefinition};
@@ -26,7 +26,7 @@ use crate::design::merit::{
 use crate::design::scene::non_negative;
 use crate::design::sources::{
     cavity_emissivity_gouffe, spot_diameter_focused_m, spot_diameter_m, spot_fill,
-    sse_corrected_signal, sse_corrected_temperature, sse_relative_change,
+    sse_corrected_signal, sse_relative_change,
 };
 use crate::design::throughput::{
     etendue_between_discs, etendue_from_aperture, etendue_from_f_number, projected_solid_angle_sr,
@@ -211,19 +211,4 @@ pub fn design_number(op: u32, a: f64, b: f64, c: f64, d: f64, e: f64, f: f64) ->
 #[wasm_bindgen(js_name = designSpotFill)]
 pub fn design_spot_fill(target_m: f64, spot_m: f64) -> Option<JsValue> {
     some((|| to_js(&spot_fill(target_m, spot_m)?))())
-}
-
-/// A reading corrected for the size-of-source effect, inverted through the instrument's model.
-#[wasm_bindgen(js_name = designSizeOfSourceTemperature)]
-pub fn design_size_of_source_temperature(
-    instrument: &InstrumentHandle,
-    signal: f64,
-    relative_change: f64,
-) -> Option<JsValue> {
-    some((|| {
-        let r = instrument
-            .model
-            .run(|m| sse_corrected_temperature(m, signal, relative_change))?;
-        to_js(&r)
-    })())
 }

@@ -100,14 +100,6 @@ export interface DetectorDesignDefinition {
   backgroundElectronsPerS?: number;
 }
 
-/** A scene's radiance in the band and its derivative per kelvin, in the unit of `kind`. */
-export interface InBandRadiance {
-  readonly kind: RadianceKind;
-  readonly radiance: number;
-  /** Per K of scene temperature. */
-  readonly dRadianceDt: number;
-}
-
 /** Flux on the pixel (W, photons/s, A or electrons/s by `kind`) and its derivative per K. */
 export interface PixelFlux {
   readonly kind: RadianceKind;
@@ -168,11 +160,7 @@ export interface PixelReport {
  */
 export class DetectorDesign {
   constructor(design: DetectorDesignDefinition);
-  /** The definition as read (every default filled in, canonical unit names). */
-  readonly definition: DetectorDesignDefinition;
   free(): void;
-  /** The scene's in-band radiance and ∂/∂T at temperatureK. */
-  inBand(temperatureK: number): InBandRadiance;
   /** Flux, photocurrent, electrons, well fill, noise, SNR and NETD at temperatureK. */
   evaluate(temperatureK: number): PixelReport;
   /** First-principles NETD at temperatureK, K (also where the pixel saturates: see wellFills). */
@@ -274,24 +262,12 @@ export function cavityEmissivityGouffe(wallEmissivity: number, shape: CavityShap
  * sizes, from the instrument's size-of-source-effect curve values σ = S(d)/S(d_ref) − 1 (> −1).
  */
 export function sizeOfSourceChange(sseAtMeasurement: number, sseAtCalibration: number): number;
-/** The signal the instrument would read from the calibration source size: S/(1 + δ). */
-export function sizeOfSourceCorrectedSignal(signal: number, relativeChange: number): number;
-/** A reading corrected for the size-of-source effect, with temperatures from the instrument's model. */
-export interface SizeOfSourceReading {
-  /** S/(1 + δ), in the instrument's signal unit. */
-  readonly correctedSignal: number;
-  /** Temperature of the corrected signal, K. */
-  readonly temperatureK: number;
-  /** Temperature of the uncorrected signal, K. */
-  readonly uncorrectedTemperatureK: number;
-}
 /**
- * The size-of-source-corrected temperature of a reading, through the instrument's blackbody
- * model S(T) (its measurement conditions are not applied: for an object temperature pass
- * `correctedSignal` to `instrument.objectTemperature`).
+ * The signal the instrument would read from a source of the calibration size: S/(1 + δ), in the
+ * signal's unit. Its temperature: `instrument.temperature(corrected)` (the blackbody model) or
+ * `instrument.objectTemperature(corrected)` (under the instrument's measurement conditions).
  */
-export function sizeOfSourceCorrectedTemperature(instrument: Instrument, signal: number, relativeChange: number): SizeOfSourceReading;
-
+export function sizeOfSourceCorrectedSignal(signal: number, relativeChange: number): number;
 /**
  * Spot diameter s = d/R, m, at distanceM for a distance-to-spot ratio R (D:S, 12 for 12:1). The
  * spot is the circle from which the maker's stated fraction of the signal comes (often 90 % or

@@ -1,12 +1,11 @@
 // Instrument design: DetectorDesign (one pixel's optics, detector and scene, read and checked
 // once, then evaluated at scene temperatures) and the design free functions (throughput,
 // figures of merit, background limit, cavity, size of source, spot). Wraps QbDesign,
-// designNumber, designSpotFill and designSizeOfSourceTemperature (src/wasm/design.rs).
+// designNumber and designSpotFill (src/wasm/design.rs).
 //
 // These are design estimates, not measurements (see the README "Instrument design" cautions).
 
 import { QuantabandError, disposed, wrongType } from './errors.js';
-import { _instrumentHandle } from './instrument.js';
 import { bulk, config, glue, num, ready, result, some, str } from './runtime.js';
 
 // Bulk operation numbers of QbDesign.bulk.
@@ -307,14 +306,6 @@ export function sizeOfSourceCorrectedSignal(signal, relativeChange) {
   num(signal, 'signal');
   num(relativeChange, 'relativeChange');
   return call(OP.sizeOfSourceCorrectedSignal, signal, relativeChange);
-}
-
-export function sizeOfSourceCorrectedTemperature(instrument, signal, relativeChange) {
-  ready();
-  const h = _instrumentHandle(instrument, 'instrument');
-  num(signal, 'signal');
-  num(relativeChange, 'relativeChange');
-  return some(glue.designSizeOfSourceTemperature(h, signal, relativeChange));
 }
 
 export function spotDiameter(distanceM, distanceToSpotRatio) {
