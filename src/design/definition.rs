@@ -354,8 +354,8 @@ impl PreparedDesign {
     ///
     /// # Accuracy
     /// That of [`Detector::evaluate`] (≤ 8.9e-16 relative beyond the band value) and of the
-    /// band (≤ 1.7e-14); against the mpmath rows of `tests/data/design_reference.json`
-    /// (`tests/design_properties.rs`): within 1e-13.
+    /// band (≤ 1.7e-14); the mpmath detector rows of `tests/data/design_reference.json` through
+    /// a definition with the limits typed in µm (`tests/design_definition.rs`): 1.1e-15.
     ///
     /// # Examples
     /// ```

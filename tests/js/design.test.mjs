@@ -13,6 +13,15 @@ import { qb, close, rel, throwsCode, loadReference } from './helpers.mjs';
 const ref = loadReference('design_reference.json');
 const n = (s) => Number(s); // decimal strings → the nearest f64 (what the generator evaluated)
 
+/** Worst relative error per reference table (printed by the last test). */
+const worst = {};
+let sseWorstK = 0;
+/** close() against a reference value, recording the relative error under `table`. */
+function check(table, got, want, tol, what) {
+  close(got, want, tol, what);
+  worst[table] = Math.max(worst[table] ?? 0, rel(got, want));
+}
+
 /** The reference rows' detector settings as a design (band limits in metres, exact inputs). */
 function designOf(r, conversion, extra = {}) {
   return new qb.DetectorDesign({
@@ -52,22 +61,20 @@ test('design reference file is present and names its oracle', () => {
 });
 
 test('projected solid angle and étendues against quadrature over the aperture', () => {
-  let worst = 0;
   for (const r of ref.solid_angle) {
     const w = qb.projectedSolidAngle(n(r.f_number));
-    worst = Math.max(worst, rel(w, n(r.expected)));
+    check('solid_angle', w, n(r.expected), 1e-15, `solid angle F/${r.f_number}`);
     // étendue of a 1e-10 m² pixel: the same solid angle times the area
-    close(qb.etendue(1e-10, n(r.f_number)), 1e-10 * n(r.expected), 1e-15, `etendue F/${r.f_number}`);
+    check('etendue', qb.etendue(1e-10, n(r.f_number)), 1e-10 * n(r.expected), 1e-15, `etendue F/${r.f_number}`);
     // small-angle form: exactly (4F² + 1)/(4F²) larger (by hand)
     const f2 = 4 * n(r.f_number) ** 2;
     close(qb.projectedSolidAngle(n(r.f_number), 'smallAngle'), (w * (f2 + 1)) / f2, 1e-15, `small angle F/${r.f_number}`);
   }
-  assert.ok(worst < 1e-15, `solid angle ${worst}`);
   for (const r of ref.etendue_aperture) {
-    close(qb.etendueThroughAperture(n(r.area_m2), n(r.aperture_diameter_m), n(r.distance_m)), n(r.expected), 1e-15, 'etendue through aperture');
+    check('etendue_aperture', qb.etendueThroughAperture(n(r.area_m2), n(r.aperture_diameter_m), n(r.distance_m)), n(r.expected), 1e-15, 'etendue through aperture');
   }
   for (const r of ref.etendue_discs) {
-    close(qb.etendueBetweenDiscs(n(r.stop_diameter_m), n(r.aperture_diameter_m), n(r.distance_m)), n(r.expected), 2e-15, 'etendue between discs');
+    check('etendue_discs', qb.etendueBetweenDiscs(n(r.stop_diameter_m), n(r.aperture_diameter_m), n(r.distance_m)), n(r.expected), 2e-15, 'etendue between discs');
   }
 });
 
@@ -100,10 +107,10 @@ test('pixel flux (band radiance × irradiance factor × area) against mp.quad of
     const fe = e.evaluate(t).flux;
     assert.equal(fq.kind, 'photon');
     assert.equal(fe.kind, 'energy');
-    close(fq.flux / k, n(r.photon), 1e-13, `photon band ${r.lower_m}–${r.upper_m} at ${t}`);
-    close(fq.dFluxDt / k, n(r.d_photon_dt), 1e-13, 'photon dL/dT');
-    close(fe.flux / k, n(r.energy), 1e-13, 'energy band');
-    close(fe.dFluxDt / k, n(r.d_energy_dt), 1e-13, 'energy dL/dT');
+    check('band', fq.flux / k, n(r.photon), 1e-13, `photon band ${r.lower_m}–${r.upper_m} at ${t}`);
+    check('band', fq.dFluxDt / k, n(r.d_photon_dt), 1e-13, 'photon dL/dT');
+    check('band', fe.flux / k, n(r.energy), 1e-13, 'energy band');
+    check('band', fe.dFluxDt / k, n(r.d_energy_dt), 1e-13, 'energy dL/dT');
     q.free();
     e.free();
   }
@@ -111,15 +118,14 @@ test('pixel flux (band radiance × irradiance factor × area) against mp.quad of
     const t = n(r.temperature_k);
     const q = designOf(r, QE).evaluate(t).flux;
     const e = designOf(r, RESP).evaluate(t).flux;
-    close(q.flux, n(r.photon_rate), 1e-13, 'photon rate');
-    close(q.dFluxDt, n(r.d_photon_rate_dt), 1e-13, 'd photon rate/dT');
-    close(e.flux, n(r.power_w), 1e-13, 'power');
-    close(e.dFluxDt, n(r.d_power_dt), 1e-13, 'dP/dT');
+    check('pixel_flux', q.flux, n(r.photon_rate), 1e-13, 'photon rate');
+    check('pixel_flux', q.dFluxDt, n(r.d_photon_rate_dt), 1e-13, 'd photon rate/dT');
+    check('pixel_flux', e.flux, n(r.power_w), 1e-13, 'power');
+    check('pixel_flux', e.dFluxDt, n(r.d_power_dt), 1e-13, 'dP/dT');
   }
 });
 
 test('detector chain (electrons, current, noise, SNR, well fill, NETD) against the mpmath chain', () => {
-  let worst = 0;
   for (const r of ref.detector) {
     const conversion = r.conversion === 'qe'
       ? { kind: 'quantumEfficiency', efficiency: n(r.conversion_value) }
@@ -135,8 +141,7 @@ test('detector chain (electrons, current, noise, SNR, well fill, NETD) against t
       [p.wellFill, 'well_fill'],
       [p.netdK, 'netd_k'],
     ]) {
-      close(got, n(r[key]), 1e-13, `${r.name} ${key}`);
-      worst = Math.max(worst, rel(got, n(r[key])));
+      check('detector', got, n(r[key]), 1e-13, `${r.name} ${key}`);
     }
     assert.equal(p.saturated, n(r.well_fill) >= 1);
     // scalar and bulk forms agree exactly
@@ -150,7 +155,6 @@ test('detector chain (electrons, current, noise, SNR, well fill, NETD) against t
     assert.equal(netds[2], d.netd(250));
     d.free();
   }
-  assert.ok(worst < 1e-13);
 });
 
 test('NETD from D* (flat and ideal photon, both cone forms) against ∫D*(λ)∂L_λ/∂T dλ', () => {
@@ -160,7 +164,7 @@ test('NETD from D* (flat and ideal photon, both cone forms) against ∫D*(λ)∂
     const t = n(r.temperature_k);
     const peak = photon ? n(r.peak_wavelength_m) : undefined;
     const netd = d.netdFromDStar(n(r.d_star), t, peak);
-    close(netd, n(r.expected), 1e-13, `NETD ${r.shape} ${r.cone} ${r.lower_m}–${r.upper_m}`);
+    check('netd_d_star', netd, n(r.expected), 1e-13, `NETD ${r.shape} ${r.cone} ${r.lower_m}–${r.upper_m}`);
     // the default peak of a photon band is its long-wavelength limit (here the same)
     if (photon && r.peak_wavelength_m === r.upper_m) assert.equal(d.netdFromDStar(n(r.d_star), t), netd);
     close(d.dStarFromNetd(netd, t, peak), n(r.d_star), 1e-15, 'D* round trip');
@@ -195,11 +199,13 @@ test('background photon flux and BLIP D* against mpmath (photovoltaic, photocond
     const d = qb.blipDStar(lc, n(r.quantum_efficiency), tb, view, r.mechanism, cone);
     worstD = Math.max(worstD, rel(d, n(r.d_star)));
     if (qRef > 2.2250738585072014e-308) {
-      close(qb.blipDStarFromFlux(lc, n(r.quantum_efficiency), q, r.mechanism), n(r.d_star), 1e-13, 'BLIP D* from the flux');
+      check('blip', qb.blipDStarFromFlux(lc, n(r.quantum_efficiency), q, r.mechanism), n(r.d_star), 1e-13, 'BLIP D* from the flux');
     }
   }
   assert.ok(worstQ < 1e-13, `flux ${worstQ}`);
   assert.ok(worstD < 1e-13, `D* ${worstD}`);
+  worst.background_flux = worstQ;
+  worst.blip = Math.max(worst.blip ?? 0, worstD);
   // defaults: photovoltaic, exact cone
   assert.equal(qb.blipDStar(5e-6, 0.7, 300, 2), qb.blipDStar(5e-6, 0.7, 300, 2, 'photovoltaic', 'exact'));
   // photoconductive is photovoltaic/√2 (generation–recombination noise)
@@ -230,6 +236,7 @@ test('size of source: relative change, corrected signal, and its temperature thr
     inst.free();
   }
   assert.ok(worst < 1e-10, `SSE temperatures ${worst} K`);
+  sseWorstK = worst;
 });
 
 test('cavity emissivity (Gouffé) within its documented bounds of an independent radiosity solution', () => {
@@ -344,6 +351,11 @@ test('errors: codes, the caller\'s names, bulk index, recovery', () => {
     [bad({ scene: undefined }), 'WRONG_TYPE', /^design\.scene is required/],
     [bad({ scene: { kind: 'model', model: { kind: 'response', wavelengths: [9, 8], values: [1, 1], unit: 'um' }, radianceKind: 'energy' } }), 'NOT_INCREASING', /^design\.scene\.model\.wavelengths must be strictly increasing/],
     [bad({ scene: { kind: 'model', model: { kind: 'response', wavelengths: [8, 9], values: [1, 1], unit: 'um' }, radianceKind: 'energy' } }), 'UNSUPPORTED', /quantum efficiency/],
+    [bad({ scene: { kind: 'model', model: { kind: 'response', wavelengths: [8], values: [1], unit: 'um' }, radianceKind: 'current' } }), 'TOO_FEW_POINTS', /at least 2 points/],
+    [bad({ scene: { kind: 'model', model: { kind: 'spectralPoint', wavelength: 4, unit: 'um' } } }), 'WRONG_TYPE', /^design\.scene\.radianceKind is required/],
+    [bad({ scene: { kind: 'model', model: { kind: 'spectralPoint', wavelength: 4, unit: 'um' }, radianceKind: 'heat' } }), 'UNSUPPORTED', /^design\.scene\.radianceKind must be one of "energy", "photon", "current", "electron"/],
+    [det({ conversion: { kind: 'responsivity', efficiency: 0.5 } }), 'UNSUPPORTED', /^design\.detector\.conversion: unknown field "efficiency"/],
+    [det({ conversion: { kind: 'quantumEfficiency', efficiency: '0.7' } }), 'WRONG_TYPE', /^design\.detector\.conversion\.efficiency must be a number \(got a string\)/],
     [() => d.netdFromDStar(1e9, 300, 5e-6) && new qb.DetectorDesign({ ...MWIR, detector: { ...MWIR.detector, conversion: RESP } }).netdFromDStar(1e9, 300, 5e-6), 'UNSUPPORTED', /peak wavelength with an energy scene/],
     [() => qb.projectedSolidAngle(0), 'NON_POSITIVE', /^fNumber must be > 0/],
     [() => qb.projectedSolidAngle(2, 'cone'), 'UNSUPPORTED', /^cone must be one of "exact", "smallAngle" \(got "cone"\)/],
@@ -416,4 +428,9 @@ test('lifecycle: free, Symbol.dispose, DISPOSED, the live-object count', () => {
   // a failed constructor leaves nothing live
   throwsCode(() => new qb.DetectorDesign({ ...MWIR, optics: { fNumber: -1, transmittance: 1 } }), 'NON_POSITIVE');
   assert.equal(live(), base);
+});
+
+test('worst errors against the reference tables', (t) => {
+  t.diagnostic(`worst relative error: ${JSON.stringify(worst)}; size-of-source temperatures ${sseWorstK} K`);
+  assert.ok(Object.keys(worst).length >= 9);
 });
