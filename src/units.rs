@@ -673,6 +673,69 @@ pub fn convert_temperature_difference(
     to.difference_from_kelvin(arg, k)
 }
 
+/// Centimetres per metre: D* in cm·Hz^½·W⁻¹ ("Jones") = 100 × D* in m·Hz^½·W⁻¹.
+const JONES_PER_SI_D_STAR: f64 = 100.0;
+
+/// Converts a specific detectivity D* from SI (m·Hz^½·W⁻¹) to cm·Hz^½·W⁻¹ ("Jones"), the unit
+/// detector data sheets quote.
+///
+/// # Formula
+/// ```text
+/// D*_Jones = 100·D*_SI       (D* = √(A·Δf)/NEP: the √area carries the length unit, 1 m = 100 cm)
+/// ```
+///
+/// # Errors
+/// [`Error::NonFinite`] / [`Error::NonPositive`] for `d_star` (a detectivity is > 0);
+/// [`Error::OutOfRange`] when the result overflows to ∞ (D* above 1.8e306 m·Hz^½·W⁻¹).
+///
+/// # Accuracy
+/// One rounding of the product (≤ 0.5 ulp); the round trip through [`jones_to_d_star`] returns
+/// the input within 1 ulp (`cargo test --lib units`).
+///
+/// # Examples
+/// ```
+/// use quantaband::units::d_star_to_jones;
+/// // 1e9 m·Hz^½/W is 1e11 cm·Hz^½/W (1 m = 100 cm, BIPM SI Brochure Table 7).
+/// assert_eq!(d_star_to_jones(1e9).unwrap(), 1e11);
+/// ```
+///
+/// # References
+/// BIPM, *The International System of Units (SI)*, 9th ed. (2019), Table 7 (centi = 10⁻²);
+/// R. C. Jones, "Performance of detectors for visible and infrared radiation", Adv. Electron.
+/// 5, 1 (1953) (the detectivity normalised to unit area and bandwidth) — from memory.
+pub fn d_star_to_jones(d_star: f64) -> Result<f64> {
+    error::positive("d_star", d_star)?;
+    in_range("d_star", d_star, d_star * JONES_PER_SI_D_STAR)
+}
+
+/// Converts a specific detectivity D* from cm·Hz^½·W⁻¹ ("Jones") to SI (m·Hz^½·W⁻¹).
+///
+/// # Formula
+/// ```text
+/// D*_SI = D*_Jones/100
+/// ```
+///
+/// # Errors
+/// [`Error::NonFinite`] / [`Error::NonPositive`] for `jones`; [`Error::OutOfRange`] when the
+/// result underflows to 0 (below about 2.5e-322 cm·Hz^½·W⁻¹).
+///
+/// # Accuracy
+/// One rounding of the quotient (≤ 0.5 ulp in the normal range); round trip as
+/// [`d_star_to_jones`].
+///
+/// # Examples
+/// ```
+/// use quantaband::units::jones_to_d_star;
+/// assert_eq!(jones_to_d_star(6.0e11).unwrap(), 6.0e9);
+/// ```
+///
+/// # References
+/// As [`d_star_to_jones`].
+pub fn jones_to_d_star(jones: f64) -> Result<f64> {
+    error::positive("jones", jones)?;
+    in_range("jones", jones, jones / JONES_PER_SI_D_STAR)
+}
+
 #[cfg(test)]
 mod tests {
     use super::*;
@@ -985,5 +1048,26 @@ mod tests {
                 .code(),
             "NON_FINITE"
         );
+    }
+
+    #[test]
+    fn d_star_jones_round_trip_and_limits() {
+        // 1 m = 100 cm (BIPM SI Brochure, Table 7): D* scales with the length unit of √area.
+        assert_eq!(d_star_to_jones(6.04e9).unwrap(), 6.04e11);
+        assert_eq!(jones_to_d_star(6.04e11).unwrap(), 6.04e9);
+        let mut worst = 0f64;
+        let mut x = 1.234_567_890_123e-300;
+        while x < 1e300 {
+            let back = jones_to_d_star(d_star_to_jones(x).unwrap()).unwrap();
+            worst = worst.max(rel(back, x));
+            x *= 7.77;
+        }
+        assert!(worst <= f64::EPSILON, "{worst}");
+        assert_eq!(d_star_to_jones(0.0).unwrap_err().code(), "NON_POSITIVE");
+        assert_eq!(d_star_to_jones(-1e9).unwrap_err().code(), "NON_POSITIVE");
+        assert_eq!(jones_to_d_star(f64::NAN).unwrap_err().code(), "NON_FINITE");
+        assert_eq!(d_star_to_jones(1e307).unwrap_err().code(), "OUT_OF_RANGE");
+        assert_eq!(jones_to_d_star(5e-324).unwrap_err().code(), "OUT_OF_RANGE");
+        assert_eq!(d_star_to_jones(1.7e306).unwrap(), 1.7e308);
     }
 }

@@ -44,10 +44,14 @@ use crate::{Error, Result};
 /// let c = Conversion::QuantumEfficiency { efficiency: 0.7 };
 /// assert!(matches!(c, Conversion::QuantumEfficiency { .. }));
 /// ```
+///
+/// With the `serde` feature: `{"kind": "responsivity", "amperesPerWatt": …}`,
+/// `{"kind": "quantumEfficiency", "efficiency": …}` or `{"kind": "included"}` (read key by key,
+/// unknown fields rejected; `src/design/serde_impls.rs`).
 #[derive(Debug, Clone, Copy, PartialEq)]
 #[cfg_attr(
     feature = "serde",
-    derive(serde::Serialize, serde::Deserialize),
+    derive(serde::Serialize),
     serde(tag = "kind", rename_all = "camelCase")
 )]
 pub enum Conversion {
@@ -374,11 +378,14 @@ pub fn noise_budget(
 /// };
 /// assert!(d.validate().is_ok());
 /// ```
+///
+/// With the `serde` feature: camelCase fields, all required, unknown fields rejected (read key
+/// by key: `src/design/serde_impls.rs`).
 #[derive(Debug, Clone, Copy, PartialEq)]
 #[cfg_attr(
     feature = "serde",
-    derive(serde::Serialize, serde::Deserialize),
-    serde(rename_all = "camelCase", deny_unknown_fields)
+    derive(serde::Serialize),
+    serde(rename_all = "camelCase")
 )]
 pub struct Detector {
     /// Pixel (detector) area A, m² (> 0).

@@ -12,6 +12,7 @@
 //! | [`detector`] | photocurrent, electrons, well fill, shot/dark/read noise, SNR, first-principles NETD |
 //! | [`merit`] | noise bandwidth, NEP, D* ↔ NETD, background-limited (BLIP) D* |
 //! | [`sources`] | effective emissivity of a cavity (Gouffé), size-of-source correction, distance-to-spot |
+//! | [`definition`] | (`alloc`) a whole pixel design as data in user units ([`definition::DesignDefinition`]), checked once into SI ([`definition::PreparedDesign`]) |
 //!
 //! # Design: the in-band radiance is the interface
 //!
@@ -70,9 +71,13 @@
 // `!(x > 0.0)` is used on purpose: it is also true for NaN.
 #![allow(clippy::neg_cmp_op_on_partial_ord)]
 
+#[cfg(feature = "alloc")]
+pub mod definition;
 pub mod detector;
 pub mod merit;
 pub mod scene;
+#[cfg(feature = "serde")]
+mod serde_impls;
 pub mod sources;
 pub mod throughput;
 

@@ -22,6 +22,7 @@
 
 pub mod calibration;
 pub(crate) mod config;
+pub mod design;
 pub mod error;
 pub mod fractions;
 pub mod instrument;

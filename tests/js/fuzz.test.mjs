@@ -45,6 +45,16 @@ test(`fuzz: seeded random calls of every function and method (seed ${SEED}, ≤ 
     { kind: 'response', wavelengths: [1e-300, 1e300], values: [1, 1], unit: 'm' },
     { kind: 'response', wavelengths: new Float32Array([3, 5]), values: [1, 0], unit: 'um' },
   ];
+  // pixel designs (DetectorDesign): valid ones and near misses
+  const det = { pixelAreaM2: 2.25e-10, conversion: { kind: 'quantumEfficiency', efficiency: 0.7 }, integrationTimeS: 1e-3, fullWellElectrons: 1e7, darkCurrentA: 1e-12, readNoiseElectrons: 100 };
+  const designs = [
+    { optics: { fNumber: 2, transmittance: 0.9 }, detector: det, scene: { kind: 'band', lower: 3.7, upper: 4.8, unit: 'um' } },
+    { optics: { fNumber: 1, transmittance: 1, cone: 'smallAngle', fieldAngleRad: 0.3 }, detector: { ...det, conversion: { kind: 'responsivity', amperesPerWatt: 3 } }, scene: { kind: 'band', lower: 700, upper: 1400, unit: 'cm-1', emissivity: 0.5 } },
+    { optics: { fNumber: 2, transmittance: 0.9 }, detector: { ...det, conversion: { kind: 'included' } }, scene: { kind: 'model', model: models[1], radianceKind: 'current' }, backgroundElectronsPerS: 1e6 },
+    { optics: { fNumber: 1e-300, transmittance: 1 }, detector: { ...det, pixelAreaM2: 1e300, fullWellElectrons: 5e-324 }, scene: { kind: 'band', lower: 1e-300, upper: 1e300, unit: 'm' } },
+    { optics: { fNumber: 2, transmittance: 0.9 }, detector: det, scene: { kind: 'band', lower: 5, upper: 3, unit: 'um' } },
+    { optics: { fNumber: 2 }, detector: det, scene: { kind: 'model', model: models[3], radianceKind: 'photon' } },
+  ];
   const grow = () => ref.points(new Float64Array(50_000).fill(10), 300)[0];
   const weird = () => {
     const k = Math.floor(rnd() * 12);
@@ -84,14 +94,14 @@ test(`fuzz: seeded random calls of every function and method (seed ${SEED}, ≤ 
         return [pick(nums), pick(strs)];
     }
   };
-  const pool = { spectra: [], instruments: [], curves: [] };
+  const pool = { spectra: [], instruments: [], curves: [], designs: [] };
   const arg = () => {
     const r = rnd();
     if (r < 0.3) return pick(nums);
     if (r < 0.4) return pick(strs);
     if (r < 0.48) return { unit: pick(strs), emissivity: pick(nums), variable: pick(['wavelength', 'frequency', 'x']) };
     if (r < 0.55) return pick(models);
-    if (r < 0.6) return { model: pick(models), conditions: { emissivity: pick(nums), reflectedTemperatureK: pick(nums) } };
+    if (r < 0.6) return rnd() < 0.8 ? { model: pick(models), conditions: { emissivity: pick(nums), reflectedTemperatureK: pick(nums) } } : pick(designs);
     if (r < 0.68) return new Float64Array(Array.from({ length: Math.floor(rnd() * 6) }, () => pick(nums)));
     if (r < 0.71) return new Uint16Array([0, 2, 65535]);
     if (r < 0.75) return { emissivity: pick(nums), reflectedTemperatureK: pick(nums), pathTransmittance: pick(nums), pathTemperatureK: pick(nums) };
@@ -103,7 +113,7 @@ test(`fuzz: seeded random calls of every function and method (seed ${SEED}, ≤ 
     return weird();
   };
 
-  const CLASSES = new Set(['Spectrum', 'Instrument', 'CalibrationCurve', 'QuantabandError']);
+  const CLASSES = new Set(['Spectrum', 'Instrument', 'CalibrationCurve', 'DetectorDesign', 'QuantabandError']);
   const fns = Object.entries(qb).filter(([k, v]) => typeof v === 'function' && !CLASSES.has(k) && !['default', 'init', 'initSync'].includes(k));
   const methods = (cls) => Object.entries(Object.getOwnPropertyDescriptors(cls.prototype)).filter(([m, d]) => m !== 'constructor' && m !== 'free' && typeof d.value === 'function').map(([m]) => m);
   const targets = [
@@ -114,8 +124,9 @@ test(`fuzz: seeded random calls of every function and method (seed ${SEED}, ≤ 
     { name: 'CalibrationCurve.fit', call: (a) => pool.curves.push(qb.CalibrationCurve.fit(a[0], a[1], a[2])), arity: 3 },
     { name: 'CalibrationCurve.fitInstrument', call: (a) => pool.curves.push(qb.CalibrationCurve.fitInstrument(a[0], a[1], a[2], a[3])), arity: 4 },
     { name: 'CalibrationCurve.fromResponse', call: (a) => pool.curves.push(qb.CalibrationCurve.fromResponse(a[0], a[1])), arity: 2 },
+    { name: 'new DetectorDesign', call: (a) => pool.designs.push(new qb.DetectorDesign(rnd() < 0.6 ? pick(designs) : a[0])), arity: 1 },
   ];
-  for (const [kind, cls] of [['spectra', qb.Spectrum], ['instruments', qb.Instrument], ['curves', qb.CalibrationCurve]]) {
+  for (const [kind, cls] of [['spectra', qb.Spectrum], ['instruments', qb.Instrument], ['curves', qb.CalibrationCurve], ['designs', qb.DetectorDesign]]) {
     for (const m of methods(cls)) {
       targets.push({
         name: `${cls.name}.${m}`,
@@ -132,8 +143,9 @@ test(`fuzz: seeded random calls of every function and method (seed ${SEED}, ≤ 
   pool.spectra.push(new qb.Spectrum({ unit: 'um' }), new qb.Spectrum({ unit: 'cm-1', quantity: 'photon' }));
   pool.instruments.push(new qb.Instrument({ model: models[1] }), new qb.Instrument({ model: models[0], conditions: { emissivity: 0.9, reflectedTemperatureK: 300 } }));
   pool.curves.push(new qb.CalibrationCurve({ aM: 1e-5, bMK: 1.8e-4, c: 1e6 }));
+  pool.designs.push(new qb.DetectorDesign(designs[0]), new qb.DetectorDesign(designs[2]));
   // and one freed object of each class (its calls must be DISPOSED)
-  for (const [k, make] of [['spectra', () => new qb.Spectrum({ unit: 'nm' })], ['instruments', () => new qb.Instrument({ model: models[2] })], ['curves', () => new qb.CalibrationCurve({ aM: 1, bMK: 0, c: 1 })]]) {
+  for (const [k, make] of [['spectra', () => new qb.Spectrum({ unit: 'nm' })], ['instruments', () => new qb.Instrument({ model: models[2] })], ['curves', () => new qb.CalibrationCurve({ aM: 1, bMK: 0, c: 1 })], ['designs', () => new qb.DetectorDesign(designs[1])]]) {
     const o = make();
     o.free();
     pool[k].push(o);
@@ -166,7 +178,7 @@ test(`fuzz: seeded random calls of every function and method (seed ${SEED}, ≤ 
     if (ref.point(10, 300) !== KNOWN || qb.fermiDirac(2) !== KNOWN_FD) assert.fail(`instance state changed after call ${calls} (${tgt.name})`);
     // free some objects now and then (their later calls must be DISPOSED)
     if (rnd() < 0.02) {
-      const kind = pick(['spectra', 'instruments', 'curves']);
+      const kind = pick(['spectra', 'instruments', 'curves', 'designs']);
       const i = Math.floor(rnd() * pool[kind].length);
       if (i > 0) {
         pool[kind][i].free();
