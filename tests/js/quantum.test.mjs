@@ -619,3 +619,50 @@ test('lifecycle: free() and Symbol.dispose release every object; freed objects t
   assert.throws(() => new qb.Semiconductor({ electronMassRatio: 0, holeMassRatio: 1, bandGap0K: 1, energyUnit: 'eV' }));
   assert.equal(live(), base);
 });
+
+// ---- the README example ------------------------------------------------------------------------
+
+test('the numbers in the README example of this area (keep the two in sync)', () => {
+  const planck = new qb.Spectrum({ unit: 'um' });
+  const wavelengths = [0.7, 0.825, 0.95, 1.075, 1.2];
+  const noise = [0.004, -0.003, 0.001, 0.005, -0.004];
+  const radiances = wavelengths.map((w, i) => Math.exp(-0.6 - (0.3 * (w - 0.95)) / 0.25) * planck.point(w, 1400) * (1 + noise[i]));
+  const measurement = { wavelengths, unit: 'um', radiances, uncertainties: radiances.map((l) => 0.005 * l) };
+  const fit = qb.fitMultiwavelength(measurement, { model: { kind: 'logPolynomial', order: 1 } });
+  const near = (x, want, digits) => assert.ok(Math.abs(x - want) <= 0.5 * 10 ** -digits, `${x} vs ${want}`);
+  // the Rust README example of the same data (tests/quantum_limits.rs) checks 1399.92, 9.13, 0.987
+  near(fit.temperatureK, 1399.92, 2);
+  near(fit.uTemperatureK, 9.13, 2);
+  near(fit.correlationTemperatureSlope, 0.987, 3);
+  near(fit.uncertaintyInflation, 33, 0);
+  assert.equal(fit.illConditioned, false);
+  assert.deepEqual(fit.warnings, []);
+  near(fit.greyTwoColourTemperatureK, 1554.6, 1);
+  [1372.3, 1350.9, 1326.5, 1298.8, 1266.3].forEach((t, i) => near(fit.brightnessTemperaturesK[i], t, 1));
+  near(fit.emissivity(1.0), 0.517, 3);
+  const cubic = qb.fitMultiwavelength(measurement, { model: { kind: 'polynomial', order: 3 } });
+  assert.equal(cubic.illConditioned, true);
+  assert.deepEqual(cubic.warnings, ['conditionNumber', 'correlation', 'localMinima']);
+  near(cubic.uTemperatureK, 1068, 0);
+  near(cubic.temperatureK, 1700.7, 1);
+  const silicon = new qb.RamanMode({ shiftPerCm: 520.7, excitation: 532, unit: 'nm' });
+  near(silicon.ratio(300), 0.0972, 4);
+  const rd = silicon.temperature(0.0972);
+  near(rd.temperatureK, 300.0003, 4);
+  near(rd.dTdRatio, 1236, 0);
+  near(rd.phononOccupancy, 0.0897, 4);
+  const loads = new qb.YFactorLoads({ hotLoadK: 295, coldLoadK: 77, unit: 'GHz' });
+  const rx = loads.receiverTemperature(qb.decibelsToPowerRatio(3.2), 230);
+  near(rx.receiverNoiseTemperatureK, 122.91, 2);
+  near(rx.planckK, 128.43, 2);
+  near(rx.planckK - rx.callenWeltonK, 5.52, 2);
+  near(rx.rayleighJeansK, 123.13, 2);
+  const si = new qb.Semiconductor({ electronMassRatio: 1.08, holeMassRatio: 0.81, bandGap0K: 1.17, varshniAlpha: 4.73e-4, varshniBetaK: 636, energyUnit: 'eV' });
+  near(si.bandGap(300), 1.1245, 4);
+  near(si.intrinsic(300).densityPerM3 / 1e15, 8.14, 2);
+  const n = si.electronDensity(1.12, 300);
+  near(n.densityPerM3 / 1e25, 1.87, 2);
+  near(n.boltzmannRelativeError, 0.262, 3);
+  near(si.fermiLevelFromElectronDensity(1e23, 300), 0.9787, 4);
+  for (const o of [planck, fit, cubic, silicon, loads, si]) o.free();
+});
