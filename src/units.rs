@@ -1057,6 +1057,8 @@ mod tests {
     }
 
     #[test]
+    // the mpmath digits as printed
+    #[allow(clippy::excessive_precision)]
     fn decibels_against_mpmath() {
         // mpmath 1.3.0, 30 digits: 10**(mpf(x)/10) and 10*log10(mpf(r)).
         for (db, r) in [
