@@ -736,6 +736,84 @@ pub fn jones_to_d_star(jones: f64) -> Result<f64> {
     in_range("jones", jones, jones / JONES_PER_SI_D_STAR)
 }
 
+/// The range reported when a decibel value has no positive finite power ratio.
+const DECIBEL_RANGE: &str = "decibel values whose power ratio is a positive finite f64";
+
+/// A power ratio (linear, dimensionless) from its value `decibels` in dB, e.g. a Y factor read
+/// from a noise-figure meter.
+///
+/// # Formula
+/// ```text
+/// r = 10^(x/10)      x the value in dB
+/// ```
+///
+/// # Errors
+/// [`Error::NonFinite`] for NaN/±∞; [`Error::OutOfRange`] when r overflows or underflows to 0
+/// (x above about 3082.5 dB or below about −3233 dB).
+///
+/// Evaluated as exp(x·(ln 10)/10) (one `exp`, no `pow`: the module keeps no `pow` for this).
+///
+/// # Accuracy
+/// ≤ 1 ulp of `exp` plus the roundings of the exponent amplified by |ln r| (relative error
+/// ≤ 1e-15 for |x| ≤ 30 dB); checked against mpmath 1.3.0 (30 digits) in the unit tests and
+/// `tests/js/quantum.test.mjs`.
+///
+/// # Examples
+/// ```
+/// use quantaband::units::power_ratio_from_decibels;
+/// assert!((power_ratio_from_decibels("y", 20.0).unwrap() / 100.0 - 1.0).abs() < 1e-15);
+/// // 10^0.3 = 1.995 262 314 968 879 601… (mpmath)
+/// assert!((power_ratio_from_decibels("y", 3.0).unwrap() / 1.995_262_314_968_879_6 - 1.0).abs() < 4e-16);
+/// ```
+///
+/// # References
+/// IEC 60027-3:2002, *Letter symbols to be used in electrical technology — Part 3: Logarithmic
+/// and related quantities, and their units* (the decibel of a power ratio) (from memory).
+pub fn power_ratio_from_decibels(arg: &'static str, decibels: f64) -> Result<f64> {
+    let x = error::finite(arg, decibels)?;
+    let r = crate::float::exp(x * (core::f64::consts::LN_10 / 10.0));
+    if r > 0.0 && r.is_finite() {
+        Ok(r)
+    } else {
+        Err(Error::OutOfRange {
+            arg,
+            value: decibels,
+            range: DECIBEL_RANGE,
+        })
+    }
+}
+
+/// The value in dB of a power ratio `ratio` (linear, > 0).
+///
+/// # Formula
+/// ```text
+/// x = 10·log10(r)
+/// ```
+///
+/// # Errors
+/// [`Error::NonFinite`] for NaN/±∞; [`Error::NonPositive`] for r ≤ 0.
+///
+/// Evaluated as ln(r)·(10/ln 10).
+///
+/// # Accuracy
+/// ≤ 3 ulp of the result plus 1 ulp of ln r (one `ln`, one multiplication by a rounded
+/// constant); checked against mpmath 1.3.0 in the unit tests.
+///
+/// # Examples
+/// ```
+/// use quantaband::units::power_ratio_to_decibels;
+/// assert!((power_ratio_to_decibels("y", 1000.0).unwrap() - 30.0).abs() < 1e-14);
+/// // 10·log10(2) = 3.010 299 956 639 811 952… (mpmath)
+/// assert!((power_ratio_to_decibels("y", 2.0).unwrap() - 3.010_299_956_639_812).abs() < 1e-15);
+/// ```
+///
+/// # References
+/// As [`power_ratio_from_decibels`].
+pub fn power_ratio_to_decibels(arg: &'static str, ratio: f64) -> Result<f64> {
+    let r = error::positive(arg, ratio)?;
+    Ok(crate::float::ln(r) * (10.0 / core::f64::consts::LN_10))
+}
+
 #[cfg(test)]
 mod tests {
     use super::*;
@@ -1069,5 +1147,48 @@ mod tests {
         assert_eq!(d_star_to_jones(1e307).unwrap_err().code(), "OUT_OF_RANGE");
         assert_eq!(jones_to_d_star(5e-324).unwrap_err().code(), "OUT_OF_RANGE");
         assert_eq!(d_star_to_jones(1.7e306).unwrap(), 1.7e308);
+    }
+
+    #[test]
+    // the mpmath digits as printed
+    #[allow(clippy::excessive_precision)]
+    fn decibels_against_mpmath() {
+        // mpmath 1.3.0, 30 digits: 10**(mpf(x)/10) and 10*log10(mpf(r)).
+        for (db, r) in [
+            (3.0, 1.995_262_314_968_879_601_4),
+            (1.76, 1.499_684_835_502_373_498_1),
+            (-3.0, 0.501_187_233_627_272_285),
+            (0.5, 1.122_018_454_301_963_435_6),
+            (25.3, 338.844_156_139_202_547_05),
+        ] {
+            let got = power_ratio_from_decibels("y", db).unwrap();
+            assert!(rel(got, r) <= 1e-15, "{db} dB: {got} vs {r}");
+        }
+        for (r, db) in [
+            (2.0, 3.010_299_956_639_811_952_1),
+            (1.5, 1.760_912_590_556_812_420_8),
+            (0.5, -3.010_299_956_639_811_952_1),
+        ] {
+            let got = power_ratio_to_decibels("y", r).unwrap();
+            assert!((got - db).abs() <= 1e-15 * db.abs(), "{r}: {got} vs {db}");
+        }
+        assert!(rel(power_ratio_from_decibels("y", 10.0).unwrap(), 10.0) <= 1e-15);
+        assert!((power_ratio_to_decibels("y", 100.0).unwrap() - 20.0).abs() <= 1e-14);
+        assert_eq!(
+            power_ratio_from_decibels("y", 3100.0).unwrap_err().code(),
+            "OUT_OF_RANGE"
+        );
+        assert_eq!(
+            power_ratio_from_decibels("y", -3300.0).unwrap_err().code(),
+            "OUT_OF_RANGE"
+        );
+        assert_eq!(
+            power_ratio_from_decibels("y", f64::NAN).unwrap_err().code(),
+            "NON_FINITE"
+        );
+        assert_eq!(
+            power_ratio_to_decibels("y", 0.0).unwrap_err().code(),
+            "NON_POSITIVE"
+        );
     }
 }

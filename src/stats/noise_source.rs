@@ -257,6 +257,7 @@ pub struct YFactorReading {
     /// Receiver noise temperature T_R in the chosen convention, K (> 0).
     pub receiver_noise_temperature_k: f64,
     /// dT_R/dY in the chosen convention, K per unit Y.
+    #[cfg_attr(feature = "serde", serde(rename = "dTdY"))]
     pub d_t_d_y: f64,
     /// Noise temperature of the hot load in the chosen convention, K.
     pub hot_load_noise_temperature_k: f64,

@@ -108,6 +108,7 @@ pub struct RamanReading {
     /// Temperature, K.
     pub temperature_k: f64,
     /// dT/dR, K per unit ratio (+∞ only where the true value is above `f64::MAX`).
+    #[cfg_attr(feature = "serde", serde(rename = "dTdRatio"))]
     pub d_t_d_ratio: f64,
     /// (1/R)·dR/dT = θ/T², K⁻¹: the relative change of the ratio per kelvin (+∞ only where
     /// the true value is above `f64::MAX`, e.g. a mode of a shift far below 1 m⁻¹ read at a

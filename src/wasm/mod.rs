@@ -27,6 +27,8 @@ pub mod error;
 pub mod fractions;
 pub mod instrument;
 pub mod its90;
+pub mod quantum;
+pub mod quantum_fit;
 pub mod scratch;
 pub mod spectrum;
 pub mod stats;

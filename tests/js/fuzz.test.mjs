@@ -94,7 +94,20 @@ test(`fuzz: seeded random calls of every function and method (seed ${SEED}, ≤ 
         return [pick(nums), pick(strs)];
     }
   };
-  const pool = { spectra: [], instruments: [], curves: [], designs: [] };
+  const pool = { spectra: [], instruments: [], curves: [], raman: [], loads: [], semis: [], fits: [], designs: [] };
+  // configurations of the quantum area (src/wasm/js/quantum.js), valid and near-valid
+  const quantum = [
+    { shiftPerCm: 520.7, excitation: 532, unit: 'nm', detection: 'energy' },
+    { shiftPerCm: 520.7, excitation: 0.5, unit: 'eV' },
+    { hotLoadK: 295, coldLoadK: 77, unit: 'GHz', loadModel: 'planck' },
+    { hotLoadK: 77, coldLoadK: 295, unit: 'Hz' },
+    { electronMassRatio: 1.08, holeMassRatio: 0.81, bandGap0K: 1.17, varshniAlpha: 4.73e-4, varshniBetaK: 636, energyUnit: 'eV' },
+    { electronMassRatio: 0.014, holeMassRatio: 0.43, bandGap0K: 235, energyUnit: 'meV' },
+    { wavelengths: [0.7, 0.8, 0.9, 1.0], unit: 'um', radiances: [1e9, 2e9, 3e9, 3.5e9], uncertainties: [1e6, 1e6, 1e6, 1e6] },
+    { wavelengths: [1000, 1000.1, 1000.2, 1000.3], unit: 'nm', radiances: [1, 1, 1, 1], uncertainties: [1e-3, 1e-3, 1e-3, 1e-3] },
+    { model: { kind: 'logPolynomial', order: 1 }, maxConditionNumber: 10 },
+    { model: { kind: 'polynomial', order: 4 } },
+  ];
   const arg = () => {
     const r = rnd();
     if (r < 0.3) return pick(nums);
@@ -107,13 +120,15 @@ test(`fuzz: seeded random calls of every function and method (seed ${SEED}, ≤ 
     if (r < 0.75) return { emissivity: pick(nums), reflectedTemperatureK: pick(nums), pathTransmittance: pick(nums), pathTemperatureK: pick(nums) };
     if (r < 0.78) return { gain: pick(nums), output: pick(strs), emissivity: pick([undefined, new Float32Array(3)]) };
     if (r < 0.8) return pick(pool.instruments) ?? null;
+    if (r < 0.815) return pick(quantum);
+    if (r < 0.82) return { channels: pool.instruments.slice(0, 3), wavelengths: [8, 10, 12], unit: 'um', signals: [1, 2, 3], uncertainties: [0.1, 0.1, 0.1] };
     if (r < 0.83) return null;
     if (r < 0.86) return undefined;
     if (r < 0.88) return pick([true, false]);
     return weird();
   };
 
-  const CLASSES = new Set(['Spectrum', 'Instrument', 'CalibrationCurve', 'DetectorDesign', 'QuantabandError']);
+  const CLASSES = new Set(['Spectrum', 'Instrument', 'CalibrationCurve', 'DetectorDesign', 'QuantabandError', 'MultiwavelengthFit', 'RamanMode', 'YFactorLoads', 'Semiconductor', 'fitMultiwavelength']);
   const fns = Object.entries(qb).filter(([k, v]) => typeof v === 'function' && !CLASSES.has(k) && !['default', 'init', 'initSync'].includes(k));
   const methods = (cls) => Object.entries(Object.getOwnPropertyDescriptors(cls.prototype)).filter(([m, d]) => m !== 'constructor' && m !== 'free' && typeof d.value === 'function').map(([m]) => m);
   const targets = [
@@ -124,9 +139,14 @@ test(`fuzz: seeded random calls of every function and method (seed ${SEED}, ≤ 
     { name: 'CalibrationCurve.fit', call: (a) => pool.curves.push(qb.CalibrationCurve.fit(a[0], a[1], a[2])), arity: 3 },
     { name: 'CalibrationCurve.fitInstrument', call: (a) => pool.curves.push(qb.CalibrationCurve.fitInstrument(a[0], a[1], a[2], a[3])), arity: 4 },
     { name: 'CalibrationCurve.fromResponse', call: (a) => pool.curves.push(qb.CalibrationCurve.fromResponse(a[0], a[1])), arity: 2 },
+    { name: 'new RamanMode', call: (a) => pool.raman.push(new qb.RamanMode(a[0])), arity: 1 },
+    { name: 'new YFactorLoads', call: (a) => pool.loads.push(new qb.YFactorLoads(a[0])), arity: 1 },
+    { name: 'new Semiconductor', call: (a) => pool.semis.push(new qb.Semiconductor(a[0])), arity: 1 },
+    { name: 'fitMultiwavelength', call: (a) => pool.fits.push(qb.fitMultiwavelength(a[0], a[1])), arity: 2 },
+    { name: 'new MultiwavelengthFit', call: (a) => new qb.MultiwavelengthFit(a[0], a[1]), arity: 2 },
     { name: 'new DetectorDesign', call: (a) => pool.designs.push(new qb.DetectorDesign(rnd() < 0.6 ? pick(designs) : a[0])), arity: 1 },
   ];
-  for (const [kind, cls] of [['spectra', qb.Spectrum], ['instruments', qb.Instrument], ['curves', qb.CalibrationCurve], ['designs', qb.DetectorDesign]]) {
+  for (const [kind, cls] of [['spectra', qb.Spectrum], ['instruments', qb.Instrument], ['curves', qb.CalibrationCurve], ['raman', qb.RamanMode], ['loads', qb.YFactorLoads], ['semis', qb.Semiconductor], ['fits', qb.MultiwavelengthFit], ['designs', qb.DetectorDesign]]) {
     for (const m of methods(cls)) {
       targets.push({
         name: `${cls.name}.${m}`,
@@ -143,9 +163,22 @@ test(`fuzz: seeded random calls of every function and method (seed ${SEED}, ≤ 
   pool.spectra.push(new qb.Spectrum({ unit: 'um' }), new qb.Spectrum({ unit: 'cm-1', quantity: 'photon' }));
   pool.instruments.push(new qb.Instrument({ model: models[1] }), new qb.Instrument({ model: models[0], conditions: { emissivity: 0.9, reflectedTemperatureK: 300 } }));
   pool.curves.push(new qb.CalibrationCurve({ aM: 1e-5, bMK: 1.8e-4, c: 1e6 }));
+  pool.raman.push(new qb.RamanMode(quantum[0]));
+  pool.loads.push(new qb.YFactorLoads(quantum[2]));
+  pool.semis.push(new qb.Semiconductor(quantum[4]));
+  pool.fits.push(qb.fitMultiwavelength(quantum[6], quantum[8]));
   pool.designs.push(new qb.DetectorDesign(designs[0]), new qb.DetectorDesign(designs[2]));
   // and one freed object of each class (its calls must be DISPOSED)
-  for (const [k, make] of [['spectra', () => new qb.Spectrum({ unit: 'nm' })], ['instruments', () => new qb.Instrument({ model: models[2] })], ['curves', () => new qb.CalibrationCurve({ aM: 1, bMK: 0, c: 1 })], ['designs', () => new qb.DetectorDesign(designs[1])]]) {
+  for (const [k, make] of [
+    ['spectra', () => new qb.Spectrum({ unit: 'nm' })],
+    ['instruments', () => new qb.Instrument({ model: models[2] })],
+    ['curves', () => new qb.CalibrationCurve({ aM: 1, bMK: 0, c: 1 })],
+    ['raman', () => new qb.RamanMode(quantum[1])],
+    ['loads', () => new qb.YFactorLoads(quantum[2])],
+    ['semis', () => new qb.Semiconductor(quantum[5])],
+    ['fits', () => qb.fitMultiwavelength(quantum[6])],
+    ['designs', () => new qb.DetectorDesign(designs[1])],
+  ]) {
     const o = make();
     o.free();
     pool[k].push(o);
@@ -178,7 +211,7 @@ test(`fuzz: seeded random calls of every function and method (seed ${SEED}, ≤ 
     if (ref.point(10, 300) !== KNOWN || qb.fermiDirac(2) !== KNOWN_FD) assert.fail(`instance state changed after call ${calls} (${tgt.name})`);
     // free some objects now and then (their later calls must be DISPOSED)
     if (rnd() < 0.02) {
-      const kind = pick(['spectra', 'instruments', 'curves', 'designs']);
+      const kind = pick(Object.keys(pool));
       const i = Math.floor(rnd() * pool[kind].length);
       if (i > 0) {
         pool[kind][i].free();
