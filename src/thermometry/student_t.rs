@@ -35,7 +35,7 @@
 //!   measurement*, §6.3 and Annex G (Table G.2).
 #![forbid(unsafe_code)]
 
-use crate::float::{erfc, exp, ln, ln_1p, ln_gamma, sqrt};
+use crate::float::{erfc, exp, ln, ln_1p, sqrt};
 use crate::{Error, Result};
 
 /// ln √π.
@@ -62,9 +62,16 @@ pub(crate) fn check_degrees_of_freedom(arg: &'static str, nu: f64) -> Result<f64
 }
 
 /// ln Γ(a + ½) − ln Γ(a) for a > 0.
+///
+/// Below a = 20 the recurrence Γ(z + 1) = z·Γ(z) shifts the argument up:
+/// ln Γ(a + ½) − ln Γ(a) = [ln Γ(z + ½) − ln Γ(z)] − Σ_{k<m} ln(1 + ½/(a + k)), z = a + m ≥ 20
+/// (at most about 20 terms of ln_1p; no log-gamma routine in the module).
 fn ln_gamma_half_step(a: f64) -> f64 {
-    if a < 20.0 {
-        return ln_gamma(a + 0.5) - ln_gamma(a);
+    let mut z = a;
+    let mut shift = 0.0;
+    while z < 20.0 {
+        shift += ln_1p(0.5 / z);
+        z += 1.0;
     }
     // Stirling: ln Γ(z) = (z − ½)ln z − z + ½ln 2π + S(z), S(z) = Σ B₂ₖ/(2k(2k−1)z^(2k−1)).
     let s = |z: f64| {
@@ -72,7 +79,7 @@ fn ln_gamma_half_step(a: f64) -> f64 {
         let r2 = r * r;
         r * (1.0 / 12.0 - r2 * (1.0 / 360.0 - r2 * (1.0 / 1260.0 - r2 * (1.0 / 1680.0))))
     };
-    a * ln_1p(0.5 / a) - 0.5 + 0.5 * ln(a) + (s(a + 0.5) - s(a))
+    z * ln_1p(0.5 / z) - 0.5 + 0.5 * ln(z) + (s(z + 0.5) - s(z)) - shift
 }
 
 /// ln B(a, ½).
