@@ -283,20 +283,26 @@ pub(crate) fn upper_quantile(q: f64, nu: f64) -> Result<f64> {
         } else {
             hi = t;
         }
-        // d ln Q / d ln t = −t·f(t)/Q(t)
-        let slope = -t * density(t, nu) / tail;
-        let mut next = if slope < 0.0 {
-            t * exp(-g / slope)
-        } else {
-            f64::NAN
-        };
+        // d ln Q / d ln t = −t·f(t)/Q(t); where f(t) underflows (t far out in the tail) its
+        // limit, the power-law exponent −ν of Q ∝ t^(−ν).
+        let mut slope = -t * density(t, nu) / tail;
+        let power_law = !(slope < 0.0);
+        if power_law {
+            slope = -nu;
+        }
+        let mut next = t * exp(-g / slope);
+        if power_law && hi.is_infinite() && next.is_infinite() {
+            // Q ∝ t^(−ν) this far out: the root lies beyond the largest f64.
+            return Ok(f64::INFINITY);
+        }
         if !(next > lo && next < hi) {
             next = if hi.is_infinite() {
                 4.0 * t
             } else if lo == 0.0 {
                 0.25 * t
             } else {
-                sqrt(lo * hi)
+                // the geometric mean without overflow of lo·hi
+                sqrt(lo) * sqrt(hi)
             };
         }
         if !next.is_finite() {
@@ -435,6 +441,23 @@ mod tests {
                 assert_eq!(student_t_quantile(1.0 - p, nu).unwrap(), -t);
             }
         }
+    }
+
+    #[test]
+    fn far_tail_quantiles_stay_finite_until_they_overflow() {
+        // Closed forms (A&S 26.7.3, 26.7.4): ν = 1, t_p = −cot(πp) = −1/(πp)·(1 − (πp)²/3 …);
+        // ν = 2, t_p = (2p − 1)/√(2p(1 − p)). Far beyond the f64 range of t² and of the
+        // density, short of the overflow of t itself.
+        for &p in &[1e-100, 1e-200, 1e-300] {
+            let t1 = student_t_quantile(p, 1.0).unwrap();
+            let want1 = -1.0 / (core::f64::consts::PI * p);
+            assert!((t1 / want1 - 1.0).abs() < 1e-12, "{p}: {t1} vs {want1}");
+            let t2 = student_t_quantile(p, 2.0).unwrap();
+            let want2 = (2.0 * p - 1.0) / (2.0 * p * (1.0 - p)).sqrt();
+            assert!((t2 / want2 - 1.0).abs() < 1e-12, "{p}: {t2} vs {want2}");
+        }
+        // −1/(π·1e-309) = −3.2e308 is beyond the largest f64: the quantile overflows to −∞
+        assert_eq!(student_t_quantile(1e-309, 1.0).unwrap(), f64::NEG_INFINITY);
     }
 
     #[test]
