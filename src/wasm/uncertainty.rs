@@ -37,7 +37,7 @@ use crate::thermometry::gum::{
     Coverage, CoverageMethod, Distribution, Evaluation, GumEntry, GumMethod, GumResult,
     InputUncertainty, Propagation,
 };
-use crate::thermometry::its90::{self, fixed_point_curve, FixedPoint, InterpolationReport};
+use crate::thermometry::its90::{self, fixed_point_curve, FixedPoint};
 use crate::thermometry::measurement_gum::{
     measurement_budget, measurement_estimates, MeasurementEquation,
 };
@@ -705,7 +705,8 @@ impl MonteCarloHandle {
 pub(crate) struct Reference {
     points: Vec<ReferencePoint>,
     c2: C2Convention,
-    fixed: Option<([FixedPoint; 3], InterpolationReport)>,
+    /// A fixed-point curve's report, as [`CalibrationHandle::fixed_point_report`] lays it out.
+    fixed: Option<[f64; 15]>,
 }
 
 /// Per-point uncertainties `v` (one per point, each finite and ≥ 0: checked by the facade,
@@ -834,6 +835,36 @@ impl CalibrationHandle {
                     }
                 })
                 .collect();
+            let part = |e: Option<&its90::InterpolationError>| {
+                e.map_or([f64::NAN; 2], |e| [e.max_abs_error_k, e.at_temperature_k])
+            };
+            let ([b0, b1], [l0, l1], [h0, h1]) = (
+                part(Some(&report.between)),
+                part(report.below.as_ref()),
+                part(report.above.as_ref()),
+            );
+            let (f, t, s) = (
+                fc.fixed_points,
+                fc.fixed_points.map(|p| p.temperature_k()),
+                fc.signals,
+            );
+            let fixed = [
+                f[0] as u8 as f64,
+                f[1] as u8 as f64,
+                f[2] as u8 as f64,
+                t[0],
+                t[1],
+                t[2],
+                s[0],
+                s[1],
+                s[2],
+                b0,
+                b1,
+                l0,
+                l1,
+                h0,
+                h1,
+            ];
             Ok(CalibrationHandle {
                 curve: fc.curve,
                 report: None,
@@ -841,7 +872,7 @@ impl CalibrationHandle {
                 reference: Some(Reference {
                     points,
                     c2,
-                    fixed: Some((fc.fixed_points, report)),
+                    fixed: Some(fixed),
                 }),
                 _live: Live::new(),
             })
@@ -852,40 +883,11 @@ impl CalibrationHandle {
     /// (NaN for a part not asked for), or nothing for another curve.
     #[wasm_bindgen(js_name = fixedPointReport)]
     pub fn fixed_point_report(&self) -> f64 {
-        let Some(r) = &self.reference else {
-            return put(&[]);
-        };
-        let Some((fp, rep)) = &r.fixed else {
-            return put(&[]);
-        };
-        let part = |e: Option<&its90::InterpolationError>| {
-            e.map_or([f64::NAN; 2], |e| [e.max_abs_error_k, e.at_temperature_k])
-        };
-        let (p, [b0, b1], [l0, l1], [h0, h1]) = (
-            &r.points,
-            part(Some(&rep.between)),
-            part(rep.below.as_ref()),
-            part(rep.above.as_ref()),
-        );
-        let t = |i: usize| p.get(i).map_or(f64::NAN, |x| x.temperature_k);
-        let s = |i: usize| p.get(i).map_or(f64::NAN, |x| x.signal);
-        put(&[
-            fp[0] as u8 as f64,
-            fp[1] as u8 as f64,
-            fp[2] as u8 as f64,
-            t(0),
-            t(1),
-            t(2),
-            s(0),
-            s(1),
-            s(2),
-            b0,
-            b1,
-            l0,
-            l1,
-            h0,
-            h1,
-        ])
+        put(self
+            .reference
+            .as_ref()
+            .and_then(|r| r.fixed.as_ref())
+            .map_or(&[], |f| &f[..]))
     }
 
     /// Covariance then correlation matrix of (A, B, C), row-major, in f64 scratch 0.
@@ -944,7 +946,8 @@ pub fn ratio_temperature_sensitivities(
             reference_temperature_k,
             super::its90::c2(c2_name)?,
         )?;
-        let per_unit = crate::units::SpectralUnit::parse(unit)?.si_factor();
+        // metres per unit of the call (one rounding; the unit was parsed above)
+        let per_unit = wl / wavelength;
         Ok(put(&[
             s.temperature_k,
             s.d_t_d_ratio,
