@@ -410,10 +410,13 @@ pub struct RatioSensitivities {
     pub temperature_k: f64,
     /// ∂T/∂r, K per unit ratio. Each sensitivity here is ±∞ only where its true value is beyond
     /// the f64 range (a ratio or wavelength near the bottom of the f64 range).
+    #[cfg_attr(feature = "serde", serde(rename = "dTdRatio"))]
     pub d_t_d_ratio: f64,
     /// ∂T/∂T_X (reference-point temperature), K/K.
+    #[cfg_attr(feature = "serde", serde(rename = "dTdReferenceTemperature"))]
     pub d_t_d_reference_temperature: f64,
     /// ∂T/∂λ at fixed ratio, K/m.
+    #[cfg_attr(feature = "serde", serde(rename = "dTdWavelength"))]
     pub d_t_d_wavelength: f64,
 }
 
@@ -576,7 +579,12 @@ pub fn fixed_point_curve<M: SignalModel + ?Sized>(
     c2: C2Convention,
 ) -> Result<FixedPointCurve> {
     let mut fp = fixed_points;
-    fp.sort_unstable_by(|a, b| a.temperature_k().total_cmp(&b.temperature_k()));
+    // three elements: compare and swap (no general sort routine in the module)
+    for (i, j) in [(0, 1), (1, 2), (0, 1)] {
+        if fp[j].temperature_k() < fp[i].temperature_k() {
+            fp.swap(i, j);
+        }
+    }
     if fp[0] == fp[1] || fp[1] == fp[2] {
         return Err(Error::DegenerateFit {
             reason: "three different fixed points are needed",

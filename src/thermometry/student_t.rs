@@ -35,7 +35,7 @@
 //!   measurement*, §6.3 and Annex G (Table G.2).
 #![forbid(unsafe_code)]
 
-use crate::float::{erfc, exp, ln, ln_1p, ln_gamma, sqrt};
+use crate::float::{erfc, exp, ln, ln_1p, sqrt};
 use crate::{Error, Result};
 
 /// ln √π.
@@ -62,9 +62,16 @@ pub(crate) fn check_degrees_of_freedom(arg: &'static str, nu: f64) -> Result<f64
 }
 
 /// ln Γ(a + ½) − ln Γ(a) for a > 0.
+///
+/// Below a = 20 the recurrence Γ(z + 1) = z·Γ(z) shifts the argument up:
+/// ln Γ(a + ½) − ln Γ(a) = [ln Γ(z + ½) − ln Γ(z)] − Σ_{k<m} ln(1 + ½/(a + k)), z = a + m ≥ 20
+/// (at most about 20 terms of ln_1p; no log-gamma routine in the module).
 fn ln_gamma_half_step(a: f64) -> f64 {
-    if a < 20.0 {
-        return ln_gamma(a + 0.5) - ln_gamma(a);
+    let mut z = a;
+    let mut shift = 0.0;
+    while z < 20.0 {
+        shift += ln_1p(0.5 / z);
+        z += 1.0;
     }
     // Stirling: ln Γ(z) = (z − ½)ln z − z + ½ln 2π + S(z), S(z) = Σ B₂ₖ/(2k(2k−1)z^(2k−1)).
     let s = |z: f64| {
@@ -72,7 +79,7 @@ fn ln_gamma_half_step(a: f64) -> f64 {
         let r2 = r * r;
         r * (1.0 / 12.0 - r2 * (1.0 / 360.0 - r2 * (1.0 / 1260.0 - r2 * (1.0 / 1680.0))))
     };
-    a * ln_1p(0.5 / a) - 0.5 + 0.5 * ln(a) + (s(a + 0.5) - s(a))
+    z * ln_1p(0.5 / z) - 0.5 + 0.5 * ln(z) + (s(z + 0.5) - s(z)) - shift
 }
 
 /// ln B(a, ½).
@@ -286,13 +293,18 @@ pub(crate) fn upper_quantile(q: f64, nu: f64) -> Result<f64> {
         } else {
             hi = t;
         }
-        // d ln Q / d ln t = −t·f(t)/Q(t)
-        let slope = -t * density(t, nu) / tail;
-        let mut next = if slope < 0.0 {
-            t * exp(-g / slope)
-        } else {
-            f64::NAN
-        };
+        // d ln Q / d ln t = −t·f(t)/Q(t); where f(t) underflows (t far out in the tail) its
+        // limit, the power-law exponent −ν of Q ∝ t^(−ν).
+        let mut slope = -t * density(t, nu) / tail;
+        let power_law = !(slope < 0.0);
+        if power_law {
+            slope = -nu;
+        }
+        let mut next = t * exp(-g / slope);
+        if power_law && hi.is_infinite() && next.is_infinite() {
+            // Q ∝ t^(−ν) this far out: the root lies beyond the largest f64.
+            return Ok(f64::INFINITY);
+        }
         if !(next > lo && next < hi) {
             next = if hi.is_infinite() {
                 4.0 * t
@@ -447,6 +459,23 @@ mod tests {
                 assert_eq!(student_t_quantile(1.0 - p, nu).unwrap(), -t);
             }
         }
+    }
+
+    #[test]
+    fn far_tail_quantiles_stay_finite_until_they_overflow() {
+        // Closed forms (A&S 26.7.3, 26.7.4): ν = 1, t_p = −cot(πp) = −1/(πp)·(1 − (πp)²/3 …);
+        // ν = 2, t_p = (2p − 1)/√(2p(1 − p)). Far beyond the f64 range of t² and of the
+        // density, short of the overflow of t itself.
+        for &p in &[1e-100, 1e-200, 1e-300] {
+            let t1 = student_t_quantile(p, 1.0).unwrap();
+            let want1 = -1.0 / (core::f64::consts::PI * p);
+            assert!((t1 / want1 - 1.0).abs() < 1e-12, "{p}: {t1} vs {want1}");
+            let t2 = student_t_quantile(p, 2.0).unwrap();
+            let want2 = (2.0 * p - 1.0) / (2.0 * p * (1.0 - p)).sqrt();
+            assert!((t2 / want2 - 1.0).abs() < 1e-12, "{p}: {t2} vs {want2}");
+        }
+        // −1/(π·1e-309) = −3.2e308 is beyond the largest f64: the quantile overflows to −∞
+        assert_eq!(student_t_quantile(1e-309, 1.0).unwrap(), f64::NEG_INFINITY);
     }
 
     #[test]

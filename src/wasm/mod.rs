@@ -33,4 +33,5 @@ pub mod scratch;
 pub mod spectrum;
 pub mod stats;
 pub mod testing;
+pub mod uncertainty;
 pub mod units;

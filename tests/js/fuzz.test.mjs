@@ -32,6 +32,7 @@ test(`fuzz: seeded random calls of every function and method (seed ${SEED}, ≤ 
   const pick = (a) => a[Math.floor(rnd() * a.length)];
 
   const ref = new qb.Spectrum({ unit: 'um' });
+  const mcInstrument = new qb.Instrument({ model: { kind: 'spectralPoint', wavelength: 10, unit: 'um' }, conditions: { emissivity: 0.9, reflectedTemperatureK: 300 } });
   const KNOWN = ref.point(10, 300);
   const KNOWN_FD = qb.fermiDirac(2);
 
@@ -94,7 +95,7 @@ test(`fuzz: seeded random calls of every function and method (seed ${SEED}, ≤ 
         return [pick(nums), pick(strs)];
     }
   };
-  const pool = { spectra: [], instruments: [], curves: [], raman: [], loads: [], semis: [], fits: [], designs: [] };
+  const pool = { spectra: [], instruments: [], curves: [], raman: [], loads: [], semis: [], fits: [], designs: [], monteCarlo: [] };
   // configurations of the quantum area (src/wasm/js/quantum.js), valid and near-valid
   const quantum = [
     { shiftPerCm: 520.7, excitation: 532, unit: 'nm', detection: 'energy' },
@@ -119,7 +120,8 @@ test(`fuzz: seeded random calls of every function and method (seed ${SEED}, ≤ 
     if (r < 0.71) return new Uint16Array([0, 2, 65535]);
     if (r < 0.75) return { emissivity: pick(nums), reflectedTemperatureK: pick(nums), pathTransmittance: pick(nums), pathTemperatureK: pick(nums) };
     if (r < 0.78) return { gain: pick(nums), output: pick(strs), emissivity: pick([undefined, new Float32Array(3)]) };
-    if (r < 0.8) return pick(pool.instruments) ?? null;
+    if (r < 0.79) return pick(pool.instruments) ?? null;
+    if (r < 0.8) return pick([{ signal: pick(nums), emissivity: { standardUncertainty: pick(nums), degreesOfFreedom: pick(nums), distribution: pick(['normal', 'studentT', 'x']) } }, { correlations: [{ inputs: ['signal', pick(strs)], coefficient: pick(nums) }], coverageFactor: pick(nums) }, { correlation: [[1, pick(nums)], [pick(nums), 1]], trials: pick(nums), seed: pick(nums) }, [pick(nums), { standardUncertainty: pick(nums) }], ['zinc', pick(['aluminium', 'gold', 'lead']), 'copper']]);
     if (r < 0.815) return pick(quantum);
     if (r < 0.82) return { channels: pool.instruments.slice(0, 3), wavelengths: [8, 10, 12], unit: 'um', signals: [1, 2, 3], uncertainties: [0.1, 0.1, 0.1] };
     if (r < 0.83) return null;
@@ -128,7 +130,7 @@ test(`fuzz: seeded random calls of every function and method (seed ${SEED}, ≤ 
     return weird();
   };
 
-  const CLASSES = new Set(['Spectrum', 'Instrument', 'CalibrationCurve', 'DetectorDesign', 'QuantabandError', 'MultiwavelengthFit', 'RamanMode', 'YFactorLoads', 'Semiconductor', 'fitMultiwavelength']);
+  const CLASSES = new Set(['Spectrum', 'Instrument', 'CalibrationCurve', 'DetectorDesign', 'QuantabandError', 'MultiwavelengthFit', 'RamanMode', 'YFactorLoads', 'Semiconductor', 'fitMultiwavelength', 'MonteCarlo']);
   const fns = Object.entries(qb).filter(([k, v]) => typeof v === 'function' && !CLASSES.has(k) && !['default', 'init', 'initSync'].includes(k));
   const methods = (cls) => Object.entries(Object.getOwnPropertyDescriptors(cls.prototype)).filter(([m, d]) => m !== 'constructor' && m !== 'free' && typeof d.value === 'function').map(([m]) => m);
   const targets = [
@@ -145,8 +147,15 @@ test(`fuzz: seeded random calls of every function and method (seed ${SEED}, ≤ 
     { name: 'fitMultiwavelength', call: (a) => pool.fits.push(qb.fitMultiwavelength(a[0], a[1])), arity: 2 },
     { name: 'new MultiwavelengthFit', call: (a) => new qb.MultiwavelengthFit(a[0], a[1]), arity: 2 },
     { name: 'new DetectorDesign', call: (a) => pool.designs.push(new qb.DetectorDesign(rnd() < 0.6 ? pick(designs) : a[0])), arity: 1 },
+    { name: 'CalibrationCurve.throughFixedPoints', call: (a) => pool.curves.push(qb.CalibrationCurve.throughFixedPoints(a[0], a[1], a[2])), arity: 3 },
+    { name: 'new MonteCarlo', call: () => new qb.MonteCarlo(), arity: 0 },
+    // any instrument with a small fixed count (a response model costs ~1e3 times more per
+    // trial), or any options with a cheap spectral-point instrument
+    { name: 'MonteCarlo.measurement', call: (a) => pool.monteCarlo.push(qb.MonteCarlo.measurement(a[0], a[1], a[2], { trials: 200 })), arity: 3 },
+    { name: 'MonteCarlo.measurement options', call: (a) => pool.monteCarlo.push(qb.MonteCarlo.measurement(mcInstrument, a[0], a[1], a[2])), arity: 3 },
+    { name: 'MonteCarlo.linear', call: (a) => pool.monteCarlo.push(qb.MonteCarlo.linear(a[0], a[1], a[2])), arity: 3 },
   ];
-  for (const [kind, cls] of [['spectra', qb.Spectrum], ['instruments', qb.Instrument], ['curves', qb.CalibrationCurve], ['raman', qb.RamanMode], ['loads', qb.YFactorLoads], ['semis', qb.Semiconductor], ['fits', qb.MultiwavelengthFit], ['designs', qb.DetectorDesign]]) {
+  for (const [kind, cls] of [['spectra', qb.Spectrum], ['instruments', qb.Instrument], ['curves', qb.CalibrationCurve], ['raman', qb.RamanMode], ['loads', qb.YFactorLoads], ['semis', qb.Semiconductor], ['fits', qb.MultiwavelengthFit], ['designs', qb.DetectorDesign], ['monteCarlo', qb.MonteCarlo]]) {
     for (const m of methods(cls)) {
       targets.push({
         name: `${cls.name}.${m}`,
@@ -162,7 +171,11 @@ test(`fuzz: seeded random calls of every function and method (seed ${SEED}, ≤ 
   // seed the pools with valid objects
   pool.spectra.push(new qb.Spectrum({ unit: 'um' }), new qb.Spectrum({ unit: 'cm-1', quantity: 'photon' }));
   pool.instruments.push(new qb.Instrument({ model: models[1] }), new qb.Instrument({ model: models[0], conditions: { emissivity: 0.9, reflectedTemperatureK: 300 } }));
-  pool.curves.push(new qb.CalibrationCurve({ aM: 1e-5, bMK: 1.8e-4, c: 1e6 }));
+  pool.curves.push(new qb.CalibrationCurve({ aM: 1e-5, bMK: 1.8e-4, c: 1e6 }), qb.CalibrationCurve.fit([500, 800, 1200], [1, 20, 200], { uTemperaturesK: 0.05 }));
+  pool.monteCarlo.push(
+    qb.MonteCarlo.linear([1, 2], [1, { standardUncertainty: 0.5, distribution: 'triangular' }], { trials: 3000 }),
+    qb.MonteCarlo.measurement(pool.instruments[1], 2e7, { signal: 1e5, emissivity: 0.01 }, { trials: 3000 }),
+  );
   pool.raman.push(new qb.RamanMode(quantum[0]));
   pool.loads.push(new qb.YFactorLoads(quantum[2]));
   pool.semis.push(new qb.Semiconductor(quantum[4]));
@@ -178,6 +191,7 @@ test(`fuzz: seeded random calls of every function and method (seed ${SEED}, ≤ 
     ['semis', () => new qb.Semiconductor(quantum[5])],
     ['fits', () => qb.fitMultiwavelength(quantum[6])],
     ['designs', () => new qb.DetectorDesign(designs[1])],
+    ['monteCarlo', () => qb.MonteCarlo.linear([1], [1], { trials: 10 })],
   ]) {
     const o = make();
     o.free();
@@ -230,5 +244,6 @@ test(`fuzz: seeded random calls of every function and method (seed ${SEED}, ≤ 
   for (const code of ['WRONG_TYPE', 'DETACHED_BUFFER', 'DISPOSED', 'UNSUPPORTED', 'NON_FINITE']) assert.ok(codes[code] > 0, `no ${code} seen`);
   assert.equal(qb.__testing.tableSize(), before.table, 'the externref table grew');
   for (const k of Object.keys(pool)) for (const o of pool[k]) o.free();
+  mcInstrument.free();
   assert.equal(ref.point(10, 300), KNOWN);
 });
