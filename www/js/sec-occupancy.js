@@ -3,7 +3,7 @@
 // emissivity model fitted together); Raman anti-Stokes/Stokes thermometry; Y-factor receiver
 // noise temperature in the three load conventions.
 import { api } from './api.js';
-import { formatNumber, formatInput, parseNumber } from './fmt.js';
+import { formatNumber, formatResolved, formatInput, parseNumber } from './fmt.js';
 import { drawPlot, fillResults, fillTable } from './plot.js';
 import { toCsv, download } from './csv.js';
 import { kelvin, spectral, tag, tagMap, number, table, FieldError, typed, unitText, unitOf, labelOf } from './fields.js';
@@ -144,6 +144,8 @@ function multiwavelength() {
     ? `${fit.illConditioned ? 'Do not trust the digits of this temperature: ' : 'Check the fit: '}${w.map((k) => WARNING_WORDS[k] ?? k).join('; ')}. Read u(T), compare the grey two-colour and single-colour readings, and prefer a lower model order or more widely spread channels.`
     : '';
   const corr = fit.correlationTemperatureSlope;
+  // χ² below the rounding of the radiances (about 10⁻¹² of each, in units of its uncertainty) is 0.
+  const chiRes = rows.length * Math.max(...rows.map((r) => (1e-12 * r[1]) / r[2])) ** 2;
   fillResults($('oc-mw-res'), [
     ['t', `Fitted temperature${fit.illConditioned ? ' (ill-conditioned)' : ''}`, showTemperature(fit.temperatureK, ou), { big: true }],
     ['ut', 'Standard uncertainty u(T)', showDifference(fit.uTemperatureK, ou, 2)],
@@ -151,7 +153,7 @@ function multiwavelength() {
     ['cond', 'Condition number (limit)', `${formatNumber(fit.conditionNumber, { digits: 3 })} (${formatNumber(fit.maxConditionNumber, { digits: 3, trim: true })})`],
     ['corr', 'Correlation of T and emissivity slope', corr === undefined ? '— (grey model)' : formatNumber(corr, { decimals: 4 })],
     ['infl', 'u(T) ÷ u(T) with ε known', formatNumber(fit.uncertaintyInflation, { digits: 3 })],
-    ['chi2', 'χ² / degrees of freedom', `${formatNumber(fit.chiSquared, { digits: 3 })} / ${fit.degreesOfFreedom}`],
+    ['chi2', 'χ² / degrees of freedom', `${formatResolved(fit.chiSquared, '', { digits: 3, resolution: chiRes })} / ${fit.degreesOfFreedom}`],
   ]);
   fillTable($('oc-mw-table'), ['Line', `Wavelength (${U})`, `Single-colour temperature (${symbol(ou)})`, 'Fitted ε'],
     rows.map((r, i) => [String(lines[i]), trim(r[0]), showTemperature(fit.brightnessTemperaturesK[i], ou).replace(/ \S+$/, ''), formatNumber(fit.emissivityAtChannels[i], { digits: 4 })]));
