@@ -152,7 +152,33 @@ test('quantum statistics: messages under the field concerned, in page words', as
   await expect('oc-yf-y', '−1', ['Y-factor', 'greater than 1', '−1 dB']);
   await expect('oc-yf-y', '10', ['Y-factor', 'must be below', 'dB']);
   await recover('oc-yf-y', '2.55');
+  // A linear Y ≤ 0 has no value in dB: the scale stays linear and the message says why.
+  await select(page, 'oc-yf-yu', 'linear');
+  await expect('oc-yf-y', '-2', ['Y-factor', 'greater than 1']);
+  await select(page, 'oc-yf-yu', 'dB');
+  assert.equal(await page.inputValue('#oc-yf-yu'), 'linear');
+  assert.equal(await page.inputValue('#oc-yf-y'), '-2');
+  assert.match(await page.textContent('#oc-yf-y-msg'), /greater than 1/);
+  await recover('oc-yf-y', '1.8');
   await expect('oc-yf-th', '50', ['Hot load temperature', 'above the cold load temperature', '77 K']);
   await recover('oc-yf-th', '295');
+  await context.close();
+});
+
+test('quantum statistics at 1366 × 768: each task shows its inputs and its main result in the first 768 px', async () => {
+  const { page, context } = await open(browser, '', { viewport: { width: 1366, height: 768 } });
+  for (const task of ['occupancy', 'multi', 'raman', 'yfactor']) {
+    await select(page, 'oc-task', task);
+    const e = await page.evaluate(() => {
+      const s = document.getElementById('occupancy');
+      const top = s.getBoundingClientRect().top;
+      const shown = (x) => !x.closest('[hidden]') && x.getClientRects().length > 0;
+      const inputs = [...s.querySelectorAll('.inputs input, .inputs select, .inputs textarea')].filter(shown);
+      const main = s.querySelector('.main-result');
+      return { inputs: Math.max(...inputs.map((x) => x.getBoundingClientRect().bottom - top)), main: main.getBoundingClientRect().bottom - top, h: main.getBoundingClientRect().height };
+    });
+    assert.ok(e.h > 20, `${task}: a main result is shown`);
+    assert.ok(e.inputs <= 768 && e.main <= 768, `${task}: inputs end at ${e.inputs} px, main result at ${e.main} px`);
+  }
   await context.close();
 });

@@ -6,7 +6,7 @@ import { api } from './api.js';
 import { formatNumber, formatResolved, formatInput, parseNumber } from './fmt.js';
 import { drawPlot, fillResults, fillTable } from './plot.js';
 import { toCsv, download } from './csv.js';
-import { kelvin, spectral, tag, tagMap, number, table, FieldError, typed, unitText, unitOf, labelOf } from './fields.js';
+import { kelvin, spectral, tag, tagMap, number, table, FieldError, typed, unitText, unitOf } from './fields.js';
 import { showTemperature, showDifference } from './budget.js';
 import { symbol, kindWord } from './units.js';
 
@@ -230,9 +230,7 @@ function convertY(sel) {
     return;
   }
   if (to === 'dB' && !(v > 0)) {
-    sel.value = from;
-    const m = $('oc-yf-y-msg');
-    if (m) m.textContent = `Y-factor: ${typed('oc-yf-y')} has no value in dB (a ratio must be greater than 0). The scale was left at linear ratio.`;
+    sel.value = from; // no dB value: the scale stays linear, and the message under the field says why Y is unusable
     return;
   }
   el.value = formatInput(to === 'dB' ? api.fn('powerRatioToDecibels')(v) : api.fn('decibelsToPowerRatio')(v));
