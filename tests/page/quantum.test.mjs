@@ -120,6 +120,38 @@ test('Raman and Y-factor tasks against mpmath; the dB menu converts the value ty
   await context.close();
 });
 
+test('carrier task: intrinsic density and Fermi level from a density against mpmath; n·p = nᵢ²', async () => {
+  const { page, context, consoleErrors } = await open(browser);
+  const E = 1.602176634e-19; // J per eV (SI 2019, exact)
+  await select(page, 'oc-task', 'carriers');
+  // [m_e*, m_h*, Eg0 J, alpha J/K, beta K, T K, E_i J, n_i m⁻³, …]: the demo material is this row's.
+  const row = q.intrinsic.find((r) => r[5] === '300');
+  assert.ok(rel(Number(row[2]) / E, 1.17) < 1e-12 && rel(Number(row[3]) / E, 0.473e-3) < 1e-9, 'demo = reference material');
+  assert.equal(await page.getAttribute('#occupancy', 'data-state'), 'ok', await page.textContent('#occupancy'));
+  assert.ok(rel(num(await resultText(page, 'oc-sc-res', 'ni')) * 1e6, Number(row[7])) < 1e-4, await resultText(page, 'oc-sc-res', 'ni'));
+  assert.ok(Math.abs(num(await resultText(page, 'oc-sc-res', 'ei')) - Number(row[6]) / E) < 1e-6);
+  // Non-degenerate: n·p = nᵢ² (issue 18's limiting case), to the 5 digits shown.
+  const np = num(await resultText(page, 'oc-sc-res', 'n')) * num(await resultText(page, 'oc-sc-res', 'p'));
+  assert.ok(rel(np, (Number(row[7]) * 1e-6) ** 2) < 1e-3, `n·p ${np}`);
+  // The Fermi level giving n = 10¹⁵ cm⁻³ at 200 K: [… T, n m⁻³, E_F J].
+  const ff = q.fermi_from_density.find((r) => r[5] === '200' && r[6] === '1e21');
+  await setValue(page, 'oc-sc-t', '200');
+  await select(page, 'oc-sc-from', 'n');
+  await setValue(page, 'oc-sc-n', '1e15');
+  assert.ok(Math.abs(num(await resultText(page, 'oc-sc-res', 'ef')) - Number(ff[7]) / E) < 2e-6, await resultText(page, 'oc-sc-res', 'ef'));
+  assert.ok(rel(num(await resultText(page, 'oc-sc-res', 'n')), 1e15) < 1e-4);
+  // The band gap in meV: converted (×1000), same results.
+  const before = await page.textContent('#oc-sc-res');
+  await select(page, 'oc-sc-egu', 'meV');
+  assert.ok(Math.abs(Number(await page.inputValue('#oc-sc-eg')) - 1170) < 1e-9);
+  assert.equal(await page.textContent('#oc-sc-res'), before);
+  // A mass of 0 is reported under its field.
+  await setValue(page, 'oc-sc-me', '0');
+  assert.match(await page.textContent('#oc-sc-me-msg'), /Electron density-of-states mass ratio must be greater than 0/);
+  assert.deepEqual(consoleErrors, []);
+  await context.close();
+});
+
 test('quantum statistics: messages under the field concerned, in page words', async () => {
   const { page, context } = await open(browser);
   const expect = async (id, value, has) => {
@@ -167,7 +199,7 @@ test('quantum statistics: messages under the field concerned, in page words', as
 
 test('quantum statistics at 1366 × 768: each task shows its inputs and its main result in the first 768 px', async () => {
   const { page, context } = await open(browser, '', { viewport: { width: 1366, height: 768 } });
-  for (const task of ['occupancy', 'multi', 'raman', 'yfactor']) {
+  for (const task of ['occupancy', 'multi', 'raman', 'yfactor', 'carriers']) {
     await select(page, 'oc-task', task);
     const e = await page.evaluate(() => {
       const s = document.getElementById('occupancy');

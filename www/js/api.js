@@ -165,6 +165,10 @@ export const api = {
   ramanMode(settings) {
     return preparedOf('RamanMode', settings);
   },
+  /** A Semiconductor ({ electronMassRatio, holeMassRatio, bandGap0K, varshniAlpha?, varshniBetaK?, energyUnit }). */
+  semiconductor(material) {
+    return preparedOf('Semiconductor', material);
+  },
   /** YFactorLoads ({ hotLoadK, coldLoadK, unit, loadModel }). */
   yFactorLoads(settings) {
     return preparedOf('YFactorLoads', settings);

@@ -19,7 +19,7 @@ export const occupancySection = {
   available: () => api.has('boseEinsteinEnergy', 'fermiDiracEnergy', 'maxwellBoltzmannEnergy', 'convertSpectral', 'convertTemperature', 'constants'),
   build() {
     // Tasks whose bindings this build of the package lacks are removed from the menu.
-    const need = { multi: ['fitMultiwavelength'], raman: ['RamanMode'], yfactor: ['YFactorLoads', 'decibelsToPowerRatio', 'powerRatioToDecibels'] };
+    const need = { multi: ['fitMultiwavelength'], raman: ['RamanMode'], yfactor: ['YFactorLoads', 'decibelsToPowerRatio', 'powerRatioToDecibels'], carriers: ['Semiconductor'] };
     for (const [task, names] of Object.entries(need)) if (!api.has(...names)) $('oc-task').querySelector(`option[value="${task}"]`).remove();
   },
   wire() {
@@ -32,12 +32,13 @@ export const occupancySection = {
   compute() {
     const task = $('oc-task').value;
     // The main result is that of the task shown.
-    const main = { occupancy: 'oc-plot', multi: 'oc-mw-res', raman: 'oc-rm-res', yfactor: 'oc-yf-res' }[task];
+    const main = { occupancy: 'oc-plot', multi: 'oc-mw-res', raman: 'oc-rm-res', yfactor: 'oc-yf-res', carriers: 'oc-sc-res' }[task];
     for (const el of $('occupancy').querySelectorAll('.main-result')) el.classList.remove('main-result');
     $(main).classList.add('main-result');
     if (task === 'multi') return multiwavelength();
     if (task === 'raman') return raman();
     if (task === 'yfactor') return yFactor();
+    if (task === 'carriers') return carriers();
     return occupancy();
   },
 };
@@ -296,4 +297,41 @@ function yFactor() {
       return [name, r ? T(r.hotLoadNoiseTemperatureK) : '—', r ? T(r.coldLoadNoiseTemperatureK) : '—',
         { text: T(main[key]), value: main[key] }, { text: showDifference(diffs[m], ou, 3).replace(/ \S+$/, ''), value: diffs[m] }];
     }));
+}
+
+// ------------------------------------------------------------------ carrier statistics
+
+/** An energy field (eV or meV menu) in eV. */
+const eV = (id) => {
+  const x = spectral(id);
+  return api.convertSpectral(x.value, x.unit, 'eV');
+};
+
+function carriers() {
+  const t = kelvin('oc-sc-t');
+  const alpha = number('oc-sc-a');
+  const material = { electronMassRatio: number('oc-sc-me'), holeMassRatio: number('oc-sc-mh'), bandGap0K: eV('oc-sc-eg'), energyUnit: 'eV' };
+  if (alpha !== 0) Object.assign(material, { varshniAlpha: alpha * 1e-3, varshniBetaK: number('oc-sc-b') });
+  const sc = tagMap({ electronMassRatio: 'oc-sc-me', holeMassRatio: 'oc-sc-mh', bandGap0K: 'oc-sc-eg', varshniAlpha: 'oc-sc-a', varshniBetaK: 'oc-sc-b' },
+    () => api.semiconductor(material), 'oc-sc-eg');
+  const gapWords = { custom: (e) => (e.code === 'NO_SOLUTION' ? `Temperature (${typed('oc-sc-t')} ${unitText('oc-sc-t')}): the Varshni band gap is 0 or less there; check α and β.` : undefined) };
+  const gap = tag('oc-sc-t', () => sc.bandGap(t), gapWords);
+  const ef = $('oc-sc-from').value === 'ef' ? eV('oc-sc-ef') : tag('oc-sc-n', () => sc.fermiLevelFromElectronDensity(number('oc-sc-n') * 1e6, t));
+  const n = tag('oc-sc-ef', () => sc.electronDensity(ef, t));
+  const p = tag('oc-sc-ef', () => sc.holeDensity(ef, t));
+  const ni = tag('oc-sc-t', () => sc.intrinsic(t), gapWords);
+  const cm3 = (m3) => `${formatNumber(m3 * 1e-6, { digits: 5 })} cm⁻³`;
+  const err = (c) => `+${formatResolved(c.boltzmannRelativeError * 100, '%', { digits: 3, resolution: 1e-12 })}`;
+  const energy = (v) => `${formatNumber(v, { digits: 6 })} eV`;
+  fillResults($('oc-sc-res'), [
+    ['n', 'Electron density n (Fermi–Dirac)', cm3(n.densityPerM3), { big: true }],
+    ['p', 'Hole density p (Fermi–Dirac)', cm3(p.densityPerM3), { big: true }],
+    ['nerr', 'Error of the Boltzmann approximation in n', err(n)],
+    ['perr', 'Error of the Boltzmann approximation in p', err(p)],
+    ['ef', 'Fermi level above the valence-band top', energy(ef)],
+    ['ni', 'Intrinsic density nᵢ', cm3(ni.densityPerM3)],
+    ['ei', 'Intrinsic Fermi level', energy(ni.fermiLevel)],
+    ['eg', 'Band gap at this temperature', energy(gap)],
+    ['nc', 'Effective densities of states N_c, N_v', `${cm3(sc.conductionBandDensityOfStates(t))}, ${cm3(sc.valenceBandDensityOfStates(t))}`, { labelHtml: 'Effective densities of states N<sub>c</sub>, N<sub>v</sub>' }],
+  ]);
 }
