@@ -74,7 +74,7 @@ export function fillBudget(table, rows, gum, temperatureK, unit) {
   });
   body.push([{ html: 'Combined standard uncertainty, <i>u</i><sub>c</sub>' }, '', '', '', { text: showDifference(gum.combinedK, unit, 2, resK), value: gum.combinedK }, '100 %', '', '']);
   fillTable(table, ['Input', 'Value', { html: 'Standard uncertainty <i>u</i>' }, 'Sensitivity ∂T/∂x', { html: 'Contribution |∂T/∂x|·<i>u</i>' }, 'Share of variance',
-    { html: 'Degrees of freedom <i>ν</i>' }, 'Type, distribution'], body);
+    { html: '<i>ν</i>' }, 'Type'], body);
   const foot = table.createTFoot();
   const line = (key, html, text, value) => {
     const tr = foot.insertRow();
@@ -205,7 +205,7 @@ export function readCoverage(p, coreKey = null, names = {}) {
     words.push(`r(${names[a.value]}, ${names[b.value]}) = ${formatNumber(r, { digits: 6, trim: true })}`);
     lastId = rId;
   }
-  const options = { correlations: correlations.map(({ inputs, coefficient }) => ({ inputs, coefficient })) };
+  const options = coreKey ? { correlations: correlations.map(({ inputs, coefficient }) => ({ inputs, coefficient })) } : {};
   let covId = `${p}-p`;
   if ($(`${p}-cov`).value === 'k') {
     covId = `${p}-k`;

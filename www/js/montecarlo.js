@@ -125,8 +125,10 @@ export function monteCarloPanel(p, sec, current) {
       ['short', `Shortest ${pct} interval`, span(res.shortestInterval)],
     ];
     if (g) {
-      items.push(['gum', `GUM: y ± U (k = ${formatNumber(g.coverageFactor, { digits: 3 })}, ν_eff = ${showDof(g.effectiveDegreesOfFreedom)})`,
-        span([g.temperatureK - g.expandedUncertaintyK, g.temperatureK + g.expandedUncertaintyK])]);
+      const k = formatNumber(g.coverageFactor, { digits: 3 });
+      const nu = showDof(g.effectiveDegreesOfFreedom);
+      items.push(['gum', `GUM: y ± U (k = ${k}, effective degrees of freedom ${nu})`, span([g.temperatureK - g.expandedUncertaintyK, g.temperatureK + g.expandedUncertaintyK]),
+        { labelHtml: `GUM: <i>y</i> ± <i>U</i> (<i>k</i> = ${k}, <i>ν</i><sub>eff</sub> = ${nu})` }]);
     }
     if (v) {
       const d = (x) => showDifference(x, ou, 2);
