@@ -216,10 +216,9 @@ export const signalSection = {
   build() {
     const inputs = MEASUREMENT_INPUTS.map(([k, , label]) => [k, label, k === 'sig' ? '' : SINGLE]);
     inputs.push(['er', 'Emissivity ratio ε₁/ε₂', 'sg-mode=ratio']);
-    // Demo: the reading is the mean of 10 readings (Type A, ν = 9); ε known to ± a (rectangular);
-    // reflected and path temperatures from one sensor (r = 0.8, once the path has an uncertainty).
-    $('sg-gum').innerHTML = gumMarkup('sg', inputs, MEASUREMENT_INPUTS.map(([k, , l]) => [k, l]),
-      { nu: { sig: '9' }, dist: { eps: 'rectangular' }, corr: [['tr', 'tp', '0.8']], corrWhen: SINGLE });
+    // Neutral defaults (every input Type B and normal, no correlation, p = 95 %): nothing the
+    // practitioner did not choose changes the result; the pair most often correlated is offered.
+    $('sg-gum').innerHTML = gumMarkup('sg', inputs, MEASUREMENT_INPUTS.map(([k, , l]) => [k, l]), { corr: [['tr', 'tp', '0']], corrWhen: SINGLE });
   },
   wire(recompute) {
     panel = monteCarloPanel('sg', this.el, () => (this.el.dataset.state === 'ok' && $('sg-mode').value !== 'ratio' ? mcInputs : null));
