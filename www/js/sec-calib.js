@@ -199,6 +199,11 @@ export const calibSection = {
     // Demo: the signal is the mean of 20 frames (Type A, ν = 19); ε known to ± a (rectangular);
     // reflected and path temperatures from one invented sensor, r = 0.5.
     $('cf-gum').innerHTML = measurementGumMarkup('cf', 'Signal', { nu: { sig: '19' }, dist: { eps: 'rectangular' }, corr: [['tr', 'tp', '0.5']] });
+    // The ITS-90 defining fixed points of the core (In … Cu); the demo takes In, Sn, Zn.
+    [1, 2, 3].forEach((i) => {
+      $(`cf-fp${i}`).innerHTML = Object.keys(FP).map((k) => `<option value="${k}">${FP[k]}, ${k}</option>`).join('');
+      $(`cf-fp${i}`).value = Object.keys(FP)[i - 1];
+    });
   },
   wire(recompute) {
     // "Load" buttons: read a local file into its text area (FileReader; nothing leaves the machine).
