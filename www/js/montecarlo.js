@@ -20,7 +20,7 @@ const BINS = 80;
 /**
  * Wires the panel of prefix `p` (ids p-mcn, p-seed, p-mcrun, p-mcstop, p-mcprog, p-mcstatus,
  * p-mcres, p-mchist) in section element `sec`. `current()` gives the last valid inputs:
- * { inst, S, u, options, pairs, view (gumView), T, key, seed, ou, fields: { key: [νId, distId] } }
+ * { def (instrument definition), S, u, options, pairs, view (gumView), T, key, seed, ou, fields: { key: [νId, distId] } }
  * or null. Returns { render(ou, key) } for the section's compute().
  */
 export function monteCarloPanel(p, sec, current) {
@@ -99,7 +99,7 @@ export function monteCarloPanel(p, sec, current) {
     delete options.coverageFactor;
     if (n === 'adaptive') options.maxTrials = 1e6;
     else options.trials = Number(n);
-    const mc = api.monteCarlo(c.inst, c.S, c.u, options);
+    const mc = api.monteCarlo(api.instrument(c.def), c.S, c.u, options); // from the cache (or rebuilt if it was dropped)
     run = { mc, inputs: c, timer: 0, perTrial: 0.1 };
     done = null;
     $(`${p}-mcres`).textContent = '';

@@ -124,7 +124,7 @@ function computeSingle(mode, ou) {
   const seed = count('sg-seed', 0, 2 ** 53);
   const fields = Object.fromEntries(MEASUREMENT_INPUTS.map(([k]) => [k, [`sg-nu-${k}`, `sg-d-${k}`]]));
   const key = JSON.stringify([model, scene.conditions, S, g.u, g.cov.options, seed]);
-  mcInputs = { inst, S, u: g.u, options: g.cov.options, pairs: g.cov.pairs, view, T, key, seed, ou, fields };
+  mcInputs = { def: { model, conditions: scene.conditions }, S, u: g.u, options: g.cov.options, pairs: g.cov.pairs, view, T, key, seed, ou, fields };
   const tbb = blackbody.temperature(S);
 
   const items = [['t', 'Object temperature', showTemperature(T, ou), { big: true }], ...uncertaintyItems(view, ou)];
