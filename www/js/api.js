@@ -186,4 +186,37 @@ export const api = {
       f.free();
     }
   },
+  /**
+   * A Monte Carlo run (JCGM 101) of an instrument's measurement equation, prepared; the caller
+   * steps it (`step(n)`), ends it (`result(bins)`) and frees it.
+   */
+  monteCarlo(instrument, signal, uncertainties, options) {
+    return fn('MonteCarlo').measurement(instrument, signal, uncertainties, options);
+  },
+  /**
+   * A least-squares curve through points with their uncertainties (options: uTemperaturesK,
+   * uSignals) and the calibration transfer to a reading at `signal`: the core's CalibratedReading.
+   */
+  fitReading(temperaturesK, signals, options, signal, uSignal) {
+    const c = fn('CalibrationCurve').fit(temperaturesK, signals, options);
+    try {
+      return c.readingUncertainty(signal, uSignal);
+    } finally {
+      c.free();
+    }
+  },
+  /**
+   * A curve exact through three ITS-90 fixed points for an instrument definition, and a reading
+   * at the instrument's signal for readingK: { coefficients, report, signal, reading }.
+   */
+  fixedPointCurve(definition, fixedPoints, options, readingK) {
+    const inst = api.instrument(definition);
+    const c = fn('CalibrationCurve').throughFixedPoints(inst, fixedPoints, options);
+    try {
+      const signal = inst.signal(readingK);
+      return { coefficients: { ...c.coefficients }, report: c.fixedPointReport, signal, reading: c.readingUncertainty(signal, 0) };
+    } finally {
+      c.free();
+    }
+  },
 };
