@@ -385,11 +385,13 @@ impl<'de> de::Deserializer<'de> for Reader {
         _fields: &'static [&'static str],
         v: V,
     ) -> Result<V::Value, ConfigError> {
-        // A derived struct also reads an array, field by field in order.
+        // Only an object: serde's derived structs would also read an array field by field in
+        // order (`conditions: [0.9]` as an emissivity), a silent coercion the boundary refuses
+        // (WRONG_TYPE, "must be an object (got an array)"); it also drops every derived
+        // `visit_seq` from the module (10.4 KB).
         match self.collection()? {
             Some(Err(entries)) => v.visit_map(entries),
-            Some(Ok(items)) => v.visit_seq(items),
-            None => Err(self.wrong(&v)),
+            _ => Err(self.wrong(&v)),
         }
     }
 

@@ -1,7 +1,7 @@
 // The configuration reader (src/wasm/config.rs reads the facade's plain-data copy straight from
 // the JavaScript value): the order in which keys are checked (by name), the description of the
 // value of a wrong type for every kind of value, paths through arrays and nested objects, and an
-// array read field by field where an object is expected (serde's derived structs accept that).
+// array refused where an object is expected (serde's derived structs would read it field by field).
 // Binding-layer checks; the messages are the ones the package gave before the reader was
 // rewritten (compared case by case with the build of main 61010c1).
 import { test } from 'node:test';
@@ -45,14 +45,14 @@ test('paths run through arrays and nested objects', () => {
   assert.equal(msg(() => cond({ window: 'w' }), 'WRONG_TYPE'), 'definition.conditions.window must be an object (got a string)');
 });
 
-test('an array where an object is expected is read field by field (serde derive)', () => {
-  // conditions [0.9]: emissivity 0.9, so the reflected temperature is required
+test('an array where an object is expected is refused, not read field by field', () => {
+  // issue 12: no silent coercion — serde's derived structs would read [0.9] as { emissivity: 0.9 }
   assert.equal(
-    msg(() => new qb.Instrument({ model: point, conditions: [0.9] }), 'UNSUPPORTED'),
-    'unsupported: reflectedTemperatureK is required when emissivity < 1',
+    msg(() => new qb.Instrument({ model: point, conditions: [0.9] }), 'WRONG_TYPE'),
+    'definition.conditions must be an object (got an array)',
   );
-  assert.equal(msg(() => new qb.Instrument({ model: point, conditions: ['x'] }), 'WRONG_TYPE'), 'definition.conditions[0] must be a number (got a string)');
-  const c = new qb.CalibrationCurve([1e-5, 1e-8, 1]);
+  assert.equal(msg(() => new qb.CalibrationCurve([1e-5, 1e-8, 1]), 'WRONG_TYPE'), 'coefficients must be an object (got an array)');
+  const c = new qb.CalibrationCurve({ aM: 1e-5, bMK: 1e-8, c: 1 });
   assert.deepEqual(c.coefficients, { aM: 1e-5, bMK: 1e-8, c: 1, c2: 'codata2018' });
   c.free();
 });
