@@ -187,7 +187,7 @@ impl Xoshiro256StarStar {
     /// // the second output is 0: the smallest value, ½·2⁻⁵³, not 0
     /// assert_eq!(g.next_open01(), 0.5 * 2f64.powi(-53));
     /// ```
-    #[inline]
+    #[inline(never)] // one copy for every distribution (Sampler::sample draws it in six places)
     pub fn next_open01(&mut self) -> f64 {
         ((self.next_u64() >> 11) as f64 + 0.5) * (1.0 / 9_007_199_254_740_992.0)
     }
