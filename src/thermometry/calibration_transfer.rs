@@ -144,8 +144,6 @@ fn terms(c2: f64, t_mid: f64, p: &[f64; 3], s: f64) -> Option<PointTerms> {
     })
 }
 
-/// Solves the 3×3 system m·x = b after symmetric diagonal scaling, by Gaussian elimination
-/// with partial pivoting; `None` if singular.
 /// The Hessian, gradient and sum of squares of the temperature residuals at parameters `p`
 /// (`None` where a point has no model temperature). Out of line: [`CalibrationTransfer::fit`]
 /// calls it twice.
@@ -174,6 +172,8 @@ fn assemble(
     Some((h, grad, ss))
 }
 
+/// Solves the 3×3 system m·x = b after symmetric diagonal scaling, by Gaussian elimination
+/// with partial pivoting; `None` if singular.
 #[allow(clippy::needless_range_loop)]
 fn solve3_scaled(m: &[[f64; 3]; 3], b: &[f64; 3]) -> Option<[f64; 3]> {
     let mut d = [0.0; 3];

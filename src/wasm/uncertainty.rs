@@ -52,7 +52,7 @@ use crate::thermometry::Conditions;
 // ---------------------------------------------------------------------------------------------
 
 /// Writes `v` to f64 scratch buffer 0 and returns its length (what the facade reads back).
-fn put(v: &[f64]) -> f64 {
+pub(crate) fn put(v: &[f64]) -> f64 {
     with_f64(|b| {
         b[0].clear();
         b[0].extend_from_slice(v);
@@ -905,37 +905,4 @@ impl CalibrationHandle {
             Ok(put(&out))
         }))
     }
-}
-
-// ---------------------------------------------------------------------------------------------
-// ITS-90 ratio sensitivities
-// ---------------------------------------------------------------------------------------------
-
-/// `[T, ∂T/∂r, ∂T/∂T_X, ∂T/∂λ]` of a radiance-ratio temperature in f64 scratch 0, ∂T/∂λ in K
-/// per `unit`.
-#[wasm_bindgen(js_name = ratioTemperatureSensitivities)]
-pub fn ratio_temperature_sensitivities(
-    ratio: f64,
-    wavelength: f64,
-    unit: &str,
-    reference_temperature_k: f64,
-    c2_name: &str,
-) -> f64 {
-    number((|| {
-        let wl = super::its90::wavelength_m("wavelength", wavelength, unit)?;
-        let s = its90::ratio_temperature_sensitivities(
-            ratio,
-            wl,
-            reference_temperature_k,
-            super::its90::c2(c2_name)?,
-        )?;
-        // metres per unit of the call (one rounding; the unit was parsed above)
-        let per_unit = wl / wavelength;
-        Ok(put(&[
-            s.temperature_k,
-            s.d_t_d_ratio,
-            s.d_t_d_reference_temperature,
-            s.d_t_d_wavelength * per_unit,
-        ]))
-    })())
 }

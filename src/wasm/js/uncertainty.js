@@ -84,7 +84,7 @@ export function ratioTemperatureSensitivities(ratio, wavelength, unit, reference
     if (c2 === '') throw new QuantabandError('UNSUPPORTED', 'c2 must be one of "codata2018", "its90" (got "")');
     c2Name = c2;
   }
-  const v = _scratchNumbers(glue.ratioTemperatureSensitivities(ratio, wavelength, unit, referenceTemperatureK, c2Name));
+  const v = _scratchNumbers(glue.qbRatio(3, ratio, wavelength, referenceTemperatureK, 0, unit, c2Name));
   return { temperatureK: v[0], dTdRatio: v[1], dTdReferenceTemperature: v[2], dTdWavelength: v[3] };
 }
 
