@@ -65,36 +65,41 @@ fn opt(x: Option<f64>) -> f64 {
     x.unwrap_or(f64::NAN)
 }
 
-/// Appends a GUM result: `[estimate, u_c, ν_eff, k, p, U, propagation, coverage method,
+/// Writes a GUM result to f64 scratch 0 and returns its length: `[estimate, u_c, ν_eff, k, p, U, propagation, coverage method,
 /// ν used, n]`, then per entry `[id, c, u, ν, evaluation, distribution, |c|·u, share]`.
 /// Codes are the enums' declaration order (`Evaluation`: typeA 0, typeB 1; `Distribution`:
 /// normal 0 … studentT 4; `Propagation`: uncorrelated 0, correlated 1; `CoverageMethod`:
 /// studentT 0, normal 1, statedFactor 2).
-fn push_gum(out: &mut Vec<f64>, estimate: f64, r: &GumResult, entries: &[GumEntry]) {
-    out.extend_from_slice(&[
-        estimate,
-        r.combined_standard_uncertainty,
-        opt(r.effective_degrees_of_freedom),
-        r.coverage_factor,
-        opt(r.coverage_probability),
-        r.expanded_uncertainty,
-        r.method.propagation as u8 as f64,
-        r.method.coverage as u8 as f64,
-        opt(r.method.degrees_of_freedom_used),
-        entries.len() as f64,
-    ]);
-    for (i, e) in entries.iter().enumerate() {
+fn push_gum(estimate: f64, r: &GumResult, entries: &[GumEntry]) -> f64 {
+    with_f64(|b| {
+        let out = &mut b[0];
+        out.clear();
         out.extend_from_slice(&[
-            i as f64,
-            e.sensitivity,
-            e.input.standard_uncertainty,
-            e.input.degrees_of_freedom,
-            e.input.evaluation as u8 as f64,
-            e.input.distribution as u8 as f64,
-            e.component.abs(),
-            e.variance_share,
+            estimate,
+            r.combined_standard_uncertainty,
+            opt(r.effective_degrees_of_freedom),
+            r.coverage_factor,
+            opt(r.coverage_probability),
+            r.expanded_uncertainty,
+            r.method.propagation as u8 as f64,
+            r.method.coverage as u8 as f64,
+            opt(r.method.degrees_of_freedom_used),
+            entries.len() as f64,
         ]);
-    }
+        for (i, e) in entries.iter().enumerate() {
+            out.extend_from_slice(&[
+                i as f64,
+                e.sensitivity,
+                e.input.standard_uncertainty,
+                e.input.degrees_of_freedom,
+                e.input.evaluation as u8 as f64,
+                e.input.distribution as u8 as f64,
+                e.component.abs(),
+                e.variance_share,
+            ]);
+        }
+        out.len() as f64
+    })
 }
 
 // ---------------------------------------------------------------------------------------------
@@ -356,9 +361,7 @@ pub(crate) fn instrument_budget(
             .run(|s| measurement_budget(s, signal, &h.conditions, &u, corr.as_ref(), cov))
             .map_err(options_arg)?;
         let rows = if h.conditions.window.is_some() { 9 } else { 5 };
-        let mut out = Vec::new();
-        push_gum(&mut out, b.temperature_k, &b.result, &b.entries[..rows]);
-        Ok(put(&out))
+        Ok(push_gum(b.temperature_k, &b.result, &b.entries[..rows]))
     })())
 }
 
@@ -381,9 +384,7 @@ pub fn propagate_uncertainty(
         let cov = coverage(coverage_probability, coverage_factor);
         let r = propagate(sensitivities, &u, corr.as_ref(), cov, Some(&mut entries))
             .map_err(options_arg)?;
-        let mut out = Vec::new();
-        push_gum(&mut out, f64::NAN, &r, &entries);
-        Ok(put(&out))
+        Ok(push_gum(f64::NAN, &r, &entries))
     })())
 }
 
