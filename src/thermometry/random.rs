@@ -59,6 +59,7 @@ use crate::{Error, Result};
 ///
 /// # References
 /// Steele, Lea & Flood (2014), see the module docs.
+#[inline(never)] // four draws seed the generator: one copy
 pub fn splitmix64(state: &mut u64) -> u64 {
     *state = state.wrapping_add(0x9E37_79B9_7F4A_7C15);
     let mut z = *state;

@@ -1,6 +1,8 @@
 //! ITS-90 radiance ratios and two-colour temperatures for JavaScript (free functions; the
-//! wavelength in a wavelength unit given by name, c2 by convention name). Kept thin: the core's
-//! its90 results are serialized as they are.
+//! wavelength in a wavelength unit given by name, c2 by convention name). One export,
+//! [`ratio_op`], for all of them (the facade, `functions.js` and `uncertainty.js`, passes the
+//! operation number); object results leave as numbers in f64 scratch buffer 0 and the facade
+//! builds the objects.
 
 use wasm_bindgen::prelude::*;
 
