@@ -512,6 +512,13 @@ impl Spectrum {
         Ok(density(self, x, temperature_k, false))
     }
 
+    /// [`Spectrum::spectral`] for inputs already checked (the spectrum valid, x and T positive
+    /// and finite).
+    #[inline]
+    pub(crate) fn spectral_unchecked(&self, x: f64, temperature_k: f64) -> f64 {
+        density(self, x, temperature_k, false)
+    }
+
     /// Partial derivative ∂/∂T of [`Spectrum::spectral`], in the density's unit per kelvin.
     ///
     /// # Formula
@@ -743,8 +750,129 @@ pub(crate) fn ln_one_minus_exp_neg(x: f64, lnx: f64) -> f64 {
     }
 }
 
-/// ε n² g · K·v^p/(eˣ − 1), or its T-derivative; inputs validated.
+/// The constants of a spectrum's density ε n² g · K · v^p / (eˣ − 1), prepared once for a run of
+/// evaluations (the bulk spectrum) or per point (one `match` and a product).
+#[derive(Clone, Copy)]
+pub(crate) struct Direct {
+    /// ε n² g · K
+    coef: f64,
+    /// q of x = q/(vT) or x = q·v/T
+    q: f64,
+    /// |p| (5, 4, 3 or 2)
+    n: u32,
+    /// x = q/(vT) and v^p = 1/vⁿ (wavelength) instead of x = q·v/T and v^p = vⁿ
+    inverse: bool,
+}
+
+impl Direct {
+    /// The constants of `spec`.
+    #[inline]
+    pub(crate) fn of(spec: &Spectrum) -> Direct {
+        let kn = spec.kernel();
+        Direct {
+            coef: spec.scale() * kn.k,
+            q: kn.q,
+            n: kn.p.unsigned_abs(),
+            inverse: kn.inverse,
+        }
+    }
+
+    /// The density on lanes by the direct formula with [`float::exp_reduced`]; NaN in a lane
+    /// unless ln 2 ≤ x < 700 and vⁿ and the value are normal numbers (the caller then uses the
+    /// rest of [`density`], which covers every other input).
+    ///
+    /// For x ≥ ln 2, eˣ ≥ 2 and eˣ − 1 formed by one subtraction has relative error ≤
+    /// 2·err(eˣ) + ½ ulp (the subtraction is exact to ½ ulp of the result and amplifies the
+    /// relative error of eˣ by eˣ/(eˣ − 1) ≤ 2), so `expm1` is needed only below ln 2.
+    #[inline(always)]
+    fn lanes<L: float::Lanes>(&self, v: L, t: L) -> L {
+        let s = L::splat;
+        let x = if self.inverse {
+            s(self.q).div(v.mul(t))
+        } else {
+            s(self.q).mul(v).div(t)
+        };
+        let em1 = float::exp_reduced(x).sub(s(1.0));
+        let v2 = v.mul(v);
+        let vn = match self.n {
+            5 => v2.mul(v2).mul(v),
+            4 => v2.mul(v2),
+            3 => v2.mul(v),
+            _ => v2,
+        };
+        let val = if self.inverse {
+            s(self.coef).div(vn.mul(em1))
+        } else {
+            s(self.coef).mul(vn).div(em1)
+        };
+        val.where_within(x, core::f64::consts::LN_2, 700.0)
+            .where_within(vn, f64::MIN_POSITIVE, f64::INFINITY)
+            .where_within(val, f64::MIN_POSITIVE, f64::INFINITY)
+    }
+
+    /// One value of the fast path: a normal number, or NaN when [`density`] must be used.
+    #[cfg(not(all(target_arch = "wasm32", target_feature = "simd128")))]
+    #[inline]
+    fn point(&self, v: f64, t: f64) -> f64 {
+        self.lanes(v, t)
+    }
+
+    /// One value of the fast path (lane 0 of the vector form: one copy of the code in the
+    /// module).
+    #[cfg(all(target_arch = "wasm32", target_feature = "simd128"))]
+    #[inline]
+    fn point(&self, v: f64, t: f64) -> f64 {
+        use float::Lanes;
+        let y = self.pair(float::F64x2::splat(v), float::F64x2::splat(t));
+        core::arch::wasm32::f64x2_extract_lane::<0>(y.0)
+    }
+
+    /// Two values of the fast path.
+    #[cfg(all(target_arch = "wasm32", target_feature = "simd128"))]
+    #[inline(never)]
+    fn pair(&self, v: float::F64x2, t: float::F64x2) -> float::F64x2 {
+        self.lanes(v, t)
+    }
+
+    /// The densities at the coordinates `vs` (validated: positive and finite, in the spectrum's
+    /// SI unit) at temperature `t` (validated), times `factor`, written over `vs`.
+    #[cfg_attr(not(feature = "wasm"), allow(dead_code))]
+    pub(crate) fn fill(&self, spec: &Spectrum, vs: &mut [f64], t: f64, factor: f64) {
+        #[cfg(all(target_arch = "wasm32", target_feature = "simd128"))]
+        for p in vs.chunks_mut(2) {
+            use core::arch::wasm32::{f64x2, f64x2_extract_lane};
+            use float::Lanes;
+            // an odd last element is paired with itself
+            let a = p[0];
+            let b = p.get(1).copied().unwrap_or(a);
+            let y = self.pair(float::F64x2(f64x2(a, b)), float::F64x2::splat(t));
+            let y = [f64x2_extract_lane::<0>(y.0), f64x2_extract_lane::<1>(y.0)];
+            for (o, y) in p.iter_mut().zip(y) {
+                *o = factor
+                    * if ok(y) {
+                        y
+                    } else {
+                        density(spec, *o, t, false)
+                    };
+            }
+        }
+        #[cfg(not(all(target_arch = "wasm32", target_feature = "simd128")))]
+        for v in vs.iter_mut() {
+            *v = factor * density(spec, *v, t, false);
+        }
+    }
+}
+
+/// ε n² g · K·v^p/(eˣ − 1), or its T-derivative; inputs validated. Out of line: one copy serves
+/// the point, the bulk loop's fallback and the derivative.
+#[inline(never)]
 fn density(spec: &Spectrum, v: f64, t: f64, d_dt: bool) -> f64 {
+    if !d_dt {
+        let y = Direct::of(spec).point(v, t);
+        if ok(y) {
+            return y;
+        }
+    }
     let kn = spec.kernel();
     // Direct evaluation when every intermediate is a normal number: x as `reduced_x` forms it
     // on its direct path, and no logarithm at all (they are needed by the fallback only).
