@@ -514,6 +514,7 @@ impl Spectrum {
 
     /// [`Spectrum::spectral`] for inputs already checked (the spectrum valid, x and T positive
     /// and finite).
+    #[cfg_attr(not(feature = "wasm"), allow(dead_code))]
     #[inline]
     pub(crate) fn spectral_unchecked(&self, x: f64, temperature_k: f64) -> f64 {
         density(self, x, temperature_k, false)
@@ -750,10 +751,9 @@ pub(crate) fn ln_one_minus_exp_neg(x: f64, lnx: f64) -> f64 {
     }
 }
 
-/// The constants of a spectrum's density ε n² g · K · v^p / (eˣ − 1), prepared once for a run of
-/// evaluations (the bulk spectrum) or per point (one `match` and a product).
+/// The constants of a spectrum's density ε n² g · K · v^p / (eˣ − 1) for the direct formula.
 #[derive(Clone, Copy)]
-pub(crate) struct Direct {
+struct Direct {
     /// ε n² g · K
     coef: f64,
     /// q of x = q/(vT) or x = q·v/T
@@ -767,7 +767,7 @@ pub(crate) struct Direct {
 impl Direct {
     /// The constants of `spec`.
     #[inline]
-    pub(crate) fn of(spec: &Spectrum) -> Direct {
+    fn of(spec: &Spectrum) -> Direct {
         let kn = spec.kernel();
         Direct {
             coef: spec.scale() * kn.k,
@@ -777,88 +777,39 @@ impl Direct {
         }
     }
 
-    /// The density on lanes by the direct formula with [`float::exp_reduced`]; NaN in a lane
-    /// unless ln 2 ≤ x < 700 and vⁿ and the value are normal numbers (the caller then uses the
-    /// rest of [`density`], which covers every other input).
+    /// The density by the direct formula when ln 2 ≤ x < 700 and vⁿ is a normal number, else
+    /// NaN; the caller uses it only when it is a normal number, and otherwise the rest of
+    /// [`density`], which covers every other input.
     ///
-    /// For x ≥ ln 2, eˣ ≥ 2 and eˣ − 1 formed by one subtraction has relative error ≤
-    /// 2·err(eˣ) + ½ ulp (the subtraction is exact to ½ ulp of the result and amplifies the
-    /// relative error of eˣ by eˣ/(eˣ − 1) ≤ 2), so `expm1` is needed only below ln 2.
-    #[inline(always)]
-    fn lanes<L: float::Lanes>(&self, v: L, t: L) -> L {
-        let s = L::splat;
+    /// For x ≥ ln 2, eˣ ≥ 2, so eˣ − 1 formed as `exp(x) − 1` is within ½ ulp + 2·err(exp) of
+    /// the true value (the subtraction rounds once and amplifies the relative error of eˣ by
+    /// eˣ/(eˣ − 1) ≤ 2): `expm1` (slower) is needed only below ln 2. vⁿ by two or three
+    /// multiplications instead of `powi`; the kernel constants come prepared.
+    #[inline]
+    fn point(&self, v: f64, t: f64) -> f64 {
         let x = if self.inverse {
-            s(self.q).div(v.mul(t))
+            self.q / (v * t)
         } else {
-            s(self.q).mul(v).div(t)
+            self.q * v / t
         };
-        let em1 = float::exp_reduced(x).sub(s(1.0));
-        let v2 = v.mul(v);
+        if !(core::f64::consts::LN_2..700.0).contains(&x) {
+            return f64::NAN;
+        }
+        let em1 = float::exp(x) - 1.0;
+        let v2 = v * v;
         let vn = match self.n {
-            5 => v2.mul(v2).mul(v),
-            4 => v2.mul(v2),
-            3 => v2.mul(v),
+            5 => v2 * v2 * v,
+            4 => v2 * v2,
+            3 => v2 * v,
             _ => v2,
         };
-        let val = if self.inverse {
-            s(self.coef).div(vn.mul(em1))
-        } else {
-            s(self.coef).mul(vn).div(em1)
-        };
-        val.where_within(x, core::f64::consts::LN_2, 700.0)
-            .where_within(vn, f64::MIN_POSITIVE, f64::INFINITY)
-            .where_within(val, f64::MIN_POSITIVE, f64::INFINITY)
-    }
-
-    /// One value of the fast path: a normal number, or NaN when [`density`] must be used.
-    #[cfg(not(all(target_arch = "wasm32", target_feature = "simd128")))]
-    #[inline]
-    fn point(&self, v: f64, t: f64) -> f64 {
-        self.lanes(v, t)
-    }
-
-    /// One value of the fast path (lane 0 of the vector form: one copy of the code in the
-    /// module).
-    #[cfg(all(target_arch = "wasm32", target_feature = "simd128"))]
-    #[inline]
-    fn point(&self, v: f64, t: f64) -> f64 {
-        use float::Lanes;
-        let y = self.pair(float::F64x2::splat(v), float::F64x2::splat(t));
-        core::arch::wasm32::f64x2_extract_lane::<0>(y.0)
-    }
-
-    /// Two values of the fast path.
-    #[cfg(all(target_arch = "wasm32", target_feature = "simd128"))]
-    #[inline(never)]
-    fn pair(&self, v: float::F64x2, t: float::F64x2) -> float::F64x2 {
-        self.lanes(v, t)
-    }
-
-    /// The densities at the coordinates `vs` (validated: positive and finite, in the spectrum's
-    /// SI unit) at temperature `t` (validated), times `factor`, written over `vs`.
-    #[cfg_attr(not(feature = "wasm"), allow(dead_code))]
-    pub(crate) fn fill(&self, spec: &Spectrum, vs: &mut [f64], t: f64, factor: f64) {
-        #[cfg(all(target_arch = "wasm32", target_feature = "simd128"))]
-        for p in vs.chunks_mut(2) {
-            use core::arch::wasm32::{f64x2, f64x2_extract_lane};
-            use float::Lanes;
-            // an odd last element is paired with itself
-            let a = p[0];
-            let b = p.get(1).copied().unwrap_or(a);
-            let y = self.pair(float::F64x2(f64x2(a, b)), float::F64x2::splat(t));
-            let y = [f64x2_extract_lane::<0>(y.0), f64x2_extract_lane::<1>(y.0)];
-            for (o, y) in p.iter_mut().zip(y) {
-                *o = factor
-                    * if ok(y) {
-                        y
-                    } else {
-                        density(spec, *o, t, false)
-                    };
-            }
+        if !ok(vn) {
+            return f64::NAN;
         }
-        #[cfg(not(all(target_arch = "wasm32", target_feature = "simd128")))]
-        for v in vs.iter_mut() {
-            *v = factor * density(spec, *v, t, false);
+        if self.inverse {
+            self.coef / (vn * em1)
+        } else {
+            self.coef * vn / em1
         }
     }
 }
