@@ -543,10 +543,7 @@ impl SignalModel for SakumaHattori {
     }
     fn temperature(&self, signal: f64) -> Result<f64> {
         positive("signal", signal)?;
-        // ln(1 + y) by `ln` once 1 + y ≥ 2 (faster than `ln_1p` on wasm32): rounding 1 + y costs
-        // at most 2⁻⁵³/ln 2 relative in the logarithm there; `ln_1p` below.
-        let y = self.c / signal;
-        let l = if y >= 1.0 { ln(1.0 + y) } else { ln_1p(y) };
+        let l = ln_1p(self.c / signal);
         let t = (self.c2_mk / l - self.b_mk) / self.a_m;
         if t > 0.0 && t.is_finite() {
             Ok(t)
