@@ -428,44 +428,21 @@ impl Spectrum {
 
     fn kernel(&self) -> Kernel {
         let c2 = self.c2_value();
-        match (self.variable, self.quantity) {
-            (SpectralVariable::Wavelength, Quantity::Energy) => Kernel {
-                k: K_ENERGY,
-                p: -5,
-                q: c2,
-                inverse: true,
-            },
-            (SpectralVariable::Wavelength, Quantity::Photon) => Kernel {
-                k: K_PHOTON,
-                p: -4,
-                q: c2,
-                inverse: true,
-            },
-            (SpectralVariable::Wavenumber, Quantity::Energy) => Kernel {
-                k: K_ENERGY,
-                p: 3,
-                q: c2,
-                inverse: false,
-            },
-            (SpectralVariable::Wavenumber, Quantity::Photon) => Kernel {
-                k: K_PHOTON,
-                p: 2,
-                q: c2,
-                inverse: false,
-            },
-            (SpectralVariable::Frequency, Quantity::Energy) => Kernel {
-                k: K_ENERGY_FREQ,
-                p: 3,
-                q: c2 / SPEED_OF_LIGHT_C,
-                inverse: false,
-            },
-            (SpectralVariable::Frequency, Quantity::Photon) => Kernel {
-                k: K_PHOTON_FREQ,
-                p: 2,
-                q: c2 / SPEED_OF_LIGHT_C,
-                inverse: false,
-            },
-        }
+        let photon = matches!(self.quantity, Quantity::Photon);
+        let pick = |energy: f64, photons: f64| if photon { photons } else { energy };
+        let (k, p, q, inverse) = match self.variable {
+            SpectralVariable::Wavelength => (pick(K_ENERGY, K_PHOTON), -5i32, c2, true),
+            SpectralVariable::Wavenumber => (pick(K_ENERGY, K_PHOTON), 3, c2, false),
+            SpectralVariable::Frequency => (
+                pick(K_ENERGY_FREQ, K_PHOTON_FREQ),
+                3,
+                c2 / SPEED_OF_LIGHT_C,
+                false,
+            ),
+        };
+        // a photon density has one power of the coordinate fewer (divided by hc/λ, hcσ̃ or hν)
+        let p = if photon { p - p.signum() } else { p };
+        Kernel { k, p, q, inverse }
     }
 
     /// Spectral density at spectral coordinate `x` (the variable's SI unit) and temperature.
@@ -510,6 +487,14 @@ impl Spectrum {
         error::spectral(self.variable.arg_name(), x)?;
         error::temperature("temperature_k", temperature_k)?;
         Ok(density(self, x, temperature_k, false))
+    }
+
+    /// [`Spectrum::spectral`] for inputs already checked (the spectrum valid, x and T positive
+    /// and finite).
+    #[cfg_attr(not(feature = "wasm"), allow(dead_code))]
+    #[inline]
+    pub(crate) fn spectral_unchecked(&self, x: f64, temperature_k: f64) -> f64 {
+        density(self, x, temperature_k, false)
     }
 
     /// Partial derivative ∂/∂T of [`Spectrum::spectral`], in the density's unit per kelvin.
@@ -743,27 +728,106 @@ pub(crate) fn ln_one_minus_exp_neg(x: f64, lnx: f64) -> f64 {
     }
 }
 
-/// ε n² g · K·v^p/(eˣ − 1), or its T-derivative; inputs validated.
-fn density(spec: &Spectrum, v: f64, t: f64, d_dt: bool) -> f64 {
-    let kn = spec.kernel();
-    // Direct evaluation when every intermediate is a normal number: x as `reduced_x` forms it
-    // on its direct path, and no logarithm at all (they are needed by the fallback only).
-    let (x, denom) = if kn.inverse {
-        (kn.q / (v * t), v * t)
-    } else {
-        (kn.q * v / t, kn.q * v)
-    };
-    let vp = float::powi(v, kn.p);
-    if ok(vp) && x < 700.0 && ok(x) && ok(denom) {
-        let em1 = float::expm1(x);
-        let mut val = spec.scale() * kn.k * vp / em1;
-        if d_dt {
-            val = val * (x / t) / (-float::expm1(-x));
-        }
-        if ok(val) {
-            return val;
+/// The constants of a spectrum's density ε n² g · K · v^p / (eˣ − 1) for the direct formula.
+#[derive(Clone, Copy)]
+pub(crate) struct Direct {
+    /// ε n² g · K
+    coef: f64,
+    /// q of x = q/(vT) or x = q·v/T
+    q: f64,
+    /// |p| (5, 4, 3 or 2)
+    n: u32,
+    /// x = q/(vT) and v^p = 1/vⁿ (wavelength) instead of x = q·v/T and v^p = vⁿ
+    inverse: bool,
+}
+
+impl Direct {
+    /// The constants of `spec`.
+    #[inline]
+    pub(crate) fn of(spec: &Spectrum) -> Direct {
+        let kn = spec.kernel();
+        Direct {
+            coef: spec.scale() * kn.k,
+            q: kn.q,
+            n: kn.p.unsigned_abs(),
+            inverse: kn.inverse,
         }
     }
+
+    /// The density (or, with `d_dt`, its T-derivative) by the direct formula when every
+    /// intermediate is a normal number and x < 700, else NaN; the caller uses it only when it
+    /// is a normal number, and otherwise the logarithmic form of [`density`].
+    ///
+    /// For x ≥ ln 2, eˣ ≥ 2, so eˣ − 1 formed as `exp(x) − 1` is within ½ ulp + 2·err(exp) of
+    /// the true value (the subtraction rounds once and amplifies the relative error of eˣ by
+    /// eˣ/(eˣ − 1) ≤ 2): `expm1` (slower) is needed only below ln 2. vⁿ by two or three
+    /// multiplications instead of `powi`; the kernel constants come prepared. No logarithm (the
+    /// fallback's are computed only there).
+    #[inline(never)]
+    fn eval(&self, v: f64, t: f64, d_dt: bool) -> f64 {
+        let (x, denom) = if self.inverse {
+            let d = v * t;
+            (self.q / d, d)
+        } else {
+            let d = self.q * v;
+            (d / t, d)
+        };
+        if !((f64::MIN_POSITIVE..700.0).contains(&x) && ok(denom)) {
+            return f64::NAN;
+        }
+        let em1 = if x >= core::f64::consts::LN_2 {
+            float::exp(x) - 1.0
+        } else {
+            float::expm1(x)
+        };
+        let v2 = v * v;
+        let vn = match self.n {
+            5 => v2 * v2 * v,
+            4 => v2 * v2,
+            3 => v2 * v,
+            _ => v2,
+        };
+        if !ok(vn) {
+            return f64::NAN;
+        }
+        let val = if self.inverse {
+            self.coef / (vn * em1)
+        } else {
+            self.coef * vn / em1
+        };
+        if d_dt {
+            val * (x / t) / (-float::expm1(-x))
+        } else {
+            val
+        }
+    }
+
+    /// The densities at the coordinates `vs` (validated: positive and finite, in the spectrum's
+    /// SI unit) at temperature `t` (validated), times `factor`, written over `vs`: one loop over
+    /// constants prepared once.
+    #[cfg_attr(not(feature = "wasm"), allow(dead_code))]
+    pub(crate) fn fill(&self, spec: &Spectrum, vs: &mut [f64], t: f64, factor: f64) {
+        for v in vs.iter_mut() {
+            let y = self.eval(*v, t, false);
+            *v = factor
+                * if ok(y) {
+                    y
+                } else {
+                    density(spec, *v, t, false)
+                };
+        }
+    }
+}
+
+/// ε n² g · K·v^p/(eˣ − 1), or its T-derivative; inputs validated. Out of line: one copy serves
+/// the point, the bulk loop's fallback and the derivative.
+#[inline(never)]
+fn density(spec: &Spectrum, v: f64, t: f64, d_dt: bool) -> f64 {
+    let y = Direct::of(spec).eval(v, t, d_dt);
+    if ok(y) {
+        return y;
+    }
+    let kn = spec.kernel();
     // Logarithmic evaluation: correct tiny or huge values, 0 or ∞ only outside the f64 range.
     let (x, lnx) = reduced_x(kn, v, t);
     let mut lnv = spec.ln_scaled(kn.k) + f64::from(kn.p) * float::ln(v) - ln_expm1(x, lnx);

@@ -268,13 +268,8 @@ impl CalibrationHandle {
     }
 
     pub fn temperature(&self, signal: f64) -> f64 {
-        number(
-            (|| {
-                check::positive("signal", signal)?;
-                self.curve.temperature(signal)
-            })()
-            .map_err(Fail::from),
-        )
+        // the curve checks the signal itself (same argument name)
+        number(self.curve.temperature(signal).map_err(Fail::from))
     }
 
     /// Bulk forms over f64 scratch buffer 0: 0 signals, 1 signal derivatives, 2 temperatures.

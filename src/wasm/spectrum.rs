@@ -12,13 +12,13 @@ use wasm_bindgen::prelude::*;
 
 use super::config::read;
 use super::error::{in_config, number, some, to_js, Fail};
-use super::scratch::{map_in_place, status};
+use super::scratch::{map_in_place, status, with_f64};
 use super::testing::Live;
 use crate::band;
 use crate::definition::SpectrumSettings;
 use crate::error::{self as check, Error};
 use crate::inverse;
-use crate::planck::{Geometry, Quantity, Spectrum};
+use crate::planck::{Direct, Geometry, Quantity, Spectrum};
 use crate::units::{convert_spectral_checked, SpectralKind, SpectralUnit};
 
 /// A checked spectrum with its user units.
@@ -101,10 +101,11 @@ impl SpectrumHandle {
     fn density(&self, x: f64, t: f64, d_dt: bool) -> crate::Result<f64> {
         let xs = self.to_si("x", x)?;
         check::temperature("temperatureK", t)?;
+        // The spectrum was validated when the handle was made, x and T just now.
         let v = if d_dt {
             self.spectrum.spectral_d_dt(xs, t)?
         } else {
-            self.spectrum.spectral(xs, t)?
+            self.spectrum.spectral_unchecked(xs, t)
         };
         Ok(v * self.factor)
     }
@@ -319,14 +320,16 @@ impl SpectrumHandle {
                 check::temperature("temperatureK", a)?;
                 let d = matches!(op, Bulk::Derivatives);
                 let f = self.factor;
+                // Points: checked and converted first (errors name the element), then one loop
+                // over the prepared constants.
                 map_in_place(|x| {
                     let xs = self.to_si("xs", x)?;
-                    Ok(f * if d {
-                        s.spectral_d_dt(xs, a)?
-                    } else {
-                        s.spectral(xs, a)?
-                    })
-                })
+                    Ok(if d { f * s.spectral_d_dt(xs, a)? } else { xs })
+                })?;
+                if !d {
+                    with_f64(|b| Direct::of(s).fill(s, &mut b[0], a, f));
+                }
+                Ok(())
             }
             Bulk::Bands | Bulk::BandDerivatives | Bulk::BandFractions | Bulk::BandTemperatures => {
                 let (lo, hi) = self.band_si(a, b)?;
