@@ -10,13 +10,16 @@ use wasm_bindgen::prelude::*;
 use super::config::read;
 use super::error::{in_config, number, some, to_js, Fail};
 use super::instrument::InstrumentHandle;
-use super::scratch::{map_in_place, status, with_f32, with_f64, with_u16, KIND_F32, KIND_U16};
+use super::scratch::{
+    map_in_place, status, with_f32, with_f64, with_f64x, with_u16, with_u8, KIND_F32, KIND_U16,
+};
 use super::testing::Live;
 use crate::constants::C2Convention;
 use crate::definition::MeasurementConditions;
 use crate::error::{self as check, Error};
 use crate::thermometry::{
-    max_interpolation_error_k, FitReport, FrameConverter, FrameSummary, SakumaHattori, SignalModel,
+    max_interpolation_error_k, FitReport, FrameConverter, FrameSummary, PixelCorrections,
+    SakumaHattori, SignalModel,
 };
 
 /// A checked curve, with the report of the fit that made it (if any).
@@ -62,8 +65,8 @@ struct Report<'a> {
 }
 
 /// Per-frame settings of a frame conversion. The facade reads the arrays itself and passes
-/// `true` for `emissivity` and `out` when they are given; it also chooses the output buffer
-/// from `output`, which is checked here.
+/// `true` for `emissivity`, `pixelGain`, `pixelOffset`, `badPixels` and `out` when they are
+/// given; it also chooses the output buffer from `output`, which is checked here.
 #[derive(Deserialize, Default)]
 #[serde(rename_all = "camelCase", deny_unknown_fields)]
 struct FrameSettings {
@@ -82,6 +85,15 @@ struct FrameSettings {
     #[serde(default)]
     #[allow(dead_code)]
     out: Option<bool>,
+    /// A per-pixel non-uniformity gain map is in f64 scratch slot 3.
+    #[serde(default)]
+    pixel_gain: Option<bool>,
+    /// A per-pixel non-uniformity offset map is in f64 scratch slot 4.
+    #[serde(default)]
+    pixel_offset: Option<bool>,
+    /// A bad-pixel mask is in u8 scratch slot 0.
+    #[serde(default)]
+    bad_pixels: Option<bool>,
 }
 
 /// Element type of the returned temperatures.
@@ -305,9 +317,12 @@ impl CalibrationHandle {
         })())
     }
 
-    /// Converts the frame in scratch (input: f64 buffer 0, f32 buffer 0 or u16 buffer 0 by
-    /// `input`; with an emissivity map, in f64 buffer 2 when `map`, the input is f64 buffer 0)
-    /// into f64 or f32 buffer 1.
+    /// Converts the frame in scratch into f64 or f32 buffer 1. Without per-pixel maps the
+    /// input is f64 buffer 0, f32 buffer 0 or u16 buffer 0 by `input`. With maps (emissivity in
+    /// f64 buffer 2 when `map`, gain in f64 buffer 3, offset in f64 buffer 4, as the settings
+    /// say) the input is f64 buffer 0; with a bad-pixel mask only (u8 buffer 0) it is f64
+    /// buffer 0 except u16 or f32 input into f32 output, which stays in its own buffer (the
+    /// single-precision loop).
     #[wasm_bindgen(js_name = convertFrame)]
     pub fn convert_frame(
         &self,
@@ -340,24 +355,48 @@ impl CalibrationHandle {
                         other => other,
                     }
                 })?;
+            let maps = map || fs.pixel_gain.is_some() || fs.pixel_offset.is_some();
+            let masked = fs.bad_pixels.is_some();
             let summary = with_f64(|f| {
                 let [f0, f1, f2] = f;
-                let eps: Option<&[f64]> = if map { Some(f2) } else { None };
                 with_f32(|g| {
                     let [g0, g1] = g;
-                    with_u16(|u| match (input, eps, out_f64) {
-                        // Emissivity maps: the facade passes the frame as f64 (one loop each
-                        // output type instead of one per input type).
-                        (_, Some(e), true) => conv.convert_with_emissivity(&f0[..], e, &mut f1[..]),
-                        (_, Some(e), false) => {
-                            conv.convert_with_emissivity(&f0[..], e, &mut g1[..])
+                    with_u16(|u| {
+                        if !maps && !masked {
+                            return match (input, out_f64) {
+                                (KIND_U16, true) => conv.convert(&u[..], &mut f1[..]),
+                                (KIND_U16, false) => conv.convert(&u[..], &mut g1[..]),
+                                (KIND_F32, true) => conv.convert(&g0[..], &mut f1[..]),
+                                (KIND_F32, false) => conv.convert(&g0[..], &mut g1[..]),
+                                (_, true) => conv.convert(&f0[..], &mut f1[..]),
+                                (_, false) => conv.convert(&f0[..], &mut g1[..]),
+                            };
                         }
-                        (KIND_U16, None, true) => conv.convert(&u[..], &mut f1[..]),
-                        (KIND_U16, None, false) => conv.convert(&u[..], &mut g1[..]),
-                        (KIND_F32, None, true) => conv.convert(&g0[..], &mut f1[..]),
-                        (KIND_F32, None, false) => conv.convert(&g0[..], &mut g1[..]),
-                        (_, None, true) => conv.convert(&f0[..], &mut f1[..]),
-                        (_, None, false) => conv.convert(&f0[..], &mut g1[..]),
+                        with_f64x(|x| {
+                            let [x3, x4] = x;
+                            with_u8(|m| {
+                                let corr = PixelCorrections::<f64> {
+                                    gain: fs.pixel_gain.map(|_| &x3[..]),
+                                    offset: fs.pixel_offset.map(|_| &x4[..]),
+                                    emissivity: if map { Some(&f2[..]) } else { None },
+                                    bad_pixels: if masked { Some(&m[..]) } else { None },
+                                };
+                                match (input, out_f64, maps) {
+                                    (KIND_U16, false, false) => {
+                                        conv.convert_corrected(&u[..], &corr, &mut g1[..])
+                                    }
+                                    (KIND_F32, false, false) => {
+                                        conv.convert_corrected(&g0[..], &corr, &mut g1[..])
+                                    }
+                                    (_, true, _) => {
+                                        conv.convert_corrected(&f0[..], &corr, &mut f1[..])
+                                    }
+                                    (_, false, _) => {
+                                        conv.convert_corrected(&f0[..], &corr, &mut g1[..])
+                                    }
+                                }
+                            })
+                        })
                     })
                 })
             })?;

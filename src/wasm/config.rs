@@ -168,10 +168,34 @@ impl<'de> de::Deserializer<'de> for Reader {
 
 /// Runs `f` with `seg` on the path; leaves it there when `f` fails.
 fn descend<T>(seg: String, f: impl FnOnce() -> Result<T, ConfigError>) -> Result<T, ConfigError> {
-    PATH.with(|p| p.borrow_mut().push(seg));
+    push(seg);
     let r = f()?;
-    PATH.with(|p| p.borrow_mut().pop());
+    pop();
     Ok(r)
+}
+
+// The path bookkeeping out of line: `descend` is instantiated for every type read, and these
+// few instructions repeated in each cost the package several KB.
+#[inline(never)]
+fn push(seg: String) {
+    PATH.with(|p| p.borrow_mut().push(seg));
+}
+
+#[inline(never)]
+fn pop() {
+    PATH.with(|p| p.borrow_mut().pop());
+}
+
+/// The path segment of field `name`.
+#[inline(never)]
+fn field_segment(name: &str) -> String {
+    format!(".{name}")
+}
+
+/// The path segment of element `i`.
+#[inline(never)]
+fn index_segment(i: usize) -> String {
+    format!("[{i}]")
 }
 
 struct Items {
@@ -190,7 +214,7 @@ impl<'de> de::SeqAccess<'de> for Items {
         };
         let i = self.index;
         self.index += 1;
-        descend(format!("[{i}]"), || seed.deserialize(Reader(item))).map(Some)
+        descend(index_segment(i), || seed.deserialize(Reader(item))).map(Some)
     }
     fn size_hint(&self) -> Option<usize> {
         Some(self.items.len())
@@ -226,7 +250,7 @@ impl<'de> de::MapAccess<'de> for Entries {
             .value
             .take()
             .ok_or_else(|| ConfigError::Custom("internal: value without key".to_string()))?;
-        descend(format!(".{name}"), || seed.deserialize(Reader(v)))
+        descend(field_segment(&name), || seed.deserialize(Reader(v)))
     }
 }
 

@@ -91,7 +91,7 @@ struct Pending {
     /// The variant's text fields (core errors), in declaration order.
     texts: [String; 2],
     /// The variant's numbers (core errors), in declaration order.
-    numbers: [f64; 2],
+    numbers: [f64; 3],
     /// First bad element of a bulk call.
     #[serde(skip_serializing_if = "Option::is_none")]
     index: Option<usize>,
@@ -102,26 +102,26 @@ struct Pending {
 
 /// The text fields and the numbers of `e`, in declaration order (integers that a message shows
 /// as a bracketed position are pre-formatted as text).
-fn fields(e: &Error) -> ([String; 2], [f64; 2]) {
+fn fields(e: &Error) -> ([String; 2], [f64; 3]) {
     let t = |a: &str, b: &str| [String::from(a), String::from(b)];
     match *e {
         Error::NonFinite { arg, value }
         | Error::NonPositiveTemperature { arg, value }
         | Error::NonPositiveSpectral { arg, value }
-        | Error::NonPositive { arg, value } => (t(arg, ""), [value, 0.0]),
-        Error::OutOfRange { arg, value, range } => (t(arg, range), [value, 0.0]),
-        Error::InvalidBand { lower, upper } => (t("", ""), [lower, upper]),
+        | Error::NonPositive { arg, value } => (t(arg, ""), [value, 0.0, 0.0]),
+        Error::OutOfRange { arg, value, range } => (t(arg, range), [value, 0.0, 0.0]),
+        Error::InvalidBand { lower, upper } => (t("", ""), [lower, upper, 0.0]),
         Error::NoSolution { what } | Error::NotConverged { what } | Error::Unsupported { what } => {
-            (t(what, ""), [0.0; 2])
+            (t(what, ""), [0.0; 3])
         }
-        Error::NoPhysicalSolution { signal, background } => (t("", ""), [signal, background]),
-        Error::DivergentOccupation { x } => (t("", ""), [x, 0.0]),
-        Error::LengthMismatch { expected, got } => (t("", ""), [expected as f64, got as f64]),
-        Error::TooFewPoints { needed, got } => (t("", ""), [needed as f64, got as f64]),
-        Error::NotIncreasing { arg, index } => (t(arg, ""), [index as f64, 0.0]),
-        Error::DegenerateFit { reason } => (t(reason, ""), [0.0; 2]),
-        Error::UnknownUnit { expected } => (t(expected, ""), [0.0; 2]),
-        Error::TooLarge { arg, limit, got } => (t(arg, ""), [limit as f64, got as f64]),
+        Error::NoPhysicalSolution { signal, background } => (t("", ""), [signal, background, 0.0]),
+        Error::DivergentOccupation { x } => (t("", ""), [x, 0.0, 0.0]),
+        Error::LengthMismatch { expected, got } => (t("", ""), [expected as f64, got as f64, 0.0]),
+        Error::TooFewPoints { needed, got } => (t("", ""), [needed as f64, got as f64, 0.0]),
+        Error::NotIncreasing { arg, index } => (t(arg, ""), [index as f64, 0.0, 0.0]),
+        Error::DegenerateFit { reason } => (t(reason, ""), [0.0; 3]),
+        Error::UnknownUnit { expected } => (t(expected, ""), [0.0; 3]),
+        Error::TooLarge { arg, limit, got } => (t(arg, ""), [limit as f64, got as f64, 0.0]),
         Error::InvalidCorrelation {
             reason,
             row,
@@ -129,24 +129,21 @@ fn fields(e: &Error) -> ([String; 2], [f64; 2]) {
             value,
         } => (
             [String::from(reason), alloc::format!("[{row}][{column}]")],
-            [value, 0.0],
+            [value, 0.0, 0.0],
         ),
         Error::InvalidTableEntry {
             arg,
             index,
             value,
             range,
-        } => (t(arg, range), [value, index as f64]),
+        } => (t(arg, range), [value, index as f64, 0.0]),
         Error::OutsideTable {
             arg,
             wavelength_m,
             first_m,
             last_m,
-        } => (
-            [String::from(arg), alloc::format!("[{first_m}, {last_m}]")],
-            [wavelength_m, 0.0],
-        ),
-        Error::InvalidLine { line, reason } => (t(reason, ""), [line as f64, 0.0]),
+        } => (t(arg, ""), [wavelength_m, first_m, last_m]),
+        Error::InvalidLine { line, reason } => (t(reason, ""), [line as f64, 0.0, 0.0]),
     }
 }
 
@@ -204,7 +201,7 @@ pub fn take_error() -> JsValue {
         Fail::Binding(code, message) => Pending {
             code,
             texts: [String::new(), String::new()],
-            numbers: [0.0; 2],
+            numbers: [0.0; 3],
             index: None,
             message: Some(message),
         },

@@ -23,7 +23,7 @@ use crate::units::{convert_spectral_checked, SpectralUnit};
 pub struct InstrumentHandle {
     definition: InstrumentDefinition,
     pub(crate) model: PreparedModel,
-    conditions: Conditions,
+    pub(crate) conditions: Conditions,
     /// gain and background of the measurement equation (or why they cannot be had).
     affine: Result<(f64, f64), Error>,
     _live: Live,

@@ -27,6 +27,7 @@ pub mod fractions;
 pub mod instrument;
 pub mod its90;
 pub mod scratch;
+pub mod spectral;
 pub mod spectrum;
 pub mod stats;
 pub mod testing;

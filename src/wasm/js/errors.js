@@ -87,7 +87,7 @@ const MESSAGES = {
   INVALID_CORRELATION: (s, n) => `invalid correlation matrix: ${s[0]} (entry ${s[1]} = ${n[0]})`,
   INVALID_TABLE_ENTRY: (s, n) => `${s[0]}[${n[1]}] must lie in ${s[1]} (got ${n[0]})`,
   OUTSIDE_TABLE: (s, n) =>
-    `${s[0]} is needed at ${n[0]} m, outside its wavelength grid ${s[1]} m (give the table constant end values to extend it)`,
+    `${s[0]} is needed at ${n[0]} m, outside its wavelength grid [${n[1]}, ${n[2]}] m (give the table constant end values to extend it)`,
   INVALID_LINE: (s, n) => `line ${n[0]} of the table text: ${s[0]}`,
 };
 

@@ -1,0 +1,841 @@
+//! The prepared spectral instrument (`SpectralInstrument` in the facade,
+//! `src/wasm/js/spectral.js`): a response table in energy or photon units and spectral
+//! measurement conditions — each optical input a constant or a table in a wavelength unit —
+//! read, converted to SI and checked once (including that every table covers the band), then
+//! the forward and inverse spectral measurement equation, its five terms, band-effective
+//! values and sensitivities on plain numbers; text tables; and the workflows from an
+//! indicated temperature, for this object and for the grey `Instrument` (`QbInstrument`).
+//!
+//! Errors name what the caller wrote: table fields by their path in the definition
+//! (`definition.conditions.window.reflectance.values`, with the element index), conditions by
+//! `definition.conditions.<field>`, method arguments by their JavaScript names.
+
+use alloc::format;
+use alloc::vec::Vec;
+use core::fmt;
+
+use serde::de::{self, Deserializer, MapAccess, Visitor};
+use serde::Deserialize;
+use wasm_bindgen::prelude::*;
+
+use super::config::read;
+use super::error::{in_config, number, some, to_js, Fail};
+use super::instrument::InstrumentHandle;
+use super::scratch::{map_in_place, status, with_f64};
+use super::testing::Live;
+use crate::constants::C2Convention;
+use crate::definition::MeasurementConditions;
+use crate::error::{self as check, Error};
+use crate::planck::Quantity;
+use crate::thermometry::indicated::{
+    correct_reading, correct_reading_spectral, emissivity_by_contact, emissivity_by_reference,
+    reflected_temperature,
+};
+use crate::thermometry::spectral::{
+    band_effective, spectral_object_temperature, spectral_sensitivities, spectral_signal_terms,
+    SpectralConditions, SpectralInstrument, SpectralValue, SpectralWindow,
+};
+use crate::thermometry::table::{Ends, SpectralTableBuf, TableKind};
+use crate::thermometry::{Conditions, SignalModel};
+use crate::units::{SpectralKind, SpectralUnit};
+
+// ---------------------------------------------------------------------------------------------
+// The definition as JavaScript writes it.
+
+// The readers are written by hand with `visit_map` only: derived ones also carry a sequence
+// form and field-name visitors for every struct, which cost the package about 12 KB here and
+// are never used (configuration objects are plain objects). Errors go through the same
+// reader (`config::read`), so they name the field path as everywhere else.
+
+/// A table: wavelengths in a wavelength unit, values, and `ends` (condition tables) or
+/// `quantity` (the response).
+struct TableDef {
+    wavelengths: Vec<f64>,
+    values: Vec<f64>,
+    unit: SpectralUnit,
+    ends: Ends,
+    quantity: Quantity,
+}
+
+const TABLE_FIELDS: &[&str] = &["wavelengths", "values", "unit", "ends"];
+const RESPONSE_FIELDS: &[&str] = &["wavelengths", "values", "unit", "quantity"];
+
+/// Reads a [`TableDef`]; `true` for the response (which takes `quantity`, not `ends`).
+struct TableVisitor(bool);
+
+impl<'de> Visitor<'de> for TableVisitor {
+    type Value = TableDef;
+    fn expecting(&self, f: &mut fmt::Formatter<'_>) -> fmt::Result {
+        f.write_str("an object")
+    }
+    fn visit_map<A: MapAccess<'de>>(self, mut m: A) -> Result<TableDef, A::Error> {
+        let (mut wavelengths, mut values, mut unit) = (None, None, None);
+        let (mut ends, mut quantity) = (Ends::Reject, Quantity::Energy);
+        while let Some(key) = m.next_key::<alloc::string::String>()? {
+            match key.as_str() {
+                "wavelengths" => wavelengths = Some(m.next_value()?),
+                "values" => values = Some(m.next_value()?),
+                "unit" => unit = Some(m.next_value()?),
+                "ends" if !self.0 => ends = m.next_value()?,
+                "quantity" if self.0 => quantity = m.next_value()?,
+                other => {
+                    let fields = if self.0 {
+                        RESPONSE_FIELDS
+                    } else {
+                        TABLE_FIELDS
+                    };
+                    return Err(de::Error::unknown_field(other, fields));
+                }
+            }
+        }
+        Ok(TableDef {
+            wavelengths: wavelengths.ok_or_else(|| de::Error::missing_field("wavelengths"))?,
+            values: values.ok_or_else(|| de::Error::missing_field("values"))?,
+            unit: unit.ok_or_else(|| de::Error::missing_field("unit"))?,
+            ends,
+            quantity,
+        })
+    }
+}
+
+/// The response table (a [`TableDef`] with `quantity`).
+struct ResponseDef(TableDef);
+
+impl<'de> Deserialize<'de> for ResponseDef {
+    fn deserialize<D: Deserializer<'de>>(d: D) -> Result<Self, D::Error> {
+        d.deserialize_map(TableVisitor(true)).map(ResponseDef)
+    }
+}
+
+/// An optical input: a number (grey) or a table object.
+enum InputDef {
+    Constant(f64),
+    Table(TableDef),
+}
+
+impl<'de> Deserialize<'de> for InputDef {
+    fn deserialize<D: Deserializer<'de>>(d: D) -> Result<Self, D::Error> {
+        struct V;
+        impl<'de> Visitor<'de> for V {
+            type Value = InputDef;
+            fn expecting(&self, f: &mut fmt::Formatter<'_>) -> fmt::Result {
+                f.write_str("a number or a table { wavelengths, values, unit, ends? }")
+            }
+            fn visit_f64<E: de::Error>(self, v: f64) -> Result<InputDef, E> {
+                Ok(InputDef::Constant(v))
+            }
+            fn visit_map<A: MapAccess<'de>>(self, m: A) -> Result<InputDef, A::Error> {
+                TableVisitor(false).visit_map(m).map(InputDef::Table)
+            }
+        }
+        d.deserialize_any(V)
+    }
+}
+
+struct WindowDef {
+    transmittance: InputDef,
+    reflectance: Option<InputDef>,
+    temperature_k: f64,
+    reflected_temperature_k: Option<f64>,
+}
+
+impl<'de> Deserialize<'de> for WindowDef {
+    fn deserialize<D: Deserializer<'de>>(d: D) -> Result<Self, D::Error> {
+        struct V;
+        impl<'de> Visitor<'de> for V {
+            type Value = WindowDef;
+            fn expecting(&self, f: &mut fmt::Formatter<'_>) -> fmt::Result {
+                f.write_str("an object")
+            }
+            fn visit_map<A: MapAccess<'de>>(self, mut m: A) -> Result<WindowDef, A::Error> {
+                let (mut transmittance, mut reflectance, mut t, mut tr) = (None, None, None, None);
+                while let Some(key) = m.next_key::<alloc::string::String>()? {
+                    match key.as_str() {
+                        "transmittance" => transmittance = m.next_value()?,
+                        "reflectance" => reflectance = m.next_value()?,
+                        "temperatureK" => t = m.next_value()?,
+                        "reflectedTemperatureK" => tr = m.next_value()?,
+                        other => {
+                            return Err(de::Error::unknown_field(
+                                other,
+                                &[
+                                    "transmittance",
+                                    "reflectance",
+                                    "temperatureK",
+                                    "reflectedTemperatureK",
+                                ],
+                            ))
+                        }
+                    }
+                }
+                Ok(WindowDef {
+                    transmittance: transmittance
+                        .ok_or_else(|| de::Error::missing_field("transmittance"))?,
+                    reflectance,
+                    temperature_k: t.ok_or_else(|| de::Error::missing_field("temperatureK"))?,
+                    reflected_temperature_k: tr,
+                })
+            }
+        }
+        d.deserialize_map(V)
+    }
+}
+
+#[derive(Default)]
+struct ConditionsDef {
+    emissivity: Option<InputDef>,
+    reflectance: Option<InputDef>,
+    reflected_temperature_k: Option<f64>,
+    path_transmittance: Option<InputDef>,
+    path_temperature_k: Option<f64>,
+    window: Option<WindowDef>,
+}
+
+impl<'de> Deserialize<'de> for ConditionsDef {
+    fn deserialize<D: Deserializer<'de>>(d: D) -> Result<Self, D::Error> {
+        struct V;
+        impl<'de> Visitor<'de> for V {
+            type Value = ConditionsDef;
+            fn expecting(&self, f: &mut fmt::Formatter<'_>) -> fmt::Result {
+                f.write_str("an object")
+            }
+            fn visit_map<A: MapAccess<'de>>(self, mut m: A) -> Result<ConditionsDef, A::Error> {
+                let mut c = ConditionsDef::default();
+                while let Some(key) = m.next_key::<alloc::string::String>()? {
+                    match key.as_str() {
+                        "emissivity" => c.emissivity = m.next_value()?,
+                        "reflectance" => c.reflectance = m.next_value()?,
+                        "reflectedTemperatureK" => c.reflected_temperature_k = m.next_value()?,
+                        "pathTransmittance" => c.path_transmittance = m.next_value()?,
+                        "pathTemperatureK" => c.path_temperature_k = m.next_value()?,
+                        "window" => c.window = m.next_value()?,
+                        other => {
+                            return Err(de::Error::unknown_field(
+                                other,
+                                &[
+                                    "emissivity",
+                                    "reflectance",
+                                    "reflectedTemperatureK",
+                                    "pathTransmittance",
+                                    "pathTemperatureK",
+                                    "window",
+                                ],
+                            ))
+                        }
+                    }
+                }
+                Ok(c)
+            }
+        }
+        d.deserialize_map(V)
+    }
+}
+
+struct Definition {
+    response: TableDef,
+    conditions: ConditionsDef,
+    c2: C2Convention,
+}
+
+impl<'de> Deserialize<'de> for Definition {
+    fn deserialize<D: Deserializer<'de>>(d: D) -> Result<Self, D::Error> {
+        struct V;
+        impl<'de> Visitor<'de> for V {
+            type Value = Definition;
+            fn expecting(&self, f: &mut fmt::Formatter<'_>) -> fmt::Result {
+                f.write_str("an object")
+            }
+            fn visit_map<A: MapAccess<'de>>(self, mut m: A) -> Result<Definition, A::Error> {
+                let (mut response, mut conditions, mut c2) = (None, None, None);
+                while let Some(key) = m.next_key::<alloc::string::String>()? {
+                    match key.as_str() {
+                        "response" => response = Some(m.next_value::<ResponseDef>()?.0),
+                        "conditions" => conditions = m.next_value()?,
+                        "c2" => c2 = m.next_value()?,
+                        other => {
+                            return Err(de::Error::unknown_field(
+                                other,
+                                &["response", "conditions", "c2"],
+                            ))
+                        }
+                    }
+                }
+                Ok(Definition {
+                    response: response.ok_or_else(|| de::Error::missing_field("response"))?,
+                    conditions: conditions.unwrap_or_default(),
+                    c2: c2.unwrap_or_default(),
+                })
+            }
+        }
+        d.deserialize_map(V)
+    }
+}
+
+// ---------------------------------------------------------------------------------------------
+// Checked, owned inputs.
+
+/// Where a table lives in the definition (for error messages).
+struct Slot {
+    at: &'static str,
+    wavelengths: &'static str,
+    values: &'static str,
+}
+
+const RESPONSE: Slot = Slot {
+    at: "definition.response",
+    wavelengths: "definition.response.wavelengths",
+    values: "definition.response.values",
+};
+const EMISSIVITY: Slot = Slot {
+    at: "definition.conditions.emissivity",
+    wavelengths: "definition.conditions.emissivity.wavelengths",
+    values: "definition.conditions.emissivity.values",
+};
+const REFLECTANCE: Slot = Slot {
+    at: "definition.conditions.reflectance",
+    wavelengths: "definition.conditions.reflectance.wavelengths",
+    values: "definition.conditions.reflectance.values",
+};
+const PATH: Slot = Slot {
+    at: "definition.conditions.pathTransmittance",
+    wavelengths: "definition.conditions.pathTransmittance.wavelengths",
+    values: "definition.conditions.pathTransmittance.values",
+};
+const WINDOW_T: Slot = Slot {
+    at: "definition.conditions.window.transmittance",
+    wavelengths: "definition.conditions.window.transmittance.wavelengths",
+    values: "definition.conditions.window.transmittance.values",
+};
+const WINDOW_R: Slot = Slot {
+    at: "definition.conditions.window.reflectance",
+    wavelengths: "definition.conditions.window.reflectance.wavelengths",
+    values: "definition.conditions.window.reflectance.values",
+};
+const TEXT: Slot = Slot {
+    at: "text",
+    wavelengths: "wavelengths",
+    values: "values",
+};
+
+/// A table error with the table's argument names of `s`.
+fn rename(e: Error, s: &Slot) -> Error {
+    match e {
+        Error::InvalidTableEntry {
+            arg,
+            index,
+            value,
+            range,
+        } => Error::InvalidTableEntry {
+            arg: if arg.ends_with("values") {
+                s.values
+            } else {
+                s.wavelengths
+            },
+            index,
+            value,
+            range,
+        },
+        Error::NotIncreasing { index, .. } => Error::NotIncreasing {
+            arg: s.wavelengths,
+            index,
+        },
+        Error::NonPositive { value, .. } => Error::NonPositive {
+            arg: s.values,
+            value,
+        },
+        other => other,
+    }
+}
+
+/// A checked table of `kind` from wavelengths in `unit` (a wavelength unit) and values.
+#[inline(never)]
+fn table(
+    mut wl: Vec<f64>,
+    values: Vec<f64>,
+    unit: SpectralUnit,
+    kind: TableKind,
+    s: &Slot,
+) -> Result<SpectralTableBuf, Fail> {
+    if unit.kind() != SpectralKind::Wavelength {
+        return Err(Fail::Binding(
+            "UNSUPPORTED",
+            format!(
+                "{}.unit must be a wavelength unit (\"m\", \"mm\", \"um\", \"nm\"; got \"{}\"): \
+                 read tables in wavenumber, frequency or photon-energy units with \
+                 SpectralInstrument.tableFromText",
+                s.at,
+                unit.name()
+            ),
+        ));
+    }
+    if wl.len() != values.len() {
+        return Err(Fail::Binding(
+            "LENGTH_MISMATCH",
+            format!(
+                "{}: one value per wavelength is needed ({} wavelengths, {} values)",
+                s.at,
+                wl.len(),
+                values.len()
+            ),
+        ));
+    }
+    if wl.len() < 2 {
+        return Err(Fail::Binding(
+            "TOO_FEW_POINTS",
+            format!("{} needs at least 2 points (got {})", s.at, wl.len()),
+        ));
+    }
+    for (i, w) in wl.iter_mut().enumerate() {
+        // A bad wavelength stays as given: the table check names it with its index.
+        if *w > 0.0 && *w < f64::INFINITY {
+            let given = *w;
+            *w = unit
+                .to_si(s.wavelengths, given)
+                .map_err(|_| Error::InvalidTableEntry {
+                    arg: s.wavelengths,
+                    index: i,
+                    value: given,
+                    range: "(0, inf)",
+                })?;
+        }
+    }
+    SpectralTableBuf::new(kind, wl, values).map_err(|e| Fail::from(rename(e, s)))
+}
+
+/// An optical input, owned.
+enum Input {
+    Constant(f64),
+    Table(SpectralTableBuf),
+}
+
+impl Input {
+    fn of(d: Option<InputDef>, kind: TableKind, s: &Slot, default: f64) -> Result<Input, Fail> {
+        Ok(match d {
+            None => Input::Constant(default),
+            Some(InputDef::Constant(c)) => Input::Constant(c),
+            Some(InputDef::Table(t)) => {
+                Input::Table(table(t.wavelengths, t.values, t.unit, kind, s)?.with_ends(t.ends))
+            }
+        })
+    }
+    fn view(&self) -> SpectralValue<'_> {
+        match self {
+            Input::Constant(c) => SpectralValue::Constant(*c),
+            Input::Table(t) => SpectralValue::Table(t.as_table()),
+        }
+    }
+    fn is(&self, c: f64) -> bool {
+        matches!(self, Input::Constant(v) if *v == c)
+    }
+}
+
+struct WindowInput {
+    transmittance: Input,
+    reflectance: Input,
+    temperature_k: f64,
+    reflected_temperature_k: f64,
+}
+
+/// A temperature left out where its term has weight (UNSUPPORTED, as for grey conditions).
+fn required(field: &str, when: &str) -> Fail {
+    Fail::Binding(
+        "UNSUPPORTED",
+        format!("definition.conditions.{field} is required when {when}"),
+    )
+}
+
+/// Temperature of a term that has no weight (as `Conditions::BLACKBODY`).
+const UNUSED_K: f64 = 293.15;
+
+/// A checked spectral instrument and its conditions, owning the tables.
+#[wasm_bindgen(js_name = QbSpectral)]
+pub struct SpectralHandle {
+    response: SpectralTableBuf,
+    c2: C2Convention,
+    emissivity: Input,
+    reflectance: Option<Input>,
+    reflected_temperature_k: f64,
+    path_transmittance: Input,
+    path_temperature_k: f64,
+    window: Option<WindowInput>,
+    _live: Live,
+}
+
+impl SpectralHandle {
+    #[inline(never)]
+    fn build(d: Definition) -> Result<SpectralHandle, Fail> {
+        let r = d.response;
+        let kind = match r.quantity {
+            Quantity::Energy => TableKind::EnergyResponse,
+            Quantity::Photon => TableKind::PhotonResponse,
+        };
+        let response = table(r.wavelengths, r.values, r.unit, kind, &RESPONSE)?;
+        let c = d.conditions;
+        let emissivity = Input::of(c.emissivity, TableKind::Emissivity, &EMISSIVITY, 1.0)?;
+        let reflectance = match c.reflectance {
+            None => None,
+            r => Some(Input::of(r, TableKind::Reflectance, &REFLECTANCE, 0.0)?),
+        };
+        let path_transmittance =
+            Input::of(c.path_transmittance, TableKind::Transmittance, &PATH, 1.0)?;
+        let window = match c.window {
+            None => None,
+            Some(w) => {
+                let transmittance = Input::of(
+                    Some(w.transmittance),
+                    TableKind::Transmittance,
+                    &WINDOW_T,
+                    1.0,
+                )?;
+                let reflectance = Input::of(w.reflectance, TableKind::Reflectance, &WINDOW_R, 0.0)?;
+                let reflected_temperature_k = match w.reflected_temperature_k {
+                    Some(t) => t,
+                    None if reflectance.is(0.0) => w.temperature_k,
+                    None => {
+                        return Err(required(
+                            "window.reflectedTemperatureK",
+                            "window.reflectance is not 0",
+                        ))
+                    }
+                };
+                Some(WindowInput {
+                    transmittance,
+                    reflectance,
+                    temperature_k: w.temperature_k,
+                    reflected_temperature_k,
+                })
+            }
+        };
+        let reflects = match &reflectance {
+            None => !emissivity.is(1.0),
+            Some(r) => !r.is(0.0),
+        };
+        let reflected_temperature_k =
+            match c.reflected_temperature_k {
+                Some(t) => t,
+                None if !reflects => UNUSED_K,
+                None => return Err(required(
+                    "reflectedTemperatureK",
+                    "the target reflects (emissivity other than 1, or a reflectance other than 0)",
+                )),
+            };
+        let path_temperature_k = match c.path_temperature_k {
+            Some(t) => t,
+            None if path_transmittance.is(1.0) => UNUSED_K,
+            None => return Err(required("pathTemperatureK", "pathTransmittance is not 1")),
+        };
+        let h = SpectralHandle {
+            response,
+            c2: d.c2,
+            emissivity,
+            reflectance,
+            reflected_temperature_k,
+            path_transmittance,
+            path_temperature_k,
+            window,
+            _live: Live::new(),
+        };
+        h.run(|inst, cond| cond.validate_for(inst))
+            .map_err(in_config("definition.conditions"))?;
+        Ok(h)
+    }
+
+    /// `f` with the instrument and the conditions as the core's borrowed views.
+    fn run<R>(
+        &self,
+        f: impl FnOnce(&SpectralInstrument<'_>, &SpectralConditions<'_>) -> crate::Result<R>,
+    ) -> crate::Result<R> {
+        let (inst, cond) = self.views()?;
+        f(&inst, &cond)
+    }
+
+    /// The instrument and the conditions as the core's borrowed views (out of line: every
+    /// method needs them).
+    #[inline(never)]
+    fn views(&self) -> crate::Result<(SpectralInstrument<'_>, SpectralConditions<'_>)> {
+        let inst = SpectralInstrument::new(self.response.as_table(), self.c2)?;
+        let cond = SpectralConditions {
+            emissivity: self.emissivity.view(),
+            reflectance: self.reflectance.as_ref().map(Input::view),
+            reflected_temperature_k: self.reflected_temperature_k,
+            path_transmittance: self.path_transmittance.view(),
+            path_temperature_k: self.path_temperature_k,
+            window: self.window.as_ref().map(|w| SpectralWindow {
+                transmittance: w.transmittance.view(),
+                reflectance: w.reflectance.view(),
+                temperature_k: w.temperature_k,
+                reflected_temperature_k: w.reflected_temperature_k,
+            }),
+        };
+        Ok((inst, cond))
+    }
+}
+
+#[wasm_bindgen(js_class = QbSpectral)]
+impl SpectralHandle {
+    /// Reads and checks a definition `{ response, conditions?, c2? }` (plain-data copy).
+    pub fn create(definition: JsValue) -> Option<SpectralHandle> {
+        some(read::<Definition>(definition, "definition").and_then(Self::build))
+    }
+
+    /// Blackbody signal ∫R·L(T) dλ (no conditions).
+    pub fn signal(&self, t: f64) -> f64 {
+        number(
+            (|| {
+                check::temperature("temperatureK", t)?;
+                self.run(|inst, _| {
+                    Ok(spectral_signal_terms(inst, t, &SpectralConditions::BLACKBODY)?.signal)
+                })
+            })()
+            .map_err(Fail::from),
+        )
+    }
+
+    #[wasm_bindgen(js_name = measuredSignal)]
+    pub fn measured_signal(&self, t: f64) -> f64 {
+        number(
+            (|| {
+                check::temperature("objectTemperatureK", t)?;
+                self.run(|inst, c| Ok(spectral_signal_terms(inst, t, c)?.signal))
+            })()
+            .map_err(Fail::from),
+        )
+    }
+
+    #[wasm_bindgen(js_name = objectTemperature)]
+    pub fn object_temperature(&self, signal: f64) -> f64 {
+        number(
+            (|| {
+                check::finite("signal", signal)?;
+                self.run(|inst, c| spectral_object_temperature(inst, signal, c))
+            })()
+            .map_err(Fail::from),
+        )
+    }
+
+    #[wasm_bindgen(js_name = signalTerms)]
+    pub fn signal_terms(&self, t: f64) -> Option<JsValue> {
+        some((|| {
+            check::temperature("objectTemperatureK", t)?;
+            to_js(&self.run(|inst, c| spectral_signal_terms(inst, t, c))?)
+        })())
+    }
+
+    #[wasm_bindgen(js_name = bandEffective)]
+    pub fn band_effective(&self, t: f64) -> Option<JsValue> {
+        some((|| {
+            check::temperature("temperatureK", t)?;
+            to_js(&self.run(|inst, c| band_effective(inst, t, c))?)
+        })())
+    }
+
+    pub fn sensitivities(&self, signal: f64) -> Option<JsValue> {
+        some((|| {
+            check::finite("signal", signal)?;
+            to_js(&self.run(|inst, c| spectral_sensitivities(inst, signal, c))?)
+        })())
+    }
+
+    /// Bulk forms over f64 scratch buffer 0: 0 measured signals, 1 object temperatures.
+    pub fn bulk(&self, op: u32) -> f64 {
+        status(self.run_bulk(op))
+    }
+
+    /// The reading workflows with this instrument (see [`workflow`]).
+    #[wasm_bindgen(js_name = readingWorkflow)]
+    pub fn reading_workflow(&self, op: u32, a: f64, b: f64, c: f64, setting: JsValue) -> f64 {
+        number((|| {
+            let s = setting_of(setting)?;
+            Ok(self.run(|inst, cond| {
+                if op == CORRECT {
+                    correct_reading_spectral(inst, a, &s, cond)
+                } else {
+                    workflow(inst, op, a, b, c, &s)
+                }
+            })?)
+        })())
+    }
+
+    /// The reference-coating method with this instrument's response.
+    #[wasm_bindgen(js_name = referenceEmissivity)]
+    pub fn reference_emissivity(
+        &self,
+        a: f64,
+        b: f64,
+        c: f64,
+        d: f64,
+        setting: JsValue,
+    ) -> Option<JsValue> {
+        some((|| {
+            let s = setting_of(setting)?;
+            to_js(&self.run(|inst, _| reference(inst, a, b, c, d, &s))?)
+        })())
+    }
+}
+
+impl SpectralHandle {
+    #[inline(never)]
+    fn run_bulk(&self, op: u32) -> Result<(), Fail> {
+        let mut out = Ok(());
+        self.run(|inst, c| {
+            out = if op == 0 {
+                map_in_place(|t| {
+                    check::temperature("objectTemperaturesK", t)?;
+                    Ok(spectral_signal_terms(inst, t, c)?.signal)
+                })
+            } else {
+                map_in_place(|s| {
+                    check::finite("signals", s)?;
+                    spectral_object_temperature(inst, s, c)
+                })
+            };
+            Ok(())
+        })?;
+        out
+    }
+}
+
+// ---------------------------------------------------------------------------------------------
+// Workflows from an indicated temperature (both instrument classes).
+
+/// Operation numbers of `readingWorkflow`: correct a reading (a = indicated temperature),
+/// reflected temperature from a reflector reading (a = indicated, b = reflector emissivity,
+/// c = reflector temperature), emissivity by contact (a = indicated, b = true temperature,
+/// c = reflected temperature).
+const CORRECT: u32 = 0;
+const REFLECTED: u32 = 1;
+
+/// The grey measurement conditions an instrument applied to a reading.
+#[inline(never)]
+fn setting_of(v: JsValue) -> Result<Conditions, Fail> {
+    read::<MeasurementConditions>(v, "setting")?
+        .conditions()
+        .map_err(in_config("setting"))
+}
+
+/// The reflector method (`REFLECTED`) or the contact method with the blackbody signal of `m`.
+fn workflow(
+    m: &dyn SignalModel,
+    op: u32,
+    t_ind: f64,
+    b: f64,
+    c: f64,
+    setting: &Conditions,
+) -> crate::Result<f64> {
+    if op == REFLECTED {
+        reflected_temperature(m, t_ind, setting, b, c)
+    } else {
+        emissivity_by_contact(m, t_ind, setting, b, c)
+    }
+}
+
+/// The reference-coating method with the blackbody signal of `m`.
+fn reference(
+    m: &dyn SignalModel,
+    reference_k: f64,
+    surface_k: f64,
+    reference_emissivity: f64,
+    reflected_k: f64,
+    setting: &Conditions,
+) -> crate::Result<crate::thermometry::indicated::ReferenceEmissivity> {
+    check::temperature("referenceReadingK", reference_k)?;
+    check::temperature("surfaceReadingK", surface_k)?;
+    emissivity_by_reference(
+        m,
+        reference_k,
+        surface_k,
+        setting,
+        reference_emissivity,
+        reflected_k,
+    )
+}
+
+#[wasm_bindgen(js_class = QbInstrument)]
+impl InstrumentHandle {
+    /// The reading workflows with this instrument's model; a corrected reading is solved under
+    /// the instrument's conditions.
+    #[wasm_bindgen(js_name = readingWorkflow)]
+    pub fn reading_workflow(&self, op: u32, a: f64, b: f64, c: f64, setting: JsValue) -> f64 {
+        number((|| {
+            let s = setting_of(setting)?;
+            Ok(self.model.run(|m| {
+                if op == CORRECT {
+                    correct_reading(m, a, &s, &self.conditions)
+                } else {
+                    workflow(m, op, a, b, c, &s)
+                }
+            })?)
+        })())
+    }
+
+    /// The reference-coating method with this instrument's model.
+    #[wasm_bindgen(js_name = referenceEmissivity)]
+    pub fn reference_emissivity(
+        &self,
+        a: f64,
+        b: f64,
+        c: f64,
+        d: f64,
+        setting: JsValue,
+    ) -> Option<JsValue> {
+        some((|| {
+            let s = setting_of(setting)?;
+            to_js(&self.model.run(|m| reference(m, a, b, c, d, &s))?)
+        })())
+    }
+}
+
+// ---------------------------------------------------------------------------------------------
+// Text tables.
+
+/// Reads a two-column text table (`kind`: 0 emissivity, 1 reflectance, 2 transmittance,
+/// 3 response), the spectral coordinate in `unit`, with the core's reader
+/// (`SpectralTableBuf::from_text_with`). The facade has converted every number-like token of
+/// `text` already (JavaScript's correctly rounded `Number`, so the module links no second
+/// decimal parser): f64 scratch buffer 0 holds their values, buffer 1 their UTF-8 byte offsets
+/// in `text` (increasing) and buffer 2 their byte lengths; a field is a number when a token
+/// starts where it starts and is exactly as long. On success the wavelengths (m, increasing)
+/// go to buffer 0 and the values to buffer 1, and their number is returned (NaN with the error
+/// stored).
+#[wasm_bindgen(js_name = spectralTableFromText)]
+pub fn table_from_text(text: &str, unit: &str, kind: u32) -> f64 {
+    number((|| {
+        let unit = SpectralUnit::parse(unit)?;
+        let kind = match kind {
+            0 => TableKind::Emissivity,
+            1 => TableKind::Reflectance,
+            2 => TableKind::Transmittance,
+            _ => TableKind::EnergyResponse,
+        };
+        let base = text.as_ptr() as usize;
+        with_f64(|b| {
+            let [values, offsets, lengths] = b;
+            let token = |field: &str| -> Option<f64> {
+                let at = (field.as_ptr() as usize).wrapping_sub(base) as f64;
+                let i = offsets.partition_point(|&o| o < at);
+                match (offsets.get(i), lengths.get(i), values.get(i)) {
+                    (Some(&o), Some(&len), Some(&v)) if o == at && len == field.len() as f64 => {
+                        Some(v)
+                    }
+                    _ => None,
+                }
+            };
+            let t = SpectralTableBuf::from_text_with(kind, text, unit, &token).map_err(
+                |e| match e {
+                    Error::TooFewPoints { got, .. } => Fail::Binding(
+                        "TOO_FEW_POINTS",
+                        format!("text has {got} data line(s); a table needs at least 2"),
+                    ),
+                    e => Fail::from(rename(e, &TEXT)),
+                },
+            )?;
+            let t = t.as_table();
+            let (w, v) = (t.wavelengths_m(), t.values());
+            values.clear();
+            values.extend_from_slice(w);
+            offsets.clear();
+            offsets.extend_from_slice(v);
+            Ok(w.len() as f64)
+        })
+    })())
+}
