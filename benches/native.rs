@@ -155,6 +155,7 @@ fn main() {
     cases::radiometry(&runner);
     cases::thermometry(&runner);
     cases::statistics(&runner);
+    cases::uncertainty(&runner);
 }
 
 /// The benchmark cases (inputs as in `benches/data/bench_reference.json`).
@@ -169,6 +170,9 @@ mod cases {
         SpectralWindow,
     };
     use quantaband::thermometry::table::{SpectralTableBuf, TableKind};
+    use quantaband::thermometry::gum::{Distribution, InputUncertainty};
+    use quantaband::thermometry::measurement_gum::{measurement_estimates, MeasurementEquation};
+    use quantaband::thermometry::monte_carlo::{MonteCarlo, MonteCarloConfig, TrialCount};
     use quantaband::thermometry::{
         Conditions, FrameConverter, Response, ResponseSignal, SakumaHattori, SignalModel,
     };
@@ -589,6 +593,59 @@ mod cases {
             f,
             Extra {
                 value: Some(f()),
+                ..Extra::default()
+            },
+        );
+    }
+    /// Monte Carlo (JCGM 101): 10⁵ trials of the measurement equation of the benchmark camera
+    /// (its Sakuma–Hattori curve, emissivity 0.95, reflected 293.15 K) at the reading of a
+    /// 350 K object, seed 1, including the final sort and statistics. The value is the run's
+    /// standard uncertainty u(y), K; the reference is the GUM u_c of the same inputs (mpmath,
+    /// `benches/py/gen_bench_reference.py`): they differ by the sampling error.
+    pub fn uncertainty(r: &Runner) {
+        const TRIALS: usize = 100_000;
+        let Ok(sh) = SakumaHattori::new(SH_A, SH_B, SH_C, C2Convention::Codata2018) else {
+            r.skip("monte_carlo_1e5", "curve");
+            return;
+        };
+        let cond = Conditions {
+            emissivity: EMISSIVITY,
+            reflected_temperature_k: T_REFLECTED_K,
+            ..Conditions::BLACKBODY
+        };
+        // signal of a 350 K object (as in the reference JSON), u(signal) = 0.5, emissivity
+        // rectangular ±0.01 (u = 0.01/√3), u(T_refl) = 2 K
+        let signal = 463.970_592_706_228_8;
+        let mut u = [InputUncertainty::ZERO; 9];
+        u[0].standard_uncertainty = 0.5;
+        u[1].standard_uncertainty = 0.005_773_502_691_896_258;
+        u[1].distribution = Distribution::Rectangular;
+        u[2].standard_uncertainty = 2.0;
+        let estimates = measurement_estimates(signal, &cond);
+        let model = MeasurementEquation::new(&sh, &cond);
+        let config = MonteCarloConfig {
+            trials: TrialCount::Fixed { trials: TRIALS },
+            seed: 1,
+            ..MonteCarloConfig::default()
+        };
+        let mut values = vec![0.0; TRIALS];
+        let run = |values: &mut [f64]| -> f64 {
+            let mut go = || -> quantaband::Result<f64> {
+                let mut mc = MonteCarlo::new(config, black_box(&estimates), &u, None)?;
+                mc.run(&model, values, usize::MAX)?;
+                Ok(mc.finish(values)?.standard_uncertainty)
+            };
+            val(go())
+        };
+        let value = run(&mut values);
+        r.run(
+            "monte_carlo_1e5",
+            || run(&mut values),
+            Extra {
+                value: Some(value),
+                note: Some(
+                    "value: u(y) of the run vs the GUM u_c (mpmath); differs by the sampling error",
+                ),
                 ..Extra::default()
             },
         );

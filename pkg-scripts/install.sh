@@ -7,10 +7,11 @@
 #   - rustup targets wasm32-unknown-unknown and thumbv7em-none-eabihf, components rustfmt and clippy
 #   - wasm-bindgen-cli 0.2.130 (wasm-bindgen + wasm-bindgen-test-runner), which must equal the
 #     crate's pinned wasm-bindgen version exactly (~4 min to compile on 2 cores the first time)
-#   - the dev npm packages of package-lock.json (typescript, playwright-core, binaryen's wasm-opt)
-#     via `npm ci`, skipped when node_modules already matches the lockfile
+#   - the dev npm packages of package-lock.json (typescript, playwright-core, binaryen's wasm-opt;
+#     esbuild, vite and marked for the bundler consumers and the npm README check) via `npm ci`,
+#     skipped when node_modules already matches the lockfile
 #   - Debian's chromium, chromium-driver and fonts-liberation (headless browser tests), and
-#     Node.js/npm if absent
+#     Node.js/npm if absent (Node.js 20.19+ or 22.12+ is required)
 # Works as root with no standard input (CI=true). Set QB_SKIP_APT=1 to skip the Debian packages.
 set -euo pipefail
 cd "$(dirname "${BASH_SOURCE[0]}")/.."
@@ -74,14 +75,18 @@ fi
 if ! command -v node >/dev/null 2>&1 || ! command -v npm >/dev/null 2>&1; then
   apt_install nodejs npm
 fi
-node_major="$(node -p 'process.versions.node.split(".")[0]')"
-[ "$node_major" -ge 18 ] || die "Node.js >= 18 needed, found $(node --version)"
+# The dev tools (vite 8) and the package's own engines field need 20.19+ or 22.12+.
+node -e '
+  const [a, b] = process.versions.node.split(".").map(Number);
+  process.exit((a === 20 && b >= 19) || (a === 22 && b >= 12) || a >= 23 ? 0 : 1);
+' || die "Node.js 20.19+ or 22.12+ needed, found $(node --version)"
 
 # 4. Dev npm packages from the committed lockfile; skipped when node_modules already matches it.
 lock_sum="$(sha256sum package-lock.json | cut -d' ' -f1)"
 stamp=node_modules/.quantaband-lock.sha256
 if [ -f "$stamp" ] && [ "$(cat "$stamp")" = "$lock_sum" ] \
-   && [ -x node_modules/.bin/wasm-opt ] && [ -x node_modules/.bin/tsc ] && [ -d node_modules/playwright-core ]; then
+   && [ -x node_modules/.bin/wasm-opt ] && [ -x node_modules/.bin/tsc ] && [ -d node_modules/playwright-core ] \
+   && [ -x node_modules/.bin/esbuild ] && [ -x node_modules/.bin/vite ] && [ -d node_modules/marked ]; then
   say "npm dev packages: present (node_modules matches package-lock.json)"
 else
   say "npm ci"

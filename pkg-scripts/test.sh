@@ -184,7 +184,14 @@ else
   skipped types "tests/types/tsconfig.json absent"
 fi
 step size node tests/size/check.mjs
-step tarball-smoke node --test --test-reporter=spec tests/js/smoke/smoke.mjs
+# One tarball for the steps that install it (each packs its own when this step did not run).
+step pack "set -o pipefail; bash pkg-scripts/pack.sh | tee '$LOGDIR/tarball-path'"
+if [ "$LIST" != 1 ] && [ -s "$LOGDIR/tarball-path" ]; then
+  QB_TARBALL="$(tail -n 1 "$LOGDIR/tarball-path")"
+  export QB_TARBALL
+fi
+step tarball-smoke node --test --test-reporter=spec tests/js/smoke/smoke.mjs tests/js/smoke/readme-page.test.mjs
+step consumers node --test --test-reporter=spec tests/consumers/consumers.test.mjs
 if compgen -G 'tests/page/*.test.mjs' >/dev/null; then
   step page-test "node --test --test-reporter=spec tests/page/*.test.mjs"
 else

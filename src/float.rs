@@ -142,13 +142,6 @@ pub(crate) fn mul_add(a: f64, b: f64, c: f64) -> f64 {
     }
 }
 
-/// ln Γ(x) for x > 0.
-#[cfg_attr(feature = "std", inline(always))]
-#[cfg_attr(not(feature = "std"), inline(never))]
-pub(crate) fn ln_gamma(x: f64) -> f64 {
-    libm::lgamma(x)
-}
-
 /// Γ(x).
 #[cfg_attr(feature = "std", inline(always))]
 #[cfg_attr(not(feature = "std"), inline(never))]

@@ -330,7 +330,8 @@ impl SpectralUnit {
     /// Converts a coordinate from the SI base unit of this unit's kind into this unit.
     ///
     /// # Errors
-    /// [`Error::NonFinite`] for NaN/±∞, [`Error::NonPositiveSpectral`] for `value_si` ≤ 0.
+    /// [`Error::NonFinite`] for NaN/±∞, [`Error::NonPositiveSpectral`] for `value_si` ≤ 0. A
+    /// result beyond the f64 range is +∞ or 0 only when the true value is.
     ///
     /// # Examples
     /// ```
@@ -562,6 +563,7 @@ impl TemperatureUnit {
     ///
     /// # Errors
     /// [`Error::NonFinite`] for NaN/±∞; [`Error::NonPositiveTemperature`] for `kelvin` ≤ 0.
+    /// A result beyond the f64 range (°F or °R above `f64::MAX`/1.8 K) is +∞, not an error.
     ///
     /// # Examples
     /// ```
@@ -598,6 +600,10 @@ impl TemperatureUnit {
         let d = error::finite(arg, delta)?;
         Ok(match self {
             TemperatureUnit::Kelvin | TemperatureUnit::Celsius => d,
+            // d·5 would overflow for |d| > f64::MAX/5 although d·5/9 does not.
+            TemperatureUnit::Fahrenheit | TemperatureUnit::Rankine if d.abs() > f64::MAX / 5.0 => {
+                d / 9.0 * 5.0
+            }
             TemperatureUnit::Fahrenheit | TemperatureUnit::Rankine => d * 5.0 / 9.0,
         })
     }
@@ -605,7 +611,8 @@ impl TemperatureUnit {
     /// Converts a temperature *difference* in kelvin to this unit (no offset).
     ///
     /// # Errors
-    /// [`Error::NonFinite`] for NaN/±∞.
+    /// [`Error::NonFinite`] for NaN/±∞. A result beyond the f64 range (°F or °R for
+    /// |ΔT| > `f64::MAX`/1.8 K) is ±∞, not an error.
     ///
     /// # Examples
     /// ```
@@ -624,7 +631,8 @@ impl TemperatureUnit {
 /// Converts an absolute temperature between two units.
 ///
 /// # Errors
-/// As [`TemperatureUnit::to_kelvin`].
+/// As [`TemperatureUnit::to_kelvin`]. A result beyond the f64 range is +∞ (see
+/// [`TemperatureUnit::from_kelvin`]).
 ///
 /// # Examples
 /// ```
@@ -646,7 +654,8 @@ pub fn convert_temperature(
 /// Converts a temperature difference between two units.
 ///
 /// # Errors
-/// [`Error::NonFinite`] for NaN/±∞.
+/// [`Error::NonFinite`] for NaN/±∞. A result beyond the f64 range is ±∞ (see
+/// [`TemperatureUnit::difference_from_kelvin`]).
 ///
 /// # Examples
 /// ```
@@ -662,6 +671,147 @@ pub fn convert_temperature_difference(
 ) -> Result<f64> {
     let k = from.difference_to_kelvin(arg, delta)?;
     to.difference_from_kelvin(arg, k)
+}
+
+/// Centimetres per metre: D* in cm·Hz^½·W⁻¹ ("Jones") = 100 × D* in m·Hz^½·W⁻¹.
+const JONES_PER_SI_D_STAR: f64 = 100.0;
+
+/// Converts a specific detectivity D* from SI (m·Hz^½·W⁻¹) to cm·Hz^½·W⁻¹ ("Jones"), the unit
+/// detector data sheets quote.
+///
+/// # Formula
+/// ```text
+/// D*_Jones = 100·D*_SI       (D* = √(A·Δf)/NEP: the √area carries the length unit, 1 m = 100 cm)
+/// ```
+///
+/// # Errors
+/// [`Error::NonFinite`] / [`Error::NonPositive`] for `d_star` (a detectivity is > 0);
+/// [`Error::OutOfRange`] when the result overflows to ∞ (D* above 1.8e306 m·Hz^½·W⁻¹).
+///
+/// # Accuracy
+/// One rounding of the product (≤ 0.5 ulp); the round trip through [`jones_to_d_star`] returns
+/// the input within 1 ulp (`cargo test --lib units`).
+///
+/// # Examples
+/// ```
+/// use quantaband::units::d_star_to_jones;
+/// // 1e9 m·Hz^½/W is 1e11 cm·Hz^½/W (1 m = 100 cm, BIPM SI Brochure Table 7).
+/// assert_eq!(d_star_to_jones(1e9).unwrap(), 1e11);
+/// ```
+///
+/// # References
+/// BIPM, *The International System of Units (SI)*, 9th ed. (2019), Table 7 (centi = 10⁻²);
+/// R. C. Jones, "Performance of detectors for visible and infrared radiation", Adv. Electron.
+/// 5, 1 (1953) (the detectivity normalised to unit area and bandwidth) — from memory.
+pub fn d_star_to_jones(d_star: f64) -> Result<f64> {
+    error::positive("d_star", d_star)?;
+    in_range("d_star", d_star, d_star * JONES_PER_SI_D_STAR)
+}
+
+/// Converts a specific detectivity D* from cm·Hz^½·W⁻¹ ("Jones") to SI (m·Hz^½·W⁻¹).
+///
+/// # Formula
+/// ```text
+/// D*_SI = D*_Jones/100
+/// ```
+///
+/// # Errors
+/// [`Error::NonFinite`] / [`Error::NonPositive`] for `jones`; [`Error::OutOfRange`] when the
+/// result underflows to 0 (below about 2.5e-322 cm·Hz^½·W⁻¹).
+///
+/// # Accuracy
+/// One rounding of the quotient (≤ 0.5 ulp in the normal range); round trip as
+/// [`d_star_to_jones`].
+///
+/// # Examples
+/// ```
+/// use quantaband::units::jones_to_d_star;
+/// assert_eq!(jones_to_d_star(6.0e11).unwrap(), 6.0e9);
+/// ```
+///
+/// # References
+/// As [`d_star_to_jones`].
+pub fn jones_to_d_star(jones: f64) -> Result<f64> {
+    error::positive("jones", jones)?;
+    in_range("jones", jones, jones / JONES_PER_SI_D_STAR)
+}
+
+/// The range reported when a decibel value has no positive finite power ratio.
+const DECIBEL_RANGE: &str = "decibel values whose power ratio is a positive finite f64";
+
+/// A power ratio (linear, dimensionless) from its value `decibels` in dB, e.g. a Y factor read
+/// from a noise-figure meter.
+///
+/// # Formula
+/// ```text
+/// r = 10^(x/10)      x the value in dB
+/// ```
+///
+/// # Errors
+/// [`Error::NonFinite`] for NaN/±∞; [`Error::OutOfRange`] when r overflows or underflows to 0
+/// (x above about 3082.5 dB or below about −3233 dB).
+///
+/// Evaluated as exp(x·(ln 10)/10) (one `exp`, no `pow`: the module keeps no `pow` for this).
+///
+/// # Accuracy
+/// ≤ 1 ulp of `exp` plus the roundings of the exponent amplified by |ln r| (relative error
+/// ≤ 1e-15 for |x| ≤ 30 dB); checked against mpmath 1.3.0 (30 digits) in the unit tests and
+/// `tests/js/quantum.test.mjs`.
+///
+/// # Examples
+/// ```
+/// use quantaband::units::power_ratio_from_decibels;
+/// assert!((power_ratio_from_decibels("y", 20.0).unwrap() / 100.0 - 1.0).abs() < 1e-15);
+/// // 10^0.3 = 1.995 262 314 968 879 601… (mpmath)
+/// assert!((power_ratio_from_decibels("y", 3.0).unwrap() / 1.995_262_314_968_879_6 - 1.0).abs() < 4e-16);
+/// ```
+///
+/// # References
+/// IEC 60027-3:2002, *Letter symbols to be used in electrical technology — Part 3: Logarithmic
+/// and related quantities, and their units* (the decibel of a power ratio) (from memory).
+pub fn power_ratio_from_decibels(arg: &'static str, decibels: f64) -> Result<f64> {
+    let x = error::finite(arg, decibels)?;
+    let r = crate::float::exp(x * (core::f64::consts::LN_10 / 10.0));
+    if r > 0.0 && r.is_finite() {
+        Ok(r)
+    } else {
+        Err(Error::OutOfRange {
+            arg,
+            value: decibels,
+            range: DECIBEL_RANGE,
+        })
+    }
+}
+
+/// The value in dB of a power ratio `ratio` (linear, > 0).
+///
+/// # Formula
+/// ```text
+/// x = 10·log10(r)
+/// ```
+///
+/// # Errors
+/// [`Error::NonFinite`] for NaN/±∞; [`Error::NonPositive`] for r ≤ 0.
+///
+/// Evaluated as ln(r)·(10/ln 10).
+///
+/// # Accuracy
+/// ≤ 3 ulp of the result plus 1 ulp of ln r (one `ln`, one multiplication by a rounded
+/// constant); checked against mpmath 1.3.0 in the unit tests.
+///
+/// # Examples
+/// ```
+/// use quantaband::units::power_ratio_to_decibels;
+/// assert!((power_ratio_to_decibels("y", 1000.0).unwrap() - 30.0).abs() < 1e-14);
+/// // 10·log10(2) = 3.010 299 956 639 811 952… (mpmath)
+/// assert!((power_ratio_to_decibels("y", 2.0).unwrap() - 3.010_299_956_639_812).abs() < 1e-15);
+/// ```
+///
+/// # References
+/// As [`power_ratio_from_decibels`].
+pub fn power_ratio_to_decibels(arg: &'static str, ratio: f64) -> Result<f64> {
+    let r = error::positive(arg, ratio)?;
+    Ok(crate::float::ln(r) * (10.0 / core::f64::consts::LN_10))
 }
 
 #[cfg(test)]
@@ -975,6 +1125,70 @@ mod tests {
                 .unwrap_err()
                 .code(),
             "NON_FINITE"
+        );
+    }
+
+    #[test]
+    fn d_star_jones_round_trip_and_limits() {
+        // 1 m = 100 cm (BIPM SI Brochure, Table 7): D* scales with the length unit of √area.
+        assert_eq!(d_star_to_jones(6.04e9).unwrap(), 6.04e11);
+        assert_eq!(jones_to_d_star(6.04e11).unwrap(), 6.04e9);
+        let mut worst = 0f64;
+        let mut x = 1.234_567_890_123e-300;
+        while x < 1e300 {
+            let back = jones_to_d_star(d_star_to_jones(x).unwrap()).unwrap();
+            worst = worst.max(rel(back, x));
+            x *= 7.77;
+        }
+        assert!(worst <= f64::EPSILON, "{worst}");
+        assert_eq!(d_star_to_jones(0.0).unwrap_err().code(), "NON_POSITIVE");
+        assert_eq!(d_star_to_jones(-1e9).unwrap_err().code(), "NON_POSITIVE");
+        assert_eq!(jones_to_d_star(f64::NAN).unwrap_err().code(), "NON_FINITE");
+        assert_eq!(d_star_to_jones(1e307).unwrap_err().code(), "OUT_OF_RANGE");
+        assert_eq!(jones_to_d_star(5e-324).unwrap_err().code(), "OUT_OF_RANGE");
+        assert_eq!(d_star_to_jones(1.7e306).unwrap(), 1.7e308);
+    }
+
+    #[test]
+    // the mpmath digits as printed
+    #[allow(clippy::excessive_precision)]
+    fn decibels_against_mpmath() {
+        // mpmath 1.3.0, 30 digits: 10**(mpf(x)/10) and 10*log10(mpf(r)).
+        for (db, r) in [
+            (3.0, 1.995_262_314_968_879_601_4),
+            (1.76, 1.499_684_835_502_373_498_1),
+            (-3.0, 0.501_187_233_627_272_285),
+            (0.5, 1.122_018_454_301_963_435_6),
+            (25.3, 338.844_156_139_202_547_05),
+        ] {
+            let got = power_ratio_from_decibels("y", db).unwrap();
+            assert!(rel(got, r) <= 1e-15, "{db} dB: {got} vs {r}");
+        }
+        for (r, db) in [
+            (2.0, 3.010_299_956_639_811_952_1),
+            (1.5, 1.760_912_590_556_812_420_8),
+            (0.5, -3.010_299_956_639_811_952_1),
+        ] {
+            let got = power_ratio_to_decibels("y", r).unwrap();
+            assert!((got - db).abs() <= 1e-15 * db.abs(), "{r}: {got} vs {db}");
+        }
+        assert!(rel(power_ratio_from_decibels("y", 10.0).unwrap(), 10.0) <= 1e-15);
+        assert!((power_ratio_to_decibels("y", 100.0).unwrap() - 20.0).abs() <= 1e-14);
+        assert_eq!(
+            power_ratio_from_decibels("y", 3100.0).unwrap_err().code(),
+            "OUT_OF_RANGE"
+        );
+        assert_eq!(
+            power_ratio_from_decibels("y", -3300.0).unwrap_err().code(),
+            "OUT_OF_RANGE"
+        );
+        assert_eq!(
+            power_ratio_from_decibels("y", f64::NAN).unwrap_err().code(),
+            "NON_FINITE"
+        );
+        assert_eq!(
+            power_ratio_to_decibels("y", 0.0).unwrap_err().code(),
+            "NON_POSITIVE"
         );
     }
 }

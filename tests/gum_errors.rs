@@ -319,6 +319,22 @@ fn measurement_budget_errors() {
         )),
         "OUT_OF_RANGE"
     );
+    // τ = 1: the path temperature has no weight, but ∂T/∂τ contains its model signal, which
+    // overflows at 1e307 K: a typed error naming it, not an infinite coefficient
+    let absurd = Conditions {
+        path_transmittance: 1.0,
+        path_temperature_k: 1e307,
+        ..Conditions::BLACKBODY
+    };
+    let s400 = quantaband::thermometry::model::SignalModel::signal(&m, 400.0).unwrap();
+    assert_eq!(
+        measurement_budget(&m, s400, &absurd, &u, None, Coverage::default()).unwrap_err(),
+        Error::OutOfRange {
+            arg: "path_temperature_k",
+            value: 1e307,
+            range: "temperatures whose model signal is finite",
+        }
+    );
 }
 
 #[test]

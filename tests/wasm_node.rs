@@ -195,14 +195,28 @@ fn instrument_calibration_and_frame() {
     .unwrap();
     let s = inst.measured_signal(400.0);
     assert!(rel(inst.object_temperature(s), 400.0) < 1e-12);
-    let budget = inst
-        .uncertainty_budget(s, obj(&[("emissivity", 0.01.into())]))
-        .unwrap();
-    assert!(
-        get(&budget, "combinedStandardUncertaintyK")
-            .as_f64()
-            .unwrap()
-            > 0.0
+    // the budget's inputs as the facade encodes them ([u, ν, evaluation, distribution,
+    // shorthand] per input); the result in f64 scratch 0 ([T, u_c, ν_eff, k, …])
+    let mut inputs = [0.0; 45];
+    for i in 0..9 {
+        inputs[5 * i..5 * i + 5].copy_from_slice(&[0.0, f64::INFINITY, -1.0, -1.0, 1.0]);
+    }
+    inputs[5] = 0.01; // emissivity
+    let n = inst.uncertainty_budget(s, &inputs, &[], None, None);
+    assert_eq!(n, 10.0 + 8.0 * 5.0); // five rows without a window
+    let out = view(scratch::scratch(0, 0, n as u32), n as u32).to_vec();
+    assert!(rel(out[0], 400.0) < 1e-12);
+    assert!(out[1] > 0.0 && out[2] == f64::INFINITY && out[4] == 0.95);
+    // a negative uncertainty: NaN and OUT_OF_RANGE naming the JavaScript field
+    inputs[5] = -0.01;
+    assert!(inst
+        .uncertainty_budget(s, &inputs, &[], None, None)
+        .is_nan());
+    let (code, message) = taken();
+    assert_eq!(code, "OUT_OF_RANGE");
+    assert_eq!(
+        message,
+        "uncertainties.emissivity must lie in [0, inf) (got -0.01)"
     );
     let cal = calibration::CalibrationHandle::create(obj(&[
         ("aM", 1.0e-5.into()),

@@ -148,6 +148,38 @@ const CASES = [
     "be_g32",
     (pkg) => (has(pkg, "boseEinsteinIntegral") ? scalar(() => pkg.boseEinsteinIntegral(1.5, 0.5)) : null),
   ],
+  [
+    // Monte Carlo (JCGM 101): 10⁵ trials of the measurement equation of the benchmark camera,
+    // created, run in one step and summarised per call. The value is the run's standard
+    // uncertainty u(y), K, compared with the GUM u_c of the same inputs (mpmath): they differ by
+    // the sampling error.
+    "monte_carlo_1e5",
+    (pkg, { ref }) => {
+      if (!has(pkg, "Instrument", "MonteCarlo")) return null;
+      const i = ref.monte_carlo_1e5.inputs;
+      const instrument = new pkg.Instrument({
+        model: { kind: "sakumaHattori", aM: i.a_m, bMK: i.b_m_k, c: i.c },
+        conditions: { emissivity: i.emissivity, reflectedTemperatureK: i.reflected_temperature_k },
+      });
+      const uncertainties = {
+        signal: i.u_signal,
+        emissivity: { standardUncertainty: i.u_emissivity, distribution: i.emissivity_distribution },
+        reflectedTemperatureK: i.u_reflected_temperature_k,
+      };
+      const options = { trials: i.trials, seed: i.seed };
+      const call = () => {
+        const mc = pkg.MonteCarlo.measurement(instrument, i.signal, uncertainties, options);
+        mc.step(i.trials);
+        const u = mc.result().standardUncertainty;
+        mc.free();
+        return u;
+      };
+      return {
+        fn: call,
+        extra: () => ({ value: call(), note: "MonteCarlo.measurement + step(1e5) + result(); value: u(y) vs the GUM u_c (mpmath), differs by the sampling error" }),
+      };
+    },
+  ],
 ];
 
 /** The cases, each either {case, fn, extra} or {case, skip}. */

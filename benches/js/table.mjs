@@ -47,6 +47,7 @@ const ROWS = [
   ["fd_half", "Fermi–Dirac integral F_{1/2}(1.5)"],
   ["fd_half_inverse", "Inverse of F_{1/2} (η = 1.5)"],
   ["be_g32", "Bose–Einstein integral g_{3/2}(0.5)"],
+  ["monte_carlo_1e5", "Monte Carlo, 10⁵ trials of the measurement equation (error: u(y) − GUM u_c, sampling)"],
 ];
 
 function fmtNs(ns) {

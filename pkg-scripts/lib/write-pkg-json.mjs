@@ -1,18 +1,26 @@
-// Writes pkg/package.json (the published manifest) and copies the Node entry, README and LICENSE
-// into pkg/. Run by pkg-scripts/build.sh after wasm-bindgen and wasm-opt.
+// Writes pkg/package.json (the published manifest) and the files the package carries besides the
+// build output: the Node entry, the npm README (generated, see npm-readme.mjs), CHANGELOG.md,
+// LICENSE and the declaration of the .wasm subpath. Run by pkg-scripts/build.sh after
+// wasm-bindgen, wasm-opt and assemble-js.mjs.
 //
 //   node pkg-scripts/lib/write-pkg-json.mjs [PKG_DIR]
 //
-// Entry points:
-//   "node"    -> node.js: reads quantaband_bg.wasm with fs and calls initSync, so Node users need
-//                no init call;
-//   "default" -> quantaband.js (the facade's web entry, over the wasm-bindgen --target web glue
-//                in quantaband_glue.js): browsers, web workers and bundlers, which `await init()`
-//                once (it fetches quantaband_bg.wasm next to the module) or call
-//                `initSync({ module: bytes })`.
+// Entry points (exports, "types" first in every condition set so TypeScript picks it):
+//   "."      "node"    -> node.js: reads quantaband_bg.wasm with fs and calls initSync, so Node
+//                         users need no init call; `require('quantaband')` loads it too on the
+//                         Node versions of "engines" (require of an ES module without top-level
+//                         await, unflagged since Node 20.19 and 22.12);
+//            "default" -> quantaband.js (the facade's web entry, over the wasm-bindgen --target
+//                         web glue in quantaband_glue.js): browsers, web workers and bundlers,
+//                         which `await init()` once (it fetches quantaband_bg.wasm next to the
+//                         module) or call `initSync({ module: bytes })`;
+//   "./web"                -> quantaband.js on any platform;
+//   "./quantaband_bg.wasm" -> the module's bytes, typed by quantaband_bg.wasm.d.ts as what a
+//                             bundler's loader makes of them (a URL string or the bytes).
 import { copyFileSync, readFileSync, readdirSync, statSync, writeFileSync } from 'node:fs';
 import { dirname, join, resolve } from 'node:path';
 import { fileURLToPath } from 'node:url';
+import { renderNpmReadme } from './npm-readme.mjs';
 
 const root = resolve(dirname(fileURLToPath(import.meta.url)), '..', '..');
 const pkgDir = resolve(process.argv[2] ?? join(root, 'pkg'));
@@ -32,23 +40,65 @@ const version = cargoPackageField(toml, 'version');
 const description = cargoPackageField(toml, 'description');
 const license = cargoPackageField(toml, 'license');
 const keywordsLine = toml.match(/^keywords\s*=\s*\[([^\]]*)\]/m);
-const keywords = keywordsLine ? [...keywordsLine[1].matchAll(/"([^"]+)"/g)].map((k) => k[1]) : [];
+const crateKeywords = keywordsLine ? [...keywordsLine[1].matchAll(/"([^"]+)"/g)].map((k) => k[1]) : [];
+// crates.io allows five keywords; npm has no such limit, so the npm page gets the trade's terms too.
+const npmKeywords = [
+  'webassembly',
+  'infrared',
+  'radiation-thermometry',
+  'pyrometry',
+  'thermal-imaging',
+  'calibration',
+  'uncertainty',
+  'bose-einstein',
+  'fermi-dirac',
+  'physics',
+];
+const keywords = [...new Set([...crateKeywords, ...npmKeywords])];
 
-for (const f of [`${name}.js`, `${name}.d.ts`, `${name}_bg.wasm`]) {
+// The Node versions that load the package both ways (import, and require of an ES module without
+// top-level await: unflagged since 20.19.0 and 22.12.0; every Node >= 23). The simd128 and
+// reference-types instructions the module uses run on Node >= 17, so these are the bound.
+const NODE_ENGINES = '^20.19.0 || >=22.12.0';
+
+for (const f of [`${name}.js`, `${name}.d.ts`, `${name}_bg.wasm`, `${name}_glue.js`, 'lib']) {
   if (!statSync(join(pkgDir, f), { throwIfNoEntry: false })) {
-    throw new Error(`${pkgDir}/${f} missing: run wasm-bindgen first`);
+    throw new Error(`${pkgDir}/${f} missing: run wasm-bindgen and assemble-js.mjs first`);
   }
 }
 
 copyFileSync(join(root, 'pkg-scripts', 'lib', 'node-entry.js'), join(pkgDir, 'node.js'));
-copyFileSync(join(root, 'README.md'), join(pkgDir, 'README.md'));
 copyFileSync(join(root, 'LICENSE'), join(pkgDir, 'LICENSE'));
+copyFileSync(join(root, 'CHANGELOG.md'), join(pkgDir, 'CHANGELOG.md'));
+writeFileSync(join(pkgDir, 'README.md'), renderNpmReadme({ root, pkgDir }));
+writeFileSync(
+  join(pkgDir, `${name}_bg.wasm.d.ts`),
+  `// The ${name}_bg.wasm subpath (\`import wasm from '${name}/${name}_bg.wasm'\`), as a bundler's loader
+// makes it: a URL string with a file/asset loader (esbuild \`loader: { '.wasm': 'file' }\`), or the
+// bytes with a binary loader (esbuild \`loader: { '.wasm': 'binary' }\`). Which one depends on the
+// bundler's configuration, so narrow it before use:
+//   if (typeof wasm === 'string') await init({ module_or_path: wasm }); else initSync({ module: wasm });
+// (\`init({ module_or_path })\` takes either.) Generated by pkg-scripts/lib/write-pkg-json.mjs.
+declare const wasm: string | BufferSource;
+export default wasm;
+`,
+);
 
-// Everything in the staging folder (entries, lib/, glue, types, wasm) plus our files;
-// package.json, README and LICENSE are always packed by npm.
-const files = readdirSync(pkgDir)
-  .filter((f) => !['package.json', 'README.md', 'LICENSE', '.gitignore'].includes(f))
-  .sort();
+// npm always packs package.json, README.md and LICENSE; everything else is listed, and every
+// file of the folder must be one or the other (a stray file fails the build).
+const files = [
+  'CHANGELOG.md',
+  'lib/',
+  'node.js',
+  `${name}.d.ts`,
+  `${name}.js`,
+  `${name}_bg.wasm`,
+  `${name}_bg.wasm.d.ts`,
+  `${name}_glue.js`,
+];
+const always = ['package.json', 'README.md', 'LICENSE'];
+const stray = readdirSync(pkgDir).filter((f) => !always.includes(f) && !files.includes(f) && !files.includes(`${f}/`));
+if (stray.length) throw new Error(`unexpected files in ${pkgDir}: ${stray.join(', ')} (list them in "files" or do not write them)`);
 
 const manifest = {
   name,
@@ -71,14 +121,19 @@ const manifest = {
       types: `./${name}.d.ts`,
       default: `./${name}.js`,
     },
-    [`./${name}_bg.wasm`]: `./${name}_bg.wasm`,
+    [`./${name}_bg.wasm`]: {
+      types: `./${name}_bg.wasm.d.ts`,
+      default: `./${name}_bg.wasm`,
+    },
     './package.json': './package.json',
   },
   files,
-  // node.js instantiates the module when imported: a bundler must not drop it as unused.
+  // node.js instantiates the module when imported: a bundler must not drop it as unused. The
+  // web entry and lib/ only define things, so unused exports can be tree-shaken.
   sideEffects: ['./node.js'],
-  engines: { node: '>=18' },
+  engines: { node: NODE_ENGINES },
 };
+// No "repository", "homepage" or "bugs": the project has no public URL yet.
 
 writeFileSync(join(pkgDir, 'package.json'), `${JSON.stringify(manifest, null, 2)}\n`);
-console.log(`[build] wrote package.json (${name}@${version}; files: ${files.join(', ')})`);
+console.log(`[build] wrote package.json (${name}@${version}; engines node ${NODE_ENGINES}; files: ${files.join(', ')})`);

@@ -44,10 +44,14 @@ use crate::{Error, Result};
 /// let c = Conversion::QuantumEfficiency { efficiency: 0.7 };
 /// assert!(matches!(c, Conversion::QuantumEfficiency { .. }));
 /// ```
+///
+/// With the `serde` feature: `{"kind": "responsivity", "amperesPerWatt": …}`,
+/// `{"kind": "quantumEfficiency", "efficiency": …}` or `{"kind": "included"}` (read key by key,
+/// unknown fields rejected; `src/design/serde_impls.rs`).
 #[derive(Debug, Clone, Copy, PartialEq)]
 #[cfg_attr(
     feature = "serde",
-    derive(serde::Serialize, serde::Deserialize),
+    derive(serde::Serialize),
     serde(tag = "kind", rename_all = "camelCase")
 )]
 pub enum Conversion {
@@ -143,13 +147,15 @@ pub fn electron_rate(flux: &PixelFlux, conversion: Conversion) -> Result<PixelFl
     conversion.validate()?;
     non_negative("flux", flux.flux)?;
     non_negative("d_flux_dt", flux.d_flux_dt)?;
-    let factor = match (flux.kind, conversion) {
+    // The factor as mul/div, applied as (x·mul)/div: mul/e alone overflows for a responsivity
+    // above ~2.9e289 A/W, and 0·∞ would be NaN for a flux (or ∂/∂T) of 0.
+    let (mul, div) = match (flux.kind, conversion) {
         (RadianceKind::Energy, Conversion::Responsivity { amperes_per_watt }) => {
-            amperes_per_watt / ELEMENTARY_CHARGE_E
+            (amperes_per_watt, ELEMENTARY_CHARGE_E)
         }
-        (RadianceKind::Photon, Conversion::QuantumEfficiency { efficiency }) => efficiency,
-        (RadianceKind::Current, Conversion::Included) => 1.0 / ELEMENTARY_CHARGE_E,
-        (RadianceKind::Electron, Conversion::Included) => 1.0,
+        (RadianceKind::Photon, Conversion::QuantumEfficiency { efficiency }) => (efficiency, 1.0),
+        (RadianceKind::Current, Conversion::Included) => (1.0, ELEMENTARY_CHARGE_E),
+        (RadianceKind::Electron, Conversion::Included) => (1.0, 1.0),
         _ => {
             return Err(Error::Unsupported {
                 what: "this conversion for this flux: a responsivity (A/W) needs an energy \
@@ -160,8 +166,8 @@ pub fn electron_rate(flux: &PixelFlux, conversion: Conversion) -> Result<PixelFl
     };
     Ok(PixelFlux {
         kind: RadianceKind::Electron,
-        flux: flux.flux * factor,
-        d_flux_dt: flux.d_flux_dt * factor,
+        flux: flux.flux * mul / div,
+        d_flux_dt: flux.d_flux_dt * mul / div,
     })
 }
 
@@ -209,6 +215,8 @@ pub fn responsivity_from_quantum_efficiency(efficiency: f64, wavelength_m: f64) 
 /// # Errors
 /// `NonFinite` / `NonPositive` (`amperes_per_watt`); `NonFinite` / `NonPositiveSpectral`
 /// (`wavelength_m`).
+/// A true value above `f64::MAX` (a wavelength near the bottom of the f64 range) is +∞; the result
+/// is not checked against 1.
 ///
 /// # Accuracy
 /// A few ulp (see [`responsivity_from_quantum_efficiency`]).
@@ -289,6 +297,20 @@ pub struct NoiseBudget {
     pub total_electrons: f64,
 }
 
+/// √(N_s + N_b + N_d + σ_r²); where the sum (or σ_r²) overflows although the root does not,
+/// scaled by the largest of √N_s, √N_b, √N_d, σ_r.
+fn total_noise(s: f64, b: f64, d: f64, r: f64) -> f64 {
+    let sum = s + b + d + r * r;
+    if sum.is_finite() {
+        return float::sqrt(sum);
+    }
+    let m = float::sqrt(s)
+        .max(float::sqrt(b))
+        .max(float::sqrt(d))
+        .max(r);
+    m * float::sqrt(s / m / m + b / m / m + d / m / m + (r / m) * (r / m))
+}
+
 /// Noise budget (electrons rms) of one integration from the mean signal, background and dark
 /// electron counts and the read noise.
 ///
@@ -326,13 +348,17 @@ pub fn noise_budget(
     non_negative("background_electrons", background_electrons)?;
     non_negative("dark_electrons", dark_electrons)?;
     non_negative("read_noise_electrons", read_noise_electrons)?;
-    let r2 = read_noise_electrons * read_noise_electrons;
     Ok(NoiseBudget {
         signal_shot_electrons: float::sqrt(signal_electrons),
         background_shot_electrons: float::sqrt(background_electrons),
         dark_shot_electrons: float::sqrt(dark_electrons),
         read_electrons: read_noise_electrons,
-        total_electrons: float::sqrt(signal_electrons + background_electrons + dark_electrons + r2),
+        total_electrons: total_noise(
+            signal_electrons,
+            background_electrons,
+            dark_electrons,
+            read_noise_electrons,
+        ),
     })
 }
 
@@ -352,11 +378,14 @@ pub fn noise_budget(
 /// };
 /// assert!(d.validate().is_ok());
 /// ```
+///
+/// With the `serde` feature: camelCase fields, all required, unknown fields rejected (read key
+/// by key: `src/design/serde_impls.rs`).
 #[derive(Debug, Clone, Copy, PartialEq)]
 #[cfg_attr(
     feature = "serde",
-    derive(serde::Serialize, serde::Deserialize),
-    serde(rename_all = "camelCase", deny_unknown_fields)
+    derive(serde::Serialize),
+    serde(rename_all = "camelCase")
 )]
 pub struct Detector {
     /// Pixel (detector) area A, m² (> 0).

@@ -516,7 +516,21 @@ fn background_photon_flux_and_ln(
     }
     let ln_l =
         crate::band::ln_band_unchecked(&spec, lower, f64::MAX, background_temperature_k, false);
-    Ok((q, float::ln(omega) + ln_l))
+    // Ω overflows only in the small-angle form with F below ~1e-154: ln Ω = ln(π/4) − 2 ln F.
+    let ln_omega = match view {
+        BackgroundView::ColdStop { f_number, .. } if omega.is_infinite() => {
+            float::ln(core::f64::consts::FRAC_PI_4) - 2.0 * float::ln(*f_number)
+        }
+        _ => float::ln(omega),
+    };
+    let ln_q = ln_omega + ln_l;
+    // Ω = ∞ with a band below the f64 range would give ∞·0: the product from the logarithms.
+    let q = if q.is_nan() || q.is_infinite() {
+        float::exp(ln_q)
+    } else {
+        q
+    };
+    Ok((q, ln_q))
 }
 
 /// Background photon flux density (photons·s⁻¹·m⁻²) on an ideal photon detector with cut-off
@@ -532,6 +546,8 @@ fn background_photon_flux_and_ln(
 /// # Errors
 /// `NonFinite` / `NonPositiveSpectral` (`cutoff_wavelength_m`), `NonFinite` /
 /// `NonPositiveTemperature` (`background_temperature_k`), and the view's errors.
+/// Valid inputs whose true flux is above `f64::MAX` (background temperatures near the top of the
+/// f64 range) give +∞.
 ///
 /// # Accuracy
 /// As the core's band integral (≤ 1.7e-14); against mpmath (quadrature over θ, and over x =
@@ -573,6 +589,7 @@ pub fn background_photon_flux(
 /// `NonFinite` / `NonPositiveSpectral` (`wavelength_m`), `NonFinite` / `OutOfRange`
 /// (`quantum_efficiency` outside (0, 1]), `NonFinite` / `NonPositive`
 /// (`background_photon_flux`).
+/// A true D* above `f64::MAX` (a flux near the bottom of the f64 range) is +∞.
 ///
 /// # Accuracy
 /// A few ulp.
@@ -601,8 +618,15 @@ pub fn blip_d_star_from_flux(
     positive("background_photon_flux", background_photon_flux)?;
     let m = mechanism_factor(mechanism);
     let hc = PLANCK_H * SPEED_OF_LIGHT_C;
-    Ok(wavelength_m / hc * float::sqrt(quantum_efficiency / m)
-        / float::sqrt(background_photon_flux))
+    let d = wavelength_m / hc * float::sqrt(quantum_efficiency / m)
+        / float::sqrt(background_photon_flux);
+    if d.is_finite() && d > 0.0 {
+        return Ok(d);
+    }
+    // λ/hc overflowed (λ > 3.6e283 m) or η/m underflowed (η subnormal): ∞·0 = NaN, or a
+    // spurious ∞ or 0. √η/√m/√Φ first, then λ, then 1/hc (which only enlarges).
+    let k = float::sqrt(quantum_efficiency) / float::sqrt(m) / float::sqrt(background_photon_flux);
+    Ok(wavelength_m * k / hc)
 }
 
 fn mechanism_factor(mechanism: Mechanism) -> f64 {

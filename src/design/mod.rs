@@ -12,6 +12,7 @@
 //! | [`detector`] | photocurrent, electrons, well fill, shot/dark/read noise, SNR, first-principles NETD |
 //! | [`merit`] | noise bandwidth, NEP, D* ↔ NETD, background-limited (BLIP) D* |
 //! | [`sources`] | effective emissivity of a cavity (Gouffé), size-of-source correction, distance-to-spot |
+//! | [`definition`] | (`alloc`) a whole pixel design as data in user units ([`definition::DesignDefinition`]), checked once into SI ([`definition::PreparedDesign`]) |
 //!
 //! # Design: the in-band radiance is the interface
 //!
@@ -54,6 +55,10 @@
 //! - **Shot noise** is Poisson (variance = mean number of electrons): photovoltaic or
 //!   integrating detectors. Photoconductors add recombination noise (variance × 2); that enters
 //!   only [`merit::blip_d_star`] through [`Mechanism::Photoconductive`].
+//! - **Range.** Valid inputs whose true result lies beyond the f64 range (a D* from a NETD of
+//!   1e-300 K, the small-angle solid angle of F = 1e-160, a spot from a distance-to-spot ratio of
+//!   1e-320…) return +∞ or 0, not an error and never NaN; products and quotients are ordered so
+//!   that this happens only where the true value is out of range.
 //!
 //! # Cautions
 //!
@@ -66,9 +71,13 @@
 // `!(x > 0.0)` is used on purpose: it is also true for NaN.
 #![allow(clippy::neg_cmp_op_on_partial_ord)]
 
+#[cfg(feature = "alloc")]
+pub mod definition;
 pub mod detector;
 pub mod merit;
 pub mod scene;
+#[cfg(feature = "serde")]
+mod serde_impls;
 pub mod sources;
 pub mod throughput;
 

@@ -152,7 +152,8 @@ impl Cavity {
             Cavity::Cylinder { .. } => 2.0 * ll + 2.0,
             Cavity::Cone { .. } => float::sqrt(1.0 + ll * ll) + 1.0,
         };
-        let q = aa / ll;
+        // a/l directly: a/r and l/r can both underflow to 0 (0/0) for R near f64::MAX.
+        let q = a / l;
         Ok((aa * aa / wall, q * q))
     }
 }
@@ -223,6 +224,7 @@ pub fn cavity_emissivity_gouffe(wall_emissivity: f64, cavity: &Cavity) -> Result
 ///
 /// # Errors
 /// `NonFinite` / `OutOfRange` for σ ≤ −1.
+/// A true change above `f64::MAX` is +∞.
 ///
 /// # Accuracy
 /// Evaluated as (σ_m − σ_c)/(1 + σ_c): no cancellation beyond that of σ_m − σ_c.
@@ -364,6 +366,8 @@ pub fn sse_corrected_temperature<M: SignalModel + ?Sized>(
 ///
 /// # Errors
 /// `NonFinite` / `NonPositive` for either argument.
+/// A true diameter above `f64::MAX` (a distance-to-spot ratio near the bottom of the f64 range) is
+/// +∞.
 ///
 /// # Accuracy
 /// Correctly rounded.

@@ -299,6 +299,8 @@ const H2_OVER_2PI_K: f64 = 5.061_146_491_205_542e-45;
 /// - [`Error::NonFinite`] if an input is NaN or ±∞.
 /// - [`Error::NonPositive`] if `number_density_per_m3 ≤ 0` or `mass_kg ≤ 0`.
 ///
+/// A true T_c above `f64::MAX` (an absurdly dense gas or light particle) returns `+∞`.
+///
 /// # Accuracy
 /// Maximum relative error 3.6e-16 against mpmath at 50 digits on the 6 reference rows
 /// (n from 1e12 to 1e300 m⁻³; `tests/stats_reference.rs`); the CODATA 2018 uncertainty of a mass in kg (3e-10 relative

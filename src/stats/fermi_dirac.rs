@@ -386,8 +386,10 @@ fn fd_asymptotic(order: FdOrder, eta: f64) -> f64 {
     let r = float::sqrt(eta);
     let lead = match order {
         FdOrder::MinusHalf => INV_GAMMA_3_2 * r,
-        FdOrder::Half => INV_GAMMA_5_2 * (eta * r),
-        FdOrder::ThreeHalves => INV_GAMMA_7_2 * (eta * r) * eta,
+        // 1/Γ < 1 multiplies first: η·√η alone overflows from η ≈ 3.2e205, F_{1/2} only
+        // from 3.85e205.
+        FdOrder::Half => (INV_GAMMA_5_2 * eta) * r,
+        FdOrder::ThreeHalves => (INV_GAMMA_7_2 * eta) * r * eta,
     };
     lead * sum
 }
@@ -419,8 +421,9 @@ pub(crate) fn fd_integral_unchecked(order: FdOrder, eta: f64) -> f64 {
 /// # Errors
 /// [`Error::NonFinite`] if `eta` is NaN or ±∞.
 ///
-/// Underflows to 0 only for η < −745.13 (true value ≈ e^η below the f64 range); for j = 3/2
-/// overflows to `+∞` only for η > 1.5e123 (true value above the f64 range).
+/// Underflows to 0 only for η < −745.13 (true value ≈ e^η below the f64 range); overflows to
+/// `+∞` only where the true value is above the f64 range: for j = 3/2 from η ≈ 3.24e123, for
+/// j = 1/2 from η ≈ 3.85e205 (j = −1/2 never overflows).
 ///
 /// # Accuracy
 /// Maximum relative error 6.0e-16 (under 3 ulp) over the 463 rows (≈ 150 values of η in

@@ -164,7 +164,9 @@ fn offsets(frequency_hz: f64, temperature_k: f64) -> (f64, f64) {
 ///
 /// # Errors
 /// `NON_FINITE`; `OUT_OF_RANGE` (receiver temperature < 0, or `hot_load_k` not above
-/// `cold_load_k`); `NON_POSITIVE_SPECTRAL`; `NON_POSITIVE_TEMPERATURE`.
+/// `cold_load_k`); `NON_POSITIVE_SPECTRAL`; `NON_POSITIVE_TEMPERATURE`. A true Y above
+/// `f64::MAX` (a cold load whose noise temperature is below the f64 range with T_R = 0, or
+/// `hot_load_k`/`cold_load_k` beyond it) returns +∞.
 ///
 /// # Accuracy
 /// A few ulp beyond that of the load temperatures.
@@ -195,7 +197,25 @@ pub fn y_factor(
         });
     }
     let (th, tc) = loads(hot_load_k, cold_load_k, frequency_hz, model)?;
-    Ok((th + receiver_noise_temperature_k) / (tc + receiver_noise_temperature_k))
+    let r = receiver_noise_temperature_k;
+    if tc + r == 0.0 {
+        // T_R = 0 and the Planck temperature of the cold load below the f64 range (the other
+        // models never give 0): Y = T_P(hot)/T_P(cold) = e^{x_c − x_h}·(1 − e^{−x_c})/(1 − e^{−x_h}),
+        // x = hf/kT, formed in logarithms (th/tc would be 0/0 or x/0).
+        let q = H_OVER_K * frequency_hz;
+        let d = (q / cold_load_k) * ((hot_load_k - cold_load_k) / hot_load_k);
+        let ln_1m = |x: f64| crate::float::ln(-crate::float::expm1(-x));
+        return Ok(crate::float::exp(
+            d + ln_1m(q / cold_load_k) - ln_1m(q / hot_load_k),
+        ));
+    }
+    let y = (th + r) / (tc + r);
+    if y.is_finite() || (th + r).is_finite() {
+        Ok(y)
+    } else {
+        // th + T_R overflowed although the ratio may be ordinary: halve both sums.
+        Ok((th * 0.5 + r * 0.5) / (tc * 0.5 + r * 0.5))
+    }
 }
 
 fn loads(
@@ -237,6 +257,7 @@ pub struct YFactorReading {
     /// Receiver noise temperature T_R in the chosen convention, K (> 0).
     pub receiver_noise_temperature_k: f64,
     /// dT_R/dY in the chosen convention, K per unit Y.
+    #[cfg_attr(feature = "serde", serde(rename = "dTdY"))]
     pub d_t_d_y: f64,
     /// Noise temperature of the hot load in the chosen convention, K.
     pub hot_load_noise_temperature_k: f64,
@@ -270,7 +291,8 @@ pub struct YFactorReading {
 /// # Errors
 /// `NON_FINITE`; `OUT_OF_RANGE` for `y` ≤ 1, for `y` ≥ T_L,hot/T_L,cold (T_R ≤ 0 in the
 /// chosen convention), and for `hot_load_k` not above `cold_load_k`;
-/// `NON_POSITIVE_SPECTRAL`; `NON_POSITIVE_TEMPERATURE`.
+/// `NON_POSITIVE_SPECTRAL`; `NON_POSITIVE_TEMPERATURE`. A field whose true value is beyond the
+/// f64 range (`y` within a few ulp of 1 with a hot load near `f64::MAX`) is ±∞.
 ///
 /// # Accuracy
 /// Against mpmath `findroot` of the noise balance Y·(T_L,cold + T_R) = T_L,hot + T_R at 40
@@ -312,7 +334,15 @@ pub fn y_factor_noise_temperature(
     }
     let (th, tc) = loads(hot_load_k, cold_load_k, frequency_hz, model)?;
     let ym1 = y - 1.0;
-    let receiver = |h: f64, c: f64| (h - y * c) / ym1;
+    // (h − y·c)/(y − 1); y·c may overflow for loads near f64::MAX when the quotient does not.
+    let receiver = |h: f64, c: f64| {
+        let r = (h - y * c) / ym1;
+        if r.is_finite() {
+            r
+        } else {
+            h / ym1 - c * (y / ym1)
+        }
+    };
     let t_r = receiver(th, tc);
     if !(t_r > 0.0) {
         return Err(Error::OutOfRange {

@@ -85,6 +85,9 @@ pub(crate) fn fd_unchecked(x: f64) -> f64 {
 /// - [`Error::DivergentOccupation`] if `x ≤ 0` (E ≤ μ: the occupancy diverges at x = 0 and would
 ///   be negative below it, which no Bose system in equilibrium has).
 ///
+/// Returns `+∞` for `0 < x < 1/f64::MAX ≈ 5.6e-309` (the true occupancy ≈ 1/x is then beyond
+/// the f64 range).
+///
 /// # Accuracy
 /// Within 2 ulp of the correctly rounded value (≈ 4.4e-16 relative) for every tested `x` in
 /// `[1e-300, 745]`; measured against mpmath at 50 digits on the rows of
@@ -175,6 +178,9 @@ pub fn bose_einstein_energy(energy_j: f64, mu_j: f64, temperature_k: f64) -> Res
 /// - [`Error::NonFinite`] for NaN or ±∞ inputs.
 /// - [`Error::NonPositiveSpectral`] if `frequency_hz ≤ 0`.
 /// - [`Error::NonPositiveTemperature`] if `temperature_k ≤ 0`.
+///
+/// Returns `+∞` when `hf/kT` is below the smallest subnormal (the true occupancy ≈ kT/(hf) is
+/// then beyond the f64 range).
 ///
 /// # Accuracy
 /// Within 4 ulp relative for `hf/kT ≤ 1`; for larger `x = hf/kT` the rounding of x (≤ 1.5 ulp)

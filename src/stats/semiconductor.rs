@@ -55,6 +55,16 @@ use crate::float;
 /// m_e: 4.829 366 079 143 929 687…e21).
 const NC_COEF: f64 = 4.829_366_079_143_93e21;
 
+/// ln N for a density of states `n` = N(m*, T) that may have over- or underflowed: formed from
+/// ln m* and ln T when `n` is not a positive finite number.
+fn ln_dos(n: f64, effective_mass_ratio: f64, temperature_k: f64) -> f64 {
+    if n > 0.0 && n.is_finite() {
+        float::ln(n)
+    } else {
+        float::ln(NC_COEF) + 1.5 * (float::ln(effective_mass_ratio) + float::ln(temperature_k))
+    }
+}
+
 /// Σ_{k≥1} (−1)^{k+1} q^{k−1}/k^{j+1} (= F_j(η)/e^η with q = e^η ≤ e⁻³), and the same sum
 /// from k = 2 with the opposite sign, for j = 1/2 (`power` = 1.5) or −1/2 (0.5).
 fn tail_sums(q: f64, power: f64) -> (f64, f64) {
@@ -62,7 +72,11 @@ fn tail_sums(q: f64, power: f64) -> (f64, f64) {
     let mut qk = 1.0;
     for k in 2..40 {
         qk *= q;
-        let term = qk / float::powf(k as f64, power);
+        // k^{3/2} = k·√k and k^{1/2} = √k: no `pow` (1.4 KB of the WebAssembly module for
+        // this sum alone); ≤ 1 ulp more rounding in terms that are corrections below e⁻³.
+        let kf = k as f64;
+        let root = float::sqrt(kf);
+        let term = qk / if power > 1.0 { kf * root } else { root };
         // (−1)^{k+1}: k = 2 is subtracted from t and added to s.
         if k % 2 == 0 {
             t -= term;
@@ -108,7 +122,8 @@ fn log_derivative(eta: f64) -> f64 {
 /// m_e electron mass (CODATA 2018), k Boltzmann and h Planck constants (SI 2019).
 ///
 /// # Errors
-/// `NON_FINITE`; `NON_POSITIVE` for an effective mass ≤ 0; `NON_POSITIVE_TEMPERATURE`.
+/// `NON_FINITE`; `NON_POSITIVE` for an effective mass ≤ 0; `NON_POSITIVE_TEMPERATURE`. A true
+/// value above `f64::MAX` (m*·T beyond about 1.1e191 K) returns +∞.
 ///
 /// # Accuracy
 /// ≤ 2.0e-16 relative against mpmath on 8 rows, m* from 1e-3 to 50 and T from 1 mK to 1e5 K
@@ -205,11 +220,13 @@ pub fn varshni_band_gap(
     serde(rename_all = "camelCase", deny_unknown_fields)
 )]
 pub struct CarrierDensity {
-    /// N·F_{1/2}(η), m⁻³.
+    /// N·F_{1/2}(η), m⁻³; +∞ only where the true value is above `f64::MAX`.
     pub density_per_m3: f64,
-    /// N·e^η, m⁻³.
+    /// N·e^η, m⁻³; +∞ where the true value is beyond the f64 range (η + ln N > 709.78, far
+    /// into degeneracy, where the Boltzmann approximation is meaningless).
     pub boltzmann_density_per_m3: f64,
-    /// (N e^η − N F_{1/2}(η)) / (N F_{1/2}(η)) = e^η/F_{1/2}(η) − 1 (≥ 0, dimensionless).
+    /// (N e^η − N F_{1/2}(η)) / (N F_{1/2}(η)) = e^η/F_{1/2}(η) − 1 (≥ 0, dimensionless); +∞
+    /// where e^η/F_{1/2}(η) is beyond the f64 range (η ≳ 719.3).
     pub boltzmann_relative_error: f64,
     /// The reduced Fermi level η used (dimensionless).
     pub reduced_fermi_level: f64,
@@ -264,6 +281,14 @@ pub fn band_carrier_density(
     let (density, error) = if eta <= -3.0 {
         let (t, s) = tail_sums(q, 1.5);
         (boltzmann * t, s / t)
+    } else if eta > 1e100 {
+        // F_{1/2}(η) = η^{3/2}/Γ(5/2)·(1 + O(η⁻²)) may exceed f64::MAX while N·F does not:
+        // ((N·η)/Γ(5/2))·√η, where N·η ≥ 5e-224 is normal and overflows only if N·F does.
+        // 1/Γ(5/2) = 0.752 252 778 063 675 (mpmath); e^η/F is far beyond the f64 range.
+        (
+            (n * eta) * 0.752_252_778_063_675 * float::sqrt(eta),
+            f64::INFINITY,
+        )
     } else {
         let f = fermi_dirac_integral(FdOrder::Half, eta)?;
         (n * f, float::expm1(eta - float::ln(f)))
@@ -341,9 +366,10 @@ pub struct Semiconductor {
     serde(rename_all = "camelCase", deny_unknown_fields)
 )]
 pub struct IntrinsicCarriers {
-    /// n_i = n = p with Fermi–Dirac statistics, m⁻³.
+    /// n_i = n = p with Fermi–Dirac statistics, m⁻³; +∞ only where the true value is above
+    /// `f64::MAX`.
     pub density_per_m3: f64,
-    /// √(N_c N_v)·exp(−E_g/2kT), m⁻³.
+    /// √(N_c N_v)·exp(−E_g/2kT), m⁻³; +∞ only where the true value is above `f64::MAX`.
     pub boltzmann_density_per_m3: f64,
     /// Intrinsic Fermi level with Fermi–Dirac statistics, J above E_v.
     pub fermi_level_j: f64,
@@ -446,7 +472,8 @@ impl Semiconductor {
     /// ```
     ///
     /// # Errors
-    /// Field errors; `NON_FINITE` / `NON_POSITIVE_TEMPERATURE`.
+    /// Field errors; `NON_FINITE` / `NON_POSITIVE_TEMPERATURE`. +∞ where the true value is above
+    /// `f64::MAX`, as for [`effective_density_of_states`].
     ///
     /// # Accuracy
     /// As [`effective_density_of_states`].
@@ -474,7 +501,8 @@ impl Semiconductor {
     /// ```
     ///
     /// # Errors
-    /// As [`Semiconductor::conduction_band_density_of_states`].
+    /// As [`Semiconductor::conduction_band_density_of_states`] (including +∞ for a true value
+    /// above `f64::MAX`).
     ///
     /// # Accuracy
     /// As [`effective_density_of_states`].
@@ -607,7 +635,8 @@ impl Semiconductor {
         error::positive("electron_density_per_m3", electron_density_per_m3)?;
         let (kt, eg) = self.kt_and_gap(temperature_k)?;
         let nc = effective_density_of_states(self.electron_mass_ratio, temperature_k)?;
-        Ok(eg + kt * reduced_level(electron_density_per_m3, nc)?)
+        let ln_nc = ln_dos(nc, self.electron_mass_ratio, temperature_k);
+        Ok(eg + kt * reduced_level(electron_density_per_m3, nc, ln_nc)?)
     }
 
     /// Fermi level (J above E_v) at which the valence band holds `hole_density_per_m3` (m⁻³)
@@ -643,7 +672,8 @@ impl Semiconductor {
         error::positive("hole_density_per_m3", hole_density_per_m3)?;
         let (kt, _) = self.kt_and_gap(temperature_k)?;
         let nv = effective_density_of_states(self.hole_mass_ratio, temperature_k)?;
-        Ok(-kt * reduced_level(hole_density_per_m3, nv)?)
+        let ln_nv = ln_dos(nv, self.hole_mass_ratio, temperature_k);
+        Ok(-kt * reduced_level(hole_density_per_m3, nv, ln_nv)?)
     }
 
     /// Intrinsic carrier density (m⁻³) and Fermi level (J above E_v) at `temperature_k` (K),
@@ -675,7 +705,8 @@ impl Semiconductor {
         let (kt, eg) = self.kt_and_gap(temperature_k)?;
         let nc = effective_density_of_states(self.electron_mass_ratio, temperature_k)?;
         let nv = effective_density_of_states(self.hole_mass_ratio, temperature_k)?;
-        let (ln_nc, ln_nv) = (float::ln(nc), float::ln(nv));
+        let ln_nc = ln_dos(nc, self.electron_mass_ratio, temperature_k);
+        let ln_nv = ln_dos(nv, self.hole_mass_ratio, temperature_k);
         let g = eg / kt;
         let xi_b = 0.5 * g + 0.5 * (ln_nv - ln_nc);
         let boltzmann_density = float::exp(0.5 * (ln_nc + ln_nv) - 0.5 * g);
@@ -712,12 +743,13 @@ impl Semiconductor {
 }
 
 /// η = F_{1/2}⁻¹(density/N), falling back to ln density − ln N where the ratio underflows.
-fn reduced_level(density: f64, n: f64) -> Result<f64> {
+fn reduced_level(density: f64, n: f64, ln_n: f64) -> Result<f64> {
     let y = density / n;
     if y > 0.0 && y.is_finite() {
         inverse_fermi_dirac_half(y)
     } else if y == 0.0 {
-        Ok(float::ln(density) - float::ln(n))
+        // ln_n rather than ln(n): n may have overflowed (y = 0 although the true y is not).
+        Ok(float::ln(density) - ln_n)
     } else {
         Err(Error::NoSolution {
             what: "carrier density beyond the f64 range relative to the density of states",

@@ -91,8 +91,10 @@ pub struct CalibratedReading {
     /// √(u_cal² + u_signal²), K.
     pub combined_standard_uncertainty_k: f64,
     /// ∂T/∂S of the reading, K per signal unit.
+    #[cfg_attr(feature = "serde", serde(rename = "dTdSignal"))]
     pub d_t_d_signal: f64,
     /// Σ_i ∂T/∂T_i (1 up to rounding; a check of the propagation).
+    #[cfg_attr(feature = "serde", serde(rename = "dTdReferenceTemperaturesSum"))]
     pub sum_d_t_d_reference_temperatures: f64,
 }
 

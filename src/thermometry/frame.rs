@@ -150,7 +150,8 @@ pub trait FrameInput: Copy + sealed::Sealed {
 }
 /// A pixel type that temperatures can be written to (`f32`, `f64`). Sealed.
 pub trait FrameOutput: Copy + sealed::Sealed {
-    /// From an f64 temperature (rounded to nearest).
+    /// From an f64 temperature (rounded to nearest; for `f32` a temperature above `f32::MAX`,
+    /// about 3.4e38 K, becomes +∞ and one below the f32 range 0, both still counted valid).
     fn from_f64(v: f64) -> Self;
     /// Smallest and largest non-NaN value of a slice of non-negative values and NaN (as f64).
     fn min_max(values: &[Self]) -> (f64, f64);
@@ -274,7 +275,8 @@ pub struct FrameSummary {
     pub invalid: usize,
     /// Lowest temperature among valid pixels, K (NaN if none is valid).
     pub min_temperature_k: f64,
-    /// Highest temperature among valid pixels, K (NaN if none is valid).
+    /// Highest temperature among valid pixels, K (NaN if none is valid; +∞ for an `f32` output
+    /// with a pixel above `f32::MAX`, see [`FrameOutput::from_f64`]).
     pub max_temperature_k: f64,
 }
 

@@ -713,14 +713,18 @@ pub struct GumResult {
 /// - `NonFinite` for a non-finite sensitivity of an input with u > 0 (an input with u = 0
 ///   contributes nothing, whatever its coefficient); the errors of [`InputUncertainty::validate`]
 ///   (negative uncertainty → `OutOfRange`, zero degrees of freedom → `OutOfRange`);
+///   `OutOfRange` (arg `sensitivities`) when a component c_i·u_i is beyond the f64 range;
 /// - `OutOfRange` for a coverage probability outside (0, 1) (arg `coverage_probability`) or a
 ///   coverage factor ≤ 0 (arg `coverage_factor`);
 /// - `Unsupported` when a coverage probability is asked for but ν_eff is not defined
 ///   (correlated inputs with finite degrees of freedom).
 ///
+/// u_c and U are +∞ only where their true value is above `f64::MAX` (several components near
+/// it, or a large coverage factor).
+///
 /// # Accuracy
 /// Sums in f64 (u_c to a few ulp; a rounding-negative u_c² from strong negative correlation is
-/// clamped to 0). Reproduces the JCGM 100 H.1 and H.2 worked examples to their printed digits
+/// clamped to 0; components beyond 1e±150 are scaled by an exact power of two first). Reproduces the JCGM 100 H.1 and H.2 worked examples to their printed digits
 /// and an mpmath evaluation of a correlated 9-input budget to 1e-13 relative
 /// (`tests/gum_reference.rs`); k as [`super::student_t::coverage_factor`].
 ///
@@ -779,6 +783,13 @@ pub fn propagate(
         // An input with zero uncertainty contributes nothing, whatever its coefficient.
         if u.standard_uncertainty > 0.0 {
             finite("sensitivities", *c)?;
+            if !(c * u.standard_uncertainty).is_finite() {
+                return Err(Error::OutOfRange {
+                    arg: "sensitivities",
+                    value: *c,
+                    range: "|c_i u_i| <= f64::MAX",
+                });
+            }
         }
     }
     match coverage {
@@ -796,7 +807,7 @@ pub fn propagate(
             }
         }
     }
-    let comp = |i: usize| {
+    let comp_unscaled = |i: usize| {
         let u = inputs[i].standard_uncertainty;
         if u > 0.0 {
             sensitivities[i] * u
@@ -804,6 +815,18 @@ pub fn propagate(
             0.0
         }
     };
+    // The components scaled by an exact power of two when the largest is beyond 1e±150, so
+    // that neither the variance nor the fourth powers overflow or underflow; u_c is scaled
+    // back at the end.
+    let largest = (0..n).fold(0.0, |m: f64, i| m.max(comp_unscaled(i).abs()));
+    let scale = if largest > 1e150 {
+        f64::from_bits((1023 - 600) << 52)
+    } else if largest > 0.0 && largest < 1e-150 {
+        f64::from_bits((1023 + 600) << 52)
+    } else {
+        1.0
+    };
+    let comp = |i: usize| comp_unscaled(i) * scale;
     let r = |i: usize, j: usize| match correlation {
         Some(c) => c.get(i, j),
         None => {
@@ -842,6 +865,7 @@ pub fn propagate(
     }
     let var = var.max(0.0);
     let uc = sqrt(var);
+    let uc_unscaled = uc / scale;
     // Welch–Satterthwaite (scaled by u_c to avoid overflow of the fourth powers).
     let nu_eff = if ws_undefined {
         None
@@ -855,7 +879,24 @@ pub fn propagate(
                 den += q * q * q * q / u.degrees_of_freedom;
             }
         }
-        Some(if den > 0.0 { 1.0 / den } else { f64::INFINITY })
+        if den == f64::INFINITY {
+            // A ν_i below the f64 range's reciprocal: ν_eff = ν_min / Σ q⁴·(ν_min/ν_i), each
+            // term ≤ 1, instead of 1/∞ = 0.
+            let nu_min = inputs
+                .iter()
+                .map(|u| u.degrees_of_freedom)
+                .fold(f64::INFINITY, f64::min);
+            let mut d = 0.0;
+            for (i, u) in inputs.iter().enumerate() {
+                if u.degrees_of_freedom.is_finite() {
+                    let q = comp(i) / uc;
+                    d += q * q * q * q * (nu_min / u.degrees_of_freedom);
+                }
+            }
+            Some(if d > 0.0 { nu_min / d } else { f64::INFINITY })
+        } else {
+            Some(if den > 0.0 { 1.0 / den } else { f64::INFINITY })
+        }
     };
     let nu_used = nu_eff.map(|v| if v >= 1.0 { floor(v) } else { v });
     let propagation = if correlated {
@@ -894,17 +935,17 @@ pub fn propagate(
             *e = GumEntry {
                 sensitivity: sensitivities[i],
                 input: inputs[i],
-                component: ci,
+                component: comp_unscaled(i),
                 variance_share: if var > 0.0 { ci * row / var } else { 0.0 },
             };
         }
     }
     Ok(GumResult {
-        combined_standard_uncertainty: uc,
+        combined_standard_uncertainty: uc_unscaled,
         effective_degrees_of_freedom: nu_eff,
         coverage_factor: k,
         coverage_probability: p,
-        expanded_uncertainty: k * uc,
+        expanded_uncertainty: k * uc_unscaled,
         method: GumMethod {
             propagation,
             coverage: method,
@@ -984,24 +1025,40 @@ pub fn type_a(observations: &[f64]) -> Result<TypeA> {
     if n < 2 {
         return Err(Error::TooFewPoints { needed: 2, got: n });
     }
-    let mut sum = 0.0;
     for &q in observations {
         finite("observations", q)?;
-        sum += q;
     }
+    let k = overflow_scale(observations);
+    let (mean, s) = mean_and_deviation(observations, k);
     let nf = n as f64;
-    let mean = sum / nf;
-    let mut ss = 0.0;
-    for &q in observations {
-        ss += (q - mean) * (q - mean);
-    }
-    let s = sqrt(ss / (nf - 1.0));
     Ok(TypeA {
-        mean,
-        standard_deviation: s,
-        standard_uncertainty: s / sqrt(nf),
+        mean: mean / k,
+        standard_deviation: s / k,
+        standard_uncertainty: s / k / sqrt(nf),
         degrees_of_freedom: nf - 1.0,
     })
+}
+
+/// 1, or 2⁻⁶⁰⁰ (exact) when an observation exceeds 1e150 in magnitude, so that the sums of
+/// [`mean_and_deviation`] cannot overflow.
+fn overflow_scale(observations: &[f64]) -> f64 {
+    if observations.iter().any(|q| q.abs() > 1e150) {
+        // 2⁻⁶⁰⁰: a power of two, so the scaling is exact.
+        f64::from_bits((1023 - 600) << 52)
+    } else {
+        1.0
+    }
+}
+
+/// Mean and sample standard deviation of the observations times `k` (two passes; n ≥ 2, finite).
+fn mean_and_deviation(observations: &[f64], k: f64) -> (f64, f64) {
+    let nf = observations.len() as f64;
+    let mean = observations.iter().map(|q| q * k).sum::<f64>() / nf;
+    let ss: f64 = observations
+        .iter()
+        .map(|q| (q * k - mean) * (q * k - mean))
+        .sum();
+    (mean, sqrt(ss / (nf - 1.0)))
 }
 
 /// Estimated correlation coefficient of the means of two simultaneously observed series `x`
@@ -1044,11 +1101,15 @@ pub fn type_a_correlation(x: &[f64], y: &[f64]) -> Result<f64> {
             reason: "a constant series has no correlation",
         });
     }
+    // Standardised deviations (|d/s| ≤ √(n − 1)), on data scaled as in type_a: neither the sum
+    // of products nor the product of the deviations can overflow or underflow.
+    let (kx, ky) = (overflow_scale(x), overflow_scale(y));
+    let ((mx, sx), (my, sy)) = (mean_and_deviation(x, kx), mean_and_deviation(y, ky));
     let mut sxy = 0.0;
     for (&p, &q) in x.iter().zip(y) {
-        sxy += (p - a.mean) * (q - b.mean);
+        sxy += ((p * kx - mx) / sx) * ((q * ky - my) / sy);
     }
-    let r = sxy / ((x.len() as f64 - 1.0) * a.standard_deviation * b.standard_deviation);
+    let r = sxy / (x.len() as f64 - 1.0);
     Ok(r.clamp(-1.0, 1.0))
 }
 

@@ -408,11 +408,15 @@ pub fn its90_temperature(
 pub struct RatioSensitivities {
     /// The temperature T, K.
     pub temperature_k: f64,
-    /// ∂T/∂r, K per unit ratio.
+    /// ∂T/∂r, K per unit ratio. Each sensitivity here is ±∞ only where its true value is beyond
+    /// the f64 range (a ratio or wavelength near the bottom of the f64 range).
+    #[cfg_attr(feature = "serde", serde(rename = "dTdRatio"))]
     pub d_t_d_ratio: f64,
     /// ∂T/∂T_X (reference-point temperature), K/K.
+    #[cfg_attr(feature = "serde", serde(rename = "dTdReferenceTemperature"))]
     pub d_t_d_reference_temperature: f64,
     /// ∂T/∂λ at fixed ratio, K/m.
+    #[cfg_attr(feature = "serde", serde(rename = "dTdWavelength"))]
     pub d_t_d_wavelength: f64,
 }
 
@@ -464,13 +468,17 @@ pub fn ratio_temperature_sensitivities(
     let g = |y: f64| -expm1(-y);
     let rel = t / reference_temperature_k;
     let gg = g(x) / g(x_ref);
-    // T·g(x)/x = λT²·g(x)/c2 (finite also when x overflows).
-    let d_t_d_ratio = (wavelength_m * t / c2v) * t * g(x) / ratio;
+    // T·g(x)/x = λT²·g(x)/c2, with g(x)/x ∈ (0, 1] formed first so that λT²/c2 cannot overflow
+    // on its own (g(x)/x → 1 where x underflows to 0).
+    let g_over_x = if x > 0.0 { g(x) / x } else { 1.0 };
+    let d_t_d_ratio = g_over_x * t / ratio;
     Ok(RatioSensitivities {
         temperature_k: t,
         d_t_d_ratio,
-        d_t_d_reference_temperature: rel * rel * gg,
-        d_t_d_wavelength: (t / wavelength_m) * (rel * gg - 1.0),
+        // rel·gg is moderate; rel² alone overflows for T/T_X > 1.3e154.
+        d_t_d_reference_temperature: rel * (rel * gg),
+        // (rel·gg − 1)·T first: T/λ can overflow where the difference is 0.
+        d_t_d_wavelength: (rel * gg - 1.0) * t / wavelength_m,
     })
 }
 
@@ -571,7 +579,12 @@ pub fn fixed_point_curve<M: SignalModel + ?Sized>(
     c2: C2Convention,
 ) -> Result<FixedPointCurve> {
     let mut fp = fixed_points;
-    fp.sort_unstable_by(|a, b| a.temperature_k().total_cmp(&b.temperature_k()));
+    // three elements: compare and swap (no general sort routine in the module)
+    for (i, j) in [(0, 1), (1, 2), (0, 1)] {
+        if fp[j].temperature_k() < fp[i].temperature_k() {
+            fp.swap(i, j);
+        }
+    }
     if fp[0] == fp[1] || fp[1] == fp[2] {
         return Err(Error::DegenerateFit {
             reason: "three different fixed points are needed",

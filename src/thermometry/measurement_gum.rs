@@ -135,7 +135,9 @@ impl MeasurementSensitivities {
 ///
 /// # Errors
 /// Those of [`object_temperature`] and of the model; `NoSolution` if dS/dT is 0 at the
-/// solution (signal underflow).
+/// solution (signal underflow); `OutOfRange` naming the reflected, path or window temperature
+/// whose model signal overflows when a coefficient would be infinite (`NoSolution` when no
+/// single temperature is to blame).
 ///
 /// # Accuracy
 /// Analytic; agrees with mpmath numerical differentiation of a 50-digit solve with window to
@@ -203,6 +205,18 @@ pub fn measurement_sensitivities<M: SignalModel + ?Sized>(
     } else {
         0.0
     };
+    // The first input temperature whose model signal (or its derivative) overflows.
+    let finite = |(v, d): (f64, f64)| v.is_finite() && d.is_finite();
+    let mut overflow = if !finite((s_r, ds_r)) {
+        Some((
+            "reflected_temperature_k",
+            conditions.reflected_temperature_k,
+        ))
+    } else if !finite((s_p, ds_p)) {
+        Some(("path_temperature_k", conditions.path_temperature_k))
+    } else {
+        None
+    };
     if let Some(w) = conditions.window {
         let emis = (1.0 - tw - rw).max(0.0);
         let (s_w, ds_w) = pair(w.temperature_k, emis)?;
@@ -212,6 +226,25 @@ pub fn measurement_sensitivities<M: SignalModel + ?Sized>(
         k[6] = c(s_i - s_w);
         k[7] = if emis > 0.0 { c(emis * ds_w) } else { 0.0 };
         k[8] = if rw > 0.0 { c(rw * ds_i) } else { 0.0 };
+        if overflow.is_none() && !finite((s_w, ds_w)) {
+            overflow = Some(("window.temperature_k", w.temperature_k));
+        } else if overflow.is_none() && !finite((s_i, ds_i)) {
+            overflow = Some(("window.reflected_temperature_k", w.reflected_temperature_k));
+        }
+    }
+    // A coefficient that overflowed is an error, not an infinite sensitivity (an input whose
+    // weight is zero has the coefficient 0 whatever its temperature).
+    if k.iter().any(|v| !v.is_finite()) {
+        return Err(match overflow {
+            Some((arg, value)) => Error::OutOfRange {
+                arg,
+                value,
+                range: "temperatures whose model signal is finite",
+            },
+            None => Error::NoSolution {
+                what: "the sensitivity coefficients overflow at this reading",
+            },
+        });
     }
     Ok(MeasurementSensitivities {
         temperature_k: t,

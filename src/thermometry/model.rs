@@ -28,11 +28,15 @@ pub const MIN_TEMPERATURE_K: f64 = 1.0e-3;
 pub trait SignalModel {
     /// Signal S(T) of a blackbody at `temperature_k` (K).
     ///
+    /// A true value above `f64::MAX` (an extreme temperature or response scale) is returned as
+    /// +∞, one below the f64 range as 0; neither is an error.
+    ///
     /// # Errors
     /// `NonFinite` / `NonPositiveTemperature` for a bad temperature.
     fn signal(&self, temperature_k: f64) -> Result<f64>;
 
-    /// Temperature derivative dS/dT at `temperature_k` (signal unit per K).
+    /// Temperature derivative dS/dT at `temperature_k` (signal unit per K); +∞ or 0 only where
+    /// the true value is beyond the f64 range, as for [`SignalModel::signal`].
     ///
     /// # Errors
     /// As [`SignalModel::signal`].

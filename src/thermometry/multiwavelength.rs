@@ -423,8 +423,10 @@ impl MultiwavelengthFit {
 /// channels than unknowns), `UNSUPPORTED` (order > 4), `NON_FINITE` / `NON_POSITIVE_SPECTRAL`
 /// (wavelengths), `NOT_INCREASING` (wavelengths), `NON_POSITIVE` (a radiance, an uncertainty,
 /// a threshold), `OUT_OF_RANGE` (`max_abs_correlation` > 1), `DEGENERATE_FIT` (the start or the
-/// solution is numerically singular: scaled condition number > 1e13), `NOT_CONVERGED` (not
-/// observed in the tests), `NO_SOLUTION` (a signal underflows at the start temperature).
+/// solution is numerically singular: scaled condition number > 1e13), `NOT_CONVERGED` (the
+/// iteration stalls on nearly singular data, e.g. four channels 0.1 nm apart at 1 µm with a
+/// quadratic model: `tests/js/quantum.test.mjs`), `NO_SOLUTION` (a signal underflows at the
+/// start temperature).
 ///
 /// # Accuracy
 /// Against the weighted least-squares solution found independently by mpmath (Newton's

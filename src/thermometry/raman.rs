@@ -107,9 +107,12 @@ impl RamanDetection {
 pub struct RamanReading {
     /// Temperature, K.
     pub temperature_k: f64,
-    /// dT/dR, K per unit ratio.
+    /// dT/dR, K per unit ratio (+∞ only where the true value is above `f64::MAX`).
+    #[cfg_attr(feature = "serde", serde(rename = "dTdRatio"))]
     pub d_t_d_ratio: f64,
-    /// (1/R)·dR/dT = θ/T², K⁻¹: the relative change of the ratio per kelvin.
+    /// (1/R)·dR/dT = θ/T², K⁻¹: the relative change of the ratio per kelvin (+∞ only where
+    /// the true value is above `f64::MAX`, e.g. a mode of a shift far below 1 m⁻¹ read at a
+    /// temperature below the normal f64 range).
     pub relative_sensitivity_per_k: f64,
     /// Bose–Einstein occupancy n of the mode at that temperature (dimensionless).
     pub phonon_occupancy: f64,
@@ -135,7 +138,13 @@ fn mode(
             range: "(0, 1/excitation_wavelength_m)",
         });
     }
-    let q = (nu_l + raman_shift_per_m) / (nu_l - raman_shift_per_m);
+    let q = if nu_l.is_finite() {
+        (nu_l + raman_shift_per_m) / (nu_l - raman_shift_per_m)
+    } else {
+        // λ_L below 1/f64::MAX: ∞/∞; with p = ν̃_R·λ_L < 1 the same ratio is (1 + p)/(1 − p).
+        let p = raman_shift_per_m * excitation_wavelength_m;
+        (1.0 + p) / (1.0 - p)
+    };
     Ok((C2 * raman_shift_per_m, float::powi(q, detection.exponent())))
 }
 
@@ -217,8 +226,13 @@ pub fn anti_stokes_stokes_ratio(
         return Ok(0.0);
     }
     let n = bose_einstein(x)?;
-    // n/(n + 1) = exp(−x), formed from the occupancy without cancellation.
-    Ok(f * (n / (n + 1.0)))
+    // n/(n + 1) = exp(−x), formed from the occupancy without cancellation; 1/(1 + 1/n) where n
+    // overflows (x below 1/f64::MAX), which n/(n + 1) would turn into ∞/∞.
+    Ok(f * if n.is_finite() {
+        n / (n + 1.0)
+    } else {
+        1.0 / (1.0 + 1.0 / n)
+    })
 }
 
 /// Temperature (K) from a measured anti-Stokes/Stokes ratio `ratio` (dimensionless, corrected
@@ -279,8 +293,9 @@ pub fn raman_temperature(
     let n = if x <= 745.2 { bose_einstein(x)? } else { 0.0 };
     Ok(RamanReading {
         temperature_k: t,
-        d_t_d_ratio: t * t / (theta * ratio),
-        relative_sensitivity_per_k: theta / (t * t),
+        // Quotients first: t·t and θ·R can underflow (0/0) where the results are ordinary.
+        d_t_d_ratio: (t / theta) * (t / ratio),
+        relative_sensitivity_per_k: theta / t / t,
         phonon_occupancy: n,
         frequency_factor: f,
         mode_temperature_k: theta,

@@ -264,7 +264,8 @@ impl Sampler {
     }
 
     /// A standard Student's t deviate with `degrees_of_freedom` ν > 0 (Bailey's polar
-    /// method; the caller guarantees ν > 0).
+    /// method; the caller guarantees ν > 0; ν = ∞ gives a standard normal deviate). For ν
+    /// below about 0.06 a deviate can exceed the f64 range and is then ±∞.
     ///
     /// # Examples
     /// ```
@@ -276,12 +277,21 @@ impl Sampler {
     /// assert!((inside - 0.5).abs() < 0.01);
     /// ```
     pub fn student_t(&mut self, degrees_of_freedom: f64) -> f64 {
+        if degrees_of_freedom == f64::INFINITY {
+            // The normal limit (below, ν·c2 would be ∞·0 = NaN).
+            return self.standard_normal();
+        }
         loop {
             let u = 2.0 * self.uniform() - 1.0;
             let v = 2.0 * self.uniform() - 1.0;
             let w = u * u + v * v;
             if w < 1.0 && w > 0.0 {
-                let c2 = powf(w, -2.0 / degrees_of_freedom) - 1.0;
+                let c2 = if degrees_of_freedom > 1e6 {
+                    // w^(−2/ν) rounds to 1 for large ν: every deviate would be 0.
+                    crate::float::expm1(-2.0 / degrees_of_freedom * ln(w))
+                } else {
+                    powf(w, -2.0 / degrees_of_freedom) - 1.0
+                };
                 return u * sqrt(degrees_of_freedom * c2 / w);
             }
         }

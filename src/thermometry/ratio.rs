@@ -74,7 +74,8 @@ impl<A: SignalModel + ?Sized, B: SignalModel + ?Sized> SignalModel for RatioMode
 pub struct RatioReading {
     /// Temperature, K.
     pub temperature_k: f64,
-    /// ∂T/∂r, K per unit ratio.
+    /// ∂T/∂r, K per unit ratio (+∞ only where the true value is above `f64::MAX`: a ratio so
+    /// small that ∂r/∂T is below the f64 range).
     #[cfg_attr(feature = "serde", serde(rename = "dTdRatio"))]
     pub d_t_d_ratio: f64,
     /// ∂T/∂(ε1/ε2), K per unit emissivity ratio.
@@ -124,10 +125,18 @@ pub fn ratio_temperature<A: SignalModel + ?Sized, B: SignalModel + ?Sized>(
     positive("ratio", ratio)?;
     positive("emissivity_ratio", emissivity_ratio)?;
     temperature("guess_k", guess_k)?;
+    // Solve S1/S2 = r/ρ where that quotient is a normal number: comparing ρ·S1/S2 with r loses
+    // the ratio's bits when r is subnormal (r = 5e-324 with ρ = 1e-302 stopped 250 K off).
+    let q = ratio / emissivity_ratio;
+    let (target, rho) = if q.is_normal() {
+        (q, 1.0)
+    } else {
+        (ratio, emissivity_ratio)
+    };
     let m = RatioModel {
         ch1: channel1,
         ch2: channel2,
-        rho: emissivity_ratio,
+        rho,
     };
     let (_, dg0) = m.signal_and_derivative(guess_k)?;
     if dg0 < 0.0 {
@@ -135,19 +144,21 @@ pub fn ratio_temperature<A: SignalModel + ?Sized, B: SignalModel + ?Sized>(
             what: "channel 1 must be the shorter-wavelength channel (S1/S2 increasing with T)",
         });
     }
-    let t = invert_monotone(&m, ratio, guess_k)?;
+    let t = invert_monotone(&m, target, guess_k)?;
     let (g, dg) = m.signal_and_derivative(t)?;
     if !(dg > 0.0) {
         return Err(Error::NoSolution {
             what: "ratio slope vanishes at the solution",
         });
     }
-    let dt_dr = 1.0 / dg;
+    // The measured ratio is (ρ/rho)·g: ∂T/∂r = (1/dg)/(ρ/rho); ∂T/∂ρ below needs no factor.
+    let dt_dr = 1.0 / dg / (emissivity_ratio / rho);
     // g here already includes ρ: ∂T/∂ρ = −(ρ g_bb)/(ρ dg_bb)/ρ = −g/(dg·ρ)
     Ok(RatioReading {
         temperature_k: t,
         d_t_d_ratio: dt_dr,
-        d_t_d_emissivity_ratio: -g / (dg * emissivity_ratio),
+        // (g/dg) first: dg·ρ can underflow to 0 where the quotient is ordinary.
+        d_t_d_emissivity_ratio: -(g / dg) / emissivity_ratio,
     })
 }
 

@@ -119,8 +119,8 @@ impl SpectralValue<'_> {
     /// The constant, or [`SpectralTable::value_at`].
     ///
     /// # Errors
-    /// `NonFinite` / `NonPositiveSpectral` for a bad wavelength; those of
-    /// [`SpectralTable::value_at`].
+    /// `NonFinite` / `NonPositiveSpectral` for a bad wavelength; `NonFinite` (arg `constant`) for
+    /// a NaN or infinite constant; those of [`SpectralTable::value_at`].
     ///
     /// # Accuracy
     /// A few ulp.
@@ -133,7 +133,7 @@ impl SpectralValue<'_> {
     pub fn value_at(&self, wavelength_m: f64) -> Result<f64> {
         crate::error::spectral("wavelength_m", wavelength_m)?;
         match self {
-            SpectralValue::Constant(c) => Ok(*c),
+            SpectralValue::Constant(c) => crate::error::finite("constant", *c),
             SpectralValue::Table(t) => t.value_at(wavelength_m),
         }
     }

@@ -35,7 +35,7 @@
 //!   measurement*, §6.3 and Annex G (Table G.2).
 #![forbid(unsafe_code)]
 
-use crate::float::{erfc, exp, ln, ln_1p, ln_gamma, sqrt};
+use crate::float::{erfc, exp, ln, ln_1p, sqrt};
 use crate::{Error, Result};
 
 /// ln √π.
@@ -62,9 +62,16 @@ pub(crate) fn check_degrees_of_freedom(arg: &'static str, nu: f64) -> Result<f64
 }
 
 /// ln Γ(a + ½) − ln Γ(a) for a > 0.
+///
+/// Below a = 20 the recurrence Γ(z + 1) = z·Γ(z) shifts the argument up:
+/// ln Γ(a + ½) − ln Γ(a) = [ln Γ(z + ½) − ln Γ(z)] − Σ_{k<m} ln(1 + ½/(a + k)), z = a + m ≥ 20
+/// (at most about 20 terms of ln_1p; no log-gamma routine in the module).
 fn ln_gamma_half_step(a: f64) -> f64 {
-    if a < 20.0 {
-        return ln_gamma(a + 0.5) - ln_gamma(a);
+    let mut z = a;
+    let mut shift = 0.0;
+    while z < 20.0 {
+        shift += ln_1p(0.5 / z);
+        z += 1.0;
     }
     // Stirling: ln Γ(z) = (z − ½)ln z − z + ½ln 2π + S(z), S(z) = Σ B₂ₖ/(2k(2k−1)z^(2k−1)).
     let s = |z: f64| {
@@ -72,7 +79,7 @@ fn ln_gamma_half_step(a: f64) -> f64 {
         let r2 = r * r;
         r * (1.0 / 12.0 - r2 * (1.0 / 360.0 - r2 * (1.0 / 1260.0 - r2 * (1.0 / 1680.0))))
     };
-    a * ln_1p(0.5 / a) - 0.5 + 0.5 * ln(a) + (s(a + 0.5) - s(a))
+    z * ln_1p(0.5 / z) - 0.5 + 0.5 * ln(z) + (s(z + 0.5) - s(z)) - shift
 }
 
 /// ln B(a, ½).
@@ -144,6 +151,11 @@ pub(crate) fn upper_tail(t: f64, nu: f64) -> f64 {
     }
     if t.is_infinite() {
         return 0.0;
+    }
+    if nu < 1e-300 {
+        // Q = ½ − O(ν·ln t) with ln t ≤ 710: ½ to the last bit. Below, a = ν/2 would lose its
+        // bits (or round to 0 and give NaN).
+        return 0.5;
     }
     let a = 0.5 * nu;
     let t2 = t * t;
@@ -264,7 +276,12 @@ pub(crate) fn upper_quantile(q: f64, nu: f64) -> Result<f64> {
         if !(tail > 0.0) {
             // Underflow: far beyond the root.
             hi = hi.min(t);
-            t = if lo > 0.0 { sqrt(lo * t) } else { 0.5 * t };
+            // √lo·√t: lo·t can overflow for heavy tails (ν ≤ 2, tiny q).
+            t = if lo > 0.0 {
+                sqrt(lo) * sqrt(t)
+            } else {
+                0.5 * t
+            };
             continue;
         }
         let g = ln(tail) - target;
@@ -276,25 +293,36 @@ pub(crate) fn upper_quantile(q: f64, nu: f64) -> Result<f64> {
         } else {
             hi = t;
         }
-        // d ln Q / d ln t = −t·f(t)/Q(t)
-        let slope = -t * density(t, nu) / tail;
-        let mut next = if slope < 0.0 {
-            t * exp(-g / slope)
-        } else {
-            f64::NAN
-        };
+        // d ln Q / d ln t = −t·f(t)/Q(t); where f(t) underflows (t far out in the tail) its
+        // limit, the power-law exponent −ν of Q ∝ t^(−ν).
+        let mut slope = -t * density(t, nu) / tail;
+        let power_law = !(slope < 0.0);
+        if power_law {
+            slope = -nu;
+        }
+        let mut next = t * exp(-g / slope);
+        if power_law && hi.is_infinite() && next.is_infinite() {
+            // Q ∝ t^(−ν) this far out: the root lies beyond the largest f64.
+            return Ok(f64::INFINITY);
+        }
         if !(next > lo && next < hi) {
             next = if hi.is_infinite() {
                 4.0 * t
             } else if lo == 0.0 {
                 0.25 * t
             } else {
-                sqrt(lo * hi)
+                // √lo·√hi: lo·hi overflows for quantiles beyond 1e154 (the density there may
+                // underflow, so this bisection in ln t is what converges).
+                sqrt(lo) * sqrt(hi)
             };
         }
         if !next.is_finite() {
-            // Quantile beyond the largest f64 (tiny ν with a small tail probability).
-            return Ok(f64::INFINITY);
+            if t < f64::MAX {
+                next = f64::MAX;
+            } else {
+                // Quantile beyond the largest f64 (tiny ν with a small tail probability).
+                return Ok(f64::INFINITY);
+            }
         }
         if (next - t).abs() <= 4e-16 * t || (hi.is_finite() && hi - lo <= 4e-16 * hi) {
             return Ok(next);
@@ -316,7 +344,9 @@ pub(crate) fn upper_quantile(q: f64, nu: f64) -> Result<f64> {
 ///
 /// # Errors
 /// `NonFinite` for NaN; `OutOfRange` for `probability` outside (0, 1) or ν ≤ 0 (range
-/// `(0, inf]`); `NotConverged` if the safeguarded Newton iteration fails (not observed).
+/// `(0, inf]`); `NotConverged` if the safeguarded Newton iteration fails (seen only for ν < 1
+/// with a tail probability far below 1e-100, where the quantile is beyond the f64 range).
+/// A quantile beyond the f64 range is otherwise returned as ±∞.
 ///
 /// # Accuracy
 /// Against mpmath at 50 digits (`findroot` on the incomplete beta function, confirmed by
@@ -364,7 +394,8 @@ pub fn student_t_quantile(probability: f64, degrees_of_freedom: f64) -> Result<f
 /// ```
 ///
 /// # Errors
-/// `NonFinite`; `OutOfRange` for p outside (0, 1) or ν ≤ 0.
+/// `NonFinite`; `OutOfRange` for p outside (0, 1) or ν ≤ 0; as [`student_t_quantile`]
+/// (`NotConverged`, or +∞ for a factor beyond the f64 range: ν far below 1 with p near 1).
 ///
 /// # Accuracy
 /// As [`student_t_quantile`] (the tail probability (1 − p)/2 is formed exactly).
@@ -428,6 +459,23 @@ mod tests {
                 assert_eq!(student_t_quantile(1.0 - p, nu).unwrap(), -t);
             }
         }
+    }
+
+    #[test]
+    fn far_tail_quantiles_stay_finite_until_they_overflow() {
+        // Closed forms (A&S 26.7.3, 26.7.4): ν = 1, t_p = −cot(πp) = −1/(πp)·(1 − (πp)²/3 …);
+        // ν = 2, t_p = (2p − 1)/√(2p(1 − p)). Far beyond the f64 range of t² and of the
+        // density, short of the overflow of t itself.
+        for &p in &[1e-100, 1e-200, 1e-300] {
+            let t1 = student_t_quantile(p, 1.0).unwrap();
+            let want1 = -1.0 / (core::f64::consts::PI * p);
+            assert!((t1 / want1 - 1.0).abs() < 1e-12, "{p}: {t1} vs {want1}");
+            let t2 = student_t_quantile(p, 2.0).unwrap();
+            let want2 = (2.0 * p - 1.0) / (2.0 * p * (1.0 - p)).sqrt();
+            assert!((t2 / want2 - 1.0).abs() < 1e-12, "{p}: {t2} vs {want2}");
+        }
+        // −1/(π·1e-309) = −3.2e308 is beyond the largest f64: the quantile overflows to −∞
+        assert_eq!(student_t_quantile(1e-309, 1.0).unwrap(), f64::NEG_INFINITY);
     }
 
     #[test]

@@ -25,10 +25,12 @@ use crate::thermometry::{
 /// A checked curve, with the report of the fit that made it (if any).
 #[wasm_bindgen(js_name = QbCalibration)]
 pub struct CalibrationHandle {
-    curve: SakumaHattori,
-    report: Option<FitReport>,
-    residuals: Vec<f64>,
-    _live: Live,
+    pub(crate) curve: SakumaHattori,
+    pub(crate) report: Option<FitReport>,
+    pub(crate) residuals: Vec<f64>,
+    /// The reference points of a fit through points (uncertainty methods, src/wasm/uncertainty.rs).
+    pub(crate) reference: Option<super::uncertainty::Reference>,
+    pub(crate) _live: Live,
 }
 
 /// The coefficients of a curve as given (checked by `SakumaHattori::new`, whose error keeps its
@@ -146,6 +148,7 @@ impl CalibrationHandle {
             curve,
             report: None,
             residuals: Vec::new(),
+            reference: None,
             _live: Live::new(),
         }
     }
@@ -164,8 +167,15 @@ impl CalibrationHandle {
     }
 
     /// Least-squares fit through the points in f64 scratch buffers 0 (temperatures, K) and 1
-    /// (signals); the residuals go to the handle.
-    pub fn fit(options: JsValue) -> Option<CalibrationHandle> {
+    /// (signals); the residuals go to the handle, and the points with their standard
+    /// uncertainties (bit 0 / 1 of `given`: `u_temperatures_k` / `u_signals` given, one per
+    /// point) for the calibration transfer.
+    pub fn fit(
+        options: JsValue,
+        u_temperatures_k: &[f64],
+        u_signals: &[f64],
+        given: u32,
+    ) -> Option<CalibrationHandle> {
         some((|| {
             let o: FitOptions = read(options, "options")?;
             with_f64(|b| {
@@ -180,10 +190,13 @@ impl CalibrationHandle {
                 }
                 residuals.resize(t.len(), 0.0);
                 let r = SakumaHattori::fit(t, s, o.c2, Some(&mut residuals))?;
+                let points =
+                    super::uncertainty::reference(t, s, u_temperatures_k, u_signals, given, o.c2)?;
                 Ok(CalibrationHandle {
                     curve: r.curve,
                     report: Some(r),
                     residuals,
+                    reference: Some(points),
                     _live: Live::new(),
                 })
             })
@@ -209,6 +222,7 @@ impl CalibrationHandle {
                 curve: r.curve,
                 report: Some(r),
                 residuals: Vec::new(),
+                reference: None,
                 _live: Live::new(),
             })
         })())

@@ -190,6 +190,12 @@ pub fn take_error() -> JsValue {
             } else {
                 first
             };
+            // A correlation matrix's entry is named with the matrix's path.
+            let second = if matches!(e, Error::InvalidCorrelation { .. }) && !path.is_empty() {
+                alloc::format!("{path}{second}")
+            } else {
+                second
+            };
             Pending {
                 code: e.code(),
                 texts: [first, second],

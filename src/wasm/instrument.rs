@@ -13,8 +13,7 @@ use super::testing::Live;
 use crate::definition::{InstrumentDefinition, MeasurementConditions, PreparedModel};
 use crate::error::{self as check, Error};
 use crate::thermometry::{
-    ratio_temperature, sensitivities, uncertainty_budget, Conditions, Response, ResponseSignal,
-    SignalModel, StandardUncertainties,
+    ratio_temperature, sensitivities, Conditions, Response, ResponseSignal, SignalModel,
 };
 use crate::units::{convert_spectral_checked, SpectralUnit};
 
@@ -213,16 +212,25 @@ impl InstrumentHandle {
         })())
     }
 
+    /// The GUM budget of the object temperature: inputs and correlations as the facade
+    /// encodes them, the result as numbers in f64 scratch 0 (see `super::uncertainty`).
     #[wasm_bindgen(js_name = uncertaintyBudget)]
-    pub fn uncertainty_budget(&self, signal: f64, uncertainties: JsValue) -> Option<JsValue> {
-        some((|| {
-            let u: StandardUncertainties = read(uncertainties, "uncertainties")?;
-            check::finite("signal", signal)?;
-            let b = self
-                .model
-                .run(|m| uncertainty_budget(m, signal, &self.conditions, &u))?;
-            to_js(&b)
-        })())
+    pub fn uncertainty_budget(
+        &self,
+        signal: f64,
+        inputs: &[f64],
+        correlations: &[f64],
+        coverage_probability: Option<f64>,
+        coverage_factor: Option<f64>,
+    ) -> f64 {
+        super::uncertainty::instrument_budget(
+            self,
+            signal,
+            inputs,
+            correlations,
+            coverage_probability,
+            coverage_factor,
+        )
     }
 
     #[wasm_bindgen(js_name = measurementAffine)]

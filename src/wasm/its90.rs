@@ -11,7 +11,7 @@ use crate::thermometry::two_colour_temperature as core_two_colour;
 use crate::units::{convert_spectral_checked, SpectralKind, SpectralUnit};
 use crate::Error;
 
-fn wavelength_m(arg: &'static str, x: f64, unit: &str) -> Result<f64, Fail> {
+pub(crate) fn wavelength_m(arg: &'static str, x: f64, unit: &str) -> Result<f64, Fail> {
     let u = SpectralUnit::parse(unit)?;
     if u.kind() != SpectralKind::Wavelength {
         return Err(Error::Unsupported {
@@ -22,7 +22,7 @@ fn wavelength_m(arg: &'static str, x: f64, unit: &str) -> Result<f64, Fail> {
     Ok(convert_spectral_checked(arg, x, u, SpectralUnit::Metre)?)
 }
 
-fn c2(name: &str) -> Result<C2Convention, Fail> {
+pub(crate) fn c2(name: &str) -> Result<C2Convention, Fail> {
     match name {
         "" | "codata2018" => Ok(C2Convention::Codata2018),
         "its90" => Ok(C2Convention::Its90),

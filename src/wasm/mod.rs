@@ -22,13 +22,17 @@
 
 pub mod calibration;
 pub(crate) mod config;
+pub mod design;
 pub mod error;
 pub mod fractions;
 pub mod instrument;
 pub mod its90;
+pub mod quantum;
+pub mod quantum_fit;
 pub mod scratch;
 pub mod spectral;
 pub mod spectrum;
 pub mod stats;
 pub mod testing;
+pub mod uncertainty;
 pub mod units;

@@ -58,20 +58,43 @@ export function reference(name) {
   return JSON.parse(readFileSync(resolve(dir, name), 'utf8'));
 }
 
+/**
+ * Sets control `id` as a user edit would (its value, then the `input` and `change` events the
+ * page listens to) and waits for the recomputation, in one round trip to the browser. The
+ * control must be visible and enabled, as for a user.
+ */
+async function edit(page, id, value, isSelect) {
+  const problem = await page.evaluate(({ id: cid, value: v, isSelect: sel }) => {
+    const e = document.getElementById(cid);
+    if (!e) return `#${cid} does not exist`;
+    if (e.closest('[hidden]') || e.getClientRects().length === 0 || e.disabled) return `#${cid} is not visible or not enabled`;
+    if (sel && ![...e.options].some((o) => o.value === v)) return `#${cid} has no option ${v}`;
+    e.focus();
+    e.value = v;
+    e.dispatchEvent(new Event('input', { bubbles: true }));
+    e.dispatchEvent(new Event('change', { bubbles: true }));
+    return new Promise((r) => requestAnimationFrame(() => r('')));
+  }, { id, value: String(value), isSelect });
+  if (problem) throw new Error(problem);
+}
+
 /** Types `text` into control `id` (replacing its content) and waits for the recomputation. */
 export async function setValue(page, id, text) {
-  await page.fill(`#${id}`, String(text));
-  await settle(page);
+  await edit(page, id, text, false);
 }
 
+/** Chooses option `value` of <select> `id` and waits for the recomputation. */
 export async function select(page, id, value) {
-  await page.selectOption(`#${id}`, String(value));
-  await settle(page);
+  await edit(page, id, value, true);
 }
 
-/** Waits two animation frames (the page recomputes on the next frame after an input event). */
+/**
+ * Waits until the page has recomputed after an input event: the page schedules its computation
+ * in a requestAnimationFrame callback registered by the event, so a callback registered after it
+ * runs once that computation is done.
+ */
 export async function settle(page) {
-  await page.evaluate(() => new Promise((r) => requestAnimationFrame(() => requestAnimationFrame(r))));
+  await page.evaluate(() => new Promise((r) => requestAnimationFrame(() => r())));
 }
 
 /** Text of a result item <div data-key=key> inside <dl id=dlId>. */
@@ -96,14 +119,15 @@ export function rel(a, b) {
 
 /** Parses downloaded CSV text (skipping "#" comments) into { header, rows }. */
 export function parseCsv(text) {
-  const lines = text.split(/\r?\n/).filter((l) => l && !l.startsWith('#'));
+  const lines = text.replace(/^\uFEFF/, '').split(/\r?\n/).filter((l) => l && !l.startsWith('#') && !l.startsWith('"#'));
   const split = (l) => l.match(/("([^"]|"")*"|[^,]*)(,|$)/g).filter((x) => x !== '').map((x) => x.replace(/,$/, '').replace(/^"|"$/g, '').replace(/""/g, '"'));
-  return { header: split(lines[0]), rows: lines.slice(1).map((l) => l.split(',').map(Number)) };
+  // An empty cell is an undefined value: NaN here (Number('') would be 0).
+  return { header: split(lines[0]), rows: lines.slice(1).map((l) => l.split(',').map((c) => (c === '' ? NaN : Number(c)))) };
 }
 
 /** Clicks a button that triggers a download and returns the downloaded text. */
 export async function downloadText(page, buttonSelector) {
   const [dl] = await Promise.all([page.waitForEvent('download'), page.click(buttonSelector)]);
-  const path = await dl.path();
-  return { name: dl.suggestedFilename(), text: readFileSync(path, 'utf8') };
+  const bytes = readFileSync(await dl.path());
+  return { name: dl.suggestedFilename(), text: bytes.toString('utf8'), bytes };
 }

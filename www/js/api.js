@@ -1,56 +1,22 @@
-// The page's one door to the WebAssembly package. Every number the page shows comes through
-// here from the quantaband core; the sections never call the package directly. A section asks
-// `api.has(...)` for the capabilities it needs and is left out when the package lacks them.
+// The page's one door to the WebAssembly package. Every number the page shows comes from the
+// quantaband core through here; sections never import the package themselves.
 //
-// The package's API is prepared objects (Spectrum, Instrument, CalibrationCurve) built once from
-// a configuration and then called with plain numbers. The sections speak in terms of small
-// descriptors (a spectrum's settings, a page model descriptor); this module keeps one prepared
-// object per distinct descriptor in a small cache (freeing the ones it drops), so a redraw that
-// evaluates the same spectrum thousands of times reads its settings once.
+// The package's API is prepared objects (Spectrum, Instrument, CalibrationCurve) built once
+// from a configuration and then called with plain numbers, and free functions. Sections build
+// their objects through `api.spectrum(settings)` / `api.instrument(definition)`, which keep one
+// object per distinct configuration in a small cache (freeing those it drops), so a redraw that
+// calls the same spectrum thousands of times reads its settings once.
 
 let qb = null;
 
-const SI_UNIT = { wavelength: 'm', wavenumber: 'm-1', frequency: 'Hz', photonEnergy: 'J' };
+/** Installs the initialised package. */
+export function bindApi(pkg) {
+  qb = pkg;
+}
 
-/**
- * The capabilities `has()` knows, by the names the sections ask for (the names of the bindings
- * that served them before the prepared-object API), and the package exports each one needs.
- */
-const CAPABILITIES = {
-  spectralDensity: ['Spectrum'],
-  spectralDensityArray: ['Spectrum'],
-  spectrumPeak: ['Spectrum'],
-  bandIntegral: ['Spectrum'],
-  bandIntegralDT: ['Spectrum'],
-  bandFraction: ['Spectrum'],
-  bandIntegralArray: ['Spectrum'],
-  bandIntegralDTArray: ['Spectrum'],
-  convertSpectral: ['convertSpectral'],
-  convertTemperature: ['convertTemperature'],
-  convertTemperatureArray: ['convertTemperatureArray'],
-  spectralUnitKind: ['spectralUnitKind'],
-  boseEinsteinEnergy: ['boseEinsteinEnergy'],
-  fermiDiracEnergy: ['fermiDiracEnergy'],
-  maxwellBoltzmannEnergy: ['maxwellBoltzmannEnergy'],
-  thermalPhotonNumber: ['thermalPhotonNumber'],
-  quantumNoiseTemperature: ['quantumNoiseTemperature'],
-  rayleighJeansBrightnessTemperature: ['rayleighJeansBrightnessTemperature'],
-  availableNoisePowerDensity: ['availableNoisePowerDensity'],
-  availableNoisePowerDensityWithZeroPoint: ['availableNoisePowerDensityWithZeroPoint'],
-  modelSignal: ['Instrument'],
-  modelTemperature: ['Instrument'],
-  objectTemperature: ['Instrument'],
-  measuredSignalArray: ['Instrument'],
-  uncertaintyBudget: ['Instrument'],
-  responseMoments: ['Instrument'],
-  ratioTemperature: ['Instrument'],
-  sakumaHattoriFit: ['CalibrationCurve'],
-  sakumaHattoriFromResponse: ['CalibrationCurve', 'Instrument'],
-  convertFrame: ['CalibrationCurve'],
-};
-
-/** Prepared objects by descriptor (insertion order = age); the oldest is freed beyond 32. */
 const cache = new Map();
+const CACHE_SIZE = 48;
+
 function prepared(kind, config) {
   const key = `${kind}:${JSON.stringify(config, (k, v) => (ArrayBuffer.isView(v) ? Array.from(v) : v))}`;
   let o = cache.get(key);
@@ -61,7 +27,7 @@ function prepared(kind, config) {
   }
   o = kind === 'spectrum' ? new qb.Spectrum(config) : new qb.Instrument(config);
   cache.set(key, o);
-  if (cache.size > 32) {
+  if (cache.size > CACHE_SIZE) {
     const [oldKey, old] = cache.entries().next().value;
     cache.delete(oldKey);
     old.free();
@@ -69,223 +35,101 @@ function prepared(kind, config) {
   return o;
 }
 
-/**
- * A section's spectrum descriptor { unit, variable?, quantity, geometry, emissivity } as a
- * prepared Spectrum whose densities are per the SI unit of the variable (the page converts them
- * to its display unit itself).
- */
-function spectrumOf(spec) {
-  const variable = spec.variable ?? fn('spectralUnitKind')(spec.unit);
-  const densityUnit = SI_UNIT[variable] ?? SI_UNIT.wavelength;
-  return prepared('spectrum', { ...spec, densityUnit });
-}
-
-/** A page model descriptor → the package's instrument model. */
-function instrument(model) {
-  if (model.kind === 'band') return { kind: 'response', wavelengths: [model.lower, model.upper], values: [1, 1], unit: model.unit };
-  if (model.kind === 'spectral') return { kind: 'spectralPoint', wavelength: model.wavelength, unit: model.unit };
-  if (model.kind === 'curve') return { kind: 'sakumaHattori', aM: model.curve.aM, bMK: model.curve.bMK, c: model.curve.c, c2: model.curve.c2 ?? 'codata2018' };
-  throw new Error(`unknown model kind ${model.kind}`);
-}
-
-/** The prepared Instrument of a page model under conditions `cond` (optional). */
-function instrumentOf(model, cond) {
-  const definition = { model: instrument(model) };
-  if (cond !== undefined && cond !== null) definition.conditions = cond;
-  return prepared('instrument', definition);
-}
-
-/** Factor from the page's signal unit to the package's (spectral radiance per µm → per m). */
-function signalScale(model) {
-  return model.kind === 'spectral' ? 1 / api.spectralToSi(1, model.unit) : 1;
-}
-
-/** A Sakuma–Hattori curve as the page keeps it (plain coefficients with kind). */
-function curveShape(c) {
-  return { kind: 'sakumaHattori', aM: c.aM, bMK: c.bMK, c: c.c, c2: c.c2 };
-}
-
-/** Installs the initialised package. */
-export function bindApi(pkg) {
-  qb = pkg;
-}
-
 function fn(name) {
   const f = qb && qb[name];
-  if (typeof f !== 'function') throw new Error(`the quantaband package has no ${name}()`);
+  if (typeof f !== 'function') throw new Error(`the quantaband package has no ${name}`);
   return f;
 }
 
 export const api = {
-  /** True when every named capability is served by the package. */
+  /** True when the package exports every named function or class. */
   has(...names) {
-    return !!qb && names.every((n) => (CAPABILITIES[n] ?? [n]).every((e) => typeof qb[e] === 'function'));
+    return !!qb && names.every((n) => typeof qb[n] === 'function');
   },
+  /** True for the package's error class (the page keeps its `code`). */
   isError(e) {
     return !!qb && typeof qb.QuantabandError === 'function' && e instanceof qb.QuantabandError;
   },
-  // ---- units (conversion lives in the core's unit module)
-  toKelvin(value, unit) {
-    return fn('convertTemperature')(value, unit, 'K');
+  /** A free function of the package by name (sections call e.g. api.fn('thermalPhotonNumber')). */
+  fn,
+
+  // ---- units: every conversion is the core's (src/units.rs through convertTemperature/Spectral)
+  toK(value, unit) {
+    return fn('convertTemperature')(value, unit, 'K'); // also rejects ≤ 0 K
   },
-  fromKelvin(kelvin, unit) {
+  fromK(kelvin, unit) {
     return fn('convertTemperature')(kelvin, 'K', unit);
   },
-  /** A spectral coordinate in `unit` → the SI unit of its kind (m, m⁻¹, Hz or J). */
-  spectralToSi(value, unit) {
-    return fn('convertSpectral')(value, unit, SI_UNIT[api.spectralKind(unit)]);
+  /** A temperature difference in `unit` → kelvin (10 °C of difference = 10 K, 9 °F = 5 K). */
+  diffToK(value, unit) {
+    return fn('convertTemperatureDifference')(value, unit, 'K');
   },
-  /** Converts an array of spectral coordinates between units (one call into the core). */
-  spectralArray(values, from, to) {
-    return fn('convertSpectralArray')(values, from, to);
+  diffFromK(kelvin, unit) {
+    return fn('convertTemperatureDifference')(kelvin, 'K', unit);
   },
   spectralKind(unit) {
     return fn('spectralUnitKind')(unit);
   },
-  // ---- radiometric core. spec = { unit, quantity, geometry, emissivity }: coordinates (points,
-  // band limits, peaks) in spec.unit, densities per the SI unit of the variable.
-  spectrum(spec, xs, temperatureK) {
-    return spectrumOf(spec).points(xs, temperatureK);
+  /** True when converting between the two units is a proportion (not a reciprocal). */
+  spectralLinear(from, to) {
+    return (api.spectralKind(from) === 'wavelength') === (api.spectralKind(to) === 'wavelength');
   },
-  spectralValue(spec, x, temperatureK) {
-    return spectrumOf(spec).point(x, temperatureK);
+  /**
+   * A spectral coordinate in `from` → `to`. Between proportional kinds (µm↔nm, eV↔THz↔cm⁻¹)
+   * the core's factor is applied, so zero and negative values (level energies) convert too;
+   * wavelength ↔ the others is a reciprocal and needs a positive value.
+   */
+  convertSpectral(value, from, to) {
+    if (from === to) return value;
+    if (api.spectralLinear(from, to)) return value * fn('convertSpectral')(1, from, to);
+    return fn('convertSpectral')(value, from, to);
   },
-  spectralPeak(spec, temperatureK) {
-    return spectrumOf(spec).peak(temperatureK);
-  },
-  band(spec, lo, hi, temperatureK) {
-    return spectrumOf(spec).band(lo, hi, temperatureK);
-  },
-  bandFraction(spec, lo, hi, temperatureK) {
-    return spectrumOf(spec).bandFraction(lo, hi, temperatureK);
-  },
-  bandDdt(spec, lo, hi, temperatureK) {
-    return spectrumOf(spec).bandDerivative(lo, hi, temperatureK);
-  },
-  bandOverTemperatures(spec, lo, hi, temperaturesK) {
-    return spectrumOf(spec).bands(lo, hi, temperaturesK);
-  },
-  bandDdtOverTemperatures(spec, lo, hi, temperaturesK) {
-    return spectrumOf(spec).bandDerivatives(lo, hi, temperaturesK);
-  },
-  // ---- quantum statistics (energies in J, frequencies in Hz)
-  occupancyBoseEinstein(energyJ, muJ, temperatureK) {
-    return fn('boseEinsteinEnergy')(energyJ, muJ, temperatureK);
-  },
-  occupancyFermiDirac(energyJ, muJ, temperatureK) {
-    return fn('fermiDiracEnergy')(energyJ, muJ, temperatureK);
-  },
-  occupancyMaxwellBoltzmann(energyJ, muJ, temperatureK) {
-    return fn('maxwellBoltzmannEnergy')(energyJ, muJ, temperatureK);
-  },
-  photonNumber(frequencyHz, temperatureK) {
-    return fn('thermalPhotonNumber')(frequencyHz, temperatureK);
-  },
-  noiseTemperature(frequencyHz, temperatureK) {
-    return fn('quantumNoiseTemperature')(frequencyHz, temperatureK);
-  },
-  rayleighJeansTemperature(frequencyHz, temperatureK) {
-    return fn('rayleighJeansBrightnessTemperature')(frequencyHz, temperatureK);
-  },
-  noisePower(frequencyHz, temperatureK, zeroPoint) {
-    return fn(zeroPoint ? 'availableNoisePowerDensityWithZeroPoint' : 'availableNoisePowerDensity')(frequencyHz, temperatureK);
-  },
-  // ---- radiation thermometry. Page model descriptors → the package's InstrumentModel:
-  //   { kind: 'band', unit, lower, upper }  → a rectangular response (1 from lower to upper)
-  //   { kind: 'spectral', unit, wavelength } → a spectral point (signal per display unit)
-  //   { kind: 'curve', curve }               → a Sakuma–Hattori curve from fitCurve
-  hasThermometry() {
-    return api.has('uncertaintyBudget', 'objectTemperature', 'modelSignal');
-  },
-  hasRatio() {
-    return api.has('ratioTemperature');
-  },
-  hasCalibration() {
-    return api.has('sakumaHattoriFit', 'modelSignal', 'modelTemperature', 'uncertaintyBudget', 'responseMoments', 'convertTemperatureArray');
-  },
-  hasFrame() {
-    return api.has('convertFrame', 'measuredSignalArray');
-  },
-  thermoCheckModel(model) {
-    return instrumentOf(model).signal(300);
-  },
-  thermoObjectTemperature(model, signal, cond) {
-    return instrumentOf(model, cond).objectTemperature(signal * signalScale(model));
-  },
-  thermoBudget(model, signal, cond, u) {
-    const k = signalScale(model);
-    const b = instrumentOf(model, cond).uncertaintyBudget(signal * k, { ...u, signal: u.signal * k });
-    const values = {
-      signal,
-      emissivity: cond.emissivity,
-      reflectedTemperature: cond.reflectedTemperatureK,
-      pathTransmittance: cond.pathTransmittance,
-      pathTemperature: cond.pathTemperatureK,
-    };
-    return {
-      temperatureK: b.temperatureK,
-      combinedK: b.combinedStandardUncertaintyK,
-      entries: b.entries.map((e) => (e.input === 'signal'
-        ? { ...e, value: values.signal, sensitivity: e.sensitivity * k, standardUncertainty: e.standardUncertainty / k }
-        : { ...e, value: values[e.input] })),
-    };
-  },
-  /** Signals of many object temperatures, each with its own emissivity (grouped per value). */
-  thermoMeasuredSignals(model, temperaturesK, emissivities, cond) {
-    const out = new Float64Array(temperaturesK.length);
-    const groups = new Map();
-    emissivities.forEach((e, i) => (groups.get(e) || groups.set(e, []).get(e)).push(i));
-    const scale = signalScale(model);
-    for (const [eps, idx] of groups) {
-      const ts = Float64Array.from(idx, (i) => temperaturesK[i]);
-      const s = instrumentOf(model, { ...cond, emissivity: eps }).measuredSignals(ts);
-      idx.forEach((i, j) => { out[i] = s[j] / scale; });
+  convertSpectralArray(values, from, to) {
+    if (from === to) return Float64Array.from(values);
+    if (api.spectralLinear(from, to)) {
+      const k = fn('convertSpectral')(1, from, to);
+      return Float64Array.from(values, (v) => v * k);
     }
-    return out;
+    return fn('convertSpectralArray')(values, from, to);
   },
-  ratioTemperature(unit, band1, band2, ratio, emissivityRatio) {
-    const b1 = instrumentOf({ kind: 'band', unit, lower: band1[0], upper: band1[1] });
-    const b2 = instrumentOf({ kind: 'band', unit, lower: band2[0], upper: band2[1] });
-    return b1.ratioTemperature(b2, ratio, emissivityRatio, 1000);
+  /** Size of one `unit` in the SI unit of its kind (1 µm → 1e-6 m). */
+  spectralSize(unit) {
+    const si = { wavelength: 'm', wavenumber: 'm-1', frequency: 'Hz', photonEnergy: 'J' }[api.spectralKind(unit)];
+    return fn('convertSpectral')(1, unit, si);
   },
-  responseMoments(wavelengths, values, unit) {
-    return prepared('instrument', { model: { kind: 'response', wavelengths, values, unit } }).responseMoments();
+
+  // ---- prepared objects
+  /** A Spectrum for these settings (see the package's SpectrumSettings). */
+  spectrum(settings) {
+    return prepared('spectrum', settings);
   },
-  curveFromResponse(wavelengths, values, unit, referenceTemperatureK) {
-    const inst = prepared('instrument', { model: { kind: 'response', wavelengths, values, unit } });
-    const c = fn('CalibrationCurve').fromResponse(inst, referenceTemperatureK);
-    try {
-      return curveShape(c.coefficients);
-    } finally {
-      c.free();
-    }
+  /** An Instrument for this definition ({ model, conditions? }). */
+  instrument(definition) {
+    return prepared('instrument', definition);
   },
-  /** A least-squares curve: { curve, rmsResidualK, maxAbsResidualK, iterations, residualsK }. */
+  /** A least-squares Sakuma–Hattori fit: { coefficients, rmsResidualK, maxAbsResidualK, residualsK }. */
   fitCurve(temperaturesK, signals) {
     const c = fn('CalibrationCurve').fit(temperaturesK, signals);
     try {
-      return { curve: curveShape(c.coefficients), ...c.fitReport };
+      return { coefficients: { ...c.coefficients }, ...c.fitReport };
     } finally {
       c.free();
     }
   },
-  curveSignal(curve, temperatureK) {
-    return instrumentOf({ kind: 'curve', curve }).signal(temperatureK);
-  },
-  curveTemperature(curve, signal) {
-    return instrumentOf({ kind: 'curve', curve }).temperature(signal);
-  },
-  toKelvinArray(values, unit) {
-    return fn('convertTemperatureArray')(values, unit, 'K');
-  },
-  convertFrame(model, counts, gain, offset, cond, emissivityMap) {
-    const m = instrument(model);
-    if (m.kind !== 'sakumaHattori') throw new Error('frames need a calibration curve');
-    const c = new (fn('CalibrationCurve'))({ aM: m.aM, bMK: m.bMK, c: m.c, c2: m.c2 });
+  /** The curve a spectral response alone predicts, at reference temperature tRefK. */
+  curveFromResponse(definition, tRefK) {
+    const c = fn('CalibrationCurve').fromResponse(api.instrument(definition), tRefK);
     try {
-      const options = { gain, offset };
-      if (cond !== undefined && cond !== null) options.conditions = cond;
-      if (emissivityMap) options.emissivity = emissivityMap;
+      return { ...c.coefficients };
+    } finally {
+      c.free();
+    }
+  },
+  /** Converts a frame of raw counts through a curve: { temperaturesK, valid, invalid, minK, maxK }. */
+  convertFrame(coefficients, counts, options) {
+    const C = fn('CalibrationCurve');
+    const c = new C({ aM: coefficients.aM, bMK: coefficients.bMK, c: coefficients.c, c2: coefficients.c2 ?? 'codata2018' });
+    try {
       const r = c.convertFrame(counts, options);
       return { temperaturesK: r.temperaturesK, valid: r.valid, invalid: r.invalid, minK: r.minTemperatureK, maxK: r.maxTemperatureK };
     } finally {

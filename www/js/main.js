@@ -1,16 +1,20 @@
 // Start-up: inflate the embedded wasm, start the glue with initSync, build the sections whose
-// bindings exist, restore the state from the address, compute, and mark the page ready.
+// bindings exist (each gets its number, a "reset this section" and a "print" button), set up
+// the fields and unit menus, restore the state from the address, compute, and mark the page
+// ready.
 import * as qb from '../../pkg/quantaband.js';
 import { bindApi } from './api.js';
-import { captureDefaults, restoreState, saveState } from './state.js';
-import { setupFields, fillTemperatureUnits, fillSpectralUnits, guarded } from './form.js';
+import { captureDefaults, restoreState, saveState, resetControls } from './state.js';
+import { setupFields, guarded, applyTemperatureUnit, applyWhen } from './fields.js';
 import { spectrumSection } from './sec-spectrum.js';
 import { bandSection } from './sec-band.js';
 import { signalSection } from './sec-signal.js';
 import { occupancySection } from './sec-occupancy.js';
+import { modeSection } from './sec-mode.js';
 import { calibSection } from './sec-calib.js';
 
-const SECTIONS = [spectrumSection, bandSection, signalSection, occupancySection, calibSection];
+/** The sections, in page order. A new section is one module here and its markup in index.html. */
+const SECTIONS = [spectrumSection, bandSection, signalSection, occupancySection, modeSection, calibSection];
 
 async function wasmBytes() {
   const holder = document.getElementById('qb-wasm');
@@ -19,6 +23,10 @@ async function wasmBytes() {
   for (let i = 0; i < bin.length; i++) gz[i] = bin.charCodeAt(i);
   const stream = new Blob([gz]).stream().pipeThrough(new DecompressionStream('gzip'));
   return new Uint8Array(await new Response(stream).arrayBuffer());
+}
+
+function run(sec) {
+  guarded(sec.el, () => sec.compute());
 }
 
 function scheduleCompute(sec) {
@@ -31,16 +39,25 @@ function scheduleCompute(sec) {
   });
 }
 
-function run(sec) {
-  guarded(sec.el, () => sec.compute());
+/** The section's header buttons: reset and print. */
+function toolbar(sec, number) {
+  sec.el.querySelector('h2 .num').textContent = String(number);
+  const bar = document.createElement('div');
+  bar.className = 'secbar actions';
+  bar.innerHTML = `<button type="button" class="reset-sec" data-reset="${sec.id}">Reset this section</button>` +
+    `<button type="button" class="print-sec" data-print="${sec.id}">Print this section</button>`;
+  sec.el.querySelector('.sechead').appendChild(bar);
+  const stale = document.createElement('p');
+  stale.className = 'stale';
+  stale.textContent = 'Fix the marked input: the results below still belong to the last valid inputs.';
+  document.getElementById(`${sec.id}-msg`).after(stale);
 }
 
 async function boot() {
   const t0 = performance.now();
   const status = document.getElementById('status');
   try {
-    const bytes = await wasmBytes();
-    qb.initSync({ module: bytes });
+    qb.initSync({ module: await wasmBytes() });
     bindApi(qb);
   } catch (e) {
     status.textContent = `The calculation core could not start: ${e.message}`;
@@ -55,20 +72,13 @@ async function boot() {
       continue;
     }
     sec.build?.();
-    const stale = document.createElement('p');
-    stale.className = 'stale';
-    stale.textContent = 'Fix the marked input: the results below still belong to the last valid inputs.';
-    document.getElementById(`${sec.id}-msg`).after(stale);
     live.push(sec);
+    toolbar(sec, live.length);
   }
-  for (const s of document.querySelectorAll('select[data-unit="temperature"]')) {
-    fillTemperatureUnits(s);
-    if (s.dataset.default) s.value = s.dataset.default;
-  }
-  for (const s of document.querySelectorAll('select[data-unit="spectral"]')) fillSpectralUnits(s, s.dataset.kinds || 'all');
   setupFields(document);
   captureDefaults();
   restoreState();
+  applyWhen(document);
   const toc = document.getElementById('toc');
   toc.innerHTML = live.map((s) => `<li><a href="#${s.id}">${s.el.dataset.title}</a></li>`).join('');
   // In-page links must not overwrite the state fragment: scroll and move focus instead.
@@ -78,8 +88,7 @@ async function boot() {
     if (!target) return;
     ev.preventDefault();
     target.scrollIntoView();
-    const first = target.matches('main') ? target.querySelector('input, select, textarea') : target.querySelector('input, select, textarea, button');
-    first?.focus({ preventScroll: true });
+    target.querySelector('input, select, textarea, button')?.focus({ preventScroll: true });
   });
   for (const sec of live) {
     sec.el.addEventListener('input', () => scheduleCompute(sec));
@@ -87,6 +96,21 @@ async function boot() {
     sec.wire?.(() => scheduleCompute(sec));
     run(sec);
   }
+  // The page-wide temperature unit: every temperature menu follows it (fields are converted).
+  const tu = document.getElementById('tu');
+  tu.addEventListener('change', () => {
+    applyTemperatureUnit(tu.value);
+    live.forEach(run);
+    saveState();
+  });
+  document.addEventListener('click', (ev) => {
+    const b = ev.target.closest('button.reset-sec');
+    if (!b) return;
+    const sec = live.find((s) => s.id === b.dataset.reset);
+    resetControls(sec.el);
+    run(sec);
+    saveState();
+  });
   window.addEventListener('hashchange', () => {
     if (location.hash.length > 1 && !location.hash.includes('=')) return;
     restoreState();

@@ -1,11 +1,16 @@
-// A small SVG line plot: linear/log axes, shaded bands, point markers, legend, and a readout that
-// follows the pointer (or the arrow keys when the plot has focus). SVG so that it prints crisply.
-import { fmt, fmtTick, esc } from './fmt.js';
+// A small SVG line plot drawn at the size of its container (redrawn when the container is
+// resized, so text stays 12 px at any width): linear/log axes, shaded bands, point markers, an
+// HTML legend and axis titles (they wrap instead of shrinking), and a readout that follows the
+// pointer (or the arrow keys when the plot has focus). SVG so that it prints crisply.
+import { formatNumber, formatTick, formatLogTick, esc } from './fmt.js';
 
 const NS = 'http://www.w3.org/2000/svg';
 /** Series colours of this page (each ≥ 4.5:1 on white). */
 export const SERIES_COLOURS = ['#9c3d14', '#1c57a5', '#4f6b00', '#7a2e8e', '#0b6b63', '#8a5a00', '#b0124f', '#33415c'];
 const DASHES = ['', '7 4', '2 3', '10 3 2 3', '4 4', '1 2'];
+/** Pixel size of tick and label text (the tests require ≥ 10 px as rendered). */
+export const PLOT_FONT_PX = 12;
+const CHAR_PX = 7.2; // width of one tick-label character at 12 px (DejaVu/Liberation Sans)
 
 function el(name, attrs = {}, parent = null) {
   const e = document.createElementNS(NS, name);
@@ -25,27 +30,28 @@ function linTicks(lo, hi, target) {
   const step = niceStep(hi - lo, target);
   const out = [];
   for (let v = Math.ceil(lo / step - 1e-9) * step; v <= hi + step * 1e-9; v += step) out.push(Math.abs(v) < step * 1e-9 ? 0 : v);
-  return out;
+  return { ticks: out, label: (v) => formatTick(v, step) };
 }
 
 function logTicks(lo, hi, target) {
   const a = Math.floor(Math.log10(lo) + 1e-9);
   const b = Math.ceil(Math.log10(hi) - 1e-9);
-  const every = Math.max(1, Math.ceil((b - a) / target));
+  const every = Math.max(1, Math.ceil((b - a) / Math.max(1, target)));
   const out = [];
   for (let k = a; k <= b; k += every) {
     const v = 10 ** k;
     if (v >= lo * (1 - 1e-9) && v <= hi * (1 + 1e-9)) out.push(v);
   }
   if (out.length < 2) {
-    // Less than a decade: fall back to 1-2-5 steps inside it.
+    // Less than a decade: 1-2-5 steps inside it.
     for (let k = a - 1; k <= b; k++) for (const m of [2, 5]) {
       const v = m * 10 ** k;
       if (v >= lo && v <= hi) out.push(v);
     }
     out.sort((x, y) => x - y);
   }
-  return out;
+  const plain = b - a <= 4;
+  return { ticks: out, label: (v) => formatLogTick(v, plain) };
 }
 
 function extent(values, log) {
@@ -60,17 +66,32 @@ function extent(values, log) {
   return [lo, hi];
 }
 
+const specs = new WeakMap();
+let observer = null;
+
 /**
- * Draws (or redraws) a plot into `figure`.
- * spec = { title, x: {label, log, min?, max?}, y: {label, log, min?, max?, floorDecades?},
- *          series: [{label, x: ArrayLike, y: ArrayLike, colour?, dash?}],
- *          bands: [{from, to, label}], markers: [{x, y, label, colour?}], caption }
- * Returns an object with the drawn scales (used by tests through the figure's dataset).
+ * Draws (and keeps redrawing at its container's width) a plot into `figure`.
+ * spec = { title, x: { label, short, log, min?, max?, readoutUnit }, y: { label, log, min?, max?,
+ *          floorDecades?, readoutUnit }, series: [{ label, x, y, colour?, dash? }],
+ *          bands: [{ from, to, label }], markers: [{ x, y, label?, colour? }], caption, height? }
  */
 export function drawPlot(figure, spec) {
-  const W = 760;
-  const H = 380;
-  const m = { l: 78, r: 16, t: 16, b: 52 };
+  specs.set(figure, spec);
+  if (!observer && typeof ResizeObserver === 'function') {
+    observer = new ResizeObserver((entries) => {
+      for (const en of entries) {
+        const f = en.target;
+        const w = Math.round(f.clientWidth);
+        if (specs.has(f) && Math.abs(w - Number(f.dataset.drawnWidth || 0)) >= 2) render(f);
+      }
+    });
+  }
+  observer?.observe(figure);
+  render(figure);
+}
+
+function render(figure) {
+  const spec = specs.get(figure);
   figure.textContent = '';
   const series = spec.series.filter((s) => s.x.length > 0);
   const xs = spec.x;
@@ -83,65 +104,68 @@ export function drawPlot(figure, spec) {
     p.className = 'note';
     p.textContent = 'Nothing to plot for these inputs.';
     figure.appendChild(p);
-    return null;
+    return;
   }
-  if (ys.log) {
-    const floor = yr[1] / 10 ** (ys.floorDecades ?? 12);
-    yr[0] = Math.max(yr[0], floor);
-  } else {
-    yr = [Math.min(0, yr[0]), yr[1]];
-  }
+  if (ys.log) yr[0] = Math.max(yr[0], yr[1] / 10 ** (ys.floorDecades ?? 12));
+  else yr = [Math.min(0, yr[0]), yr[1]];
   if (ys.min !== undefined) yr[0] = ys.min;
   if (ys.max !== undefined) yr[1] = ys.max;
   if (yr[0] === yr[1]) yr = ys.log ? [yr[0] / 2, yr[1] * 2] : [yr[0] - 1, yr[1] + 1];
   if (xr[0] === xr[1]) xr = xs.log ? [xr[0] / 2, xr[1] * 2] : [xr[0] - 1, xr[1] + 1];
   if (!ys.log) yr[1] += (yr[1] - yr[0]) * 0.04;
 
-  const fx = xs.log
-    ? (v) => m.l + ((Math.log10(v) - Math.log10(xr[0])) / (Math.log10(xr[1]) - Math.log10(xr[0]))) * (W - m.l - m.r)
-    : (v) => m.l + ((v - xr[0]) / (xr[1] - xr[0])) * (W - m.l - m.r);
-  const fy = ys.log
-    ? (v) => H - m.b - ((Math.log10(v) - Math.log10(yr[0])) / (Math.log10(yr[1]) - Math.log10(yr[0]))) * (H - m.t - m.b)
-    : (v) => H - m.b - ((v - yr[0]) / (yr[1] - yr[0])) * (H - m.t - m.b);
-  const ix = xs.log
-    ? (px) => 10 ** (Math.log10(xr[0]) + ((px - m.l) / (W - m.l - m.r)) * (Math.log10(xr[1]) - Math.log10(xr[0])))
-    : (px) => xr[0] + ((px - m.l) / (W - m.l - m.r)) * (xr[1] - xr[0]);
+  const W = Math.max(240, Math.round(figure.clientWidth || 640));
+  figure.dataset.drawnWidth = String(W);
+  const H = Math.round(Math.min(spec.height ?? 340, Math.max(200, W * 0.52)));
+  const top = 10;
+  const bottom = 26;
+  const right = 14;
+  const plotH = H - top - bottom;
+  const yt = ys.log ? logTicks(yr[0], yr[1], Math.floor(plotH / 40)) : linTicks(yr[0], yr[1], Math.max(3, Math.floor(plotH / 45)));
+  const yLabels = yt.ticks.map(yt.label);
+  const left = Math.ceil(Math.max(...yLabels.map((s) => s.length), 1) * CHAR_PX) + 14;
+  const plotW = W - left - right;
+  const xt = xs.log ? logTicks(xr[0], xr[1], Math.floor(plotW / 70)) : linTicks(xr[0], xr[1], Math.max(3, Math.floor(plotW / 80)));
 
-  const svg = el('svg', { viewBox: `0 0 ${W} ${H}`, role: 'img', tabindex: 0, 'aria-label': spec.title || 'plot' });
+  const fx = xs.log
+    ? (v) => left + ((Math.log10(v) - Math.log10(xr[0])) / (Math.log10(xr[1]) - Math.log10(xr[0]))) * plotW
+    : (v) => left + ((v - xr[0]) / (xr[1] - xr[0])) * plotW;
+  const fy = ys.log
+    ? (v) => top + plotH - ((Math.log10(v) - Math.log10(yr[0])) / (Math.log10(yr[1]) - Math.log10(yr[0]))) * plotH
+    : (v) => top + plotH - ((v - yr[0]) / (yr[1] - yr[0])) * plotH;
+  const ix = xs.log
+    ? (px) => 10 ** (Math.log10(xr[0]) + ((px - left) / plotW) * (Math.log10(xr[1]) - Math.log10(xr[0])))
+    : (px) => xr[0] + ((px - left) / plotW) * (xr[1] - xr[0]);
+
+  const yTitle = document.createElement('div');
+  yTitle.className = 'ytitle';
+  yTitle.textContent = spec.y.label;
+  figure.appendChild(yTitle);
+
+  const svg = el('svg', { viewBox: `0 0 ${W} ${H}`, width: W, height: H, role: 'img', tabindex: 0, 'aria-label': spec.title || 'plot' });
   el('title', {}, svg).textContent = spec.title || 'plot';
   el('desc', {}, svg).textContent =
     `${spec.y.label} against ${spec.x.label}; ${series.map((s) => s.label).join(', ')}. ` +
     'Move the pointer over the plot, or focus it and use the left and right arrow keys, to read values.';
   const clipId = `clip-${figure.id || Math.random().toString(36).slice(2)}`;
-  const defs = el('defs', {}, svg);
-  const clip = el('clipPath', { id: clipId }, defs);
-  el('rect', { x: m.l, y: m.t, width: W - m.l - m.r, height: H - m.t - m.b }, clip);
+  const clip = el('clipPath', { id: clipId }, el('defs', {}, svg));
+  el('rect', { x: left, y: top, width: plotW, height: plotH }, clip);
 
-  // grid + ticks
   const grid = el('g', { class: 'grid' }, svg);
   const ax = el('g', { class: 'ax' }, svg);
-  const xt = xs.log ? logTicks(xr[0], xr[1], 8) : linTicks(xr[0], xr[1], 8);
-  const yt = ys.log ? logTicks(yr[0], yr[1], 7) : linTicks(yr[0], yr[1], 6);
-  for (const t of xt) {
+  xt.ticks.forEach((t) => {
     const x = fx(t);
-    el('line', { x1: x, x2: x, y1: m.t, y2: H - m.b }, grid);
-    el('line', { x1: x, x2: x, y1: H - m.b, y2: H - m.b + 5 }, ax);
-    const tx = el('text', { x, y: H - m.b + 18, 'text-anchor': 'middle' }, ax);
-    tx.textContent = fmtTick(t);
-  }
-  for (const t of yt) {
+    el('line', { x1: x, x2: x, y1: top, y2: top + plotH }, grid);
+    el('line', { x1: x, x2: x, y1: top + plotH, y2: top + plotH + 5 }, ax);
+    el('text', { x, y: top + plotH + 18, 'text-anchor': 'middle' }, ax).textContent = xt.label(t);
+  });
+  yt.ticks.forEach((t, k) => {
     const y = fy(t);
-    el('line', { x1: m.l, x2: W - m.r, y1: y, y2: y }, grid);
-    el('line', { x1: m.l - 5, x2: m.l, y1: y, y2: y }, ax);
-    const ty = el('text', { x: m.l - 8, y: y + 4, 'text-anchor': 'end' }, ax);
-    ty.textContent = fmtTick(t);
-  }
-  el('rect', { x: m.l, y: m.t, width: W - m.l - m.r, height: H - m.t - m.b, fill: 'none', stroke: '#30374a' }, ax);
-  const xl = el('text', { x: (m.l + W - m.r) / 2, y: H - 10, 'text-anchor': 'middle', class: 'lbl' }, svg);
-  xl.textContent = spec.x.label;
-  const yl = el('text', { x: 14, y: (m.t + H - m.b) / 2, 'text-anchor': 'middle', class: 'lbl',
-    transform: `rotate(-90 14 ${(m.t + H - m.b) / 2})` }, svg);
-  yl.textContent = spec.y.label;
+    el('line', { x1: left, x2: left + plotW, y1: y, y2: y }, grid);
+    el('line', { x1: left - 5, x2: left, y1: y, y2: y }, ax);
+    el('text', { x: left - 8, y: y + 4, 'text-anchor': 'end' }, ax).textContent = yLabels[k];
+  });
+  el('rect', { x: left, y: top, width: plotW, height: plotH, fill: 'none', stroke: '#30374a' }, ax);
 
   const body = el('g', { 'clip-path': `url(#${clipId})` }, svg);
   for (const b of spec.bands || []) {
@@ -149,24 +173,27 @@ export function drawPlot(figure, spec) {
     const x0 = fx(Math.max(b.from, xr[0]));
     const x1 = fx(Math.min(b.to, xr[1]));
     if (!(x1 > x0)) continue;
-    el('rect', { x: x0, y: m.t, width: x1 - x0, height: H - m.t - m.b, fill: 'rgba(214,150,40,0.22)', class: 'bandshade' }, body);
-    const bt = el('text', { x: (x0 + x1) / 2, y: m.t + 14, 'text-anchor': 'middle', class: 'lbl' }, body);
-    bt.textContent = b.label || 'band';
+    el('rect', { x: x0, y: top, width: x1 - x0, height: plotH, fill: 'rgba(214,150,40,0.22)', class: 'bandshade' }, body);
+    el('text', { x: (x0 + x1) / 2, y: top + 14, 'text-anchor': 'middle', class: 'lbl' }, body).textContent = b.label || 'band';
   }
+  const colourOf = (s, k) => s.colour || SERIES_COLOURS[k % SERIES_COLOURS.length];
+  const dashOf = (s, k) => s.dash ?? DASHES[k % DASHES.length];
   series.forEach((s, k) => {
-    const colour = s.colour || SERIES_COLOURS[k % SERIES_COLOURS.length];
     let d = '';
     let pen = false;
     for (let i = 0; i < s.x.length; i++) {
       const xv = s.x[i];
       const yv = s.y[i];
       const ok = Number.isFinite(xv) && Number.isFinite(yv) && (!xs.log || xv > 0) && (!ys.log || yv > 0);
-      if (!ok) { pen = false; continue; }
+      if (!ok) {
+        pen = false;
+        continue;
+      }
       const py = Math.max(-1e4, Math.min(1e4, fy(Math.max(yv, ys.log ? yr[0] / 10 : yv))));
       d += `${pen ? 'L' : 'M'}${fx(xv).toFixed(2)} ${py.toFixed(2)}`;
       pen = true;
     }
-    el('path', { d, fill: 'none', stroke: colour, 'stroke-width': 2, 'stroke-dasharray': s.dash ?? DASHES[k % DASHES.length], class: 'series' }, body);
+    el('path', { d, fill: 'none', stroke: colourOf(s, k), 'stroke-width': 2, 'stroke-dasharray': dashOf(s, k), class: 'series' }, body);
   });
   for (const mk of spec.markers || []) {
     if (!Number.isFinite(mk.x) || !Number.isFinite(mk.y)) continue;
@@ -174,45 +201,27 @@ export function drawPlot(figure, spec) {
     const cx = fx(mk.x);
     const cy = fy(mk.y);
     el('path', { d: `M${cx} ${cy - 7}L${cx + 6} ${cy + 4}L${cx - 6} ${cy + 4}Z`, fill: mk.colour || '#1c2230', class: 'marker' }, body);
-    if (mk.label) {
-      const t = el('text', { x: cx + 8, y: cy - 6, class: 'lbl' }, body);
-      t.textContent = mk.label;
-    }
+    if (mk.label) el('text', { x: cx + 8, y: cy - 6, class: 'lbl' }, body).textContent = mk.label;
   }
-  // legend: top right, or top left when the curves pass under the top-right corner
-  const lgW = 172;
-  const lgH = 8 + 16 * series.length;
-  const crowd = (x0) => {
-    let n = 0;
-    for (const s of series) for (let i = 0; i < s.x.length; i++) {
-      if (!Number.isFinite(s.x[i]) || !Number.isFinite(s.y[i]) || (xs.log && s.x[i] <= 0) || (ys.log && s.y[i] <= 0)) continue;
-      const px = fx(s.x[i]);
-      const py = fy(s.y[i]);
-      if (px >= x0 && px <= x0 + lgW && py >= m.t && py <= m.t + lgH) n++;
-    }
-    return n;
-  };
-  const right = W - m.r - lgW - 4;
-  const left = m.l + 4;
-  const lx = crowd(right) <= crowd(left) ? right : left;
-  const lg = el('g', { class: 'legend' }, svg);
-  const lgBox = el('rect', { x: lx, y: m.t + 1, width: lgW, height: 0, fill: 'rgba(255,255,255,0.88)', stroke: '#c9c4b8' }, lg);
-  let ly = m.t + 12;
-  series.forEach((s, k) => {
-    const colour = s.colour || SERIES_COLOURS[k % SERIES_COLOURS.length];
-    el('line', { x1: lx + 6, x2: lx + 32, y1: ly, y2: ly, stroke: colour, 'stroke-width': 2.5, 'stroke-dasharray': s.dash ?? DASHES[k % DASHES.length] }, lg);
-    const t = el('text', { x: lx + 38, y: ly + 4 }, lg);
-    t.textContent = s.label;
-    ly += 16;
-  });
-  if (series.length) lgBox.setAttribute('height', ly - m.t - 6);
-  else lgBox.remove();
 
-  // pointer readout
-  const cursor = el('line', { y1: m.t, y2: H - m.b, stroke: '#1c2230', 'stroke-width': 1, visibility: 'hidden' }, svg);
-  const dots = series.map((s, k) => el('circle', { r: 4, fill: s.colour || SERIES_COLOURS[k % SERIES_COLOURS.length], visibility: 'hidden' }, svg));
-  const hit = el('rect', { x: m.l, y: m.t, width: W - m.l - m.r, height: H - m.t - m.b, fill: 'transparent', class: 'hit' }, svg);
+  const cursor = el('line', { y1: top, y2: top + plotH, stroke: '#1c2230', 'stroke-width': 1, visibility: 'hidden' }, svg);
+  const dots = series.map((s, k) => el('circle', { r: 4, fill: colourOf(s, k), visibility: 'hidden' }, svg));
+  const hit = el('rect', { x: left, y: top, width: plotW, height: plotH, fill: 'transparent', class: 'hit' }, svg);
   figure.appendChild(svg);
+
+  const xTitle = document.createElement('div');
+  xTitle.className = 'xtitle';
+  xTitle.textContent = spec.x.label;
+  figure.appendChild(xTitle);
+
+  if (series.length > 1 || spec.legend) {
+    const lg = document.createElement('ul');
+    lg.className = 'legend';
+    lg.innerHTML = series
+      .map((s, k) => `<li><svg width="28" height="10" aria-hidden="true"><line x1="1" x2="27" y1="5" y2="5" stroke="${colourOf(s, k)}" stroke-width="2.5" stroke-dasharray="${dashOf(s, k)}"/></svg>${esc(s.label)}</li>`)
+      .join('');
+    figure.appendChild(lg);
+  }
   const readout = document.createElement('div');
   readout.className = 'readout';
   readout.id = `${figure.id}-readout`;
@@ -223,26 +232,28 @@ export function drawPlot(figure, spec) {
     cap.textContent = spec.caption;
     figure.appendChild(cap);
   }
+
   const xUnit = spec.x.readoutUnit ?? '';
   const yUnit = spec.y.readoutUnit ?? '';
   let cursorPx = null;
   const show = (px) => {
-    px = Math.max(m.l, Math.min(W - m.r, px));
+    px = Math.max(left, Math.min(left + plotW, px));
     cursorPx = px;
     const xv = ix(px);
     cursor.setAttribute('x1', px);
     cursor.setAttribute('x2', px);
     cursor.setAttribute('visibility', 'visible');
-    const lines = [`${spec.x.short || 'x'} = ${fmt(xv, 5)} ${xUnit}`];
+    const lines = [`${spec.x.short || 'x'} = ${formatNumber(xv, { digits: 5 })} ${xUnit}`.trim()];
     series.forEach((s, k) => {
       const i = nearest(s.x, xv);
-      if (i < 0 || !Number.isFinite(s.y[i])) { dots[k].setAttribute('visibility', 'hidden'); return; }
-      const yv = s.y[i];
-      if (ys.log && yv <= 0) { dots[k].setAttribute('visibility', 'hidden'); return; }
+      if (i < 0 || !Number.isFinite(s.y[i]) || (ys.log && s.y[i] <= 0)) {
+        dots[k].setAttribute('visibility', 'hidden');
+        return;
+      }
       dots[k].setAttribute('cx', fx(s.x[i]));
-      dots[k].setAttribute('cy', fy(Math.max(yv, yr[0])));
+      dots[k].setAttribute('cy', fy(Math.max(s.y[i], yr[0])));
       dots[k].setAttribute('visibility', 'visible');
-      lines.push(`${s.label}: ${fmt(yv, 5)} ${yUnit}  (at ${fmt(s.x[i], 5)})`);
+      lines.push(`${s.label}: ${formatNumber(s.y[i], { digits: 5 })} ${yUnit}  (at ${formatNumber(s.x[i], { digits: 5 })} ${xUnit})`.replace(/ +\)/, ')'));
     });
     readout.textContent = lines.join('\n');
   };
@@ -254,12 +265,13 @@ export function drawPlot(figure, spec) {
   svg.addEventListener('keydown', (ev) => {
     if (ev.key !== 'ArrowLeft' && ev.key !== 'ArrowRight') return;
     ev.preventDefault();
-    const step = (W - m.l - m.r) / (ev.shiftKey ? 10 : 100);
-    show((cursorPx ?? (m.l + W - m.r) / 2) + (ev.key === 'ArrowLeft' ? -step : step));
+    const step = plotW / (ev.shiftKey ? 10 : 100);
+    show((cursorPx ?? left + plotW / 2) + (ev.key === 'ArrowLeft' ? -step : step));
   });
-  svg.addEventListener('focus', () => { if (cursorPx === null) show((m.l + W - m.r) / 2); });
+  svg.addEventListener('focus', () => {
+    if (cursorPx === null) show(left + plotW / 2);
+  });
   figure.dataset.points = String(series.reduce((n, s) => n + s.x.length, 0));
-  return { fx, fy, ix, xr, yr };
 }
 
 function nearest(arr, v) {
@@ -270,32 +282,62 @@ function nearest(arr, v) {
   let hi = n - 1;
   while (hi - lo > 1) {
     const mid = (lo + hi) >> 1;
-    if ((arr[mid] < v) === asc) lo = mid; else hi = mid;
+    if ((arr[mid] < v) === asc) lo = mid;
+    else hi = mid;
   }
   return Math.abs(arr[lo] - v) <= Math.abs(arr[hi] - v) ? lo : hi;
 }
 
-/** Builds a <table> body from a header row and data rows (strings already formatted). */
+/**
+ * Builds a <table> from a header row and data rows. A cell is text, { html } for markup the
+ * page writes itself (subscripts), or { text, value } to keep the full-precision SI value in
+ * the cell's data-value.
+ */
 export function fillTable(table, header, rows) {
   const cap = table.querySelector('caption');
   table.textContent = '';
+  table.dataset.filled = '';
   if (cap) table.appendChild(cap);
-  const thead = table.createTHead();
-  const tr = thead.insertRow();
+  const tr = table.createTHead().insertRow();
   for (const h of header) {
     const th = document.createElement('th');
     th.scope = 'col';
-    th.innerHTML = esc(h);
+    if (h && typeof h === 'object') th.innerHTML = h.html;
+    else th.textContent = h;
     tr.appendChild(th);
   }
   const tb = table.createTBody();
   for (const r of rows) {
     const row = tb.insertRow();
     r.forEach((c, i) => {
-      const cell = i === 0 ? document.createElement('th') : document.createElement('td');
+      const cell = document.createElement(i === 0 ? 'th' : 'td');
       if (i === 0) cell.scope = 'row';
-      cell.textContent = c;
+      if (c && typeof c === 'object') {
+        if (c.html !== undefined) cell.innerHTML = c.html;
+        else cell.textContent = c.text;
+        if (c.value !== undefined) cell.dataset.value = String(c.value); // full precision, SI
+      } else cell.textContent = c;
       row.appendChild(cell);
     });
+  }
+}
+
+/** Fills a results list: items [key, label, value text, { big, html }]. */
+export function fillResults(dl, items) {
+  dl.innerHTML = '';
+  for (const [key, label, value, opts = {}] of items) {
+    const div = document.createElement('div');
+    div.dataset.key = key;
+    const dt = document.createElement('dt');
+    if (opts.labelHtml) dt.innerHTML = opts.labelHtml;
+    else dt.textContent = label;
+    const dd = document.createElement('dd');
+    dd.textContent = value;
+    if (opts.big) {
+      dd.className = 'big';
+      div.className = 'big';
+    }
+    div.append(dt, dd);
+    dl.appendChild(div);
   }
 }

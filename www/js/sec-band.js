@@ -1,108 +1,92 @@
-// Section 2: band quantities at one temperature and over a temperature sweep.
+// Section: band quantities at one temperature and over a temperature sweep.
 import { api } from './api.js';
-import { fmt } from './fmt.js';
-import { drawPlot, fillTable } from './plot.js';
+import { formatNumber } from './fmt.js';
+import { drawPlot, fillTable, fillResults } from './plot.js';
 import { toCsv, download } from './csv.js';
-import { PageInputError, tag, readNum, readKelvin, UNIT_LABEL } from './form.js';
-import { bandUnit } from './quantities.js';
+import { tag, tagPair, number, kelvin, spectral, count, FieldError, typed, unitText } from './fields.js';
+import { bandUnit, symbol } from './units.js';
+import { showTemperature, temperatureDecimals } from './budget.js';
 
 const $ = (id) => document.getElementById(id);
 let last = null;
 
-
-function result(dl, items) {
-  dl.innerHTML = '';
-  for (const [key, label, value, unit, big] of items) {
-    const div = document.createElement('div');
-    div.dataset.key = key;
-    const dt = document.createElement('dt');
-    dt.textContent = label;
-    const dd = document.createElement('dd');
-    dd.textContent = `${value} ${unit}`.trim();
-    if (big) dd.className = 'big';
-    div.append(dt, dd);
-    dl.appendChild(div);
-  }
-}
-export { result as fillResults };
-
 export const bandSection = {
   id: 'band',
-  available: () => api.has('bandIntegral', 'bandIntegralDT', 'bandFraction', 'bandIntegralArray', 'bandIntegralDTArray', 'convertTemperature', 'spectralUnitKind'),
+  available: () => api.has('Spectrum', 'convertTemperature', 'spectralUnitKind'),
   wire() {
     $('bd-csv').addEventListener('click', () => last && download('quantaband-band-sweep.csv', last.csv));
   },
   compute() {
     last = null;
-    const unit = $('bd-su').value;
-    const tUnit = $('bd-tu').value;
-    const variable = api.spectralKind(unit);
+    const unit = $('bd-bu').value;
     const geometry = $('bd-g').value;
-    const lo = readNum('bd-lo');
-    const hi = readNum('bd-hi');
-    const t = readKelvin('bd-t', 'bd-tu');
-    const emissivity = readNum('bd-eps');
-    const eSpec = { unit, quantity: 'energy', geometry, emissivity };
-    const pSpec = { unit, quantity: 'photon', geometry, emissivity };
-    tag('bd-lo', () => api.bandFraction({ unit }, lo, hi, t));
-    const L = tag('bd-eps', () => api.band(eSpec, lo, hi, t));
-    const P = api.band(pSpec, lo, hi, t);
-    const F = api.bandFraction({ unit }, lo, hi, t);
-    const dL = api.bandDdt(eSpec, lo, hi, t);
+    const lo = spectral('bd-lo').value;
+    const hi = spectral('bd-hi').value;
+    const t = kelvin('bd-t');
+    const emissivity = number('bd-eps');
+    const energy = tag('bd-eps', () => api.spectrum({ unit, quantity: 'energy', geometry, emissivity }));
+    const photon = api.spectrum({ unit, quantity: 'photon', geometry, emissivity });
+    const F = tagPair('bd-lo', 'bd-hi', () => energy.bandFraction(lo, hi, t));
+    const L = energy.band(lo, hi, t);
+    const P = photon.band(lo, hi, t);
+    const dL = energy.bandDerivative(lo, hi, t);
     const contrast = (100 * dL) / L;
     const uL = bandUnit('energy', geometry);
     const uP = bandUnit('photon', geometry);
-    const uLabel = UNIT_LABEL[unit];
-    const tLabel = UNIT_LABEL[tUnit];
+    const ou = $('bd-ou').value;
+    const tL = symbol(ou);
+    const perDeg = api.diffToK(1, ou); // kelvin per output degree: d/dT per °F = d/dT per K × 5/9
     const name = geometry === 'radiance' ? 'radiance' : 'exitance';
-    result($('bd-res'), [
-      ['L', `Band ${name}`, fmt(L, 7), uL, true],
-      ['P', `Band photon ${name}`, fmt(P, 7), uP],
-      ['F', 'Fraction of the total (energy)', fmt(100 * F, 7), '%'],
-      ['dLdT', `d(band ${name})/dT`, fmt(dL, 7), `${uL}·K⁻¹`],
-      ['contrast', 'Thermal contrast (dL/dT)/L', fmt(contrast, 6), '%/K'],
+    fillResults($('bd-res'), [
+      ['L', `Band ${name}`, `${formatNumber(L, { digits: 7 })} ${uL}`, { big: true }],
+      ['P', `Band photon ${name}`, `${formatNumber(P, { digits: 7 })} ${uP}`],
+      ['F', 'Fraction of the total (energy)', `${formatNumber(100 * F, { digits: 7 })} %`],
+      ['dLdT', `d(band ${name})/dT`, `${formatNumber(dL * perDeg, { digits: 7 })} ${uL}·${tL}⁻¹`],
+      ['contrast', 'Thermal contrast (dL/dT)/L', `${formatNumber(contrast * perDeg, { digits: 6 })} %/${tL}`],
+      ['t', 'Temperature', showTemperature(t, ou, true)],
     ]);
+    $('bd-assume').textContent = `Assumes a flat (rectangular) band response from ${formatNumber(lo, { digits: 6, trim: true })} to ${formatNumber(hi, { digits: 6, trim: true })} ${symbol(unit)} and a grey body (ε = ${formatNumber(emissivity, { digits: 6, trim: true })} at every wavelength in the band).`;
 
-    // sweep
-    const t0 = readKelvin('bd-t0', 'bd-tu');
-    const t1 = readKelvin('bd-t1', 'bd-tu');
-    const nRaw = readNum('bd-n');
-    if (!(Number.isInteger(nRaw) && nRaw >= 2 && nRaw <= 200)) {
-      throw new PageInputError('bd-n', `steps must be a whole number from 2 to 200 (got ${$('bd-n').value.trim() || 'nothing'})`);
+    // Sweep
+    const t0 = kelvin('bd-t0');
+    const t1 = kelvin('bd-t1');
+    if (!(t1 > t0)) {
+      const U = unitText('bd-t0');
+      throw new FieldError('bd-t1', `Sweep end (${typed('bd-t1')} ${U}) must be above the sweep start (${typed('bd-t0')} ${U}).`);
     }
-    const temps = new Float64Array(nRaw);
-    for (let i = 0; i < nRaw; i++) temps[i] = t0 + ((t1 - t0) * i) / (nRaw - 1);
-    const Ls = api.bandOverTemperatures(eSpec, lo, hi, temps);
-    const Ps = api.bandOverTemperatures(pSpec, lo, hi, temps);
-    const dLs = api.bandDdtOverTemperatures(eSpec, lo, hi, temps);
-    const shown = temps.map((tk) => api.fromKelvin(tk, tUnit));
+    const n = count('bd-n', 2, 200);
+    const temps = Float64Array.from({ length: n }, (_, i) => t0 + ((t1 - t0) * i) / (n - 1));
+    const Ls = energy.bands(lo, hi, temps);
+    const Ps = photon.bands(lo, hi, temps);
+    const dLs = energy.bandDerivatives(lo, hi, temps);
+    const shown = temps.map((tk) => api.fromK(tk, ou));
     const rows = [];
     const csvRows = [];
-    for (let i = 0; i < nRaw; i++) {
+    for (let i = 0; i < n; i++) {
       const c = (100 * dLs[i]) / Ls[i];
-      rows.push([`${fmt(shown[i], 6)} ${tLabel}`, fmt(Ls[i], 6), fmt(Ps[i], 6), fmt(dLs[i], 6), fmt(c, 5)]);
-      csvRows.push([shown[i], temps[i], Ls[i], Ps[i], dLs[i], c]);
+      rows.push([
+        formatNumber(shown[i], { decimals: temperatureDecimals(temps[i]), trim: true }),
+        formatNumber(Ls[i], { digits: 6 }),
+        formatNumber(Ps[i], { digits: 6 }),
+        formatNumber(dLs[i] * perDeg, { digits: 6 }),
+        formatNumber(c * perDeg, { digits: 5 }),
+      ]);
+      csvRows.push(ou === 'K' ? [temps[i], Ls[i], Ps[i], dLs[i], c] : [temps[i], shown[i], Ls[i], Ps[i], dLs[i], c]);
     }
-    fillTable($('bd-table'), [`Temperature (${tLabel})`, `Band ${name} (${uL})`, `Photon ${name} (${uP})`, `dL/dT (${uL}·K⁻¹)`, 'Contrast (%/K)'], rows);
-    // The plot uses a fine grid over the same range (the table keeps the chosen steps).
-    const fine = new Float64Array(121);
-    for (let i = 0; i < fine.length; i++) fine[i] = t0 + ((t1 - t0) * i) / (fine.length - 1);
-    const fineL = api.bandOverTemperatures(eSpec, lo, hi, fine);
-    const fineShown = fine.map((tk) => api.fromKelvin(tk, tUnit));
+    fillTable($('bd-table'), [`Temperature (${tL})`, `Band ${name} (${uL})`, `Photon ${name} (${uP})`, `dL/dT (${uL}·${tL}⁻¹)`, `Contrast (%/${tL})`], rows);
+    const fine = Float64Array.from({ length: 121 }, (_, i) => t0 + ((t1 - t0) * i) / 120);
     drawPlot($('bd-plot'), {
       title: `Band ${name} against temperature`,
-      x: { label: `temperature (${tLabel})`, short: 'T', readoutUnit: tLabel },
+      x: { label: `temperature (${tL})`, short: 'T', readoutUnit: tL },
       y: { label: `band ${name} (${uL})`, readoutUnit: uL },
-      series: [{ label: `${fmt(lo, 4)}–${fmt(hi, 4)} ${uLabel}`, x: fineShown, y: fineL }],
-      markers: [{ x: api.fromKelvin(t, tUnit), y: L, label: '' }],
+      series: [{ label: `${formatNumber(lo, { digits: 6, trim: true })}–${formatNumber(hi, { digits: 6, trim: true })} ${symbol(unit)}`, x: fine.map((tk) => api.fromK(tk, ou)), y: energy.bands(lo, hi, fine) }],
+      markers: [{ x: api.fromK(t, ou), y: L }],
       caption: 'The triangle marks the single temperature above.',
     });
+    const head = ['temperature (K)', `band ${name} (${uL})`, `band photon ${name} (${uP})`, `dL/dT (${uL}·K⁻¹)`, 'thermal contrast (%/K)'];
+    if (ou !== 'K') head.splice(1, 0, `temperature (${tL})`);
     last = {
-      csv: toCsv(
-        [`temperature (${tLabel})`, 'temperature (K)', `band ${name} (${uL})`, `band photon ${name} (${uP})`, `dL/dT (${uL}/K)`, 'thermal contrast (%/K)'],
-        csvRows,
-        [`quantaband band sweep; band ${lo} to ${hi} ${unit} (${variable}); emissivity ${emissivity}`],
-      ),
+      csv: toCsv(head, csvRows, [`quantaband band sweep; band ${lo} to ${hi} ${symbol(unit)}; emissivity ${emissivity}; flat band response, grey body`]),
     };
   },
 };

@@ -1,32 +1,24 @@
-// Section 5: Sakuma–Hattori calibration curve from calibration points, object temperature with
-// its uncertainty budget, and whole-frame conversion of raw counts to a false-colour map.
+// Section: Sakuma–Hattori calibration curve from calibration points, the object temperature of
+// one reading with its uncertainty budget, and whole-frame conversion of raw counts to a
+// false-colour map.
 import { api } from './api.js';
-import { fmt } from './fmt.js';
-import { drawPlot, fillTable } from './plot.js';
-import { parseNumericTable } from './csv.js';
-import { PageInputError, tag, readNum, UNIT_LABEL } from './form.js';
-import { fillResults } from './sec-band.js';
-import { fillBudget, readConditions } from './sec-signal.js';
+import { formatNumber } from './fmt.js';
+import { drawPlot, fillTable, fillResults } from './plot.js';
+import { tag, tagMap, number, table, typed } from './fields.js';
+import { symbol } from './units.js';
+import { fillBudget, showTemperature, showDifference, readScene, budgetRows, temperatureDecimals } from './budget.js';
 import { emberRamp } from './colormap.js';
 import { kilnConveyorScene, SCENE_W, SCENE_H } from './scene.js';
+import { shared } from './shared.js';
 
 const $ = (id) => document.getElementById(id);
 const RAMP = emberRamp(256);
 const scene = kilnConveyorScene();
 let frame = null; // last converted frame, for the pointer readout
 let cursor = { x: SCENE_W >> 1, y: SCENE_H >> 1 };
+const trim = (v) => formatNumber(v, { digits: 6, trim: true });
 
-function columns(id, what) {
-  const { rows, lines } = parseNumericTable($(id).value);
-  for (let k = 0; k < rows.length; k++) {
-    if (rows[k].length !== 2) {
-      throw new PageInputError(id, `line ${lines[k]}: expected two numbers (${what}), found ${rows[k].length}`);
-    }
-  }
-  return [Float64Array.from(rows, (r) => r[0]), Float64Array.from(rows, (r) => r[1])];
-}
-
-function drawScale(minShown, maxShown, unitLabel) {
+function drawScale(minK, maxK, unit) {
   const c = $('cf-scale');
   const ctx = c.getContext('2d');
   const img = ctx.createImageData(1, 256);
@@ -38,36 +30,26 @@ function drawScale(minShown, maxShown, unitLabel) {
   const ticks = $('cf-ticks');
   ticks.textContent = '';
   for (let j = 0; j <= 4; j++) {
-    const v = maxShown - ((maxShown - minShown) * j) / 4;
     const s = document.createElement('span');
-    s.textContent = `${fmt(v, 4)} ${unitLabel}`;
+    s.textContent = `${formatNumber(api.fromK(maxK - ((maxK - minK) * j) / 4, unit), { decimals: 1 })} ${symbol(unit)}`;
     ticks.appendChild(s);
   }
 }
 
 function drawFrame(temps, minK, maxK) {
-  const c = $('cf-canvas');
-  const ctx = c.getContext('2d');
+  const ctx = $('cf-canvas').getContext('2d');
   const img = ctx.createImageData(SCENE_W, SCENE_H);
   const span = maxK - minK || 1;
   for (let i = 0; i < temps.length; i++) {
     const t = temps[i];
-    let r = 150;
-    let g = 150;
-    let b = 150;
+    let rgb = [150, 150, 150];
     if (Number.isFinite(t)) {
       const k = Math.max(0, Math.min(255, Math.round(((t - minK) / span) * 255)));
-      r = RAMP[3 * k];
-      g = RAMP[3 * k + 1];
-      b = RAMP[3 * k + 2];
+      rgb = [RAMP[3 * k], RAMP[3 * k + 1], RAMP[3 * k + 2]];
     }
-    img.data[4 * i] = r;
-    img.data[4 * i + 1] = g;
-    img.data[4 * i + 2] = b;
-    img.data[4 * i + 3] = 255;
+    img.data.set([...rgb, 255], 4 * i);
   }
   ctx.putImageData(img, 0, 0);
-  // cursor
   ctx.strokeStyle = '#ffffff';
   ctx.lineWidth = 1;
   ctx.strokeRect(cursor.x - 2.5, cursor.y - 2.5, 6, 6);
@@ -77,18 +59,58 @@ function readout() {
   if (!frame) return;
   const i = cursor.y * SCENE_W + cursor.x;
   const t = frame.temperaturesK[i];
-  const tUnit = $('cf-tu').value;
   $('cf-readout').textContent = Number.isFinite(t)
-    ? `pixel (${cursor.x}, ${cursor.y}): ${fmt(api.fromKelvin(t, tUnit), 6)} ${UNIT_LABEL[tUnit]}  (raw ${frame.counts[i]} counts)`
+    ? `pixel (${cursor.x}, ${cursor.y}): ${showTemperature(t, $('cf-ou').value)}  (raw ${frame.counts[i]} counts)`
     : `pixel (${cursor.x}, ${cursor.y}): no valid temperature (raw ${frame.counts[i]} counts)`;
   $('cf-canvas').dataset.readoutK = String(t);
 }
 
+/** Words for the response table's core errors, naming its lines. */
+function responseWords(lines, wl, values) {
+  return (e) => {
+    const first = (pred) => lines[Math.max(0, [...wl].findIndex((_, i) => pred(i)))];
+    if (e.code === 'NOT_INCREASING') {
+      const k = Number(/element (\d+)/.exec(e.message)?.[1] ?? 1);
+      return `Spectral response: the wavelengths must increase from line to line; line ${lines[k]} is not above line ${lines[k - 1]}.`;
+    }
+    if (e.code === 'NON_POSITIVE_SPECTRAL') return `Spectral response: wavelengths must be greater than 0 (line ${first((i) => !(wl[i] > 0))}).`;
+    if (e.code === 'OUT_OF_RANGE') return `Spectral response: a relative response must be 0 or more (line ${first((i) => values[i] < 0)}).`;
+    if (e.code === 'NON_POSITIVE') return 'Spectral response: every relative response is 0; at least one must be greater than 0.';
+    return undefined;
+  };
+}
+
+/** Words for the fit's core errors, naming the lines of the points concerned. */
+function fitWords(lines, tK, sig) {
+  return (e) => {
+    if (e.code === 'DEGENERATE_FIT' && /repeated/.test(e.message)) {
+      for (let i = 0; i < tK.length; i++) for (let j = i + 1; j < tK.length; j++) {
+        if (tK[i] === tK[j]) return `Calibration points: lines ${lines[i]} and ${lines[j]} have the same temperature; each point needs its own.`;
+      }
+    }
+    if (e.code === 'DEGENERATE_FIT') {
+      const order = [...tK.keys()].sort((a, b) => tK[a] - tK[b]);
+      for (let k = 1; k < order.length; k++) {
+        if (!(sig[order[k]] > sig[order[k - 1]])) {
+          return `Calibration points: the signal must increase with temperature, but line ${lines[order[k]]} (hotter) has no more signal than line ${lines[order[k - 1]]}.`;
+        }
+      }
+      return 'Calibration points: these points do not determine a curve (A, B and C); add points spread over the range.';
+    }
+    if (e.code === 'NON_POSITIVE') {
+      const i = [...sig].findIndex((s) => !(s > 0));
+      return `Calibration points: the signal must be greater than 0 (line ${lines[Math.max(0, i)]}).`;
+    }
+    if (e.code === 'NOT_CONVERGED') return 'Calibration points: the curve fit did not converge for these points.';
+    return undefined;
+  };
+}
+
 export const calibSection = {
   id: 'calib',
-  available: () => api.hasCalibration(),
+  available: () => api.has('CalibrationCurve', 'Instrument', 'convertTemperature', 'convertTemperatureDifference'),
   build() {
-    if (!api.hasFrame()) $('cf-frame-part').remove(); // this build of the core has no frame converter
+    if (!api.has('CalibrationCurve') || typeof api.fn('CalibrationCurve').prototype.convertFrame !== 'function') $('cf-frame-part').remove();
   },
   wire(recompute) {
     // "Load" buttons: read a local file into its text area (FileReader; nothing leaves the machine).
@@ -98,115 +120,138 @@ export const calibSection = {
         if (!file) return;
         const reader = new FileReader();
         reader.onload = () => {
-          $(input.dataset.target).value = String(reader.result);
+          $(input.dataset.target).value = String(reader.result).replace(/^\uFEFF/, '');
           recompute();
         };
         reader.readAsText(file);
       });
     }
-    if (!api.hasFrame()) return;
     const c = $('cf-canvas');
-    c.addEventListener('pointermove', (ev) => {
-      const r = c.getBoundingClientRect();
-      cursor = {
-        x: Math.max(0, Math.min(SCENE_W - 1, Math.floor(((ev.clientX - r.left) / r.width) * SCENE_W))),
-        y: Math.max(0, Math.min(SCENE_H - 1, Math.floor(((ev.clientY - r.top) / r.height) * SCENE_H))),
-      };
+    if (!c) return;
+    const move = (x, y) => {
+      cursor = { x: Math.max(0, Math.min(SCENE_W - 1, x)), y: Math.max(0, Math.min(SCENE_H - 1, y)) };
       if (frame) drawFrame(frame.temperaturesK, frame.minK, frame.maxK);
       readout();
+    };
+    c.addEventListener('pointermove', (ev) => {
+      const r = c.getBoundingClientRect();
+      move(Math.floor(((ev.clientX - r.left) / r.width) * SCENE_W), Math.floor(((ev.clientY - r.top) / r.height) * SCENE_H));
     });
     c.addEventListener('keydown', (ev) => {
       const d = { ArrowLeft: [-1, 0], ArrowRight: [1, 0], ArrowUp: [0, -1], ArrowDown: [0, 1] }[ev.key];
       if (!d) return;
       ev.preventDefault();
       const step = ev.shiftKey ? 10 : 1;
-      cursor = {
-        x: Math.max(0, Math.min(SCENE_W - 1, cursor.x + d[0] * step)),
-        y: Math.max(0, Math.min(SCENE_H - 1, cursor.y + d[1] * step)),
-      };
-      if (frame) drawFrame(frame.temperaturesK, frame.minK, frame.maxK);
-      readout();
+      move(cursor.x + d[0] * step, cursor.y + d[1] * step);
     });
   },
   compute() {
     frame = null;
-    const tUnit = $('cf-tu').value;
-    const tL = UNIT_LABEL[tUnit];
+    shared.curve = null;
+    const ou = $('cf-ou').value;
+    const tL = symbol(ou);
     // --- response table and calibration points
-    const [wlUm, resp] = columns('cf-resp', 'wavelength in µm, relative response');
-    const moments = tag('cf-resp', () => api.responseMoments(wlUm, resp, 'um'));
-    const [tShown, sig] = columns('cf-pts', `temperature in ${tL}, signal`);
-    const tK = tag('cf-pts', () => api.toKelvinArray(tShown, tUnit));
-    const fit = tag('cf-pts', () => api.fitCurve(tK, sig));
-    const curve = fit.curve;
+    const ru = $('cf-ru').value;
+    const resp = table('cf-resp', 2, { columns: 'wavelength, relative response' });
+    const wl = resp.rows.map((r) => r[0]);
+    const rv = resp.rows.map((r) => r[1]);
+    const respDef = { model: { kind: 'response', wavelengths: wl, values: rv, unit: ru } };
+    const moments = tag('cf-resp', () => api.instrument(respDef).responseMoments(), { custom: responseWords(resp.lines, wl, rv) });
+    const pts = table('cf-pts', 2, { columns: 'temperature, signal' });
+    const ptu = $('cf-ptu').value;
+    const tK = Float64Array.from(pts.rows, (r, i) => tag('cf-pts', () => api.toK(r[0], ptu), { line: pts.lines[i], entryText: trim(r[0]) }));
+    const sig = Float64Array.from(pts.rows, (r) => r[1]);
+    const fit = tag('cf-pts', () => api.fitCurve(tK, sig), { custom: fitWords(pts.lines, tK, sig) });
+    const curve = fit.coefficients;
+    shared.curve = curve;
+    const um = api.spectralSize('um');
+    const mDeg = (k) => `${formatNumber(api.diffFromK(k, ou) * 1e3, { digits: 3 })} m${tL}`;
     const fitItems = [
-      ['A', 'A (≈ mean wavelength)', fmt(curve.aM * 1e6, 7), 'µm', true],
-      ['B', 'B', fmt(curve.bMK * 1e6, 7), 'µm·K'],
-      ['C', 'C', fmt(curve.c, 7), 'counts'],
+      ['A', 'A (≈ mean wavelength)', `${formatNumber(curve.aM / um, { digits: 7 })} µm`],
+      ['B', 'B', `${formatNumber(curve.bMK / um, { digits: 7 })} µm·K`],
+      ['C', 'C', `${formatNumber(curve.c, { digits: 7 })} counts`],
+      ['lm', 'Response: mean wavelength', `${formatNumber(api.convertSpectral(moments.mean, ru, 'um'), { digits: 6 })} µm`],
+      ['ls', 'Response: spread (standard deviation)', `${formatNumber(api.convertSpectral(moments.spread, ru, 'um'), { digits: 6 })} µm`],
     ];
-    fitItems.push(['lm', 'Response: mean wavelength', fmt(moments.mean, 6), 'µm']);
-    fitItems.push(['ls', 'Response: spread (standard deviation)', fmt(moments.spread, 6), 'µm']);
-    if (api.has('sakumaHattoriFromResponse')) {
-      // The curve the response alone predicts (at the middle calibration temperature), for comparison.
-      const theory = api.curveFromResponse(wlUm, resp, 'um', tK[tK.length >> 1]);
-      fitItems.push(['Ar', 'A predicted from the response', fmt(theory.aM * 1e6, 6), 'µm']);
-      fitItems.push(['Br', 'B predicted from the response', fmt(theory.bMK * 1e6, 6), 'µm·K']);
-    }
-    fitItems.push(['rms', 'RMS temperature residual of the fit', fmt(fit.rmsResidualK * 1e3, 4), 'mK']);
-    fitItems.push(['rmax', 'Largest temperature residual', fmt(fit.maxAbsResidualK * 1e3, 4), 'mK']);
+    const theory = api.curveFromResponse(respDef, tK[tK.length >> 1]);
+    fitItems.push(['Ar', 'A predicted from the response', `${formatNumber(theory.aM / um, { digits: 6 })} µm`]);
+    fitItems.push(['Br', 'B predicted from the response', `${formatNumber(theory.bMK / um, { digits: 6 })} µm·K`]);
+    fitItems.push(['rms', 'RMS temperature residual of the fit', mDeg(fit.rmsResidualK)]);
+    fitItems.push(['rmax', 'Largest temperature residual', mDeg(fit.maxAbsResidualK)]);
     fillResults($('cf-fit'), fitItems);
+    const model = { kind: 'sakumaHattori', aM: curve.aM, bMK: curve.bMK, c: curve.c, c2: curve.c2 };
+    const bare = api.instrument({ model });
     const rows = [];
-    const resMk = new Float64Array(tK.length);
+    const resShown = new Float64Array(tK.length);
+    const tShown = Float64Array.from(tK, (k) => api.fromK(k, ou));
     for (let i = 0; i < tK.length; i++) {
-      const fitted = api.curveSignal(curve, tK[i]);
-      resMk[i] = fit.residualsK[i] * 1e3; // T_curve(S_i) − T_i from the core's fit report
-      rows.push([`${fmt(tShown[i], 6)} ${tL}`, fmt(sig[i], 8), fmt(fitted, 8), `${fmt((100 * (sig[i] - fitted)) / fitted, 3)} %`, `${fmt(resMk[i], 4)} mK`]);
+      const fitted = bare.signal(tK[i]);
+      resShown[i] = api.diffFromK(fit.residualsK[i], ou) * 1e3; // T_curve(S_i) − T_i
+      rows.push([
+        formatNumber(tShown[i], { decimals: temperatureDecimals(tK[i]), trim: true }),
+        formatNumber(sig[i], { digits: 7 }),
+        formatNumber(fitted, { digits: 7 }),
+        `${formatNumber((100 * (sig[i] - fitted)) / fitted, { digits: 3 })} %`,
+        formatNumber(resShown[i], { digits: 3 }),
+      ]);
     }
-    fillTable($('cf-table'), ['Temperature', 'Measured signal (counts)', 'Curve signal (counts)', 'Signal residual', 'Temperature residual T(curve⁻¹(signal)) − T'], rows);
+    fillTable($('cf-table'), [`Temperature (${tL})`, 'Measured signal (counts)', 'Curve signal (counts)', 'Signal residual', `T(curve⁻¹(signal)) − T (m${tL})`], rows);
     drawPlot($('cf-plot'), {
       title: 'Temperature residuals of the fitted curve at the calibration points',
       x: { label: `temperature (${tL})`, short: 'T', readoutUnit: tL },
-      y: { label: 'residual (mK)', readoutUnit: 'mK' },
-      series: [{ label: 'residual', x: tShown, y: resMk, dash: '' }],
-      markers: [...tShown].map((t, i) => ({ x: t, y: resMk[i], label: '' })),
+      y: { label: `residual (m${tL})`, readoutUnit: `m${tL}` },
+      series: [{ label: 'residual', x: tShown, y: resShown, dash: '' }],
+      markers: [...tShown].map((t, i) => ({ x: t, y: resShown[i] })),
       caption: 'How far the fitted curve reads from each calibration temperature (triangles mark the points).',
     });
 
     // --- one reading with its uncertainty budget
-    const { cond, u } = readConditions('cf');
-    const signal = readNum('cf-sig');
-    u.signal = readNum('cf-usig');
-    const model = { kind: 'curve', curve };
-    const budget = tag('cf-sig', () => api.thermoBudget(model, signal, cond, u));
+    const n = number('cf-n');
+    const un = number('cf-un');
+    const sc = readScene('cf');
+    const inst = tagMap(sc.condFields, () => api.instrument({ model, conditions: sc.conditions }), 'cf-eps');
+    const T = tag('cf-n', () => inst.objectTemperature(n), {
+      custom: (e) => (e.code === 'NO_PHYSICAL_SOLUTION'
+        ? `Instrument signal ${typed('cf-n')} counts is below what the reflected surroundings and the path alone give with ε = ${trim(sc.eps)}, so no object temperature explains it; check the emissivity and the reflected and path temperatures.`
+        : undefined),
+    });
+    const budget = tagMap({ 'uncertainties.signal': 'cf-un', ...sc.uFields }, () => inst.uncertaintyBudget(n, { signal: un, ...sc.u }), 'cf-un');
     fillResults($('cf-res'), [
-      ['t', 'Object temperature', fmt(api.fromKelvin(budget.temperatureK, tUnit), 7), tL, true],
-      ['uc', 'Combined standard uncertainty', fmt(budget.combinedK, 3), 'K'],
-      ['U', 'Expanded uncertainty (k = 2)', fmt(2 * budget.combinedK, 3), 'K'],
+      ['t', 'Object temperature from the reading', showTemperature(T, ou), { big: true }],
+      ['uc', 'Standard uncertainty', showDifference(budget.combinedStandardUncertaintyK, ou, 2), { labelHtml: 'Standard uncertainty <i>u</i><sub>c</sub>' }],
+      ['U', 'Expanded uncertainty (k = 2)', showDifference(2 * budget.combinedStandardUncertaintyK, ou, 2), { labelHtml: 'Expanded uncertainty <i>U</i> (<i>k</i> = 2)' }],
+      ['tbb', 'Blackbody temperature of the signal (ε = 1, no corrections)', showTemperature(bare.temperature(n), ou)],
     ]);
-    fillBudget($('cf-budget'), budget, { signal: 'counts', emissivity: '', reflectedTemperature: 'K', pathTransmittance: '', pathTemperature: 'K' });
+    const signalRow = { name: 'Signal', value: `${trim(n)} counts`, u: `${trim(un)} counts`, xUnit: 'count', scale: un || Math.abs(n), toX: 1 };
+    fillBudget($('cf-budget'), budgetRows(budget, signalRow, sc, ou), budget.combinedStandardUncertaintyK, T, ou);
+    $('cf-assume').textContent = 'Assumes the fitted Sakuma–Hattori curve describes the instrument over the range, a grey body (ε the same at every wavelength the instrument sees) and uniform diffuse surroundings at the reflected temperature.';
 
     // --- the frame: invented scene → raw counts (through the fitted curve) → core conversion
-    if (!api.hasFrame()) return;
-    const sceneSignal = api.thermoMeasuredSignals(model, scene.temperatureK, scene.emissivity, cond);
+    if (!$('cf-canvas')) return;
+    const sceneSignal = new Float64Array(scene.temperatureK.length);
+    const groups = new Map();
+    scene.emissivity.forEach((e, i) => (groups.get(e) || groups.set(e, []).get(e)).push(i));
+    for (const [eps, idx] of groups) {
+      const s = api.instrument({ model, conditions: { ...sc.conditions, emissivity: eps } }).measuredSignals(Float64Array.from(idx, (i) => scene.temperatureK[i]));
+      idx.forEach((i, j) => { sceneSignal[i] = s[j]; });
+    }
     let maxS = 0;
     for (const s of sceneSignal) maxS = Math.max(maxS, s);
     const gain = Math.ceil(maxS / 60000); // signal units per count, so the frame fits 16 bits
-    const offset = 0;
     const counts = new Uint16Array(sceneSignal.length);
-    for (let i = 0; i < counts.length; i++) counts[i] = scene.dead[i] ? 0 : Math.min(65535, Math.round((sceneSignal[i] - offset) / gain));
-    const emap = $('cf-emap').checked ? Float32Array.from(scene.emissivity) : null;
-    const out = api.convertFrame(model, counts, gain, offset, cond, emap);
+    for (let i = 0; i < counts.length; i++) counts[i] = scene.dead[i] ? 0 : Math.min(65535, Math.round(sceneSignal[i] / gain));
+    const options = { gain, offset: 0, conditions: sc.conditions };
+    if ($('cf-emap').checked) options.emissivity = Float32Array.from(scene.emissivity);
+    const out = api.convertFrame(curve, counts, options);
     frame = { ...out, counts };
-    const minShown = api.fromKelvin(out.minK, tUnit);
-    const maxShown = api.fromKelvin(out.maxK, tUnit);
     drawFrame(out.temperaturesK, out.minK, out.maxK);
-    drawScale(minShown, maxShown, tL);
+    drawScale(out.minK, out.maxK, ou);
     fillResults($('cf-frame-res'), [
-      ['valid', 'Valid pixels', String(out.valid), ''],
-      ['invalid', 'Invalid pixels (at or below the background)', String(out.invalid), ''],
-      ['min', 'Coldest valid pixel', fmt(minShown, 6), tL],
-      ['max', 'Hottest valid pixel', fmt(maxShown, 6), tL],
-      ['gain', 'Counts → signal', `${gain} × count + ${offset}`, ''],
+      ['valid', 'Valid pixels', String(out.valid)],
+      ['invalid', 'Invalid pixels (at or below the background)', String(out.invalid)],
+      ['min', 'Coldest valid pixel', showTemperature(out.minK, ou)],
+      ['max', 'Hottest valid pixel', showTemperature(out.maxK, ou)],
+      ['gain', 'Counts → signal', `${gain} × count`],
     ]);
     readout();
   },

@@ -1,131 +1,225 @@
-// Section 3: signal → object temperature through the measurement equation, with the
-// sensitivity of the answer to every input (uncertainty budget).
+// Section: the object temperature behind a reading, through the measurement equation, with
+// the GUM budget. The reading can be what the practitioner has at hand: an instrument's
+// indicated temperature (with its emissivity and reflected-temperature settings), a radiance,
+// counts through a Sakuma–Hattori curve, or a two-colour reading (ratio or indicated ratio
+// temperature) of two equal narrow bands.
 import { api } from './api.js';
-import { fmt } from './fmt.js';
-import { fillTable } from './plot.js';
-import { tag, readNum, readKelvin, UNIT_LABEL } from './form.js';
-import { fillResults } from './sec-band.js';
-import { bandUnit, densityUnit } from './quantities.js';
+import { formatNumber, formatInput } from './fmt.js';
+import { fillResults } from './plot.js';
+import { tag, tagMap, tagPair, number, kelvin, kelvinDiff, spectral, FieldError, labelOf, typed, unitText } from './fields.js';
+import { symbol } from './units.js';
+import { fillBudget, combine, showTemperature, showDifference, readScene, budgetRows } from './budget.js';
+import { shared } from './shared.js';
 
 const $ = (id) => document.getElementById(id);
+const RADIANCE = 'W·m⁻²·sr⁻¹';
+const trim = (v) => formatNumber(v, { digits: 6, trim: true });
 
-const INPUT_NAMES = {
-  signal: 'Signal',
-  emissivity: 'Emissivity ε',
-  reflectedTemperature: 'Reflected ambient temperature',
-  pathTransmittance: 'Path transmittance τ',
-  pathTemperature: 'Path temperature',
-  ratio: 'Measured ratio',
-  emissivityRatio: 'Emissivity ratio ε₁/ε₂',
-};
+/** A standard uncertainty the page combines itself must not be negative. */
+function nonNegative(id, v) {
+  if (v < 0) throw new FieldError(id, `${labelOf(id)} must be 0 or more; you entered ${typed(id)}${unitText(id) ? ` ${unitText(id)}` : ''}.`, 'OUT_OF_RANGE');
+  return v;
+}
 
-/** Fills an uncertainty-budget table from the core's budget (entries + combined). */
-export function fillBudget(table, budget, units) {
-  const rows = budget.entries.map((e) => [
-    INPUT_NAMES[e.input] || e.input,
-    `${fmt(e.value, 6)} ${units[e.input] || ''}`.trim(),
-    `${fmt(e.standardUncertainty, 3)} ${units[e.input] || ''}`.trim(),
-    `${fmt(e.sensitivity, 5)} K/${/[·/]/.test(units[e.input] || '') ? `(${units[e.input]})` : units[e.input] || '1'}`,
-    `${fmt(e.contributionK, 3)} K`,
-    `${fmt(100 * e.varianceShare, 3)} %`,
+const NO_PHYS = /signal (\S+) must exceed the reflected and path contribution (\S+)/;
+
+function readModel(mode) {
+  if (mode === 'counts') {
+    const um = api.spectralSize('um');
+    const model = { kind: 'sakumaHattori', aM: number('sg-ca') * um, bMK: number('sg-cb') * um, c: number('sg-cc') };
+    tagMap({ 'model.aM': 'sg-ca', 'model.bMK': 'sg-cb', 'model.c': 'sg-cc' }, () => api.instrument({ model }), 'sg-ca');
+    const describe = `the Sakuma–Hattori curve A = ${trim(number('sg-ca'))} µm, B = ${trim(number('sg-cb'))} µm·K, C = ${trim(number('sg-cc'))} counts`;
+    return { model, describe, id: 'sg-ca' };
+  }
+  if ($('sg-resp').value === 'band') {
+    const unit = $('sg-bu').value;
+    const lo = spectral('sg-lo').value;
+    const hi = spectral('sg-hi').value;
+    const model = { kind: 'response', wavelengths: [lo, hi], values: [1, 1], unit };
+    tagPair('sg-lo', 'sg-hi', () => api.instrument({ model }));
+    return { model, describe: `a flat (rectangular) response from ${trim(lo)} to ${trim(hi)} ${symbol(unit)}`, id: 'sg-lo' };
+  }
+  const unit = $('sg-xu').value;
+  const x = spectral('sg-x').value;
+  const model = { kind: 'spectralPoint', wavelength: x, unit };
+  tag('sg-x', () => api.instrument({ model }));
+  return { model, describe: `a single wavelength, ${trim(x)} ${symbol(unit)} (the narrow-band limit)`, id: 'sg-x' };
+}
+
+function computeSingle(mode, ou) {
+  const { model, describe } = readModel(mode);
+  const scene = readScene('sg');
+  const eps = scene.eps;
+  const inst = tagMap(scene.condFields, () => api.instrument({ model, conditions: scene.conditions }), 'sg-eps');
+  const blackbody = api.instrument({ model });
+
+  // The reading as a signal of the model (SI for radiances), with its standard uncertainty and
+  // how the budget's first row shows it (toX = ∂S/∂x, x being the reading as entered).
+  let S;
+  let uS;
+  let row;
+  let readId;
+  let readUId;
+  let settings = null;
+  let indicatedK = null;
+  if (mode === 'indicated') {
+    readId = 'sg-ti';
+    readUId = 'sg-uti';
+    indicatedK = kelvin('sg-ti');
+    const uTi = kelvinDiff('sg-uti');
+    const eset = number('sg-eset');
+    const trset = kelvin('sg-trset');
+    settings = tagMap({ 'conditions.emissivity': 'sg-eset', 'conditions.reflectedTemperatureK': 'sg-trset' },
+      () => api.instrument({ model, conditions: { emissivity: eset, reflectedTemperatureK: trset } }), 'sg-eset');
+    S = tag('sg-ti', () => settings.measuredSignal(indicatedK));
+    const dTi = settings.sensitivities(S).signal; // ∂T_indicated/∂S of the instrument's own settings
+    uS = uTi / dTi;
+    row = { name: 'Indicated temperature', value: showTemperature(indicatedK, ou, true), u: showDifference(uTi, ou, 6, 0, true), xUnit: 'T', scale: uTi || indicatedK, toX: 1 / dTi };
+  } else if (mode === 'counts') {
+    readId = 'sg-n';
+    readUId = 'sg-un';
+    S = number('sg-n');
+    uS = number('sg-un');
+    row = { name: 'Signal', value: `${trim(S)} counts`, u: `${trim(uS)} counts`, xUnit: 'count', scale: uS || Math.abs(S), toX: 1 };
+  } else if ($('sg-resp').value === 'band') {
+    readId = 'sg-sig';
+    readUId = 'sg-usig';
+    S = number('sg-sig');
+    uS = number('sg-usig');
+    row = { name: 'Band radiance', value: `${trim(S)} ${RADIANCE}`, u: `${trim(uS)} ${RADIANCE}`, xUnit: RADIANCE, scale: uS || Math.abs(S), toX: 1 };
+  } else {
+    readId = 'sg-ssig';
+    readUId = 'sg-ussig';
+    const per = $('sg-ssu').value;
+    const size = api.spectralSize(per); // metres per unit: L per m = L per unit / size
+    const v = number('sg-ssig');
+    const uv = number('sg-ussig');
+    S = v / size;
+    uS = uv / size;
+    const text = unitText('sg-ssig');
+    row = { name: 'Spectral radiance', value: `${trim(v)} ${text}`, u: `${trim(uv)} ${text}`, xUnit: text, scale: uv || Math.abs(v), toX: 1 / size };
+  }
+
+  const noSolution = (e) => {
+    if (e.code === 'NO_PHYSICAL_SOLUTION') {
+      const m = NO_PHYS.exec(e.message);
+      if (mode === 'indicated' || !m) {
+        return `No object temperature explains this reading: with ε = ${trim(eps)}, the reflected surroundings and the path alone would give the instrument more than it saw. Check the emissivity and the reflected and path temperatures.`;
+      }
+      const scale = mode === 'radiance' && $('sg-resp').value === 'point' ? api.spectralSize($('sg-ssu').value) : 1;
+      const u = mode === 'counts' ? 'counts' : unitText(readId) || RADIANCE;
+      return `${labelOf(readId)} ${typed(readId)} ${u} is below the ${formatNumber(Number(m[2]) * scale, { digits: 4 })} ${u} that the reflected surroundings and the path alone give, so no object temperature explains it. Check the emissivity and the reflected and path temperatures.`;
+    }
+    if (e.code === 'NO_SOLUTION') return `${labelOf(readId)}: no object temperature up to 10⁹ K gives this reading.`;
+    return undefined;
+  };
+  const T = tag(readId, () => inst.objectTemperature(S), { custom: noSolution });
+  const budget = tagMap({ 'uncertainties.signal': readUId, ...scene.uFields },
+    () => inst.uncertaintyBudget(S, { signal: uS, ...scene.u }), readUId);
+  const tbb = blackbody.temperature(S);
+
+  const items = [
+    ['t', 'Object temperature', showTemperature(T, ou), { big: true }],
+    ['uc', 'Standard uncertainty', showDifference(budget.combinedStandardUncertaintyK, ou, 2), { labelHtml: 'Standard uncertainty <i>u</i><sub>c</sub>' }],
+    ['U', 'Expanded uncertainty (k = 2)', showDifference(2 * budget.combinedStandardUncertaintyK, ou, 2), { labelHtml: 'Expanded uncertainty <i>U</i> (<i>k</i> = 2)' }],
+  ];
+  if (mode === 'indicated') items.push(['corr', 'Correction to the indicated temperature', showDifference(T - indicatedK, ou, 4)]);
+  items.push(['tbb', 'Blackbody temperature of the signal (ε = 1, no corrections)', showTemperature(tbb, ou)]);
+  fillResults($('sg-res'), items);
+
+  const rows = budgetRows(budget, row, scene, ou);
+  fillBudget($('sg-table'), rows, budget.combinedStandardUncertaintyK, T, ou);
+
+  const parts = [`Assumes ${describe}`, 'a grey body (ε the same at every wavelength the instrument sees)', 'uniform diffuse surroundings at the reflected temperature'];
+  if (mode === 'indicated') parts.push('and an instrument that computed its reading with this same response, the emissivity and reflected temperature set on it, and no path correction');
+  $('sg-assume').textContent = `${parts.join(', ')}.`;
+}
+
+function computeRatio(ou) {
+  const unit = $('sg-lu').value;
+  const U = symbol(unit);
+  const l1 = spectral('sg-l1').value;
+  const l2 = spectral('sg-l2').value;
+  const w = spectral('sg-lw').value;
+  if (!(l1 > 0)) throw new FieldError('sg-l1', `Channel 1 wavelength must be greater than 0; you entered ${typed('sg-l1')} ${U}.`, 'NON_POSITIVE_SPECTRAL');
+  if (!(l2 > l1)) {
+    throw new FieldError('sg-l2', `Channel 2 wavelength (${typed('sg-l2')} ${U}) must be longer than channel 1 (${typed('sg-l1')} ${U}): channel 1 is the shorter one.`, 'UNSUPPORTED');
+  }
+  if (w < 0) throw new FieldError('sg-lw', `Channel width must be 0 (single wavelengths) or more; you entered ${typed('sg-lw')} ${U}.`, 'OUT_OF_RANGE');
+  if (w >= 2 * l1) throw new FieldError('sg-lw', `Channel width (${typed('sg-lw')} ${U}) must be less than twice channel 1 wavelength (${trim(2 * l1)} ${U}).`, 'OUT_OF_RANGE');
+  if (l1 + w / 2 > l2 - w / 2) throw new FieldError('sg-lw', `Channel width (${typed('sg-lw')} ${U}) makes the two channels overlap; it must be at most ${trim(l2 - l1)} ${U}.`, 'OUT_OF_RANGE');
+  const channel = (l) => (w > 0 ? { kind: 'response', wavelengths: [l - w / 2, l + w / 2], values: [1, 1], unit } : { kind: 'spectralPoint', wavelength: l, unit });
+  const i1 = tag('sg-l1', () => api.instrument({ model: channel(l1) }));
+  const i2 = tag('sg-l2', () => api.instrument({ model: channel(l2) }));
+  const er = number('sg-er');
+  const uer = nonNegative('sg-uer', number('sg-uer'));
+
+  const indicated = $('sg-rin').value === 'indicated';
+  let r;
+  let readRow;
+  let guess = 1000;
+  let ti = null;
+  let setRead = null;
+  const readId = indicated ? 'sg-rti' : 'sg-ratio';
+  if (indicated) {
+    ti = kelvin('sg-rti');
+    const uTi = nonNegative('sg-urti', kelvinDiff('sg-urti'));
+    const erset = number('sg-erset');
+    // What the pyrometer measured: the grey-body ratio its setting turns into T_indicated.
+    r = erset * (tag('sg-rti', () => i1.signal(ti)) / i2.signal(ti));
+    setRead = tagMap({ emissivityRatio: 'sg-erset' }, () => i1.ratioTemperature(i2, r, erset, ti), 'sg-rti');
+    guess = ti;
+    readRow = { name: 'Indicated ratio temperature', value: showTemperature(ti, ou, true), u: showDifference(uTi, ou, 6, 0, true), xUnit: 'T', uX: uTi, scale: uTi || ti, perX: 1 / setRead.dTdRatio };
+  } else {
+    r = number('sg-ratio');
+    const ur = nonNegative('sg-uratio', number('sg-uratio'));
+    readRow = { name: 'Radiance ratio L₁/L₂', value: trim(r), u: trim(ur), xUnit: '', uX: ur, scale: ur || Math.abs(r), perX: 1 };
+  }
+  const res = tagMap({ emissivityRatio: 'sg-er' }, () => i1.ratioTemperature(i2, r, er, guess), readId, {
+    custom: (e) => (e.code === 'NO_SOLUTION' || e.code === 'UNSUPPORTED'
+      ? `${labelOf(readId)}: no temperature gives this ratio in these two channels with ε₁/ε₂ = ${trim(er)}.`
+      : undefined),
+  });
+  const { rows, combinedK } = combine([
+    { ...readRow, sensitivityK: res.dTdRatio * readRow.perX },
+    { name: 'Emissivity ratio ε₁/ε₂', value: trim(er), u: trim(uer), xUnit: '', uX: uer, scale: uer || er, sensitivityK: res.dTdEmissivityRatio },
   ]);
-  rows.push(['Combined standard uncertainty u_c', '', '', '', `${fmt(budget.combinedK, 3)} K`, '100 %']);
-  fillTable(table, ['Input', 'Value', 'Standard uncertainty u', 'Sensitivity ∂T/∂x', 'Contribution |∂T/∂x|·u', 'Share of variance'], rows);
-}
-
-/** Reads the scene conditions and their standard uncertainties (prefix "sg" or "cf"). */
-export function readConditions(p) {
-  const tu = `${p}-tu`;
-  const cond = {
-    emissivity: readNum(`${p}-eps`),
-    reflectedTemperatureK: readKelvin(`${p}-tr`, tu),
-    pathTransmittance: readNum(`${p}-tau`),
-    pathTemperatureK: readKelvin(`${p}-tp`, tu),
-  };
-  const u = {
-    emissivity: readNum(`${p}-ueps`),
-    reflectedTemperatureK: readNum(`${p}-utr`),
-    pathTransmittance: readNum(`${p}-utau`),
-    pathTemperatureK: readNum(`${p}-utp`),
-  };
-  return { cond, u };
-}
-
-/** First-order combination of uncorrelated contributions (GUM eq. 10) for the ratio reading. */
-function combine(entries) {
-  const rows = entries.map((e) => ({ ...e, contributionK: Math.abs(e.sensitivity) * e.standardUncertainty }));
-  const variance = rows.reduce((a, e) => a + e.contributionK ** 2, 0);
-  for (const e of rows) e.varianceShare = variance > 0 ? e.contributionK ** 2 / variance : 0;
-  return { entries: rows, combinedK: Math.sqrt(variance) };
-}
-
-function showModes(mode) {
-  for (const f of document.querySelectorAll('#sg-form [data-modes]')) f.hidden = !f.dataset.modes.split(' ').includes(mode);
+  const items = [
+    ['t', 'Object temperature', showTemperature(res.temperatureK, ou), { big: true }],
+    ['uc', 'Standard uncertainty', showDifference(combinedK, ou, 2), { labelHtml: 'Standard uncertainty <i>u</i><sub>c</sub>' }],
+    ['U', 'Expanded uncertainty (k = 2)', showDifference(2 * combinedK, ou, 2), { labelHtml: 'Expanded uncertainty <i>U</i> (<i>k</i> = 2)' }],
+  ];
+  if (indicated) items.push(['err', 'Error of the indicated temperature (indicated − true)', showDifference(ti - res.temperatureK, ou, 4)]);
+  items.push(['ratio', 'Radiance ratio L₁/L₂', formatNumber(r, { digits: 6 })]);
+  fillResults($('sg-res'), items);
+  fillBudget($('sg-table'), rows, combinedK, res.temperatureK, ou);
+  const what = w > 0
+    ? `two flat bands of equal width ${trim(w)} ${U} centred on ${trim(l1)} and ${trim(l2)} ${U}`
+    : `single wavelengths ${trim(l1)} and ${trim(l2)} ${U} (the narrow-band limit)`;
+  $('sg-assume').textContent = `Assumes ${what}, a grey-body ratio (ε₁/ε₂ as entered), and no reflected radiation or path absorption that differs between the channels.`;
 }
 
 export const signalSection = {
   id: 'signal',
-  available: () => api.hasThermometry() && api.has('bandIntegral'),
-  build() {
-    // The ratio reading needs ratioTemperature, which some builds of the package leave out.
-    if (!api.hasRatio()) {
-      $('sg-mode').querySelector('option[value="ratio"]').remove();
-      for (const f of this.el.querySelectorAll('[data-modes="ratio"]')) f.remove();
-    }
-  },
-  wire() {
-    showModes($('sg-mode').value);
+  available: () => api.has('Instrument', 'convertTemperature', 'convertTemperatureDifference'),
+  wire(recompute) {
+    $('sg-take').addEventListener('click', () => {
+      const c = shared.curve;
+      if (!c) {
+        document.getElementById('sg-ca-msg').textContent = 'The calibration section has no fitted curve yet (check its inputs).';
+        return;
+      }
+      const um = api.spectralSize('um');
+      $('sg-ca').value = formatInput(c.aM / um);
+      $('sg-cb').value = formatInput(c.bMK / um);
+      $('sg-cc').value = formatInput(c.c);
+      recompute();
+    });
   },
   compute() {
     const mode = $('sg-mode').value;
-    showModes(mode);
-    const unit = $('sg-su').value;
-    const tUnit = $('sg-tu').value;
-    const tL = UNIT_LABEL[tUnit];
-    const uSigPct = readNum('sg-usig');
-    const label = $('sg-sig-label');
-    if (mode === 'ratio') {
-      const ratio = readNum('sg-ratio');
-      const er = readNum('sg-er');
-      const uEr = readNum('sg-uer');
-      const b1 = [readNum('sg-r1lo'), readNum('sg-r1hi')];
-      const b2 = [readNum('sg-r2lo'), readNum('sg-r2hi')];
-      tag('sg-r1lo', () => api.band({ unit }, b1[0], b1[1], 300));
-      tag('sg-r2lo', () => api.band({ unit }, b2[0], b2[1], 300));
-      const r = tag('sg-ratio', () => api.ratioTemperature(unit, b1, b2, ratio, er));
-      // Two uncorrelated inputs: the core gives the sensitivities, the page combines them
-      // by JCGM 100:2008 eq. (10): u_c² = Σ (∂T/∂x_i · u(x_i))².
-      const budget = combine([
-        { input: 'ratio', value: ratio, sensitivity: r.dTdRatio, standardUncertainty: (Math.abs(ratio) * uSigPct) / 100 },
-        { input: 'emissivityRatio', value: er, sensitivity: r.dTdEmissivityRatio, standardUncertainty: uEr },
-      ]);
-      fillResults($('sg-res'), [
-        ['t', 'Object temperature (grey-body ratio)', fmt(api.fromKelvin(r.temperatureK, tUnit), 7), tL, true],
-        ['uc', 'Combined standard uncertainty', fmt(budget.combinedK, 3), 'K'],
-        ['U', 'Expanded uncertainty (k = 2)', fmt(2 * budget.combinedK, 3), 'K'],
-      ]);
-      fillBudget($('sg-table'), budget, { ratio: '', emissivityRatio: '' });
-      return;
-    }
-    const signal = readNum('sg-sig');
-    const model = mode === 'band'
-      ? { kind: 'band', unit, lower: readNum('sg-lo'), upper: readNum('sg-hi') }
-      : { kind: 'spectral', unit, wavelength: readNum('sg-x') };
-    const sigUnit = mode === 'band' ? bandUnit('energy', 'radiance') : densityUnit('energy', 'radiance', unit);
-    label.textContent = mode === 'band' ? `Measured band radiance (${sigUnit})` : `Measured spectral radiance (${sigUnit})`;
-    const { cond, u } = readConditions('sg');
-    u.signal = (Math.abs(signal) * uSigPct) / 100;
-    tag(mode === 'band' ? 'sg-lo' : 'sg-x', () => api.thermoCheckModel(model));
-    const budget = api.thermoBudget(model, signal, cond, u);
-    const blackbody = tag('sg-sig', () => api.thermoObjectTemperature(model, signal, null));
-    fillResults($('sg-res'), [
-      ['t', 'Object temperature', fmt(api.fromKelvin(budget.temperatureK, tUnit), 7), tL, true],
-      ['tbb', 'Apparent (blackbody, no corrections) temperature', fmt(api.fromKelvin(blackbody, tUnit), 7), tL],
-      ['uc', 'Combined standard uncertainty', fmt(budget.combinedK, 3), 'K'],
-      ['U', 'Expanded uncertainty (k = 2)', fmt(2 * budget.combinedK, 3), 'K'],
-    ]);
-    fillBudget($('sg-table'), budget, {
-      signal: sigUnit, emissivity: '', reflectedTemperature: 'K', pathTransmittance: '', pathTemperature: 'K',
-    });
+    const ou = $('sg-ou').value;
+    if (mode === 'ratio') computeRatio(ou);
+    else computeSingle(mode, ou);
   },
 };

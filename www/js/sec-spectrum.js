@@ -1,101 +1,98 @@
-// Section 1: spectra of one or several temperatures, with a shaded band and the peaks marked.
+// Section: spectra of one or several temperatures, with a shaded band and the peaks marked.
+// Inputs keep their own units (temperatures, plot range, band); the plot's spectral variable
+// and the temperatures shown are output choices that never change the inputs.
 import { api } from './api.js';
-import { fmt } from './fmt.js';
+import { formatNumber } from './fmt.js';
 import { drawPlot, fillTable } from './plot.js';
 import { toCsv, download } from './csv.js';
-import { PageInputError, tag, readNum, readKelvinList, UNIT_LABEL } from './form.js';
-import { densityUnit, bandUnit, variableName, quantityName } from './quantities.js';
+import { tag, tagPair, number, kelvinList, spectral, FieldError, labelOf } from './fields.js';
+import { symbol, kindWord, densityUnit, bandUnit, quantityName } from './units.js';
+import { showTemperature } from './budget.js';
 
 const $ = (id) => document.getElementById(id);
 const N = 400;
-const hasBands = () => api.has('bandIntegral', 'bandFraction');
-
-/** Checks a range lower < upper through the core's band validation (or the page's, without it). */
-function checkRange(idLo, lo, hi, shape, t) {
-  if (hasBands()) return tag(idLo, () => api.bandFraction(shape, lo, hi, t));
-  tag(idLo, () => api.spectralToSi(lo, shape.unit));
-  tag(idLo.replace('lo', 'hi'), () => api.spectralToSi(hi, shape.unit));
-  if (!(lo < hi)) throw new PageInputError(idLo, `the range must satisfy from < to (got from = ${lo}, to = ${hi})`);
-  return 0;
-}
 let last = null; // what was plotted, for the CSV export
 
 export const spectrumSection = {
   id: 'spectrum',
-  available: () => api.has('spectralDensityArray', 'spectralDensity', 'spectrumPeak', 'convertSpectral', 'convertTemperature', 'spectralUnitKind'),
-  build() {
-    // The shaded band needs the band bindings; without them the section plots spectra only.
-    if (!hasBands()) $('sp-band-set').remove();
-  },
+  available: () => api.has('Spectrum', 'convertSpectral', 'convertTemperature', 'spectralUnitKind'),
   wire() {
-    $('sp-csv').addEventListener('click', () => {
-      if (!last) return;
-      download('quantaband-spectrum.csv', last.csv);
-    });
+    $('sp-csv').addEventListener('click', () => last && download('quantaband-spectrum.csv', last.csv));
   },
   compute() {
     last = null;
-    const tUnit = $('sp-tu').value;
-    const unit = $('sp-su').value;
-    const variable = api.spectralKind(unit);
     const quantity = $('sp-q').value;
     const geometry = $('sp-g').value;
-    const emissivity = readNum('sp-eps');
-    const temps = readKelvinList('sp-t', 'sp-tu');
-    const spec = { unit, quantity, geometry, emissivity };
-    const shape = { unit, quantity };
-    const lo = readNum('sp-lo');
-    const hi = readNum('sp-hi');
-    // Validate through the core: the plot range and the shaded band as bands, emissivity once.
-    checkRange('sp-lo', lo, hi, shape, temps[0]);
-    tag('sp-eps', () => api.spectralValue(spec, lo, temps[0]));
-    const bands = hasBands();
-    const blo = bands ? readNum('sp-blo') : NaN;
-    const bhi = bands ? readNum('sp-bhi') : NaN;
-    if (bands) tag('sp-blo', () => api.bandFraction(shape, blo, bhi, temps[0]));
+    const temps = kelvinList('sp-t');
+    const emissivity = number('sp-eps');
+    tag('sp-eps', () => api.spectrum({ unit: 'um', emissivity }));
+    const range = { lo: spectral('sp-lo').value, hi: spectral('sp-hi').value, unit: $('sp-ru').value };
+    const band = { lo: spectral('sp-blo').value, hi: spectral('sp-bhi').value, unit: $('sp-bu').value };
+    const shape = (unit) => api.spectrum({ unit, quantity, geometry, emissivity });
+    tagPair('sp-lo', 'sp-hi', () => shape(range.unit).bandFraction(range.lo, range.hi, temps[0]));
+    tagPair('sp-blo', 'sp-bhi', () => shape(band.unit).bandFraction(band.lo, band.hi, temps[0]));
 
-    // Densities come per SI unit of the variable; per display unit = × (SI size of one unit).
-    const perUnit = api.spectralToSi(1, unit);
+    // Output choices: the plot's spectral variable and the temperatures' display unit.
+    const xu = $('sp-xu').value;
+    const ou = $('sp-ou').value;
+    const variable = api.spectralKind(xu);
+    const toX = (v, u) => api.convertSpectral(v, u, xu);
+    const [x0, x1] = [toX(range.lo, range.unit), toX(range.hi, range.unit)].sort((a, b) => a - b);
+    const [b0, b1] = [toX(band.lo, band.unit), toX(band.hi, band.unit)].sort((a, b) => a - b);
     const logx = $('sp-logx').checked;
+    if (logx && !(x0 > 0)) throw new FieldError('sp-lo', `${labelOf('sp-lo')} must be greater than 0 for a logarithmic axis.`);
     const xs = new Float64Array(N);
-    for (let i = 0; i < N; i++) xs[i] = logx ? lo * (hi / lo) ** (i / (N - 1)) : lo + ((hi - lo) * i) / (N - 1);
-    xs[N - 1] = hi;
-    const uLabel = UNIT_LABEL[unit] || unit;
-    const dUnit = densityUnit(quantity, geometry, unit);
+    for (let i = 0; i < N; i++) xs[i] = logx ? x0 * (x1 / x0) ** (i / (N - 1)) : x0 + ((x1 - x0) * i) / (N - 1);
+    xs[N - 1] = x1;
+    const plotSpec = shape(xu); // densities per plot unit (µm⁻¹, cm, THz⁻¹ …)
+    const xLabel = symbol(xu);
+    const dUnit = densityUnit(quantity, geometry, xu);
+    const bUnit = bandUnit(quantity, geometry);
     const series = [];
     const markers = [];
     const rows = [];
-    temps.forEach((t, k) => {
-      const y = api.spectrum(spec, xs, t);
-      for (let i = 0; i < N; i++) y[i] *= perUnit;
-      const tShown = api.fromKelvin(t, tUnit);
-      const label = `${fmt(tShown, 5)} ${UNIT_LABEL[tUnit]}`;
+    temps.forEach((t) => {
+      const y = plotSpec.points(xs, t);
+      const label = showTemperature(t, ou, true);
       series.push({ label, x: xs, y });
-      const pk = api.spectralPeak(shape, t);
-      const pkVal = api.spectralValue(spec, pk, t) * perUnit;
-      markers.push({ x: pk, y: pkVal, label: '' });
-      const row = [label, `${fmt(t, 6)} K`, `${fmt(pk, 6)} ${uLabel}`, `${fmt(pkVal, 5)}`];
-      if (bands) row.push(fmt(api.band(spec, blo, bhi, t), 6), `${fmt(100 * api.bandFraction(shape, blo, bhi, t), 5)} %`);
-      rows.push(row);
+      const pk = plotSpec.peak(t);
+      const pkVal = plotSpec.point(pk, t);
+      markers.push({ x: pk, y: pkVal });
+      rows.push([
+        label,
+        `${formatNumber(pk, { digits: 6 })} ${xLabel}`,
+        `${formatNumber(pkVal, { digits: 6 })} ${dUnit}`,
+        `${formatNumber(shape(band.unit).band(band.lo, band.hi, t), { digits: 6 })} ${bUnit}`,
+        `${formatNumber(100 * shape(band.unit).bandFraction(band.lo, band.hi, t), { digits: 5 })} %`,
+      ]);
     });
     const qName = quantityName(quantity, geometry);
+    const vName = kindWord(variable);
     drawPlot($('sp-plot'), {
-      title: `Spectral ${qName} against ${variableName(variable)}`,
-      x: { label: `${variableName(variable)} (${uLabel})`, short: variableName(variable), log: logx, min: lo, max: hi, readoutUnit: uLabel },
+      title: `Spectral ${qName} against ${vName}`,
+      x: { label: `${vName} (${xLabel})`, short: vName, log: logx, min: x0, max: x1, readoutUnit: xLabel },
       y: { label: `spectral ${qName} (${dUnit})`, log: $('sp-logy').checked, readoutUnit: dUnit },
       series,
-      bands: bands ? [{ from: blo, to: bhi, label: 'band' }] : [],
+      bands: [{ from: b0, to: b1, label: 'band' }],
       markers,
-      caption: 'Triangles mark the peak of each curve (in the chosen spectral variable and quantity); the shaded strip is the band.',
+      legend: true,
+      caption: `Triangles mark each curve's peak in ${vName} (the peak depends on the spectral variable); the shaded strip is the band.`,
     });
-    const head = ['Temperature', 'in kelvin', `Peak (${variableName(variable)})`, `Peak value (${dUnit})`];
-    if (bands) head.push(`Band ${fmt(blo, 4)}–${fmt(bhi, 4)} ${uLabel} (${bandUnit(quantity, geometry)})`, 'Fraction of total in band');
-    fillTable($('sp-table'), head, rows);
-    const header = [`${variableName(variable)} (${uLabel})`, ...series.map((s) => `spectral ${qName} at ${s.label} (${dUnit})`)];
+    $('sp-assume').textContent = emissivity === 1
+      ? 'A blackbody (ε = 1).'
+      : `A grey body: ε = ${formatNumber(emissivity, { digits: 6, trim: true })} at every wavelength.`;
+    const bandText = `${formatNumber(band.lo, { digits: 6, trim: true })}–${formatNumber(band.hi, { digits: 6, trim: true })} ${symbol(band.unit)}`;
+    fillTable($('sp-table'), ['Temperature', `Peak ${vName}`, 'Spectral value at the peak', `In the band ${bandText}`, 'Fraction of the total'], rows);
+
+    // One header per column, unique even when a temperature is listed twice.
+    const header = [`${vName} (${xLabel})`, ...series.map((s, k) => `spectral ${qName} at ${s.label}${series.findIndex((o) => o.label === s.label) < k ? ` (entry ${k + 1})` : ''} (${dUnit})`)];
     const data = [];
     for (let i = 0; i < N; i++) data.push([xs[i], ...series.map((s) => s.y[i])]);
     last = {
-      csv: toCsv(header, data, [`quantaband spectrum; emissivity ${emissivity}; computed by the quantaband WebAssembly core`]),
+      csv: toCsv(header, data, [
+        `quantaband spectrum; emissivity ${emissivity}; temperatures ${temps.map((t) => `${t} K`).join(', ')}`,
+        'computed by the quantaband WebAssembly core',
+      ]),
     };
   },
 };

@@ -96,7 +96,18 @@ export class CalibrationCurve {
    * Least-squares fit through calibration points: temperatures (K) and signals, same length,
    * 3 to 10 000 points (TOO_LARGE above), signals increasing with temperature, any order.
    */
-  static fit(temperaturesK: NumberArray, signals: NumberArray, options?: FitOptions): CalibrationCurve;
+  static fit(temperaturesK: NumberArray, signals: NumberArray, options?: PointFitOptions): CalibrationCurve;
+  /**
+   * A curve exact through an instrument's signals at three different ITS-90 fixed points
+   * (any order), with its interpolation error against the instrument's model between and
+   * beyond them (`fixedPointReport`). These are ITS-90 temperatures T90, not thermodynamic
+   * temperatures. DEGENERATE_FIT for a repeated fixed point.
+   */
+  static throughFixedPoints(
+    instrument: Instrument,
+    fixedPoints: readonly [FixedPoint, FixedPoint, FixedPoint],
+    options?: FixedPointCurveOptions,
+  ): CalibrationCurve;
   /** Fit to an instrument's exact model over [tMinK, tMaxK] (reweighted towards equal ripple). */
   static fitInstrument(instrument: Instrument, tMinK: number, tMaxK: number, options?: FitOptions): CalibrationCurve;
   /** Starting curve from a response instrument's moments, exact at referenceTemperatureK. */
@@ -104,6 +115,20 @@ export class CalibrationCurve {
   readonly coefficients: Readonly<Required<CurveCoefficients>>;
   /** The fit's report (undefined for a curve made from coefficients). */
   readonly fitReport: FitReport | undefined;
+  /** The fixed points and interpolation errors of a curve from `throughFixedPoints` (else undefined). */
+  readonly fixedPointReport: FixedPointReport | undefined;
+  /**
+   * Covariance of (aM, bMK, c) propagated from the reference points' uncertainties (first
+   * order, points independent). Curves from `fit` or `throughFixedPoints` only (UNSUPPORTED
+   * otherwise).
+   */
+  parameterCovariance(): ParameterCovariance;
+  /**
+   * A reading at `signal` with the uncertainty the calibration transfers to it and that of its
+   * own signal (`uSignal`, default 0), and ∂T/∂T_i, ∂T/∂S_i of every reference point. Curves
+   * from `fit` or `throughFixedPoints` only (UNSUPPORTED otherwise).
+   */
+  readingUncertainty(signal: number, uSignal?: number): CalibratedReading;
   free(): void;
   signal(temperatureK: number): number;
   signalDerivative(temperatureK: number): number;

@@ -25,6 +25,13 @@ import {
   result,
   some,
 } from './runtime.js';
+import {
+  _fitArgs,
+  _fixedPointArgs,
+  _fixedPointReport,
+  _parameterCovariance,
+  _readingUncertainty,
+} from './uncertainty_results.js';
 
 const SIGNALS = 0;
 const SIGNAL_DERIVATIVES = 1;
@@ -44,6 +51,7 @@ export class CalibrationCurve {
   #h = null;
   #coefficients;
   #report;
+  #fixedPoints;
 
   constructor(coefficients, handle) {
     let h;
@@ -58,19 +66,23 @@ export class CalibrationCurve {
     const r = h.fitReport();
     if (r !== undefined && r.residualsK !== undefined) r.residualsK = Float64Array.from(r.residualsK);
     this.#report = r === undefined ? undefined : Object.freeze(r);
+    this.#fixedPoints = _fixedPointReport(h);
   }
 
-  /** Least-squares curve through calibration points (temperatures in K, signals increasing). */
+  /**
+   * Least-squares curve through calibration points (temperatures in K, signals increasing);
+   * options { c2, uTemperaturesK, uSignals } (the points' standard uncertainties).
+   */
   static fit(temperaturesK, signals, options) {
     ready();
-    const o = optionalConfig(options, 'options');
     const [t, nt] = numbers(temperaturesK, 'temperaturesK');
+    const [o, uT, uS, given] = _fitArgs(options, nt);
     const [s, ns] = numbers(signals, 'signals');
     const pt = reserve(F64, 0, nt);
     const ps = reserve(F64, 1, ns);
     fill(F64, pt, nt, t, 'temperaturesK');
     fill(F64, ps, ns, s, 'signals');
-    return new CalibrationCurve(FROM_HANDLE, some(glue.QbCalibration.fit(o)));
+    return new CalibrationCurve(FROM_HANDLE, some(glue.QbCalibration.fit(o, uT, uS, given)));
   }
 
   /** Least-squares curve for an instrument's exact model over [tMinK, tMaxK]. */
@@ -89,6 +101,35 @@ export class CalibrationCurve {
     const h = instrumentHandle(instrument, 'instrument');
     num(referenceTemperatureK, 'referenceTemperatureK');
     return new CalibrationCurve(FROM_HANDLE, some(glue.QbCalibration.fromResponse(h, referenceTemperatureK)));
+  }
+
+  /**
+   * A curve exact through an instrument's signals at three ITS-90 fixed points, with its
+   * interpolation errors; options { c2 = "its90", uTemperaturesK, uSignals, tMinK, tMaxK, nPoints }.
+   */
+  static throughFixedPoints(instrument, fixedPoints, options) {
+    ready();
+    const h = instrumentHandle(instrument, 'instrument');
+    const args = _fixedPointArgs(fixedPoints, options);
+    return new CalibrationCurve(FROM_HANDLE, some(glue.QbCalibration.throughFixedPoints(h, ...args)));
+  }
+
+  /** The fixed points and interpolation errors of a curve from throughFixedPoints (else undefined). */
+  get fixedPointReport() {
+    return this.#fixedPoints;
+  }
+
+  /** Covariance and correlation matrices of (aM, bMK, c) from the reference points' uncertainties. */
+  parameterCovariance() {
+    return _parameterCovariance(this.#live());
+  }
+
+  /** A reading's temperature, its calibration uncertainty and ∂T/∂T_i, ∂T/∂S_i of each point. */
+  readingUncertainty(signal, uSignal = 0) {
+    const h = this.#live();
+    num(signal, 'signal');
+    num(uSignal, 'uSignal');
+    return _readingUncertainty(h, signal, uSignal);
   }
 
   /** `{ aM, bMK, c, c2 }` (frozen). */

@@ -127,39 +127,6 @@ export interface Sensitivities {
   readonly pathTemperature: number;
 }
 
-/** Standard uncertainties of the inputs (all ≥ 0; omitted = 0). */
-export interface StandardUncertainties {
-  signal?: number;
-  emissivity?: number;
-  reflectedTemperatureK?: number;
-  pathTransmittance?: number;
-  pathTemperatureK?: number;
-}
-
-/** An input of the uncertainty budget. */
-export type BudgetInput = "signal" | "emissivity" | "reflectedTemperature" | "pathTransmittance" | "pathTemperature";
-
-/** One row of a GUM uncertainty budget. */
-export interface BudgetEntry {
-  readonly input: BudgetInput;
-  /** ∂T/∂x. */
-  readonly sensitivity: number;
-  /** u(x). */
-  readonly standardUncertainty: number;
-  /** |∂T/∂x|·u(x), K. */
-  readonly contributionK: number;
-  /** Share of the combined variance, 0…1. */
-  readonly varianceShare: number;
-}
-
-/** A GUM (first-order, uncorrelated inputs) uncertainty budget of the object temperature. */
-export interface UncertaintyBudget {
-  readonly temperatureK: number;
-  readonly entries: readonly BudgetEntry[];
-  /** Combined standard uncertainty u_c(T), K. */
-  readonly combinedStandardUncertaintyK: number;
-}
-
 /**
  * An instrument prepared once: `new Instrument({ model, conditions })`. Signals are in the
  * model's signal unit, temperatures in K. Bulk methods take a {@link NumberArray} and return a
@@ -197,7 +164,15 @@ export class Instrument {
   measuredSignals(objectTemperaturesK: NumberArray, out?: Float64Array): Float64Array;
   objectTemperatures(signals: NumberArray, out?: Float64Array): Float64Array;
   sensitivities(signal: number): Sensitivities;
-  uncertaintyBudget(signal: number, uncertainties: StandardUncertainties): UncertaintyBudget;
+  /**
+   * The GUM budget (JCGM 100) of the object temperature at a reading: the analytic sensitivity
+   * of every input of the measurement equation (window included when the conditions have one),
+   * the inputs' uncertainties with Type A/B, degrees of freedom and distributions, optional
+   * correlations, ν_eff (Welch–Satterthwaite), k for the coverage probability (default 0.95) or
+   * a stated k, U = k·u_c, and the method statement. Check it by Monte Carlo with
+   * `MonteCarlo.measurement` (same arguments) where the equation is strongly non-linear.
+   */
+  uncertaintyBudget(signal: number, uncertainties: MeasurementUncertainties, options?: BudgetOptions): UncertaintyBudget;
   measurementAffine(): AffineForm;
   /** Response models only (else UNSUPPORTED): moments of R(λ), in the model's unit. */
   responseMoments(): ResponseMoments;

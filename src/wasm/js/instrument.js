@@ -4,6 +4,7 @@
 
 import { disposed, wrongType } from './errors.js';
 import { bulk, config, glue, num, ready, result, some } from './runtime.js';
+import { _measurementBudget } from './uncertainty_results.js';
 
 // Bulk operation numbers of QbInstrument.bulk.
 const SIGNALS = 0;
@@ -134,11 +135,11 @@ export class Instrument {
     return some(h.sensitivities(signal));
   }
 
-  uncertaintyBudget(signal, uncertainties) {
+  /** The GUM budget of the object temperature at a reading (see uncertainty.d.ts). */
+  uncertaintyBudget(signal, uncertainties, options) {
     const h = this.#live();
     num(signal, 'signal');
-    const u = config(uncertainties, 'uncertainties');
-    return some(h.uncertaintyBudget(signal, u));
+    return _measurementBudget(h, signal, uncertainties, options);
   }
 
   measurementAffine() {

@@ -4,8 +4,11 @@
 //   - Node, `import … from 'quantaband'` (the "node" condition: instantiated at import, no init);
 //   - Node, `quantaband/web` + `initSync` with the bytes of the `quantaband/quantaband_bg.wasm`
 //     subpath export;
-//   - TypeScript `tsc --strict` on a consumer file (module/moduleResolution nodenext), resolving
-//     the types through the manifest;
+//   - TypeScript consumer projects under strict + exactOptionalPropertyTypes +
+//     noUncheckedIndexedAccess, resolving the types through the manifest: module/moduleResolution
+//     nodenext (consumer.ts, and consumer-require.cts through `require`) and esnext/bundler
+//     (consumer.ts, and consumer-bundler.ts with the `.wasm` subpath); every @ts-expect-error
+//     line must cover a real error;
 //   - headless Chromium (Debian's, driven by playwright-core): the "default" entry with
 //     `await init()` on the main thread and in a module web worker, served from 127.0.0.1,
 //     with no request leaving that origin and no console error.
@@ -16,7 +19,7 @@
 import { after, before, test } from 'node:test';
 import assert from 'node:assert/strict';
 import { execFileSync } from 'node:child_process';
-import { mkdtempSync, readFileSync, rmSync, statSync, writeFileSync } from 'node:fs';
+import { mkdirSync, mkdtempSync, readFileSync, rmSync, statSync, writeFileSync } from 'node:fs';
 import { createServer } from 'node:http';
 import { tmpdir } from 'node:os';
 import { dirname, extname, join, normalize, resolve, sep } from 'node:path';
@@ -72,7 +75,7 @@ function run(cmd, args, opts = {}) {
 }
 
 before(() => {
-  tgz = process.env.QB_TARBALL ?? run('bash', [join(root, 'pkg-scripts', 'pack.sh')]).trim().split('\n').pop();
+  tgz = process.env.QB_TARBALL || run('bash', [join(root, 'pkg-scripts', 'pack.sh')]).trim().split('\n').pop();
   assert.ok(statSync(tgz).isFile(), `tarball ${tgz} not found`);
   scratch = mkdtempSync(join(tmpdir(), 'quantaband-smoke-'));
   writeFileSync(
@@ -92,6 +95,7 @@ after(() => {
 test('the tarball holds the package files and nothing else', () => {
   const entries = run('tar', ['-tzf', tgz]).trim().split('\n').sort();
   const required = [
+    'package/CHANGELOG.md',
     'package/LICENSE',
     'package/README.md',
     'package/node.js',
@@ -99,6 +103,7 @@ test('the tarball holds the package files and nothing else', () => {
     'package/quantaband.d.ts',
     'package/quantaband.js',
     'package/quantaband_bg.wasm',
+    'package/quantaband_bg.wasm.d.ts',
     'package/quantaband_glue.js',
   ];
   for (const f of required) assert.ok(entries.includes(f), `${f} missing from the tarball`);
@@ -125,7 +130,27 @@ test('the installed manifest is an ES module package with node/default entries a
   assert.equal(pj.exports['.'].node, './node.js');
   assert.equal(pj.exports['.'].default, './quantaband.js');
   assert.equal(Object.keys(pj.exports['.'])[0], 'types', '"types" must come first to be picked by TypeScript');
-  assert.equal(pj.exports['./quantaband_bg.wasm'], './quantaband_bg.wasm');
+  assert.deepEqual(pj.exports['./quantaband_bg.wasm'], {
+    types: './quantaband_bg.wasm.d.ts',
+    default: './quantaband_bg.wasm',
+  });
+  for (const [subpath, target] of Object.entries(pj.exports)) {
+    if (typeof target === 'object') assert.equal(Object.keys(target)[0], 'types', `exports["${subpath}"]: "types" first`);
+  }
+  // Metadata: the Node versions with require(esm) unflagged (the CommonJS consumer in
+  // tests/consumers checks require on this Node), explicit files, tree-shaking hint, keywords.
+  assert.equal(pj.engines.node, '^20.19.0 || >=22.12.0');
+  assert.deepEqual(pj.sideEffects, ['./node.js']);
+  assert.ok(pj.files.includes('CHANGELOG.md') && pj.files.includes('quantaband_bg.wasm'), 'files');
+  for (const k of ['planck', 'radiometry', 'thermometry', 'blackbody', 'webassembly', 'infrared']) {
+    assert.ok(pj.keywords.includes(k), `keyword ${k}`);
+  }
+  // The project has no public URL: no invented repository/homepage/bugs fields.
+  for (const field of ['repository', 'homepage', 'bugs']) assert.equal(pj[field], undefined, field);
+  assert.ok(
+    readFileSync(join(installed, 'CHANGELOG.md'), 'utf8') === readFileSync(join(root, 'CHANGELOG.md'), 'utf8'),
+    'the packed CHANGELOG.md is not the repository\'s (rebuild the package)',
+  );
   const wasm = readFileSync(join(installed, 'quantaband_bg.wasm'));
   assert.ok(WebAssembly.validate(wasm), 'packed .wasm must validate');
   assert.deepEqual(
@@ -167,41 +192,65 @@ test('Node: the web entry works with initSync and the .wasm subpath export', () 
   checkProbe(out.result, reference, errorCodesInCore);
 });
 
-test('TypeScript: a strict consumer type-checks against the installed package, and a wrong call is rejected', async () => {
-  const typescriptConsumer = readFileSync(join(here, 'consumer.ts'), 'utf8');
-  writeFileSync(join(scratch, 'consumer.ts'), typescriptConsumer);
-  writeFileSync(
-    join(scratch, 'tsconfig.json'),
-    JSON.stringify({
-      compilerOptions: {
-        strict: true,
-        noEmit: true,
-        target: 'es2022',
-        module: 'nodenext',
-        moduleResolution: 'nodenext',
-        lib: ['es2022', 'dom'],
-        types: [],
-        skipLibCheck: false,
-      },
-      files: ['consumer.ts'],
-    }),
-  );
-  const tsc = join(root, 'node_modules', 'typescript', 'bin', 'tsc');
-  let output = '';
-  try {
-    output = run('node', [tsc, '-p', 'tsconfig.json'], { cwd: scratch });
-  } catch (e) {
-    assert.fail(`tsc rejected the consumer:\n${e.stdout}${e.stderr}`);
-  }
-  assert.equal(output.trim(), '');
-  // The same file without its @ts-expect-error line must fail: the types are not `any`.
-  writeFileSync(join(scratch, 'consumer.ts'), typescriptConsumer.replace(/^\s*\/\/ @ts-expect-error.*$/m, ''));
-  assert.throws(
-    () => run('node', [tsc, '-p', 'tsconfig.json'], { cwd: scratch }),
-    (e) => /consumer\.ts\(\d+,\d+\): error TS2345/.test(String(e.stdout)),
-    'tsc must reject the call that the @ts-expect-error line covers',
-  );
-});
+const TS_COMMON = {
+  strict: true,
+  exactOptionalPropertyTypes: true,
+  noUncheckedIndexedAccess: true,
+  noEmit: true,
+  target: 'es2022',
+  lib: ['es2022', 'dom'],
+  types: [],
+  // The package's declarations are checked; the compiler's own lib files need not be.
+  skipLibCheck: false,
+  skipDefaultLibCheck: true,
+};
+const TS_PROJECTS = {
+  nodenext: { options: { module: 'nodenext', moduleResolution: 'nodenext' }, files: ['consumer.ts', 'consumer-require.cts'] },
+  bundler: { options: { module: 'esnext', moduleResolution: 'bundler' }, files: ['consumer.ts', 'consumer-bundler.ts'] },
+};
+
+for (const [name, project] of Object.entries(TS_PROJECTS)) {
+  test(`TypeScript (${name} resolution, exactOptionalPropertyTypes): consumers type-check and wrong calls are rejected`, () => {
+    const dir = join(scratch, `ts-${name}`);
+    mkdirSync(dir, { recursive: true });
+    const sources = Object.fromEntries(project.files.map((f) => [f, readFileSync(join(here, f), 'utf8')]));
+    const write = (blankExpectations) => {
+      for (const [f, text] of Object.entries(sources)) {
+        writeFileSync(join(dir, f), blankExpectations ? text.replace(/^[ \t]*\/\/ @ts-expect-error.*$/gm, '') : text);
+      }
+    };
+    // The consumer project sits beside the scratch project's node_modules (resolution walks up).
+    writeFileSync(
+      join(dir, 'tsconfig.json'),
+      JSON.stringify({ compilerOptions: { ...TS_COMMON, ...project.options }, files: project.files }),
+    );
+    const tsc = join(root, 'node_modules', 'typescript', 'bin', 'tsc');
+    write(false);
+    try {
+      run('node', [tsc, '-p', 'tsconfig.json'], { cwd: dir });
+    } catch (e) {
+      assert.fail(`tsc rejected the consumers:\n${e.stdout}${e.stderr}`);
+    }
+    // Without the @ts-expect-error lines (blanked, so line numbers stay), each line after one
+    // must have an error: the types are not \`any\`.
+    const expected = [];
+    for (const [f, text] of Object.entries(sources)) {
+      text.split('\n').forEach((line, i) => {
+        if (/^\s*\/\/ @ts-expect-error/.test(line)) expected.push(`${f}(${i + 2})`);
+      });
+    }
+    assert.ok(expected.length >= 4, `only ${expected.length} @ts-expect-error lines`);
+    write(true);
+    let output = '';
+    try {
+      run('node', [tsc, '-p', 'tsconfig.json'], { cwd: dir });
+    } catch (e) {
+      output = String(e.stdout);
+    }
+    const got = new Set([...output.matchAll(/^([\w.-]+)\((\d+),\d+\): error TS\d+/gm)].map((m) => `${m[1]}(${m[2]})`));
+    for (const where of expected) assert.ok(got.has(where), `no error at ${where}; tsc said:\n${output}`);
+  });
+}
 
 const MIME = {
   '.html': 'text/html; charset=utf-8',
