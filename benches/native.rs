@@ -165,14 +165,14 @@ mod cases {
     use quantaband::planck::{self, Spectrum};
     use quantaband::stats::{self, BoseOrder, FdOrder};
     use quantaband::thermometry::frame::FrameInput;
+    use quantaband::thermometry::gum::{Distribution, InputUncertainty};
+    use quantaband::thermometry::measurement_gum::{measurement_estimates, MeasurementEquation};
+    use quantaband::thermometry::monte_carlo::{MonteCarlo, MonteCarloConfig, TrialCount};
     use quantaband::thermometry::spectral::{
         spectral_measured_signal, SpectralConditions, SpectralInstrument, SpectralValue,
         SpectralWindow,
     };
     use quantaband::thermometry::table::{SpectralTableBuf, TableKind};
-    use quantaband::thermometry::gum::{Distribution, InputUncertainty};
-    use quantaband::thermometry::measurement_gum::{measurement_estimates, MeasurementEquation};
-    use quantaband::thermometry::monte_carlo::{MonteCarlo, MonteCarloConfig, TrialCount};
     use quantaband::thermometry::{
         Conditions, FrameConverter, Response, ResponseSignal, SakumaHattori, SignalModel,
     };

@@ -331,12 +331,10 @@ impl CalibrationHandle {
         })())
     }
 
-    /// Converts the frame in scratch into f64 or f32 buffer 1. Without per-pixel maps the
-    /// input is f64 buffer 0, f32 buffer 0 or u16 buffer 0 by `input`. With maps (emissivity in
-    /// f64 buffer 2 when `map`, gain in f64 buffer 3, offset in f64 buffer 4, as the settings
-    /// say) the input is f64 buffer 0; with a bad-pixel mask only (u8 buffer 0) it is f64
-    /// buffer 0 except u16 or f32 input into f32 output, which stays in its own buffer (the
-    /// single-precision loop).
+    /// Converts the frame in scratch into f64 or f32 buffer 1. Without per-pixel corrections
+    /// the input is f64 buffer 0, f32 buffer 0 or u16 buffer 0 by `input`. With corrections
+    /// (emissivity in f64 buffer 2 when `map`, gain in f64 buffer 3, offset in f64 buffer 4, a
+    /// bad-pixel mask in u8 buffer 0, as the settings say) the input is f64 buffer 0.
     #[wasm_bindgen(js_name = convertFrame)]
     pub fn convert_frame(
         &self,
@@ -395,19 +393,12 @@ impl CalibrationHandle {
                                     emissivity: if map { Some(&f2[..]) } else { None },
                                     bad_pixels: if masked { Some(&m[..]) } else { None },
                                 };
-                                match (input, out_f64, maps) {
-                                    (KIND_U16, false, false) => {
-                                        conv.convert_corrected(&u[..], &corr, &mut g1[..])
-                                    }
-                                    (KIND_F32, false, false) => {
-                                        conv.convert_corrected(&g0[..], &corr, &mut g1[..])
-                                    }
-                                    (_, true, _) => {
-                                        conv.convert_corrected(&f0[..], &corr, &mut f1[..])
-                                    }
-                                    (_, false, _) => {
-                                        conv.convert_corrected(&f0[..], &corr, &mut g1[..])
-                                    }
+                                // Corrections take the frame as f64 (one loop per output
+                                // type instead of one per input type: smaller module).
+                                if out_f64 {
+                                    conv.convert_corrected(&f0[..], &corr, &mut f1[..])
+                                } else {
+                                    conv.convert_corrected(&f0[..], &corr, &mut g1[..])
                                 }
                             })
                         })

@@ -47,6 +47,13 @@ use crate::units::{SpectralKind, SpectralUnit};
 // are never used (configuration objects are plain objects). Errors go through the same
 // reader (`config::read`), so they name the field path as everywhere else.
 
+/// `m.next_value()` out of line: one copy per value type however many fields read it (inlined,
+/// each field site carried its own copy of the reader).
+#[inline(never)]
+fn next<'de, A: MapAccess<'de>, T: Deserialize<'de>>(m: &mut A) -> Result<T, A::Error> {
+    m.next_value()
+}
+
 /// A table: wavelengths in a wavelength unit, values, and `ends` (condition tables) or
 /// `quantity` (the response).
 struct TableDef {
@@ -73,11 +80,11 @@ impl<'de> Visitor<'de> for TableVisitor {
         let (mut ends, mut quantity) = (Ends::Reject, Quantity::Energy);
         while let Some(key) = m.next_key::<alloc::string::String>()? {
             match key.as_str() {
-                "wavelengths" => wavelengths = Some(m.next_value()?),
-                "values" => values = Some(m.next_value()?),
-                "unit" => unit = Some(m.next_value()?),
-                "ends" if !self.0 => ends = m.next_value()?,
-                "quantity" if self.0 => quantity = m.next_value()?,
+                "wavelengths" => wavelengths = Some(next(&mut m)?),
+                "values" => values = Some(next(&mut m)?),
+                "unit" => unit = Some(next(&mut m)?),
+                "ends" if !self.0 => ends = next(&mut m)?,
+                "quantity" if self.0 => quantity = next(&mut m)?,
                 other => {
                     let fields = if self.0 {
                         RESPONSE_FIELDS
@@ -151,10 +158,10 @@ impl<'de> Deserialize<'de> for WindowDef {
                 let (mut transmittance, mut reflectance, mut t, mut tr) = (None, None, None, None);
                 while let Some(key) = m.next_key::<alloc::string::String>()? {
                     match key.as_str() {
-                        "transmittance" => transmittance = m.next_value()?,
-                        "reflectance" => reflectance = m.next_value()?,
-                        "temperatureK" => t = m.next_value()?,
-                        "reflectedTemperatureK" => tr = m.next_value()?,
+                        "transmittance" => transmittance = next(&mut m)?,
+                        "reflectance" => reflectance = next(&mut m)?,
+                        "temperatureK" => t = next(&mut m)?,
+                        "reflectedTemperatureK" => tr = next(&mut m)?,
                         other => {
                             return Err(de::Error::unknown_field(
                                 other,
@@ -203,12 +210,12 @@ impl<'de> Deserialize<'de> for ConditionsDef {
                 let mut c = ConditionsDef::default();
                 while let Some(key) = m.next_key::<alloc::string::String>()? {
                     match key.as_str() {
-                        "emissivity" => c.emissivity = m.next_value()?,
-                        "reflectance" => c.reflectance = m.next_value()?,
-                        "reflectedTemperatureK" => c.reflected_temperature_k = m.next_value()?,
-                        "pathTransmittance" => c.path_transmittance = m.next_value()?,
-                        "pathTemperatureK" => c.path_temperature_k = m.next_value()?,
-                        "window" => c.window = m.next_value()?,
+                        "emissivity" => c.emissivity = next(&mut m)?,
+                        "reflectance" => c.reflectance = next(&mut m)?,
+                        "reflectedTemperatureK" => c.reflected_temperature_k = next(&mut m)?,
+                        "pathTransmittance" => c.path_transmittance = next(&mut m)?,
+                        "pathTemperatureK" => c.path_temperature_k = next(&mut m)?,
+                        "window" => c.window = next(&mut m)?,
                         other => {
                             return Err(de::Error::unknown_field(
                                 other,
@@ -250,8 +257,8 @@ impl<'de> Deserialize<'de> for Definition {
                 while let Some(key) = m.next_key::<alloc::string::String>()? {
                     match key.as_str() {
                         "response" => response = Some(m.next_value::<ResponseDef>()?.0),
-                        "conditions" => conditions = m.next_value()?,
-                        "c2" => c2 = m.next_value()?,
+                        "conditions" => conditions = next(&mut m)?,
+                        "c2" => c2 = next(&mut m)?,
                         other => {
                             return Err(de::Error::unknown_field(
                                 other,

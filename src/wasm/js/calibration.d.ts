@@ -141,10 +141,9 @@ export class CalibrationCurve {
   /**
    * Converts a whole frame to object temperatures through this curve and the measurement
    * equation, into a new array or the caller's `out` (no allocation per frame then). Invalid
-   * pixels become NaN and are counted; they do not throw. Per-pixel maps (`emissivity`,
-   * `pixelGain`, `pixelOffset`) take the double-precision loop; without them (a `badPixels`
-   * mask alone included) u16 counts and f32 signals into Float32Array output take the
-   * single-precision loop.
+   * pixels become NaN and are counted; they do not throw. Per-pixel corrections (`emissivity`,
+   * `pixelGain`, `pixelOffset`, `badPixels`) take the double-precision loop; without them u16
+   * counts and f32 signals into Float32Array output take the single-precision loop.
    *
    * Caution: a calculation from the given emissivity and conditions, not a substitute for a
    * calibrated instrument; never use it for medical or fever screening.

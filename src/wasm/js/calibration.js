@@ -229,10 +229,9 @@ export class CalibrationCurve {
     const gains = pixelMap(kept.pixelGain, 'options.pixelGain', n);
     const offsets = pixelMap(kept.pixelOffset, 'options.pixelOffset', n);
     const mask = badPixelMask(kept.badPixels, n);
-    // Per-pixel maps take the f64 loop with the frame as f64; a mask alone keeps u16/f32 frames
-    // into f32 in their own buffer (the single-precision loop).
-    const maps = eps !== null || gains !== null || offsets !== null;
-    const own = !maps && (mask === null || (!f64Out && kind !== F64));
+    // Per-pixel corrections take the frame as f64 (the module has one corrected loop per
+    // output type); without them each input type keeps its own loop.
+    const own = eps === null && gains === null && offsets === null && mask === null;
     // Reserve every buffer first, then write (no memory growth between the views).
     const inKind = own ? kind : F64;
     const pIn = reserve(inKind, 0, n);
