@@ -19,7 +19,7 @@ use serde::Deserialize;
 use wasm_bindgen::prelude::*;
 
 use super::config::read;
-use super::error::{in_config, number, some, to_js, Fail};
+use super::error::{in_config, number, some, Fail};
 use super::instrument::InstrumentHandle;
 use super::scratch::{map_in_place, status, with_f64};
 use super::testing::Live;
@@ -47,13 +47,6 @@ use crate::units::{SpectralKind, SpectralUnit};
 // are never used (configuration objects are plain objects). Errors go through the same
 // reader (`config::read`), so they name the field path as everywhere else.
 
-/// `m.next_value()` out of line: one copy per value type however many fields read it (inlined,
-/// each field site carried its own copy of the reader).
-#[inline(never)]
-fn next<'de, A: MapAccess<'de>, T: Deserialize<'de>>(m: &mut A) -> Result<T, A::Error> {
-    m.next_value()
-}
-
 /// A table: wavelengths in a wavelength unit, values, and `ends` (condition tables) or
 /// `quantity` (the response).
 struct TableDef {
@@ -80,11 +73,11 @@ impl<'de> Visitor<'de> for TableVisitor {
         let (mut ends, mut quantity) = (Ends::Reject, Quantity::Energy);
         while let Some(key) = m.next_key::<alloc::string::String>()? {
             match key.as_str() {
-                "wavelengths" => wavelengths = Some(next(&mut m)?),
-                "values" => values = Some(next(&mut m)?),
-                "unit" => unit = Some(next(&mut m)?),
-                "ends" if !self.0 => ends = next(&mut m)?,
-                "quantity" if self.0 => quantity = next(&mut m)?,
+                "wavelengths" => wavelengths = Some(m.next_value()?),
+                "values" => values = Some(m.next_value()?),
+                "unit" => unit = Some(m.next_value()?),
+                "ends" if !self.0 => ends = m.next_value()?,
+                "quantity" if self.0 => quantity = m.next_value()?,
                 other => {
                     let fields = if self.0 {
                         RESPONSE_FIELDS
@@ -158,10 +151,10 @@ impl<'de> Deserialize<'de> for WindowDef {
                 let (mut transmittance, mut reflectance, mut t, mut tr) = (None, None, None, None);
                 while let Some(key) = m.next_key::<alloc::string::String>()? {
                     match key.as_str() {
-                        "transmittance" => transmittance = next(&mut m)?,
-                        "reflectance" => reflectance = next(&mut m)?,
-                        "temperatureK" => t = next(&mut m)?,
-                        "reflectedTemperatureK" => tr = next(&mut m)?,
+                        "transmittance" => transmittance = m.next_value()?,
+                        "reflectance" => reflectance = m.next_value()?,
+                        "temperatureK" => t = m.next_value()?,
+                        "reflectedTemperatureK" => tr = m.next_value()?,
                         other => {
                             return Err(de::Error::unknown_field(
                                 other,
@@ -210,12 +203,12 @@ impl<'de> Deserialize<'de> for ConditionsDef {
                 let mut c = ConditionsDef::default();
                 while let Some(key) = m.next_key::<alloc::string::String>()? {
                     match key.as_str() {
-                        "emissivity" => c.emissivity = next(&mut m)?,
-                        "reflectance" => c.reflectance = next(&mut m)?,
-                        "reflectedTemperatureK" => c.reflected_temperature_k = next(&mut m)?,
-                        "pathTransmittance" => c.path_transmittance = next(&mut m)?,
-                        "pathTemperatureK" => c.path_temperature_k = next(&mut m)?,
-                        "window" => c.window = next(&mut m)?,
+                        "emissivity" => c.emissivity = m.next_value()?,
+                        "reflectance" => c.reflectance = m.next_value()?,
+                        "reflectedTemperatureK" => c.reflected_temperature_k = m.next_value()?,
+                        "pathTransmittance" => c.path_transmittance = m.next_value()?,
+                        "pathTemperatureK" => c.path_temperature_k = m.next_value()?,
+                        "window" => c.window = m.next_value()?,
                         other => {
                             return Err(de::Error::unknown_field(
                                 other,
@@ -257,8 +250,8 @@ impl<'de> Deserialize<'de> for Definition {
                 while let Some(key) = m.next_key::<alloc::string::String>()? {
                     match key.as_str() {
                         "response" => response = Some(m.next_value::<ResponseDef>()?.0),
-                        "conditions" => conditions = next(&mut m)?,
-                        "c2" => c2 = next(&mut m)?,
+                        "conditions" => conditions = m.next_value()?,
+                        "c2" => c2 = m.next_value()?,
                         other => {
                             return Err(de::Error::unknown_field(
                                 other,
@@ -578,6 +571,17 @@ impl SpectralHandle {
     }
 }
 
+/// Writes `v` to f64 scratch buffer 0 for the facade, which builds the result object (smaller
+/// than a serde result type per method); returns the count.
+#[inline(never)]
+fn out(v: &[f64]) -> f64 {
+    with_f64(|b| {
+        b[0].clear();
+        b[0].extend_from_slice(v);
+    });
+    v.len() as f64
+}
+
 #[wasm_bindgen(js_class = QbSpectral)]
 impl SpectralHandle {
     /// Reads and checks a definition `{ response, conditions?, c2? }` (plain-data copy).
@@ -620,26 +624,63 @@ impl SpectralHandle {
         )
     }
 
+    /// The five terms and their sum into f64 scratch buffer 0 (signal, object, reflected,
+    /// path, window reflected, window emitted); their number, or NaN with the error stored.
     #[wasm_bindgen(js_name = signalTerms)]
-    pub fn signal_terms(&self, t: f64) -> Option<JsValue> {
-        some((|| {
+    pub fn signal_terms(&self, t: f64) -> f64 {
+        number((|| {
             check::temperature("objectTemperatureK", t)?;
-            to_js(&self.run(|inst, c| spectral_signal_terms(inst, t, c))?)
+            let r = self.run(|inst, c| spectral_signal_terms(inst, t, c))?;
+            Ok(out(&[
+                r.signal,
+                r.object,
+                r.reflected,
+                r.path,
+                r.window_reflected,
+                r.window_emitted,
+            ]))
         })())
     }
 
+    /// The band-effective values into f64 scratch buffer 0, in the order of the core's
+    /// `BandEffective` fields; their number, or NaN with the error stored.
     #[wasm_bindgen(js_name = bandEffective)]
-    pub fn band_effective(&self, t: f64) -> Option<JsValue> {
-        some((|| {
+    pub fn band_effective(&self, t: f64) -> f64 {
+        number((|| {
             check::temperature("temperatureK", t)?;
-            to_js(&self.run(|inst, c| band_effective(inst, t, c))?)
+            let e = self.run(|inst, c| band_effective(inst, t, c))?;
+            Ok(out(&[
+                e.temperature_k,
+                e.emissivity,
+                e.reflectance,
+                e.path_transmittance,
+                e.window_transmittance,
+                e.window_reflectance,
+                e.object_gain,
+            ]))
         })())
     }
 
-    pub fn sensitivities(&self, signal: f64) -> Option<JsValue> {
-        some((|| {
+    /// The sensitivities into f64 scratch buffer 0, in the order of the core's
+    /// `SpectralSensitivities` fields; their number, or NaN with the error stored.
+    pub fn sensitivities(&self, signal: f64) -> f64 {
+        number((|| {
             check::finite("signal", signal)?;
-            to_js(&self.run(|inst, c| spectral_sensitivities(inst, signal, c))?)
+            let s = self.run(|inst, c| spectral_sensitivities(inst, signal, c))?;
+            Ok(out(&[
+                s.temperature_k,
+                s.signal,
+                s.emissivity_scale,
+                s.reflectance_scale,
+                s.path_transmittance_scale,
+                s.window_transmittance_scale,
+                s.window_reflectance_scale,
+                s.response_scale,
+                s.reflected_temperature,
+                s.path_temperature,
+                s.window_temperature,
+                s.window_reflected_temperature,
+            ]))
         })())
     }
 
@@ -663,19 +704,14 @@ impl SpectralHandle {
         })())
     }
 
-    /// The reference-coating method with this instrument's response.
+    /// The reference-coating method with this instrument's response: emissivity and true
+    /// temperature into f64 scratch buffer 0 (see [`out`]).
     #[wasm_bindgen(js_name = referenceEmissivity)]
-    pub fn reference_emissivity(
-        &self,
-        a: f64,
-        b: f64,
-        c: f64,
-        d: f64,
-        setting: JsValue,
-    ) -> Option<JsValue> {
-        some((|| {
+    pub fn reference_emissivity(&self, a: f64, b: f64, c: f64, d: f64, setting: JsValue) -> f64 {
+        number((|| {
             let s = setting_of(setting)?;
-            to_js(&self.run(|inst, _| reference(inst, a, b, c, d, &s))?)
+            let r = self.run(|inst, _| reference(inst, a, b, c, d, &s))?;
+            Ok(out(&[r.emissivity, r.temperature_k]))
         })())
     }
 }
@@ -775,19 +811,14 @@ impl InstrumentHandle {
         })())
     }
 
-    /// The reference-coating method with this instrument's model.
+    /// The reference-coating method with this instrument's model (results as
+    /// [`SpectralHandle::reference_emissivity`]).
     #[wasm_bindgen(js_name = referenceEmissivity)]
-    pub fn reference_emissivity(
-        &self,
-        a: f64,
-        b: f64,
-        c: f64,
-        d: f64,
-        setting: JsValue,
-    ) -> Option<JsValue> {
-        some((|| {
+    pub fn reference_emissivity(&self, a: f64, b: f64, c: f64, d: f64, setting: JsValue) -> f64 {
+        number((|| {
             let s = setting_of(setting)?;
-            to_js(&self.model.run(|m| reference(m, a, b, c, d, &s))?)
+            let r = self.model.run(|m| reference(m, a, b, c, d, &s))?;
+            Ok(out(&[r.emissivity, r.temperature_k]))
         })())
     }
 }

@@ -53,6 +53,34 @@ function utf8Length(text, from, to) {
   return n;
 }
 
+// The result objects: the module writes their numbers to f64 scratch buffer 0 in this order.
+const TERMS = ['signal', 'object', 'reflected', 'path', 'windowReflected', 'windowEmitted'];
+const EFFECTIVE = ['temperatureK', 'emissivity', 'reflectance', 'pathTransmittance', 'windowTransmittance', 'windowReflectance', 'objectGain'];
+const SENSITIVITIES = [
+  'temperatureK',
+  'signal',
+  'emissivityScale',
+  'reflectanceScale',
+  'pathTransmittanceScale',
+  'windowTransmittanceScale',
+  'windowReflectanceScale',
+  'responseScale',
+  'reflectedTemperature',
+  'pathTemperature',
+  'windowTemperature',
+  'windowReflectedTemperature',
+];
+
+/** The object with `keys` and the n numbers the module left in f64 scratch buffer 0. */
+function named(keys, n) {
+  const v = readBack(F64, reserve(F64, 0, n), n, null);
+  const o = {};
+  keys.forEach((k, i) => {
+    o[k] = v[i];
+  });
+  return o;
+}
+
 let handleOf;
 
 /**
@@ -166,19 +194,19 @@ export class SpectralInstrument {
   signalTerms(objectTemperatureK) {
     const h = this.#live();
     num(objectTemperatureK, 'objectTemperatureK');
-    return some(h.signalTerms(objectTemperatureK));
+    return named(TERMS, result(h.signalTerms(objectTemperatureK)));
   }
 
   bandEffective(temperatureK) {
     const h = this.#live();
     num(temperatureK, 'temperatureK');
-    return some(h.bandEffective(temperatureK));
+    return named(EFFECTIVE, result(h.bandEffective(temperatureK)));
   }
 
   sensitivities(signal) {
     const h = this.#live();
     num(signal, 'signal');
-    return some(h.sensitivities(signal));
+    return named(SENSITIVITIES, result(h.sensitivities(signal)));
   }
 }
 
@@ -265,5 +293,5 @@ export function emissivityByReference(
   const s = settingOf(setting);
   num(referenceEmissivity, 'referenceEmissivity');
   num(reflectedTemperatureK, 'reflectedTemperatureK');
-  return some(h.referenceEmissivity(referenceReadingK, surfaceReadingK, referenceEmissivity, reflectedTemperatureK, s));
+  return named(['emissivity', 'temperatureK'], result(h.referenceEmissivity(referenceReadingK, surfaceReadingK, referenceEmissivity, reflectedTemperatureK, s)));
 }
