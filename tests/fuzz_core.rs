@@ -27,7 +27,8 @@ use quantaband::planck::{self, Geometry, Quantity, SpectralVariable, Spectrum};
 use quantaband::thermometry::SignalModel;
 use quantaband::units::{
     convert_spectral, convert_spectral_checked, convert_temperature,
-    convert_temperature_difference, SpectralKind, SpectralUnit, TemperatureUnit,
+    convert_temperature_difference, d_star_to_jones, jones_to_d_star, power_ratio_from_decibels,
+    power_ratio_to_decibels, SpectralKind, SpectralUnit, TemperatureUnit,
 };
 use quantaband::Error;
 
@@ -550,6 +551,14 @@ fn fuzz_units() {
                 &convert_temperature_difference("t", t, t1, t2),
                 d,
             )?;
+            // D* ↔ Jones and decibels: a result beyond the f64 range is OUT_OF_RANGE, never ∞.
+            ok("d_star_to_jones", &d_star_to_jones(x))?;
+            ok("jones_to_d_star", &jones_to_d_star(x))?;
+            ok(
+                "power_ratio_from_decibels",
+                &power_ratio_from_decibels("y", t),
+            )?;
+            ok("power_ratio_to_decibels", &power_ratio_to_decibels("y", x))?;
             Ok(())
         },
     );

@@ -11,6 +11,10 @@ mod common;
 use common::{arg, args, check, fuzz, ok, Arg, Inf};
 use proptest::prelude::*;
 use proptest::test_runner::TestCaseError;
+use quantaband::constants::C2Convention;
+use quantaband::design::definition::{
+    DesignDefinition, PreparedDesign, PreparedScene, SceneDefinition,
+};
 use quantaband::design::detector::{
     dark_electrons, electron_rate, noise_budget, quantum_efficiency_from_responsivity,
     responsivity_from_quantum_efficiency, Conversion, Detector, PixelReport,
@@ -32,6 +36,7 @@ use quantaband::design::throughput::{
 };
 use quantaband::planck::{Geometry, Quantity, SpectralVariable, Spectrum};
 use quantaband::thermometry::{RectangularBand, SpectralPoint};
+use quantaband::units::SpectralUnit;
 use quantaband::Error;
 
 // design/mod.rs, "Range": "Valid inputs whose true result lies beyond the f64 range ... return
@@ -503,6 +508,112 @@ fn fuzz_sources() {
                 &spot_diameter_focused_m(dist, ap, dsr, fspot),
             )?;
             dok("spot_fill", &spot_fill(target, fspot))?;
+            Ok(())
+        },
+    );
+}
+
+fn spectral_units() -> impl Strategy<Value = SpectralUnit> {
+    prop::sample::select(vec![
+        SpectralUnit::Micrometre,
+        SpectralUnit::Nanometre,
+        SpectralUnit::PerCentimetre,
+        SpectralUnit::Terahertz,
+        SpectralUnit::Electronvolt,
+    ])
+}
+
+fn scene_definitions() -> impl Strategy<Value = SceneDefinition> {
+    (
+        args(&[positive(0.5, 30.0), positive(0.5, 30.0), unit_open_closed()]),
+        spectral_units(),
+    )
+        .prop_map(|(v, unit)| SceneDefinition::Band {
+            lower: v[0],
+            upper: v[1],
+            unit,
+            emissivity: v[2],
+            c2: C2Convention::Codata2018,
+        })
+}
+
+fn detectors() -> impl Strategy<Value = Detector> {
+    (
+        conversions(),
+        args(&[
+            positive(1e-11, 1e-9),
+            positive(1e-5, 1e-1),
+            positive(1e4, 1e8),
+            arg(0.0, 1e-9).edges(&[0.0]),
+            arg(0.0, 500.0).edges(&[0.0]),
+        ]),
+    )
+        .prop_map(|(conversion, v)| Detector {
+            pixel_area_m2: v[0],
+            conversion,
+            integration_time_s: v[1],
+            full_well_electrons: v[2],
+            dark_current_a: v[3],
+            read_noise_electrons: v[4],
+        })
+}
+
+#[test]
+fn fuzz_design_definition() {
+    fuzz(
+        "design definition",
+        1500,
+        (
+            optics(),
+            detectors(),
+            scene_definitions(),
+            args(&[
+                arg(0.0, 1e6).edges(&[0.0]),
+                temperature(),
+                positive(1e6, 1e12),
+                positive(1e-3, 1.0),
+                positive(1e-6, 15e-6),
+            ]),
+            any::<bool>(),
+        ),
+        |(optics, detector, scene, v, with_peak)| {
+            let conversion = detector.conversion;
+            let prepared_scene = SceneDefinition::prepare(&scene, conversion);
+            ok("SceneDefinition::prepare", &prepared_scene)?;
+            if let Ok(s) = &prepared_scene {
+                let _ = PreparedScene::kind(s);
+                ok(
+                    "<PreparedScene as InBand>::in_band",
+                    &<PreparedScene as InBand>::in_band(s, v[1]),
+                )?;
+            }
+            let definition = DesignDefinition {
+                optics,
+                detector,
+                scene,
+                background_electrons_per_s: v[0],
+            };
+            let prepared = DesignDefinition::prepare(&definition);
+            ok("DesignDefinition::prepare", &prepared)?;
+            if let Ok(d) = &prepared {
+                let peak = with_peak.then_some(v[4]);
+                report_check(
+                    "PreparedDesign::evaluate",
+                    &PreparedDesign::evaluate(d, v[1]),
+                )?;
+                ok(
+                    "PreparedDesign::d_star_shape",
+                    &PreparedDesign::d_star_shape(d, peak),
+                )?;
+                dok(
+                    "PreparedDesign::netd_from_d_star",
+                    &PreparedDesign::netd_from_d_star(d, v[2], v[1], peak),
+                )?;
+                dok(
+                    "PreparedDesign::d_star_from_netd",
+                    &PreparedDesign::d_star_from_netd(d, v[3], v[1], peak),
+                )?;
+            }
             Ok(())
         },
     );

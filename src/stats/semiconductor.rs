@@ -528,6 +528,21 @@ impl Semiconductor {
         Ok((BOLTZMANN_K * temperature_k, eg))
     }
 
+    /// kT, E_g, the effective density of states N and ln N of the conduction band (or, with
+    /// `holes`, of the valence band) at `temperature_k`. One out-of-line copy for every method
+    /// (each inlined its own copy before, about 1 KB of the WebAssembly module).
+    #[inline(never)]
+    fn band(&self, holes: bool, temperature_k: f64) -> Result<(f64, f64, f64, f64)> {
+        let (kt, eg) = self.kt_and_gap(temperature_k)?;
+        let m = if holes {
+            self.hole_mass_ratio
+        } else {
+            self.electron_mass_ratio
+        };
+        let n = effective_density_of_states(m, temperature_k)?;
+        Ok((kt, eg, n, ln_dos(n, m, temperature_k)))
+    }
+
     /// Electron density (m⁻³) in the conduction band for a Fermi level `fermi_level_j` (J above
     /// E_v) at `temperature_k` (K), with the Boltzmann approximation and its error.
     ///
@@ -561,8 +576,7 @@ impl Semiconductor {
         temperature_k: f64,
     ) -> Result<CarrierDensity> {
         error::finite("fermi_level_j", fermi_level_j)?;
-        let (kt, eg) = self.kt_and_gap(temperature_k)?;
-        let nc = effective_density_of_states(self.electron_mass_ratio, temperature_k)?;
+        let (kt, eg, nc, _) = self.band(false, temperature_k)?;
         band_carrier_density(nc, (fermi_level_j - eg) / kt)
     }
 
@@ -594,8 +608,7 @@ impl Semiconductor {
     /// Sze & Ng (2007), §1.4.1 (from memory).
     pub fn hole_density(&self, fermi_level_j: f64, temperature_k: f64) -> Result<CarrierDensity> {
         error::finite("fermi_level_j", fermi_level_j)?;
-        let (kt, _) = self.kt_and_gap(temperature_k)?;
-        let nv = effective_density_of_states(self.hole_mass_ratio, temperature_k)?;
+        let (kt, _, nv, _) = self.band(true, temperature_k)?;
         band_carrier_density(nv, -fermi_level_j / kt)
     }
 
@@ -633,9 +646,7 @@ impl Semiconductor {
         temperature_k: f64,
     ) -> Result<f64> {
         error::positive("electron_density_per_m3", electron_density_per_m3)?;
-        let (kt, eg) = self.kt_and_gap(temperature_k)?;
-        let nc = effective_density_of_states(self.electron_mass_ratio, temperature_k)?;
-        let ln_nc = ln_dos(nc, self.electron_mass_ratio, temperature_k);
+        let (kt, eg, nc, ln_nc) = self.band(false, temperature_k)?;
         Ok(eg + kt * reduced_level(electron_density_per_m3, nc, ln_nc)?)
     }
 
@@ -670,9 +681,7 @@ impl Semiconductor {
         temperature_k: f64,
     ) -> Result<f64> {
         error::positive("hole_density_per_m3", hole_density_per_m3)?;
-        let (kt, _) = self.kt_and_gap(temperature_k)?;
-        let nv = effective_density_of_states(self.hole_mass_ratio, temperature_k)?;
-        let ln_nv = ln_dos(nv, self.hole_mass_ratio, temperature_k);
+        let (kt, _, nv, ln_nv) = self.band(true, temperature_k)?;
         Ok(-kt * reduced_level(hole_density_per_m3, nv, ln_nv)?)
     }
 
@@ -702,11 +711,8 @@ impl Semiconductor {
     /// # References
     /// Sze & Ng (2007), §1.4.1, eqs. for n_i and E_i (from memory).
     pub fn intrinsic(&self, temperature_k: f64) -> Result<IntrinsicCarriers> {
-        let (kt, eg) = self.kt_and_gap(temperature_k)?;
-        let nc = effective_density_of_states(self.electron_mass_ratio, temperature_k)?;
-        let nv = effective_density_of_states(self.hole_mass_ratio, temperature_k)?;
-        let ln_nc = ln_dos(nc, self.electron_mass_ratio, temperature_k);
-        let ln_nv = ln_dos(nv, self.hole_mass_ratio, temperature_k);
+        let (kt, eg, _, ln_nc) = self.band(false, temperature_k)?;
+        let (_, _, _, ln_nv) = self.band(true, temperature_k)?;
         let g = eg / kt;
         let xi_b = 0.5 * g + 0.5 * (ln_nv - ln_nc);
         let boltzmann_density = float::exp(0.5 * (ln_nc + ln_nv) - 0.5 * g);

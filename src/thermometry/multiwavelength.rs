@@ -622,16 +622,16 @@ impl Tri {
 
     /// Adds the row `a`·x ≈ `b`.
     fn add_row(&mut self, mut a: [f64; P], mut b: f64) {
-        for k in 0..self.p {
+        for k in 0..self.p.min(P) {
             self.colsq[k] += a[k] * a[k];
         }
-        for k in 0..self.p {
+        for k in 0..self.p.min(P) {
             if a[k] == 0.0 {
                 continue;
             }
             let rho = hypot(self.r[k][k], a[k]);
             let (c, s) = (self.r[k][k] / rho, a[k] / rho);
-            for j in k..self.p {
+            for j in k..self.p.min(P) {
                 let (rk, aj) = (self.r[k][j], a[j]);
                 self.r[k][j] = c * rk + s * aj;
                 a[j] = -s * rk + c * aj;
@@ -646,9 +646,9 @@ impl Tri {
     /// finite.
     fn solve(&self) -> Option<[f64; P]> {
         let mut x = [0.0; P];
-        for k in (0..self.p).rev() {
+        for k in (0..self.p.min(P)).rev() {
             let mut acc = self.z[k];
-            for j in (k + 1)..self.p {
+            for j in (k + 1)..self.p.min(P) {
                 acc -= self.r[k][j] * x[j];
             }
             if self.r[k][k] == 0.0 {
@@ -667,7 +667,7 @@ impl Tri {
     fn lm_step(&self, lambda: f64, d: &[f64; P]) -> Option<[f64; P]> {
         let mut t = *self;
         let sl = float::sqrt(lambda);
-        for k in 0..self.p {
+        for k in 0..self.p.min(P) {
             let mut row = [0.0; P];
             row[k] = sl * d[k];
             if row[k] > 0.0 {
@@ -681,7 +681,7 @@ impl Tri {
     /// Scaled condition number of J (columns of unit norm) and the covariance (JᵀJ)⁻¹, or
     /// `None` if R is singular.
     fn condition_and_covariance(&self) -> Option<(f64, [[f64; P]; P])> {
-        let p = self.p;
+        let p = self.p.min(P);
         // One-sided Jacobi SVD of R·diag(1/‖J_k‖).
         let mut a = [[0.0; P]; P];
         for j in 0..p {
@@ -854,7 +854,7 @@ impl<'a> Data<'a> {
             let r = (self.s[i] - e * b) * w;
             let mut row = [0.0; P];
             row[0] = e * db * w * scale[0];
-            for k in 0..=self.order {
+            for k in 0..=self.order.min(MAX_EMISSIVITY_ORDER) {
                 row[1 + k] = b * de[k] * w * scale[1 + k];
             }
             tri.add_row(row, r);
@@ -880,7 +880,7 @@ impl<'a> Data<'a> {
             row[0] = w * x / t_ref;
             let u = self.reduced(i);
             let mut pw = 1.0;
-            for k in 0..=self.order {
+            for k in 0..=self.order.min(MAX_EMISSIVITY_ORDER) {
                 row[1 + k] = -w * pw;
                 pw *= u;
             }
@@ -899,7 +899,7 @@ impl<'a> Data<'a> {
 
     /// Emissivity coefficients by linear least squares at a fixed temperature.
     fn coefficients_at(&self, eval: &ChannelEval<'_>, t: f64) -> Result<[f64; P]> {
-        let q = self.order + 1;
+        let q = self.order.min(MAX_EMISSIVITY_ORDER) + 1;
         let mut tri = Tri::new(q);
         for i in 0..self.wl.len() {
             let (b, _) = eval(i, t)?;
@@ -1019,7 +1019,7 @@ impl<'a> Data<'a> {
         theta: &mut [f64; P],
         scale: &[f64; P],
     ) -> Result<(Eval, u32)> {
-        let p = self.p;
+        let p = self.p.min(P); // p ≤ P: lets the compiler drop index checks
         let mut cur = self.evaluate(eval, theta, scale)?;
         let mut d = [0.0; P];
         for k in 0..p {
@@ -1153,7 +1153,7 @@ impl<'a> Data<'a> {
         brightness_k: &mut [f64],
     ) -> Result<MultiwavelengthFit> {
         let n = self.wl.len();
-        let p = self.p;
+        let p = self.p.min(P); // p ≤ P: lets the compiler drop index checks
         for i in 0..n {
             brightness_k[i] = bright(i, self.s[i])?;
         }

@@ -2,7 +2,8 @@
 //! `src/wasm/js/design.js`), read once from a [`DesignDefinition`], and the design's free
 //! functions of plain numbers (throughput, figures of merit, background limit, source and spot
 //! corrections) behind one dispatching export, `designNumber` (one export instead of twenty
-//! keeps the module small), plus `designSpotFill` for the one object result.
+//! keeps the module small). Result objects (a pixel report, a spot fill) leave as numbers in
+//! f64 scratch buffer 0, from which the facade builds them.
 //!
 //! Enumerations (cone form, background view, mechanism, cavity shape) arrive as small integer
 //! codes: the facade checks the strings the caller wrote and names the parameter in its errors.
@@ -12,18 +13,18 @@
 use wasm_bindgen::prelude::*;
 
 use super::config::read;
-use super::error::{in_config, number, some, to_js, Fail};
-use super::scratch::{map_in_place, status};
+use super::error::{in_config, number, some, Fail};
+use super::quantum::{bit, map_each, put};
 use super::testing::Live;
 use crate::design::definition::{DesignDefinition, PreparedDesign, SceneDefinition};
 use crate::design::detector::{
-    quantum_efficiency_from_responsivity, responsivity_from_quantum_efficiency,
+    quantum_efficiency_from_responsivity, responsivity_from_quantum_efficiency, PixelReport,
 };
 use crate::design::merit::{
     background_photon_flux, blip_d_star, blip_d_star_from_flux, d_star_from_nep, d_star_from_netd,
     nep_w, netd_from_d_star, noise_bandwidth_hz,
 };
-use crate::design::scene::non_negative;
+use crate::design::scene::{non_negative, RadianceKind};
 use crate::design::sources::{
     cavity_emissivity_gouffe, spot_diameter_focused_m, spot_diameter_m, spot_fill,
     sse_corrected_signal, sse_relative_change,
@@ -71,17 +72,10 @@ impl DesignHandle {
         })())
     }
 
-    pub fn evaluate(&self, t: f64) -> Option<JsValue> {
-        some((|| {
-            check::temperature("temperatureK", t)?;
-            to_js(&self.design.evaluate(t)?)
-        })())
-    }
-
     /// Element-wise over f64 scratch buffer 0 (scene temperatures in, in place): 0 NETD (K),
     /// 1 SNR, 2 well fill. Returns 0, or NaN with the error stored.
     pub fn bulk(&self, op: u32) -> f64 {
-        status(map_in_place(|t| {
+        map_each(&|t| {
             check::temperature("temperaturesK", t)?;
             let r = self.design.evaluate(t)?;
             Ok(match op {
@@ -89,14 +83,21 @@ impl DesignHandle {
                 1 => r.snr,
                 _ => r.well_fill,
             })
-        }))
+        })
     }
 
-    /// NETD from D* (`inverse` false) or D* from NETD (`inverse` true) at scene temperature `t`.
-    #[wasm_bindgen(js_name = dStarNetd)]
-    pub fn d_star_netd(&self, inverse: bool, x: f64, t: f64, peak_m: Option<f64>) -> f64 {
+    /// 0 NETD from D* `x`, 1 D* from NETD `x`, at scene temperature `t` (peak wavelength
+    /// `peak_m` for a photon scene); 2 the report at scene temperature `t` (its figures in f64
+    /// scratch buffer 0, returns their count: `pixelReport` in design.js). NaN with the error
+    /// stored.
+    pub fn number(&self, op: u32, x: f64, t: f64, peak_m: Option<f64>) -> f64 {
         number(
             (|| {
+                if op == 2 {
+                    check::temperature("temperatureK", t)?;
+                    return Ok(put(&report(&self.design.evaluate(t)?)));
+                }
+                let inverse = op == 1;
                 check::positive(if inverse { "netdK" } else { "dStar" }, x)?;
                 check::temperature("temperatureK", t)?;
                 if inverse {
@@ -108,6 +109,36 @@ impl DesignHandle {
             .map_err(Fail::from),
         )
     }
+}
+
+/// The figures of a pixel report, in declaration order (the radiance kind as its position in
+/// `RadianceKind`, booleans 1 or 0).
+fn report(r: &PixelReport) -> [f64; 17] {
+    let n = &r.noise;
+    [
+        match r.flux.kind {
+            RadianceKind::Energy => 0.0,
+            RadianceKind::Photon => 1.0,
+            RadianceKind::Current => 2.0,
+            RadianceKind::Electron => 3.0,
+        },
+        r.flux.flux,
+        r.flux.d_flux_dt,
+        r.photocurrent_a,
+        r.signal_electrons,
+        r.d_signal_electrons_dt,
+        r.background_electrons,
+        r.dark_electrons,
+        r.well_fill,
+        bit(r.saturated),
+        n.signal_shot_electrons,
+        n.background_shot_electrons,
+        n.dark_shot_electrons,
+        n.read_electrons,
+        n.total_electrons,
+        r.snr,
+        r.netd_k,
+    ]
 }
 
 /// Cone-form code of the facade: 1 small angle (4F²), otherwise exact (4F² + 1).
@@ -195,6 +226,8 @@ fn design_op(op: u32, a: f64, b: f64, c: f64, d: f64, e: f64, f: f64) -> crate::
         19 => sse_corrected_signal(a, b),
         20 => spot_diameter_m(a, b),
         21 => spot_diameter_focused_m(a, b, c, d),
+        // the figures of a spot fill in f64 scratch buffer 0; their count
+        22 => spot_fill(a, b).map(|f| put(&[f.diameter_ratio, f.fill_fraction, bit(f.fills)])),
         _ => Err(Error::Unsupported {
             what: "internal: unknown design operation",
         }),
@@ -205,10 +238,4 @@ fn design_op(op: u32, a: f64, b: f64, c: f64, d: f64, e: f64, f: f64) -> crate::
 #[wasm_bindgen(js_name = designNumber)]
 pub fn design_number(op: u32, a: f64, b: f64, c: f64, d: f64, e: f64, f: f64) -> f64 {
     number(design_op(op, a, b, c, d, e, f).map_err(Fail::from))
-}
-
-/// Whether a target of diameter `target_m` fills a spot of diameter `spot_m` (both m).
-#[wasm_bindgen(js_name = designSpotFill)]
-pub fn design_spot_fill(target_m: f64, spot_m: f64) -> Option<JsValue> {
-    some((|| to_js(&spot_fill(target_m, spot_m)?))())
 }

@@ -14,16 +14,16 @@
 #![allow(clippy::neg_cmp_op_on_partial_ord)]
 
 use alloc::format;
-use serde::Serialize;
 use wasm_bindgen::prelude::*;
 
-use super::error::{in_config, some, to_js, Fail};
-use super::scratch::{map_in_place, status};
+use super::error::{in_config, number, some, Fail};
+use super::scratch::{map_in_place, status, with_f64};
 use super::stats::value;
 use super::testing::Live;
 use crate::error::{self as check, Error};
 use crate::stats::{
-    band_carrier_density, y_factor, y_factor_noise_temperature, LoadNoiseModel, Semiconductor,
+    band_carrier_density, y_factor, y_factor_noise_temperature, CarrierDensity, LoadNoiseModel,
+    Semiconductor,
 };
 use crate::thermometry::raman::{
     anti_stokes_stokes_ratio, raman_frequency_factor, raman_temperature, RamanDetection,
@@ -32,6 +32,42 @@ use crate::units::{
     convert_spectral_checked, power_ratio_from_decibels, power_ratio_to_decibels, SpectralKind,
     SpectralUnit, SPECTRAL_NAMES,
 };
+
+/// Writes the figures `values` of a result object to f64 scratch buffer 0 (the facade builds
+/// the object from them: a serde `Serialize` per result type cost 0.5–1.5 KB of the module
+/// each) and returns their count.
+#[inline(never)]
+pub(crate) fn put(values: &[f64]) -> f64 {
+    with_f64(|b| {
+        let out = &mut b[0];
+        out.clear();
+        out.extend_from_slice(values);
+    });
+    values.len() as f64
+}
+
+/// A core result `r` of an export: its figures (`put`) and their count, or NaN with the error
+/// stored.
+pub(crate) fn figures<const N: usize>(r: crate::Result<[f64; N]>) -> f64 {
+    number(r.map(|v| put(&v)).map_err(Fail::from))
+}
+
+/// `map_in_place` through a dynamic operation: one loop for every bulk method of this area
+/// (none is a hot path; each generic copy of the loop cost 0.5–1 KB of the module). Returns 0,
+/// or NaN with the error stored.
+#[inline(never)]
+pub(crate) fn map_each(op: &dyn Fn(f64) -> crate::Result<f64>) -> f64 {
+    status(map_in_place(op))
+}
+
+/// 1 or 0.
+pub(crate) fn bit(b: bool) -> f64 {
+    if b {
+        1.0
+    } else {
+        0.0
+    }
+}
 
 /// The unit named `name` (field `path` of a configuration object).
 pub(crate) fn unit_named(path: &str, name: &str) -> Result<SpectralUnit, Fail> {
@@ -73,43 +109,42 @@ impl RamanHandle {
         some(Self::build(shift_per_cm, excitation, unit, detection))
     }
 
-    #[wasm_bindgen(js_name = frequencyFactor)]
-    pub fn frequency_factor(&self) -> f64 {
-        self.factor
-    }
-
-    pub fn ratio(&self, t: f64) -> f64 {
-        value(anti_stokes_stokes_ratio(
-            self.shift_per_m,
-            self.excitation_m,
-            t,
-            self.detection,
-        ))
-    }
-
-    pub fn temperature(&self, ratio: f64) -> Option<JsValue> {
-        some(
-            raman_temperature(self.shift_per_m, self.excitation_m, ratio, self.detection)
-                .map_err(Fail::from)
-                .and_then(|r| to_js(&r)),
-        )
+    /// 0 the anti-Stokes/Stokes ratio at temperature `x` (K); 1 the reading of ratio `x`
+    /// (its figures in f64 scratch buffer 0, returns their count: `ramanReading` in
+    /// quantum.js); 2 the frequency factor. NaN with the error stored.
+    pub fn number(&self, op: u32, x: f64) -> f64 {
+        let (l, e, d) = (self.shift_per_m, self.excitation_m, self.detection);
+        match op {
+            0 => value(anti_stokes_stokes_ratio(l, e, x, d)),
+            1 => figures(raman_temperature(l, e, x, d).map(|r| {
+                [
+                    r.temperature_k,
+                    r.d_t_d_ratio,
+                    r.relative_sensitivity_per_k,
+                    r.phonon_occupancy,
+                    r.frequency_factor,
+                    r.mode_temperature_k,
+                ]
+            })),
+            _ => self.factor,
+        }
     }
 
     /// Bulk forms over f64 scratch buffer 0: 0 ratios of temperatures (K), 1 temperatures (K)
     /// of ratios. Returns 0, or NaN with the error stored.
     pub fn bulk(&self, op: u32) -> f64 {
         let (l, x, d) = (self.shift_per_m, self.excitation_m, self.detection);
-        status(if op == 0 {
-            map_in_place(|t| {
+        if op == 0 {
+            map_each(&|t| {
                 check::temperature("temperaturesK", t)?;
                 anti_stokes_stokes_ratio(l, x, t, d)
             })
         } else {
-            map_in_place(|r| {
+            map_each(&|r| {
                 check::positive("ratios", r)?;
                 raman_temperature(l, x, r, d).map(|v| v.temperature_k)
             })
-        })
+        }
     }
 }
 
@@ -172,20 +207,36 @@ impl YFactorHandle {
         some(Self::build(hot_k, cold_k, unit, model))
     }
 
-    #[wasm_bindgen(js_name = receiverTemperature)]
-    pub fn receiver_temperature(&self, y: f64, frequency: f64) -> Option<JsValue> {
-        some((|| {
-            let f = self.hz(frequency)?;
-            let r = y_factor_noise_temperature(y, self.hot_k, self.cold_k, f, self.model)?;
-            to_js(&r)
-        })())
-    }
-
-    #[wasm_bindgen(js_name = yFactor)]
-    pub fn y_factor(&self, receiver_k: f64, frequency: f64) -> f64 {
-        value(
-            self.hz(frequency)
-                .and_then(|f| y_factor(receiver_k, self.hot_k, self.cold_k, f, self.model)),
+    /// 0 the Y factor of receiver noise temperature `x` (K); 1 the receiver noise temperature
+    /// of the measured Y `x` (its figures in f64 scratch buffer 0, the load model's code first;
+    /// returns their count: `yFactorReading` in quantum.js); at `frequency` in the loads' unit.
+    /// NaN with the error stored.
+    pub fn number(&self, op: u32, x: f64, frequency: f64) -> f64 {
+        let (h, c, m) = (self.hot_k, self.cold_k, self.model);
+        let f = self.hz(frequency);
+        if op == 0 {
+            return value(f.and_then(|f| y_factor(x, h, c, f, m)));
+        }
+        figures(
+            f.and_then(|f| y_factor_noise_temperature(x, h, c, f, m))
+                .map(|r| {
+                    [
+                        match r.model {
+                            LoadNoiseModel::CallenWelton => 0.0,
+                            LoadNoiseModel::Planck => 1.0,
+                            LoadNoiseModel::RayleighJeans => 2.0,
+                        },
+                        r.receiver_noise_temperature_k,
+                        r.d_t_d_y,
+                        r.hot_load_noise_temperature_k,
+                        r.cold_load_noise_temperature_k,
+                        r.rayleigh_jeans_k,
+                        r.planck_k,
+                        r.callen_welton_k,
+                        r.planck_minus_rayleigh_jeans_k,
+                        r.callen_welton_minus_rayleigh_jeans_k,
+                    ]
+                }),
         )
     }
 }
@@ -234,17 +285,6 @@ pub fn decibels(to_ratio: bool, x: f64) -> f64 {
 }
 
 // ---- semiconductors ---------------------------------------------------------------------------
-
-/// Intrinsic carriers with the energies in the material's unit.
-#[derive(Serialize)]
-#[serde(rename_all = "camelCase")]
-struct Intrinsic {
-    density_per_m3: f64,
-    boltzmann_density_per_m3: f64,
-    fermi_level: f64,
-    boltzmann_fermi_level: f64,
-    band_gap: f64,
-}
 
 /// A checked semiconductor.
 #[wasm_bindgen(js_name = QbSemiconductor)]
@@ -296,57 +336,52 @@ impl SemiconductorHandle {
 
     /// A number at temperature `t` (K): 0 E_g(T), 1 N_c(T), 2 N_v(T) (m⁻³), 3 E_F from the
     /// electron density `x` (m⁻³), 4 E_F from the hole density `x`; energies in the unit.
+    /// Figures in f64 scratch buffer 0 (returns their count; `carriers` and `intrinsic` in
+    /// quantum.js): 5 electron and 6 hole densities at Fermi level `x` (in the unit, from
+    /// E_v), 7 the intrinsic carriers. NaN with the error stored.
     pub fn number(&self, op: u32, x: f64, t: f64) -> f64 {
         let m = &self.material;
-        value(match op {
-            0 => m.band_gap_j(t).and_then(|j| self.in_unit("bandGap", j)),
-            1 => m.conduction_band_density_of_states(t),
-            2 => m.valence_band_density_of_states(t),
-            3 => m
-                .fermi_level_from_electron_density(x, t)
-                .and_then(|j| self.in_unit("fermiLevel", j)),
-            _ => m
-                .fermi_level_from_hole_density(x, t)
-                .and_then(|j| self.in_unit("fermiLevel", j)),
-        })
-    }
-
-    /// Electron (or, with `holes`, hole) density at Fermi level `fermi_level` (in the unit,
-    /// from E_v) and temperature `t` (K).
-    pub fn density(&self, holes: bool, fermi_level: f64, t: f64) -> Option<JsValue> {
-        some((|| {
-            let e = energy_to_j("fermiLevel", fermi_level, self.unit)?;
-            let c = if holes {
-                self.material.hole_density(e, t)?
-            } else {
-                self.material.electron_density(e, t)?
-            };
-            to_js(&c)
-        })())
-    }
-
-    pub fn intrinsic(&self, t: f64) -> Option<JsValue> {
-        some((|| {
-            let i = self.material.intrinsic(t)?;
-            to_js(&Intrinsic {
-                density_per_m3: i.density_per_m3,
-                boltzmann_density_per_m3: i.boltzmann_density_per_m3,
-                fermi_level: self.in_unit("fermiLevel", i.fermi_level_j)?,
-                boltzmann_fermi_level: self
-                    .in_unit("boltzmannFermiLevel", i.boltzmann_fermi_level_j)?,
-                band_gap: self.in_unit("bandGap", i.band_gap_j)?,
-            })
-        })())
+        match op {
+            5 | 6 => figures((|| {
+                let e = energy_to_j("fermiLevel", x, self.unit)?;
+                carriers(if op == 6 {
+                    m.hole_density(e, t)?
+                } else {
+                    m.electron_density(e, t)?
+                })
+            })()),
+            7 => figures((|| {
+                let i = m.intrinsic(t)?;
+                Ok([
+                    i.density_per_m3,
+                    i.boltzmann_density_per_m3,
+                    self.in_unit("fermiLevel", i.fermi_level_j)?,
+                    self.in_unit("boltzmannFermiLevel", i.boltzmann_fermi_level_j)?,
+                    self.in_unit("bandGap", i.band_gap_j)?,
+                ])
+            })()),
+            _ => value(match op {
+                0 => m.band_gap_j(t).and_then(|j| self.in_unit("bandGap", j)),
+                1 => m.conduction_band_density_of_states(t),
+                2 => m.valence_band_density_of_states(t),
+                3 => m
+                    .fermi_level_from_electron_density(x, t)
+                    .and_then(|j| self.in_unit("fermiLevel", j)),
+                _ => m
+                    .fermi_level_from_hole_density(x, t)
+                    .and_then(|j| self.in_unit("fermiLevel", j)),
+            }),
+        }
     }
 
     /// Bulk form over f64 scratch buffer 0: intrinsic densities (m⁻³, Fermi–Dirac) of
     /// temperatures (K). Returns 0, or NaN with the error stored.
     #[wasm_bindgen(js_name = intrinsicBulk)]
     pub fn intrinsic_bulk(&self) -> f64 {
-        status(map_in_place(|t| {
+        map_each(&|t| {
             check::temperature("temperaturesK", t)?;
             Ok(self.material.intrinsic(t)?.density_per_m3)
-        }))
+        })
     }
 }
 
@@ -408,11 +443,19 @@ impl SemiconductorHandle {
     }
 }
 
-#[wasm_bindgen(js_name = bandCarrierDensity)]
-pub fn band_carrier_density_js(effective_density_per_m3: f64, eta: f64) -> Option<JsValue> {
-    some(
-        band_carrier_density(effective_density_per_m3, eta)
-            .map_err(Fail::from)
-            .and_then(|c| to_js(&c)),
-    )
+/// The figures of a carrier density, in declaration order.
+fn carriers(c: CarrierDensity) -> crate::Result<[f64; 4]> {
+    Ok([
+        c.density_per_m3,
+        c.boltzmann_density_per_m3,
+        c.boltzmann_relative_error,
+        c.reduced_fermi_level,
+    ])
+}
+
+/// The carrier density of one band (`bandCarrierDensity`): its figures in f64 scratch buffer 0
+/// and their count, or NaN with the error stored.
+#[wasm_bindgen(js_name = qbBandCarrierDensity)]
+pub fn band_carrier_density_js(effective_density_per_m3: f64, eta: f64) -> f64 {
+    figures(band_carrier_density(effective_density_per_m3, eta).and_then(carriers))
 }

@@ -17,8 +17,8 @@ use wasm_bindgen::prelude::*;
 
 use super::error::{in_config, number, some, Fail};
 use super::instrument::InstrumentHandle;
-use super::quantum::unit_named;
-use super::scratch::{map_in_place, status, with_f64};
+use super::quantum::{map_each, unit_named};
+use super::scratch::with_f64;
 use super::testing::Live;
 use crate::constants::C2Convention;
 use crate::definition::PreparedModel;
@@ -310,7 +310,7 @@ impl FitHandle {
     /// Bulk form over f64 scratch buffer 0: ε at each wavelength. Returns 0, or NaN with the
     /// error stored.
     pub fn bulk(&self) -> f64 {
-        status(map_in_place(|w| self.emissivity_at("wavelengths", w)))
+        map_each(&|w| self.emissivity_at("wavelengths", w))
     }
 }
 

@@ -88,7 +88,7 @@ test('400 px wide: plots redraw at their width with text ≥ 10 px; the frame ke
   await settle(page);
   await settle(page);
   const narrow = await plots();
-  assert.equal(narrow.length, 5, 'five plots');
+  assert.equal(narrow.length, 6, 'six plots');
   for (const p of narrow) {
     const w = wide.find((x) => x.id === p.id);
     console.log(`${p.id}: drawn ${w.drawn} px wide at 1366, ${p.drawn} px at 400; smallest text ${p.minFont.toFixed(1)} px`);
@@ -111,7 +111,7 @@ test('CSV: byte-order mark, one row of unique headers, empty cells for undefined
   const { page, context } = await open(browser);
   await select(page, 'bd-ou', 'K'); // the sweep CSV in K must not repeat "temperature (K)"
   await setValue(page, 'sp-t', '600, 600, 900');
-  for (const id of ['sp-csv', 'bd-csv', 'oc-csv']) {
+  for (const id of ['sp-csv', 'bd-csv', 'oc-csv', 'dz-csv']) {
     const { name, text, bytes } = await downloadText(page, `#${id}`);
     assert.deepEqual([...bytes.subarray(0, 3)], [0xef, 0xbb, 0xbf], `${name} starts with the UTF-8 BOM`);
     const csv = parseCsv(text);

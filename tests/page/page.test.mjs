@@ -42,7 +42,7 @@ test('opens from file://, becomes ready with no console errors and no network re
   console.log(`navigation to ready: ${readyMs} ms (page's own measure from script start: ${inPage} ms)`);
   const sections = (await page.getAttribute('body', 'data-sections')).split(' ');
   console.log(`sections present: ${sections.join(', ')}`);
-  assert.deepEqual(sections, ['spectrum', 'band', 'signal', 'occupancy', 'mode', 'calib']);
+  assert.deepEqual(sections, ['spectrum', 'band', 'signal', 'occupancy', 'mode', 'calib', 'design']);
   // Every section computed without an error on the defaults.
   for (const id of sections) assert.equal(await page.getAttribute(`#${id}`, 'data-state'), 'ok', `section ${id}`);
   // The CSP meta is there and forbids the network.

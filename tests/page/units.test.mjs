@@ -104,7 +104,8 @@ test('every input-unit menu converts its fields and changes no result', async ()
   const { page, context, consoleErrors } = await open(browser);
   const tested = new Set();
   // Unit menus shown only in some modes: visit each mode that shows them.
-  const configurations = [[], [['sg-mode', 'radiance'], ['sg-resp', 'point']], [['sg-mode', 'ratio'], ['sg-rin', 'indicated']]];
+  const configurations = [[], [['sg-mode', 'radiance'], ['sg-resp', 'point']], [['sg-mode', 'ratio'], ['sg-rin', 'indicated']],
+    [['oc-task', 'multi']], [['oc-task', 'raman'], ['oc-rm-dir', 'temp']], [['oc-task', 'yfactor']], [['oc-task', 'carriers']]];
   for (const config of configurations) {
     for (const [id, v] of config) await select(page, id, v);
     for (const m of await menuInfo(page)) {

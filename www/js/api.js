@@ -41,6 +41,25 @@ function fn(name) {
   return f;
 }
 
+/** A prepared object of package class `className` for `config`, cached like the others. */
+function preparedOf(className, config) {
+  const key = `${className}:${JSON.stringify(config)}`;
+  let o = cache.get(key);
+  if (o !== undefined) {
+    cache.delete(key);
+    cache.set(key, o);
+    return o;
+  }
+  o = new (fn(className))(config);
+  cache.set(key, o);
+  if (cache.size > CACHE_SIZE) {
+    const [oldKey, old] = cache.entries().next().value;
+    cache.delete(oldKey);
+    old.free();
+  }
+  return o;
+}
+
 export const api = {
   /** True when the package exports every named function or class. */
   has(...names) {
@@ -132,6 +151,70 @@ export const api = {
     try {
       const r = c.convertFrame(counts, options);
       return { temperaturesK: r.temperaturesK, valid: r.valid, invalid: r.invalid, minK: r.minTemperatureK, maxK: r.maxTemperatureK };
+    } finally {
+      c.free();
+    }
+  },
+
+  // ---- instrument design and quantum-statistics thermometry (design.d.ts, quantum.d.ts)
+  /** A DetectorDesign for this definition ({ optics, detector, scene }). */
+  detectorDesign(definition) {
+    return preparedOf('DetectorDesign', definition);
+  },
+  /** A RamanMode ({ shiftPerCm, excitation, unit, detection }). */
+  ramanMode(settings) {
+    return preparedOf('RamanMode', settings);
+  },
+  /** A Semiconductor ({ electronMassRatio, holeMassRatio, bandGap0K, varshniAlpha?, varshniBetaK?, energyUnit }). */
+  semiconductor(material) {
+    return preparedOf('Semiconductor', material);
+  },
+  /** YFactorLoads ({ hotLoadK, coldLoadK, unit, loadModel }). */
+  yFactorLoads(settings) {
+    return preparedOf('YFactorLoads', settings);
+  },
+  /**
+   * A multi-wavelength fit as plain figures (the package's fit object is freed), with the
+   * fitted emissivity at each channel wavelength in `emissivityAtChannels`.
+   */
+  fitMultiwavelength(measurement, options) {
+    const f = fn('fitMultiwavelength')(measurement, options);
+    try {
+      const figures = JSON.parse(JSON.stringify(f));
+      return { ...figures, emissivityAtChannels: Array.from(f.emissivities(measurement.wavelengths)) };
+    } finally {
+      f.free();
+    }
+  },
+  /**
+   * A Monte Carlo run (JCGM 101) of an instrument's measurement equation, prepared; the caller
+   * steps it (`step(n)`), ends it (`result(bins)`) and frees it.
+   */
+  monteCarlo(instrument, signal, uncertainties, options) {
+    return fn('MonteCarlo').measurement(instrument, signal, uncertainties, options);
+  },
+  /**
+   * A least-squares curve through points with their uncertainties (options: uTemperaturesK,
+   * uSignals) and the calibration transfer to a reading at `signal`: the core's CalibratedReading.
+   */
+  fitReading(temperaturesK, signals, options, signal, uSignal) {
+    const c = fn('CalibrationCurve').fit(temperaturesK, signals, options);
+    try {
+      return c.readingUncertainty(signal, uSignal);
+    } finally {
+      c.free();
+    }
+  },
+  /**
+   * A curve exact through three ITS-90 fixed points for an instrument definition, and a reading
+   * at the instrument's signal for readingK: { coefficients, report, signal, reading }.
+   */
+  fixedPointCurve(definition, fixedPoints, options, readingK) {
+    const inst = api.instrument(definition);
+    const c = fn('CalibrationCurve').throughFixedPoints(inst, fixedPoints, options);
+    try {
+      const signal = inst.signal(readingK);
+      return { coefficients: { ...c.coefficients }, report: c.fixedPointReport, signal, reading: c.readingUncertainty(signal, 0) };
     } finally {
       c.free();
     }

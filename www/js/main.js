@@ -12,9 +12,10 @@ import { signalSection } from './sec-signal.js';
 import { occupancySection } from './sec-occupancy.js';
 import { modeSection } from './sec-mode.js';
 import { calibSection } from './sec-calib.js';
+import { designSection } from './sec-design.js';
 
 /** The sections, in page order. A new section is one module here and its markup in index.html. */
-const SECTIONS = [spectrumSection, bandSection, signalSection, occupancySection, modeSection, calibSection];
+const SECTIONS = [spectrumSection, bandSection, signalSection, occupancySection, modeSection, calibSection, designSection];
 
 async function wasmBytes() {
   const holder = document.getElementById('qb-wasm');

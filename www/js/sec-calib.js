@@ -4,9 +4,9 @@
 import { api } from './api.js';
 import { formatNumber } from './fmt.js';
 import { drawPlot, fillTable, fillResults } from './plot.js';
-import { tag, tagMap, number, table, typed } from './fields.js';
+import { tag, tagMap, number, table, typed, kelvin, kelvinDiff, FieldError } from './fields.js';
 import { symbol } from './units.js';
-import { fillBudget, showTemperature, showDifference, readScene, budgetRows, temperatureDecimals } from './budget.js';
+import { fillBudget, showTemperature, showDifference, readScene, budgetRows, temperatureDecimals, measurementGumMarkup, readMeasurementGum, gumCall, gumView, uncertaintyItems } from './budget.js';
 import { emberRamp } from './colormap.js';
 import { kilnConveyorScene, SCENE_W, SCENE_H } from './scene.js';
 import { shared } from './shared.js';
@@ -106,11 +106,104 @@ function fitWords(lines, tK, sig) {
   };
 }
 
+
+const d = (k, ou) => api.diffFromK(k, ou); // a kelvin difference in the output unit
+const FP = { indium: 'In', tin: 'Sn', zinc: 'Zn', aluminium: 'Al', silver: 'Ag', gold: 'Au', copper: 'Cu' };
+
+/**
+ * Calibration transfer of the least-squares curve (the core's readingUncertainty): each point's
+ * ∂T/∂Tᵢ and ∂T/∂Sᵢ for the reading n as columns of the points table, and u_cal.
+ */
+function transfer(tK, sig, lines, n, un, ou, resShown, tShown, bare) {
+  const tL = symbol(ou);
+  const ut = kelvinDiff('cf-ut');
+  const us = number('cf-us');
+  const uSignals = Float64Array.from(sig, (s) => (s * us) / 100);
+  const r = tagMap({ 'options.uTemperaturesK': 'cf-ut', 'options.uSignals': 'cf-us', uSignal: 'cf-un' },
+    () => api.fitReading(tK, sig, { uTemperaturesK: ut, uSignals }, n, un), 'cf-n');
+  const rows = [];
+  for (let i = 0; i < tK.length; i++) {
+    const fitted = bare.signal(tK[i]);
+    rows.push([
+      formatNumber(tShown[i], { decimals: temperatureDecimals(tK[i]), trim: true }),
+      formatNumber(sig[i], { digits: 7 }),
+      formatNumber(fitted, { digits: 7 }),
+      `${formatNumber((100 * (sig[i] - fitted)) / fitted, { digits: 3 })} %`,
+      formatNumber(resShown[i], { digits: 3 }),
+      { text: formatNumber(r.dTdReferenceTemperatures[i], { digits: 3 }), value: r.dTdReferenceTemperatures[i] },
+      { text: formatNumber(d(r.dTdReferenceSignals[i], ou), { digits: 3 }), value: r.dTdReferenceSignals[i] },
+    ]);
+  }
+  fillTable($('cf-table'), [`Temperature (${tL})`, 'Measured signal (counts)', 'Curve signal (counts)', 'Signal residual', `T(curve⁻¹(signal)) − T (m${tL})`,
+    { html: '∂<i>T</i>/∂<i>T</i><sub>i</sub> of the reading' }, { html: `∂<i>T</i>/∂<i>S</i><sub>i</sub> (${tL}/count)` }], rows);
+  fillResults($('cf-xres'), [
+    ['tcal', 'Blackbody temperature of the reading through the curve', showTemperature(r.temperatureK, ou)],
+    ['ucal', 'Uncertainty from the calibration points, u_cal', showDifference(r.uCalibrationK, ou, 2), { labelHtml: 'From the calibration points, <i>u</i><sub>cal</sub>' }],
+    ['usig', 'From the reading\u2019s own signal', showDifference(r.uSignalK, ou, 2)],
+    ['sum', 'Sum of ∂T/∂Tᵢ (1 by construction)', formatNumber(r.dTdReferenceTemperaturesSum, { digits: 6 })],
+  ]);
+}
+
+/** A curve exact through three ITS-90 fixed points for the section's response; each point's influence on a reading. */
+function fixedPoints(respDef, ou) {
+  const tL = symbol(ou);
+  const fps = [1, 2, 3].map((i) => $(`cf-fp${i}`).value);
+  const ut = kelvinDiff('cf-fput');
+  const us = number('cf-fpus');
+  const tr = kelvin('cf-fpt');
+  const t90 = fps.map((f) => api.fn('fixedPointTemperature')(f));
+  const lo = Math.min(...t90, tr);
+  const hi = Math.max(...t90, tr);
+  for (let i = 1; i < 3; i++) {
+    if (fps.indexOf(fps[i]) < i) throw new FieldError(`cf-fp${i + 1}`, `Fixed point ${i + 1} repeats an earlier one: choose three different fixed points.`, 'DEGENERATE_FIT');
+  }
+  const def = { model: { ...respDef.model, c2: 'its90' } };
+  const signalsAt = api.instrument(def).signals(Float64Array.from(t90));
+  const order = [...t90.keys()].sort((a, b) => t90[a] - t90[b]);
+  const f = tagMap({ 'options.uTemperaturesK': 'cf-fput', 'options.uSignals': 'cf-fpus' }, () => api.fixedPointCurve(def, fps,
+    { uTemperaturesK: ut, uSignals: order.map((k) => (signalsAt[k] * us) / 100), tMinK: lo, tMaxK: hi }, tr), 'cf-fpt');
+  const r = f.reading;
+  const um = api.spectralSize('um');
+  const mK = (k) => `${formatNumber(d(k, ou) * 1e3, { digits: 2 })} m${tL}`;
+  const e = f.report.interpolationErrors;
+  const items = [
+    ['curve', 'Curve A, B, C', `${formatNumber(f.coefficients.aM / um, { digits: 6 })} µm, ${formatNumber(f.coefficients.bMK / um, { digits: 6 })} µm·K, ${formatNumber(f.coefficients.c, { digits: 6 })} W·m⁻²·sr⁻¹`],
+    ['between', 'Largest interpolation error between the points', mK(e.between.maxErrorK)],
+  ];
+  if (e.below) items.push(['below', `Below them (to ${showTemperature(lo, ou)})`, mK(e.below.maxErrorK)]);
+  if (e.above) items.push(['above', `Above them (to ${showTemperature(hi, ou)})`, mK(e.above.maxErrorK)]);
+  items.push(['t', 'Reading through the curve, T₉₀', showTemperature(r.temperatureK, ou)]);
+  items.push(['ucal', 'Its uncertainty from the fixed points, u_cal', showDifference(r.uCalibrationK, ou, 2), { labelHtml: 'Its uncertainty from the fixed points, <i>u</i><sub>cal</sub>' }]);
+  fillResults($('cf-fpres'), items);
+  const rows = f.report.fixedPoints.map((fp, i) => {
+    const cT = r.dTdReferenceTemperatures[i];
+    const cS = r.dTdReferenceSignals[i];
+    const uS = (f.report.signals[i] * us) / 100;
+    return [
+      `${FP[fp]} (${fp} freezing point)`,
+      showTemperature(f.report.temperaturesK[i], ou),
+      formatNumber(f.report.signals[i], { digits: 6 }),
+      { text: formatNumber(cT, { digits: 4 }), value: cT },
+      { text: formatNumber(d(cS, ou), { digits: 4 }), value: cS },
+      { text: showDifference(Math.hypot(cT * ut, cS * uS), ou, 2), value: Math.hypot(cT * ut, cS * uS) },
+    ];
+  });
+  fillTable($('cf-fptable'), ['Fixed point', 'T₉₀', 'Signal (W·m⁻²·sr⁻¹)', { html: '∂<i>T</i>/∂<i>T</i><sub>i</sub>' }, { html: `∂<i>T</i>/∂<i>S</i><sub>i</sub> (${tL}/(W·m⁻²·sr⁻¹))` }, 'Contribution'], rows);
+}
+
 export const calibSection = {
   id: 'calib',
   available: () => api.has('CalibrationCurve', 'Instrument', 'convertTemperature', 'convertTemperatureDifference'),
   build() {
     if (!api.has('CalibrationCurve') || typeof api.fn('CalibrationCurve').prototype.convertFrame !== 'function') $('cf-frame-part').remove();
+    // Demo: the signal is the mean of 20 frames (Type A, ν = 19); ε known to ± a (rectangular);
+    // reflected and path temperatures from one invented sensor, r = 0.5.
+    $('cf-gum').innerHTML = measurementGumMarkup('cf', 'Signal', { nu: { sig: '19' }, dist: { eps: 'rectangular' }, corr: [['tr', 'tp', '0.5']] });
+    // The ITS-90 defining fixed points of the core (In … Cu); the demo takes In, Sn, Zn.
+    [1, 2, 3].forEach((i) => {
+      $(`cf-fp${i}`).innerHTML = Object.keys(FP).map((k) => `<option value="${k}">${FP[k]}, ${k}</option>`).join('');
+      $(`cf-fp${i}`).value = Object.keys(FP)[i - 1];
+    });
   },
   wire(recompute) {
     // "Load" buttons: read a local file into its text area (FileReader; nothing leaves the machine).
@@ -215,15 +308,18 @@ export const calibSection = {
         ? `Instrument signal ${typed('cf-n')} counts is below what the reflected surroundings and the path alone give with ε = ${trim(sc.eps)}, so no object temperature explains it; check the emissivity and the reflected and path temperatures.`
         : undefined),
     });
-    const budget = tagMap({ 'uncertainties.signal': 'cf-un', ...sc.uFields }, () => inst.uncertaintyBudget(n, { signal: un, ...sc.u }), 'cf-un');
+    const g = readMeasurementGum('cf', un, sc);
+    const budget = gumCall(g.cov, () => inst.uncertaintyBudget(n, g.u, g.cov.options), { 'uncertainties.signal': 'cf-un', ...sc.uFields }, 'cf-un');
+    const view = gumView(budget, g.cov.text);
     fillResults($('cf-res'), [
       ['t', 'Object temperature from the reading', showTemperature(T, ou), { big: true }],
-      ['uc', 'Standard uncertainty', showDifference(budget.combinedStandardUncertaintyK, ou, 2), { labelHtml: 'Standard uncertainty <i>u</i><sub>c</sub>' }],
-      ['U', 'Expanded uncertainty (k = 2)', showDifference(2 * budget.combinedStandardUncertaintyK, ou, 2), { labelHtml: 'Expanded uncertainty <i>U</i> (<i>k</i> = 2)' }],
+      ...uncertaintyItems(view, ou),
       ['tbb', 'Blackbody temperature of the signal (ε = 1, no corrections)', showTemperature(bare.temperature(n), ou)],
     ]);
     const signalRow = { name: 'Signal', value: `${trim(n)} counts`, u: `${trim(un)} counts`, xUnit: 'count', scale: un || Math.abs(n), toX: 1 };
-    fillBudget($('cf-budget'), budgetRows(budget, signalRow, sc, ou), budget.combinedStandardUncertaintyK, T, ou);
+    fillBudget($('cf-budget'), budgetRows(budget, signalRow, sc, ou), view, T, ou);
+    transfer(tK, sig, pts.lines, n, un, ou, resShown, tShown, bare);
+    fixedPoints(respDef, ou);
     $('cf-assume').textContent = 'Assumes the fitted Sakuma–Hattori curve describes the instrument over the range, a grey body (ε the same at every wavelength the instrument sees) and uniform diffuse surroundings at the reflected temperature.';
 
     // --- the frame: invented scene → raw counts (through the fitted curve) → core conversion

@@ -6,14 +6,18 @@
 import { api } from './api.js';
 import { formatNumber, formatInput } from './fmt.js';
 import { fillResults } from './plot.js';
-import { tag, tagMap, tagPair, number, kelvin, kelvinDiff, spectral, FieldError, labelOf, typed, unitText } from './fields.js';
+import { tag, tagMap, tagPair, number, kelvin, kelvinDiff, spectral, count, FieldError, labelOf, typed, unitText } from './fields.js';
 import { symbol } from './units.js';
-import { fillBudget, combine, showTemperature, showDifference, readScene, budgetRows } from './budget.js';
+import { fillBudget, showTemperature, showDifference, readScene, budgetRows, gumMarkup, gumView, uncertaintyItems, uncertaintyOf, readCoverage, readMeasurementGum, gumCall, MEASUREMENT_INPUTS } from './budget.js';
+import { monteCarloPanel } from './montecarlo.js';
 import { shared } from './shared.js';
 
 const $ = (id) => document.getElementById(id);
 const RADIANCE = 'W·m⁻²·sr⁻¹';
 const trim = (v) => formatNumber(v, { digits: 6, trim: true });
+const SINGLE = 'sg-mode=indicated,radiance,counts';
+let mcInputs = null; // the last valid inputs of a single-reading budget (for the Monte Carlo run)
+let panel = null;
 
 /** A standard uncertainty the page combines itself must not be negative. */
 function nonNegative(id, v) {
@@ -114,21 +118,23 @@ function computeSingle(mode, ou) {
     return undefined;
   };
   const T = tag(readId, () => inst.objectTemperature(S), { custom: noSolution });
-  const budget = tagMap({ 'uncertainties.signal': readUId, ...scene.uFields },
-    () => inst.uncertaintyBudget(S, { signal: uS, ...scene.u }), readUId);
+  const g = readMeasurementGum('sg', uS, scene);
+  const budget = gumCall(g.cov, () => inst.uncertaintyBudget(S, g.u, g.cov.options), { 'uncertainties.signal': readUId, ...scene.uFields }, readUId);
+  const view = gumView(budget, g.cov.text);
+  const seed = count('sg-seed', 0, 2 ** 53);
+  const fields = Object.fromEntries(MEASUREMENT_INPUTS.map(([k]) => [k, [`sg-nu-${k}`, `sg-d-${k}`]]));
+  const key = JSON.stringify([model, scene.conditions, S, g.u, g.cov.options, seed]);
+  mcInputs = { def: { model, conditions: scene.conditions }, S, u: g.u, options: g.cov.options, pairs: g.cov.pairs, view, T, key, seed, ou, fields };
   const tbb = blackbody.temperature(S);
 
-  const items = [
-    ['t', 'Object temperature', showTemperature(T, ou), { big: true }],
-    ['uc', 'Standard uncertainty', showDifference(budget.combinedStandardUncertaintyK, ou, 2), { labelHtml: 'Standard uncertainty <i>u</i><sub>c</sub>' }],
-    ['U', 'Expanded uncertainty (k = 2)', showDifference(2 * budget.combinedStandardUncertaintyK, ou, 2), { labelHtml: 'Expanded uncertainty <i>U</i> (<i>k</i> = 2)' }],
-  ];
+  const items = [['t', 'Object temperature', showTemperature(T, ou), { big: true }], ...uncertaintyItems(view, ou)];
   if (mode === 'indicated') items.push(['corr', 'Correction to the indicated temperature', showDifference(T - indicatedK, ou, 4)]);
   items.push(['tbb', 'Blackbody temperature of the signal (ε = 1, no corrections)', showTemperature(tbb, ou)]);
   fillResults($('sg-res'), items);
 
   const rows = budgetRows(budget, row, scene, ou);
-  fillBudget($('sg-table'), rows, budget.combinedStandardUncertaintyK, T, ou);
+  fillBudget($('sg-table'), rows, view, T, ou);
+  panel?.render(ou, key);
 
   const parts = [`Assumes ${describe}`, 'a grey body (ε the same at every wavelength the instrument sees)', 'uniform diffuse surroundings at the reflected temperature'];
   if (mode === 'indicated') parts.push('and an instrument that computed its reading with this same response, the emissivity and reflected temperature set on it, and no path correction');
@@ -180,19 +186,24 @@ function computeRatio(ou) {
       ? `${labelOf(readId)}: no temperature gives this ratio in these two channels with ε₁/ε₂ = ${trim(er)}.`
       : undefined),
   });
-  const { rows, combinedK } = combine([
+  // JCGM 100 eq. 10 through the core (propagateUncertainty), with ν and the coverage of the settings.
+  const base = [
     { ...readRow, sensitivityK: res.dTdRatio * readRow.perX },
     { name: 'Emissivity ratio ε₁/ε₂', value: trim(er), u: trim(uer), xUnit: '', uX: uer, scale: uer || er, sensitivityK: res.dTdEmissivityRatio },
-  ]);
-  const items = [
-    ['t', 'Object temperature', showTemperature(res.temperatureK, ou), { big: true }],
-    ['uc', 'Standard uncertainty', showDifference(combinedK, ou, 2), { labelHtml: 'Standard uncertainty <i>u</i><sub>c</sub>' }],
-    ['U', 'Expanded uncertainty (k = 2)', showDifference(2 * combinedK, ou, 2), { labelHtml: 'Expanded uncertainty <i>U</i> (<i>k</i> = 2)' }],
   ];
+  const cov = readCoverage('sg');
+  const inputs = [uncertaintyOf('sg', 'sig', readRow.uX), uncertaintyOf('sg', 'er', uer)];
+  const gum = gumCall(cov, () => api.fn('propagateUncertainty')(base.map((r) => r.sensitivityK), inputs, cov.options), {}, readId);
+  const rows = base.map((r, i) => {
+    const e = gum.entries[i];
+    return { ...r, contributionK: e.contribution, share: e.varianceShare, nu: e.degreesOfFreedom, evaluation: e.evaluation, distribution: e.distribution };
+  });
+  const view = gumView(gum);
+  const items = [['t', 'Object temperature', showTemperature(res.temperatureK, ou), { big: true }], ...uncertaintyItems(view, ou)];
   if (indicated) items.push(['err', 'Error of the indicated temperature (indicated − true)', showDifference(ti - res.temperatureK, ou, 4)]);
   items.push(['ratio', 'Radiance ratio L₁/L₂', formatNumber(r, { digits: 6 })]);
   fillResults($('sg-res'), items);
-  fillBudget($('sg-table'), rows, combinedK, res.temperatureK, ou);
+  fillBudget($('sg-table'), rows, view, res.temperatureK, ou);
   const what = w > 0
     ? `two flat bands of equal width ${trim(w)} ${U} centred on ${trim(l1)} and ${trim(l2)} ${U}`
     : `single wavelengths ${trim(l1)} and ${trim(l2)} ${U} (the narrow-band limit)`;
@@ -202,7 +213,15 @@ function computeRatio(ou) {
 export const signalSection = {
   id: 'signal',
   available: () => api.has('Instrument', 'convertTemperature', 'convertTemperatureDifference'),
+  build() {
+    const inputs = MEASUREMENT_INPUTS.map(([k, , label]) => [k, label, k === 'sig' ? '' : SINGLE]);
+    inputs.push(['er', 'Emissivity ratio ε₁/ε₂', 'sg-mode=ratio']);
+    // Neutral defaults (every input Type B and normal, no correlation, p = 95 %): nothing the
+    // practitioner did not choose changes the result; the pair most often correlated is offered.
+    $('sg-gum').innerHTML = gumMarkup('sg', inputs, MEASUREMENT_INPUTS.map(([k, , l]) => [k, l]), { corr: [['tr', 'tp', '0']], corrWhen: SINGLE });
+  },
   wire(recompute) {
+    panel = monteCarloPanel('sg', this.el, () => (this.el.dataset.state === 'ok' && $('sg-mode').value !== 'ratio' ? mcInputs : null));
     $('sg-take').addEventListener('click', () => {
       const c = shared.curve;
       if (!c) {
@@ -217,6 +236,7 @@ export const signalSection = {
     });
   },
   compute() {
+    mcInputs = null;
     const mode = $('sg-mode').value;
     const ou = $('sg-ou').value;
     if (mode === 'ratio') computeRatio(ou);

@@ -1,17 +1,26 @@
 // Instrument design: DetectorDesign (one pixel's optics, detector and scene, read and checked
 // once, then evaluated at scene temperatures) and the design free functions (throughput,
-// figures of merit, background limit, cavity, size of source, spot). Wraps QbDesign,
-// designNumber and designSpotFill (src/wasm/design.rs).
+// figures of merit, background limit, cavity, size of source, spot). Wraps QbDesign and
+// designNumber (src/wasm/design.rs); result objects are built here from the numbers the module
+// writes to f64 scratch buffer 0.
 //
 // These are design estimates, not measurements (see the README "Instrument design" cautions).
 
 import { QuantabandError, disposed, wrongType } from './errors.js';
+import { _figures as figures } from './quantum.js';
 import { bulk, config, glue, num, ready, result, some, str } from './runtime.js';
 
 // Bulk operation numbers of QbDesign.bulk.
 const NETDS = 0;
 const SNRS = 1;
 const WELL_FILLS = 2;
+
+// Operation numbers of QbDesign.number.
+const NETD_FROM_D_STAR = 0;
+const D_STAR_FROM_NETD = 1;
+const REPORT = 2;
+
+const RADIANCE_KINDS = ['energy', 'photon', 'current', 'electron'];
 
 // Operation numbers of designNumber (src/wasm/design.rs, design_op).
 const OP = Object.freeze({
@@ -37,6 +46,7 @@ const OP = Object.freeze({
   sizeOfSourceCorrectedSignal: 19,
   spotDiameter: 20,
   spotDiameterFocused: 21,
+  spotFill: 22,
 });
 
 const CONES = ['exact', 'smallAngle'];
@@ -107,7 +117,26 @@ export class DetectorDesign {
   evaluate(temperatureK) {
     const h = this.#live();
     num(temperatureK, 'temperatureK');
-    return some(h.evaluate(temperatureK));
+    const v = figures(h.number(REPORT, 0, temperatureK, undefined));
+    return {
+      flux: { kind: RADIANCE_KINDS[v[0]], flux: v[1], dFluxDt: v[2] },
+      photocurrentA: v[3],
+      signalElectrons: v[4],
+      dSignalElectronsDt: v[5],
+      backgroundElectrons: v[6],
+      darkElectrons: v[7],
+      wellFill: v[8],
+      saturated: v[9] === 1,
+      noise: {
+        signalShotElectrons: v[10],
+        backgroundShotElectrons: v[11],
+        darkShotElectrons: v[12],
+        readElectrons: v[13],
+        totalElectrons: v[14],
+      },
+      snr: v[15],
+      netdK: v[16],
+    };
   }
 
   netd(temperatureK) {
@@ -134,7 +163,7 @@ export class DetectorDesign {
     num(dStar, 'dStar');
     num(temperatureK, 'temperatureK');
     if (peakWavelengthM !== undefined) num(peakWavelengthM, 'peakWavelengthM');
-    return result(h.dStarNetd(false, dStar, temperatureK, peakWavelengthM));
+    return result(h.number(NETD_FROM_D_STAR, dStar, temperatureK, peakWavelengthM));
   }
 
   dStarFromNetd(netdK, temperatureK, peakWavelengthM) {
@@ -142,7 +171,7 @@ export class DetectorDesign {
     num(netdK, 'netdK');
     num(temperatureK, 'temperatureK');
     if (peakWavelengthM !== undefined) num(peakWavelengthM, 'peakWavelengthM');
-    return result(h.dStarNetd(true, netdK, temperatureK, peakWavelengthM));
+    return result(h.number(D_STAR_FROM_NETD, netdK, temperatureK, peakWavelengthM));
   }
 }
 
@@ -328,5 +357,6 @@ export function spotFill(targetDiameterM, spotDiameterM) {
   ready();
   num(targetDiameterM, 'targetDiameterM');
   num(spotDiameterM, 'spotDiameterM');
-  return some(glue.designSpotFill(targetDiameterM, spotDiameterM));
+  const v = figures(glue.designNumber(OP.spotFill, targetDiameterM, spotDiameterM, 0, 0, 0, 0));
+  return { diameterRatio: v[0], fillFraction: v[1], fills: v[2] === 1 };
 }

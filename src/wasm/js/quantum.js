@@ -106,6 +106,13 @@ function frozen(o) {
   return Object.freeze(o);
 }
 
+/** The `n` figures an export just wrote to f64 scratch buffer 0 (`put` in src/wasm/quantum.rs),
+ * `n` being the export's result (NaN: throws its error). */
+export function _figures(n) {
+  const len = result(n);
+  return readBack(F64, reserve(F64, 0, len), len, null);
+}
+
 /** Makes Symbol.dispose an alias of the class's free(). */
 function disposable(cls) {
   if (typeof Symbol.dispose === 'symbol') cls.prototype[Symbol.dispose] = cls.prototype.free;
@@ -291,6 +298,10 @@ disposable(MultiwavelengthFit);
 
 const RATIOS = 0;
 const TEMPERATURES = 1;
+// Operation numbers of QbRamanMode.number.
+const RATIO = 0;
+const READING = 1;
+const FACTOR = 2;
 
 /**
  * A Raman mode: `new RamanMode({ shiftPerCm, excitation, unit, detection })` (shift in cm⁻¹,
@@ -309,7 +320,7 @@ export class RamanMode {
     const detection = choice(c, 'detection', 'mode', ['photonCounting', 'energy']);
     const h = some(glue.QbRamanMode.create(shift, excitation, unit, detection));
     this.#h = h;
-    this.#factor = h.frequencyFactor();
+    this.#factor = h.number(FACTOR, 0);
   }
 
   /** The frequency factor F = (ν̃_aS/ν̃_S)^k (dimensionless, > 1). */
@@ -335,7 +346,7 @@ export class RamanMode {
   ratio(temperatureK) {
     const h = this.#live();
     num(temperatureK, 'temperatureK');
-    return result(h.ratio(temperatureK));
+    return result(h.number(RATIO, temperatureK));
   }
 
   ratios(temperaturesK, out) {
@@ -346,7 +357,15 @@ export class RamanMode {
   temperature(ratio) {
     const h = this.#live();
     num(ratio, 'ratio');
-    return some(h.temperature(ratio));
+    const v = _figures(h.number(READING, ratio));
+    return {
+      temperatureK: v[0],
+      dTdRatio: v[1],
+      relativeSensitivityPerK: v[2],
+      phononOccupancy: v[3],
+      frequencyFactor: v[4],
+      modeTemperatureK: v[5],
+    };
   }
 
   temperatures(ratios, out) {
@@ -357,6 +376,8 @@ export class RamanMode {
 disposable(RamanMode);
 
 // ---- noise-source (Y-factor) thermometry ---------------------------------------------------
+
+const LOAD_MODELS = ['callenWelton', 'planck', 'rayleighJeans'];
 
 /**
  * The hot and cold loads of a Y-factor measurement: `new YFactorLoads({ hotLoadK, coldLoadK,
@@ -372,7 +393,7 @@ export class YFactorLoads {
     const hot = requiredNumber(c, 'hotLoadK', 'loads');
     const cold = requiredNumber(c, 'coldLoadK', 'loads');
     const unit = requiredUnit(c, 'unit', 'loads');
-    const model = choice(c, 'loadModel', 'loads', ['callenWelton', 'planck', 'rayleighJeans']);
+    const model = choice(c, 'loadModel', 'loads', LOAD_MODELS);
     this.#h = some(glue.QbYFactorLoads.create(hot, cold, unit, model));
   }
 
@@ -396,7 +417,19 @@ export class YFactorLoads {
     const h = this.#live();
     num(y, 'y');
     num(frequency, 'frequency');
-    return some(h.receiverTemperature(y, frequency));
+    const v = _figures(h.number(1, y, frequency));
+    return {
+      model: LOAD_MODELS[v[0]],
+      receiverNoiseTemperatureK: v[1],
+      dTdY: v[2],
+      hotLoadNoiseTemperatureK: v[3],
+      coldLoadNoiseTemperatureK: v[4],
+      rayleighJeansK: v[5],
+      planckK: v[6],
+      callenWeltonK: v[7],
+      planckMinusRayleighJeansK: v[8],
+      callenWeltonMinusRayleighJeansK: v[9],
+    };
   }
 
   /** The Y factor a receiver of noise temperature receiverNoiseTemperatureK shows. */
@@ -404,7 +437,7 @@ export class YFactorLoads {
     const h = this.#live();
     num(receiverNoiseTemperatureK, 'receiverNoiseTemperatureK');
     num(frequency, 'frequency');
-    return result(h.yFactor(receiverNoiseTemperatureK, frequency));
+    return result(h.number(0, receiverNoiseTemperatureK, frequency));
   }
 }
 disposable(YFactorLoads);
@@ -431,6 +464,20 @@ const N_C = 1;
 const N_V = 2;
 const FERMI_FROM_N = 3;
 const FERMI_FROM_P = 4;
+const ELECTRONS = 5;
+const HOLES = 6;
+const INTRINSIC = 7;
+
+/** A carrier-density result from its figures. */
+function carriers(n) {
+  const v = _figures(n);
+  return {
+    densityPerM3: v[0],
+    boltzmannDensityPerM3: v[1],
+    boltzmannRelativeError: v[2],
+    reducedFermiLevel: v[3],
+  };
+}
 
 const SEMICONDUCTOR_FIELDS = ['electronMassRatio', 'holeMassRatio', 'bandGap0K', 'varshniAlpha', 'varshniBetaK', 'energyUnit'];
 
@@ -495,14 +542,14 @@ export class Semiconductor {
     const h = this.#live();
     num(fermiLevel, 'fermiLevel');
     num(temperatureK, 'temperatureK');
-    return some(h.density(false, fermiLevel, temperatureK));
+    return carriers(h.number(ELECTRONS, fermiLevel, temperatureK));
   }
 
   holeDensity(fermiLevel, temperatureK) {
     const h = this.#live();
     num(fermiLevel, 'fermiLevel');
     num(temperatureK, 'temperatureK');
-    return some(h.density(true, fermiLevel, temperatureK));
+    return carriers(h.number(HOLES, fermiLevel, temperatureK));
   }
 
   fermiLevelFromElectronDensity(electronDensityPerM3, temperatureK) {
@@ -522,7 +569,14 @@ export class Semiconductor {
   intrinsic(temperatureK) {
     const h = this.#live();
     num(temperatureK, 'temperatureK');
-    return some(h.intrinsic(temperatureK));
+    const v = _figures(h.number(INTRINSIC, 0, temperatureK));
+    return {
+      densityPerM3: v[0],
+      boltzmannDensityPerM3: v[1],
+      fermiLevel: v[2],
+      boltzmannFermiLevel: v[3],
+      bandGap: v[4],
+    };
   }
 
   intrinsicDensities(temperaturesK, out) {
@@ -537,5 +591,5 @@ export function bandCarrierDensity(effectiveDensityPerM3, reducedFermiLevel) {
   ready();
   num(effectiveDensityPerM3, 'effectiveDensityPerM3');
   num(reducedFermiLevel, 'reducedFermiLevel');
-  return some(glue.bandCarrierDensity(effectiveDensityPerM3, reducedFermiLevel));
+  return carriers(glue.qbBandCarrierDensity(effectiveDensityPerM3, reducedFermiLevel));
 }
