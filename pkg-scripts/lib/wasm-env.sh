@@ -11,10 +11,11 @@ qb_wasm_rustflags() {
     echo "[wasm-env] RUSTFLAGS/CARGO_ENCODED_RUSTFLAGS is set and would override the wasm32 flags; unset it" >&2
     return 1
   fi
-  # LLVM's inliner threshold 50 (225 at opt-level 3): the export shims no longer carry inlined
-  # copies of the configuration readers; 42 KB smaller, no slower on the bench's hot cases
-  # (DEVELOPERS.md, size notes).
-  local inline="-C llvm-args=-inline-threshold=50"
+  # LLVM's inliner threshold 15 (opt-level "s" of the wasm profile): the export shims do not carry
+  # inlined copies of the configuration readers and checks; with every capability bound this is
+  # what keeps the module within 320 KB / 128 KB gzip-9 (threshold 50: 317.8 / 130.5 KB; 15:
+  # 308.7 / 127.8 KB; DEVELOPERS.md, size notes, for the speed measured).
+  local inline="-C llvm-args=-inline-threshold=15"
   if [ "$1" = 1 ]; then
     export CARGO_TARGET_WASM32_UNKNOWN_UNKNOWN_RUSTFLAGS="-C target-feature=+simd128 $inline"
   else

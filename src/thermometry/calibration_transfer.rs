@@ -144,6 +144,34 @@ fn terms(c2: f64, t_mid: f64, p: &[f64; 3], s: f64) -> Option<PointTerms> {
     })
 }
 
+/// The Hessian, gradient and sum of squares of the temperature residuals at parameters `p`
+/// (`None` where a point has no model temperature). Out of line: [`CalibrationTransfer::fit`]
+/// calls it twice.
+#[allow(clippy::needless_range_loop)] // 3×3 matrix updates
+#[inline(never)]
+fn assemble(
+    points: &[ReferencePoint],
+    c2: f64,
+    t_mid: f64,
+    p: &[f64; 3],
+) -> Option<([[f64; 3]; 3], [f64; 3], f64)> {
+    let mut h = [[0.0; 3]; 3];
+    let mut grad = [0.0; 3];
+    let mut ss = 0.0;
+    for pt in points {
+        let k = terms(c2, t_mid, p, pt.signal)?;
+        let r = k.t - pt.temperature_k;
+        ss += r * r;
+        for i in 0..3 {
+            grad[i] += r * k.g[i];
+            for j in 0..3 {
+                h[i][j] += k.g[i] * k.g[j] + r * k.h[i][j];
+            }
+        }
+    }
+    Some((h, grad, ss))
+}
+
 /// Solves the 3×3 system m·x = b after symmetric diagonal scaling, by Gaussian elimination
 /// with partial pivoting; `None` if singular.
 #[allow(clippy::needless_range_loop)]
@@ -296,32 +324,15 @@ impl<'a> CalibrationTransfer<'a> {
         let c2v = c2.c2();
         let sh = fit.curve;
         let mut p = [sh.a_m(), sh.a_m() * t_mid + sh.b_mk(), ln(sh.c())];
-        let assemble = |p: &[f64; 3]| -> Option<([[f64; 3]; 3], [f64; 3], f64)> {
-            let mut h = [[0.0; 3]; 3];
-            let mut grad = [0.0; 3];
-            let mut ss = 0.0;
-            for pt in points {
-                let k = terms(c2v, t_mid, p, pt.signal)?;
-                let r = k.t - pt.temperature_k;
-                ss += r * r;
-                for i in 0..3 {
-                    grad[i] += r * k.g[i];
-                    for j in 0..3 {
-                        h[i][j] += k.g[i] * k.g[j] + r * k.h[i][j];
-                    }
-                }
-            }
-            Some((h, grad, ss))
-        };
         let degenerate = || Error::DegenerateFit {
             reason: "the calibration's Hessian is singular or not at a minimum",
         };
         // Newton polish of the stationarity condition.
-        let (mut h, mut grad, mut ss) = assemble(&p).ok_or_else(degenerate)?;
+        let (mut h, mut grad, mut ss) = assemble(points, c2v, t_mid, &p).ok_or_else(degenerate)?;
         for _ in 0..8 {
             let step = solve3_scaled(&h, &grad).ok_or_else(degenerate)?;
             let np = [p[0] - step[0], p[1] - step[1], p[2] - step[2]];
-            let Some((nh, ng, nss)) = assemble(&np) else {
+            let Some((nh, ng, nss)) = assemble(points, c2v, t_mid, &np) else {
                 break;
             };
             if !(nss <= ss * (1.0 + 1e-12) + 1e-30) {

@@ -118,6 +118,21 @@ impl MeasurementSensitivities {
     }
 }
 
+/// S and S′ at an input temperature, the derivative only where its weight is non-zero (out of
+/// line: [`measurement_sensitivities`] asks for four of them).
+#[inline(never)]
+fn signal_pair<M: SignalModel + ?Sized>(
+    model: &M,
+    temperature_k: f64,
+    weight: f64,
+) -> Result<(f64, f64)> {
+    if weight != 0.0 {
+        model.signal_and_derivative(temperature_k)
+    } else {
+        Ok((model.signal(temperature_k)?, 0.0))
+    }
+}
+
 /// Analytic sensitivity coefficients of the object temperature to all nine inputs of the
 /// measurement equation at `signal` under `conditions`.
 ///
@@ -179,14 +194,7 @@ pub fn measurement_sensitivities<M: SignalModel + ?Sized>(
             what: "dS/dT vanishes at the solution (signal underflow)",
         });
     }
-    // S and S′ at an input temperature, the derivative only where its weight is non-zero.
-    let pair = |temperature_k: f64, weight: f64| -> Result<(f64, f64)> {
-        if weight != 0.0 {
-            model.signal_and_derivative(temperature_k)
-        } else {
-            Ok((model.signal(temperature_k)?, 0.0))
-        }
-    };
+    let pair = |temperature_k: f64, weight: f64| signal_pair(model, temperature_k, weight);
     let (s_r, ds_r) = pair(conditions.reflected_temperature_k, 1.0 - eps)?;
     let (s_p, ds_p) = pair(conditions.path_temperature_k, 1.0 - tau)?;
     let c = |df_dp: f64| -df_dp / df_dt;

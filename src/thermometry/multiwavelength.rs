@@ -74,8 +74,9 @@
 //!   to metals", Infrared Phys. Technol. 51, 292–299 (2008) (from memory).
 //! - D. W. Marquardt, "An algorithm for least-squares estimation of nonlinear parameters",
 //!   J. SIAM 11, 431–441 (1963), doi:10.1137/0111030.
-//! - J. J. Moré, "The Levenberg–Marquardt algorithm: implementation and theory", Lecture Notes
-//!   in Mathematics 630, 105–116 (1978) (scaling of the damping).
+//! - J. J. Moré, "The Levenberg–Marquardt algorithm: implementation and theory", in
+//!   G. A. Watson (ed.), Numerical Analysis, Springer LNM 630, 105–116 (1978) (scaling of the
+//!   damping).
 //! - H. B. Nielsen, "Damping parameter in Marquardt's method", report IMM-REP-1999-05,
 //!   Technical University of Denmark (1999) (from memory).
 //! - R. P. Brent, *Algorithms for Minimization without Derivatives*, Prentice-Hall (1973),

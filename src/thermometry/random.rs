@@ -59,6 +59,7 @@ use crate::{Error, Result};
 ///
 /// # References
 /// Steele, Lea & Flood (2014), see the module docs.
+#[inline(never)] // four draws seed the generator: one copy
 pub fn splitmix64(state: &mut u64) -> u64 {
     *state = state.wrapping_add(0x9E37_79B9_7F4A_7C15);
     let mut z = *state;
@@ -187,7 +188,7 @@ impl Xoshiro256StarStar {
     /// // the second output is 0: the smallest value, ½·2⁻⁵³, not 0
     /// assert_eq!(g.next_open01(), 0.5 * 2f64.powi(-53));
     /// ```
-    #[inline]
+    #[inline(never)] // one copy for every distribution (Sampler::sample draws it in six places)
     pub fn next_open01(&mut self) -> f64 {
         ((self.next_u64() >> 11) as f64 + 0.5) * (1.0 / 9_007_199_254_740_992.0)
     }

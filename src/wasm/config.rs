@@ -1,18 +1,20 @@
 //! Reading configuration objects through the core's own serde types.
 //!
 //! The facade has already copied the caller's object into fresh plain data (no getters,
-//! Proxies or foreign typed arrays reach this point; see `src/wasm/js/runtime.js`). Here it is
-//! read in two steps: into a self-describing [`serde_value::Value`] (every key of every plain
-//! object, [`to_value`]), then the typed definition from that value through [`Reader`], a small
-//! deserializer over `Value` that keeps the path of the value being read (so an error names
-//! `definition.conditions.window.transmittance`). Reading a struct straight from the JavaScript
-//! object would visit only its known keys, so a misspelt key would be ignored; read from a
-//! `Value`, the types' `deny_unknown_fields` works.
+//! Proxies or foreign typed arrays reach this point; see `src/wasm/js/runtime.js`). [`Reader`]
+//! deserializes the typed definition straight from that JavaScript value and keeps the path of
+//! the value being read (so an error names `definition.conditions.window.transmittance`). A
+//! struct is handed every key of its object (sorted by name), not only the ones it knows, so the
+//! types' `deny_unknown_fields` works.
 //!
 //! Measured choices (DEVELOPERS.md, size notes): `Reader` replaces
 //! `serde_value::ValueDeserializer` + `serde_path_to_error` (together about 50 KB of the module:
-//! they wrap every visitor), and [`to_value`] replaces serde-wasm-bindgen's deserializer for the
-//! first step (its error path links the float and string formatters, about 20 KB).
+//! they wrap every visitor) and serde-wasm-bindgen's deserializer (its error path links the float
+//! and string formatters, about 20 KB). Reading the JavaScript value directly instead of through
+//! a `serde_value::Value` tree, answering each typed request with the one visitor method that
+//! can accept the value, a small heapsort of the keys and path segments formatted outside the
+//! generic code took the package from 389 037 B to 338 570 B, together with the float printer
+//! that `src/wasm/error.rs` no longer links (DEVELOPERS.md, size notes).
 //! serde-wasm-bindgen serializes every result object.
 
 use alloc::format;
@@ -22,7 +24,6 @@ use core::cell::RefCell;
 use core::fmt;
 
 use serde::de::{self, DeserializeOwned, DeserializeSeed, IntoDeserializer, Visitor};
-use serde_value::Value;
 use wasm_bindgen::{JsCast, JsValue};
 
 use super::error::Fail;
@@ -46,6 +47,8 @@ pub(crate) enum ConfigError {
     UnknownVariant(String, &'static [&'static str]),
     InvalidLength(usize, String),
     DuplicateField(&'static str),
+    /// A value plain data cannot hold ("a bigint", …) or one nested too deeply.
+    Refused(&'static str),
 }
 
 impl fmt::Display for ConfigError {
@@ -105,38 +108,231 @@ impl de::Error for ConfigError {
     }
 }
 
-/// A deserializer over a [`Value`] that records the path it descends.
-pub(crate) struct Reader(Value);
+/// A deserializer straight over the plain JavaScript data (or a number of a `Float64Array`
+/// already copied out) that records the path it descends. Each typed request
+/// (`deserialize_f64`, `deserialize_str`, …) calls only the visitor method that can accept the
+/// value and otherwise reports what the visitor's default would (the same `invalid_type`), so
+/// every field type instantiates little.
+pub(crate) enum Reader {
+    Js(JsValue),
+    Num(f64),
+}
+
+/// What a JavaScript value is, as far as reading configuration goes.
+enum Node {
+    Null,
+    Bool(bool),
+    Num(f64),
+    Str(String),
+    Array(js_sys::Array),
+    Numbers(Vec<f64>),
+    Object(js_sys::Object),
+}
+
+/// The kind of `v`; refuses what plain data cannot hold (with a description).
+#[inline(never)]
+fn node(v: &JsValue) -> Result<Node, ConfigError> {
+    if v.is_undefined() || v.is_null() {
+        return Ok(Node::Null);
+    }
+    if let Some(b) = v.as_bool() {
+        return Ok(Node::Bool(b));
+    }
+    if let Some(x) = v.as_f64() {
+        return Ok(Node::Num(x));
+    }
+    if let Some(s) = v.as_string() {
+        return Ok(Node::Str(s));
+    }
+    if let Some(a) = v.dyn_ref::<js_sys::Float64Array>() {
+        return Ok(Node::Numbers(a.to_vec()));
+    }
+    if js_sys::Array::is_array(v) {
+        return Ok(Node::Array(v.clone().unchecked_into()));
+    }
+    if v.is_object() && !v.is_function() {
+        return Ok(Node::Object(v.clone().unchecked_into()));
+    }
+    Err(ConfigError::Refused(if v.is_bigint() {
+        "a bigint"
+    } else if v.is_function() {
+        "a function"
+    } else if v.is_symbol() {
+        "a symbol"
+    } else {
+        "a value of this type"
+    }))
+}
+
+impl Reader {
+    fn node(&self) -> Result<Node, ConfigError> {
+        match self {
+            Reader::Js(v) => node(v),
+            Reader::Num(x) => Ok(Node::Num(*x)),
+        }
+    }
+
+    /// The error a visitor expecting `exp` gives for this value (serde's `invalid_type`, as
+    /// the visitor's own default method would).
+    #[inline(never)]
+    fn wrong(&self, exp: &dyn de::Expected) -> ConfigError {
+        let u = match self.node() {
+            Err(e) => return e,
+            Ok(Node::Null) => de::Unexpected::Unit,
+            Ok(Node::Bool(b)) => de::Unexpected::Bool(b),
+            Ok(Node::Num(x)) => de::Unexpected::Float(x),
+            Ok(Node::Str(_)) => de::Unexpected::Str(""),
+            Ok(Node::Array(_) | Node::Numbers(_)) => de::Unexpected::Seq,
+            Ok(Node::Object(_)) => de::Unexpected::Map,
+        };
+        de::Error::invalid_type(u, exp)
+    }
+
+    fn string(&self) -> Option<String> {
+        match self {
+            Reader::Js(v) => v.as_string(),
+            Reader::Num(_) => None,
+        }
+    }
+
+    /// A collection: the elements of an array, or the fields of an object (`Ok(None)` for
+    /// anything else).
+    fn collection(&self) -> Result<Option<Result<Items, Entries>>, ConfigError> {
+        Ok(collection(self.node()?))
+    }
+}
+
+/// The elements of an array, or the fields of an object (`None` for anything else).
+fn collection(n: Node) -> Option<Result<Items, Entries>> {
+    Some(match n {
+        Node::Array(a) => Ok(Items {
+            len: a.length(),
+            items: Elements::Array(a),
+            index: 0,
+        }),
+        Node::Numbers(v) => Ok(Items {
+            len: v.len() as u32,
+            items: Elements::Numbers(v),
+            index: 0,
+        }),
+        Node::Object(o) => Err(entries(&o)),
+        _ => return None,
+    })
+}
+
+/// The fields of object `o` whose value is not undefined (an undefined field is a field left
+/// out), in the order of their names.
+#[inline(never)]
+fn entries(o: &js_sys::Object) -> Entries {
+    let mut fields: Vec<(String, JsValue)> = Vec::new();
+    for k in js_sys::Object::keys(o).iter() {
+        let Some(key) = k.as_string() else { continue };
+        let x = js_sys::Reflect::get(o, &k).unwrap_or(JsValue::UNDEFINED);
+        if !x.is_undefined() {
+            fields.push((key, x));
+        }
+    }
+    sort_by_name(&mut fields);
+    Entries {
+        fields: fields.into_iter(),
+        value: None,
+    }
+}
+
+/// Heapsort by field name (names are distinct): n log n for any object, and far less code
+/// than the standard library's sort instantiated for these pairs.
+fn sort_by_name(v: &mut [(String, JsValue)]) {
+    fn sift(v: &mut [(String, JsValue)], mut root: usize, end: usize) {
+        loop {
+            let mut child = 2 * root + 1;
+            if child >= end {
+                return;
+            }
+            if child + 1 < end && v[child].0 < v[child + 1].0 {
+                child += 1;
+            }
+            if v[root].0 >= v[child].0 {
+                return;
+            }
+            v.swap(root, child);
+            root = child;
+        }
+    }
+    let n = v.len();
+    for i in (0..n / 2).rev() {
+        sift(v, i, n);
+    }
+    for end in (1..n).rev() {
+        v.swap(0, end);
+        sift(v, 0, end);
+    }
+}
 
 impl<'de> de::Deserializer<'de> for Reader {
     type Error = ConfigError;
 
     fn deserialize_any<V: Visitor<'de>>(self, v: V) -> Result<V::Value, ConfigError> {
-        // `to_value` makes only these kinds of values; matching no others keeps the code each
-        // visitor type instantiates small.
-        match self.0 {
-            Value::F64(n) => v.visit_f64(n),
-            Value::String(s) => v.visit_string(s),
-            Value::Bool(b) => v.visit_bool(b),
-            Value::Unit => v.visit_unit(),
-            Value::Seq(items) => v.visit_seq(Items {
-                items: items.into_iter(),
-                index: 0,
-            }),
-            Value::Map(map) => v.visit_map(Entries {
-                entries: map.into_iter(),
-                value: None,
-            }),
-            _ => Err(ConfigError::Custom(
-                "internal: unexpected value".to_string(),
-            )),
+        match self.node()? {
+            Node::Num(n) => v.visit_f64(n),
+            Node::Str(s) => v.visit_string(s),
+            Node::Bool(b) => v.visit_bool(b),
+            Node::Null => v.visit_unit(),
+            n => match collection(n) {
+                Some(Ok(items)) => v.visit_seq(items),
+                Some(Err(entries)) => v.visit_map(entries),
+                None => Err(ConfigError::Custom(
+                    "internal: unexpected value".to_string(),
+                )),
+            },
         }
     }
 
+    fn deserialize_f64<V: Visitor<'de>>(self, v: V) -> Result<V::Value, ConfigError> {
+        let x = match &self {
+            Reader::Num(x) => Some(*x),
+            Reader::Js(j) => j.as_f64(),
+        };
+        match x {
+            Some(x) => v.visit_f64(x),
+            None => Err(self.wrong(&v)),
+        }
+    }
+
+    fn deserialize_f32<V: Visitor<'de>>(self, v: V) -> Result<V::Value, ConfigError> {
+        self.deserialize_f64(v)
+    }
+
+    fn deserialize_bool<V: Visitor<'de>>(self, v: V) -> Result<V::Value, ConfigError> {
+        if let Reader::Js(j) = &self {
+            if let Some(b) = j.as_bool() {
+                return v.visit_bool(b);
+            }
+        }
+        Err(self.wrong(&v))
+    }
+
+    fn deserialize_str<V: Visitor<'de>>(self, v: V) -> Result<V::Value, ConfigError> {
+        match self.string() {
+            Some(s) => v.visit_str(&s),
+            None => Err(self.wrong(&v)),
+        }
+    }
+
+    fn deserialize_string<V: Visitor<'de>>(self, v: V) -> Result<V::Value, ConfigError> {
+        match self.string() {
+            Some(s) => v.visit_string(s),
+            None => Err(self.wrong(&v)),
+        }
+    }
+
+    fn deserialize_identifier<V: Visitor<'de>>(self, v: V) -> Result<V::Value, ConfigError> {
+        self.deserialize_str(v)
+    }
+
     fn deserialize_option<V: Visitor<'de>>(self, v: V) -> Result<V::Value, ConfigError> {
-        match self.0 {
-            Value::Unit => v.visit_none(),
-            other => v.visit_some(Reader(other)),
+        match &self {
+            Reader::Js(j) if j.is_undefined() || j.is_null() => v.visit_none(),
+            _ => v.visit_some(self),
         }
     }
 
@@ -146,9 +342,56 @@ impl<'de> de::Deserializer<'de> for Reader {
         _variants: &'static [&'static str],
         v: V,
     ) -> Result<V::Value, ConfigError> {
-        match self.0 {
-            Value::String(s) => v.visit_enum(s.into_deserializer()),
-            other => Reader(other).deserialize_any(v),
+        match self.string() {
+            Some(s) => v.visit_enum(s.into_deserializer()),
+            None => Err(self.wrong(&v)),
+        }
+    }
+
+    fn deserialize_seq<V: Visitor<'de>>(self, v: V) -> Result<V::Value, ConfigError> {
+        match self.collection()? {
+            Some(Ok(items)) => v.visit_seq(items),
+            _ => Err(self.wrong(&v)),
+        }
+    }
+
+    fn deserialize_tuple<V: Visitor<'de>>(
+        self,
+        _len: usize,
+        v: V,
+    ) -> Result<V::Value, ConfigError> {
+        self.deserialize_seq(v)
+    }
+
+    fn deserialize_tuple_struct<V: Visitor<'de>>(
+        self,
+        _name: &'static str,
+        _len: usize,
+        v: V,
+    ) -> Result<V::Value, ConfigError> {
+        self.deserialize_seq(v)
+    }
+
+    fn deserialize_map<V: Visitor<'de>>(self, v: V) -> Result<V::Value, ConfigError> {
+        match self.collection()? {
+            Some(Err(entries)) => v.visit_map(entries),
+            _ => Err(self.wrong(&v)),
+        }
+    }
+
+    fn deserialize_struct<V: Visitor<'de>>(
+        self,
+        _name: &'static str,
+        _fields: &'static [&'static str],
+        v: V,
+    ) -> Result<V::Value, ConfigError> {
+        // Only an object: serde's derived structs would also read an array field by field in
+        // order (`conditions: [0.9]` as an emissivity), a silent coercion the boundary refuses
+        // (WRONG_TYPE, "must be an object (got an array)"); it also drops every derived
+        // `visit_seq` from the module (10.4 KB).
+        match self.collection()? {
+            Some(Err(entries)) => v.visit_map(entries),
+            _ => Err(self.wrong(&v)),
         }
     }
 
@@ -160,47 +403,64 @@ impl<'de> de::Deserializer<'de> for Reader {
         v.visit_newtype_struct(self)
     }
 
+    fn deserialize_ignored_any<V: Visitor<'de>>(self, v: V) -> Result<V::Value, ConfigError> {
+        // Ignored values are not read (the visitor accepts anything).
+        v.visit_unit()
+    }
+
     serde::forward_to_deserialize_any! {
-        bool i8 i16 i32 i64 i128 u8 u16 u32 u64 u128 f32 f64 char str string bytes byte_buf
-        unit unit_struct seq tuple tuple_struct map struct identifier ignored_any
+        i8 i16 i32 i64 i128 u8 u16 u32 u64 u128 char bytes byte_buf unit unit_struct
     }
 }
 
-/// Runs `f` with `seg` on the path; leaves it there when `f` fails.
-fn descend<T>(seg: String, f: impl FnOnce() -> Result<T, ConfigError>) -> Result<T, ConfigError> {
-    push(seg);
-    let r = f()?;
-    pop();
-    Ok(r)
+/// Puts `seg` on the path (where an error leaves it); refuses a value nested too deeply.
+#[inline(never)]
+fn enter(seg: fmt::Arguments<'_>) -> Result<(), ConfigError> {
+    let seg = format!("{seg}");
+    let deep = PATH.with(|p| {
+        let mut p = p.borrow_mut();
+        p.push(seg);
+        p.len() > MAX_DEPTH
+    });
+    if deep {
+        Err(ConfigError::Refused("nested this deeply"))
+    } else {
+        Ok(())
+    }
 }
 
-// The path bookkeeping out of line: `descend` is instantiated for every type read, and these
-// few instructions repeated in each cost the package several KB.
+/// Takes the last segment off the path (after a value was read).
 #[inline(never)]
-fn push(seg: String) {
-    PATH.with(|p| p.borrow_mut().push(seg));
-}
-
-#[inline(never)]
-fn pop() {
+fn leave() {
     PATH.with(|p| p.borrow_mut().pop());
 }
 
-/// The path segment of field `name`.
-#[inline(never)]
-fn field_segment(name: &str) -> String {
-    format!(".{name}")
-}
-
-/// The path segment of element `i`.
-#[inline(never)]
-fn index_segment(i: usize) -> String {
-    format!("[{i}]")
+enum Elements {
+    Array(js_sys::Array),
+    Numbers(Vec<f64>),
 }
 
 struct Items {
-    items: alloc::vec::IntoIter<Value>,
-    index: usize,
+    items: Elements,
+    len: u32,
+    index: u32,
+}
+
+impl Items {
+    /// The next element, its index on the path.
+    #[inline(never)]
+    fn next_item(&mut self) -> Result<Option<Reader>, ConfigError> {
+        let i = self.index;
+        if i >= self.len {
+            return Ok(None);
+        }
+        self.index += 1;
+        enter(format_args!("[{i}]"))?;
+        Ok(Some(match &self.items {
+            Elements::Array(a) => Reader::Js(a.get(i)),
+            Elements::Numbers(v) => Reader::Num(v.get(i as usize).copied().unwrap_or(f64::NAN)),
+        }))
+    }
 }
 
 impl<'de> de::SeqAccess<'de> for Items {
@@ -209,21 +469,34 @@ impl<'de> de::SeqAccess<'de> for Items {
         &mut self,
         seed: T,
     ) -> Result<Option<T::Value>, ConfigError> {
-        let Some(item) = self.items.next() else {
+        let Some(item) = self.next_item()? else {
             return Ok(None);
         };
-        let i = self.index;
-        self.index += 1;
-        descend(index_segment(i), || seed.deserialize(Reader(item))).map(Some)
+        let v = seed.deserialize(item)?;
+        leave();
+        Ok(Some(v))
     }
     fn size_hint(&self) -> Option<usize> {
-        Some(self.items.len())
+        Some((self.len - self.index) as usize)
     }
 }
 
 struct Entries {
-    entries: alloc::collections::btree_map::IntoIter<Value, Value>,
-    value: Option<(String, Value)>,
+    fields: alloc::vec::IntoIter<(String, JsValue)>,
+    value: Option<(String, JsValue)>,
+}
+
+impl Entries {
+    /// The value of the last key, its name on the path.
+    #[inline(never)]
+    fn next_field(&mut self) -> Result<Reader, ConfigError> {
+        let (name, v) = self
+            .value
+            .take()
+            .ok_or_else(|| ConfigError::Custom("internal: value without key".to_string()))?;
+        enter(format_args!(".{name}"))?;
+        Ok(Reader::Js(v))
+    }
 }
 
 impl<'de> de::MapAccess<'de> for Entries {
@@ -232,25 +505,20 @@ impl<'de> de::MapAccess<'de> for Entries {
         &mut self,
         seed: K,
     ) -> Result<Option<K::Value>, ConfigError> {
-        let Some((k, v)) = self.entries.next() else {
+        let Some((k, v)) = self.fields.next() else {
             return Ok(None);
         };
-        let name = match &k {
-            Value::String(s) => s.clone(),
-            _ => String::from("?"),
-        };
-        self.value = Some((name, v));
-        seed.deserialize(Reader(k)).map(Some)
+        let r = seed.deserialize(k.as_str().into_deserializer());
+        self.value = Some((k, v));
+        r.map(Some)
     }
     fn next_value_seed<V: DeserializeSeed<'de>>(
         &mut self,
         seed: V,
     ) -> Result<V::Value, ConfigError> {
-        let (name, v) = self
-            .value
-            .take()
-            .ok_or_else(|| ConfigError::Custom("internal: value without key".to_string()))?;
-        descend(field_segment(&name), || seed.deserialize(Reader(v)))
+        let v = seed.deserialize(self.next_field()?)?;
+        leave();
+        Ok(v)
     }
 }
 
@@ -258,78 +526,20 @@ impl<'de> de::MapAccess<'de> for Entries {
 /// `what`: `UNSUPPORTED` for an unknown key (with the accepted keys) or a value outside a fixed
 /// set, `WRONG_TYPE` for a value of the wrong type or a missing required field, `UNKNOWN_UNIT`
 /// for an unknown unit name.
-#[inline(never)]
 pub(crate) fn read<T: DeserializeOwned>(value: JsValue, what: &str) -> Result<T, Fail> {
-    let v = to_value(&value, 0).map_err(|(path, kind)| {
-        Fail::Binding("WRONG_TYPE", format!("{what}{path} cannot be {kind}"))
-    })?;
     PATH.with(|p| p.borrow_mut().clear());
-    T::deserialize(Reader(v)).map_err(|e| {
-        let path: String = PATH.with(|p| p.borrow_mut().drain(..).collect());
-        describe(e, &format!("{what}{path}"))
-    })
+    T::deserialize(Reader::Js(value)).map_err(|e| failure(e, what))
+}
+
+/// The failure of a read of `what`, at the path left by the error.
+#[inline(never)]
+fn failure(e: ConfigError, what: &str) -> Fail {
+    let path: String = PATH.with(|p| p.borrow_mut().drain(..).collect());
+    describe(e, &format!("{what}{path}"))
 }
 
 /// Deepest nesting read (configuration objects are 3 levels deep at most).
-const MAX_DEPTH: u32 = 16;
-
-/// The plain data `v` (a copy the facade made: plain objects, arrays, Float64Arrays, strings,
-/// numbers, booleans, undefined/null) as a [`Value`]; anything else is refused with the path
-/// and a description of the value.
-fn to_value(v: &JsValue, depth: u32) -> Result<Value, (String, &'static str)> {
-    if depth > MAX_DEPTH {
-        return Err((String::new(), "nested this deeply"));
-    }
-    if v.is_undefined() || v.is_null() {
-        return Ok(Value::Unit);
-    }
-    if let Some(b) = v.as_bool() {
-        return Ok(Value::Bool(b));
-    }
-    if let Some(x) = v.as_f64() {
-        return Ok(Value::F64(x));
-    }
-    if let Some(s) = v.as_string() {
-        return Ok(Value::String(s));
-    }
-    if let Some(a) = v.dyn_ref::<js_sys::Float64Array>() {
-        return Ok(Value::Seq(a.to_vec().into_iter().map(Value::F64).collect()));
-    }
-    if js_sys::Array::is_array(v) {
-        let a: &js_sys::Array = v.unchecked_ref();
-        let mut items = Vec::new();
-        for (i, x) in a.iter().enumerate() {
-            items.push(to_value(&x, depth + 1).map_err(|(p, k)| (format!("[{i}]{p}"), k))?);
-        }
-        return Ok(Value::Seq(items));
-    }
-    if v.is_object() && !v.is_function() {
-        let mut map = alloc::collections::BTreeMap::new();
-        let o: &js_sys::Object = v.unchecked_ref();
-        for k in js_sys::Object::keys(o).iter() {
-            let Some(key) = k.as_string() else { continue };
-            let x = js_sys::Reflect::get(v, &k).unwrap_or(JsValue::UNDEFINED);
-            if x.is_undefined() {
-                continue; // an undefined field is a field left out
-            }
-            let val = to_value(&x, depth + 1).map_err(|(p, kind)| (format!(".{key}{p}"), kind))?;
-            map.insert(Value::String(key), val);
-        }
-        return Ok(Value::Map(map));
-    }
-    Err((
-        String::new(),
-        if v.is_bigint() {
-            "a bigint"
-        } else if v.is_function() {
-            "a function"
-        } else if v.is_symbol() {
-            "a symbol"
-        } else {
-            "a value of this type"
-        },
-    ))
-}
+const MAX_DEPTH: usize = 16;
 
 fn list(items: &[&str]) -> String {
     let quoted: Vec<String> = items.iter().map(|s| format!("\"{s}\"")).collect();
@@ -392,5 +602,6 @@ fn describe(e: ConfigError, at: &str) -> Fail {
             Fail::Binding("UNSUPPORTED", format!("{at}: field \"{f}\" given twice"))
         }
         ConfigError::Custom(m) => Fail::Binding("UNSUPPORTED", format!("{at}: {m}")),
+        ConfigError::Refused(kind) => Fail::Binding("WRONG_TYPE", format!("{at} cannot be {kind}")),
     }
 }

@@ -90,7 +90,8 @@ struct Pending {
     code: &'static str,
     /// The variant's text fields (core errors), in declaration order.
     texts: [String; 2],
-    /// The variant's numbers (core errors), in declaration order.
+    /// The variant's numbers (core errors), in declaration order (a grid's ends are numbers
+    /// too, formatted by the facade: the module then links no float printer).
     numbers: [f64; 3],
     /// First bad element of a bulk call.
     #[serde(skip_serializing_if = "Option::is_none")]

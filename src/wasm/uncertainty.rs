@@ -17,7 +17,6 @@
 //! evaluation").
 
 use alloc::format;
-use alloc::string::String;
 use alloc::vec;
 use alloc::vec::Vec;
 
@@ -53,7 +52,7 @@ use crate::thermometry::Conditions;
 // ---------------------------------------------------------------------------------------------
 
 /// Writes `v` to f64 scratch buffer 0 and returns its length (what the facade reads back).
-fn put(v: &[f64]) -> f64 {
+pub(crate) fn put(v: &[f64]) -> f64 {
     with_f64(|b| {
         b[0].clear();
         b[0].extend_from_slice(v);
@@ -66,56 +65,41 @@ fn opt(x: Option<f64>) -> f64 {
     x.unwrap_or(f64::NAN)
 }
 
-/// Appends a GUM result: `[estimate, u_c, ν_eff, k, p, U, propagation, coverage method,
+/// Writes a GUM result to f64 scratch 0 and returns its length: `[estimate, u_c, ν_eff, k, p, U, propagation, coverage method,
 /// ν used, n]`, then per entry `[id, c, u, ν, evaluation, distribution, |c|·u, share]`.
 /// Codes are the enums' declaration order (`Evaluation`: typeA 0, typeB 1; `Distribution`:
 /// normal 0 … studentT 4; `Propagation`: uncorrelated 0, correlated 1; `CoverageMethod`:
 /// studentT 0, normal 1, statedFactor 2).
-fn push_gum(out: &mut Vec<f64>, estimate: f64, r: &GumResult, entries: &[GumEntry]) {
-    out.extend_from_slice(&[
-        estimate,
-        r.combined_standard_uncertainty,
-        opt(r.effective_degrees_of_freedom),
-        r.coverage_factor,
-        opt(r.coverage_probability),
-        r.expanded_uncertainty,
-        r.method.propagation as u8 as f64,
-        r.method.coverage as u8 as f64,
-        opt(r.method.degrees_of_freedom_used),
-        entries.len() as f64,
-    ]);
-    for (i, e) in entries.iter().enumerate() {
+fn push_gum(estimate: f64, r: &GumResult, entries: &[GumEntry]) -> f64 {
+    with_f64(|b| {
+        let out = &mut b[0];
+        out.clear();
         out.extend_from_slice(&[
-            i as f64,
-            e.sensitivity,
-            e.input.standard_uncertainty,
-            e.input.degrees_of_freedom,
-            e.input.evaluation as u8 as f64,
-            e.input.distribution as u8 as f64,
-            e.component.abs(),
-            e.variance_share,
+            estimate,
+            r.combined_standard_uncertainty,
+            opt(r.effective_degrees_of_freedom),
+            r.coverage_factor,
+            opt(r.coverage_probability),
+            r.expanded_uncertainty,
+            r.method.propagation as u8 as f64,
+            r.method.coverage as u8 as f64,
+            opt(r.method.degrees_of_freedom_used),
+            entries.len() as f64,
         ]);
-    }
-}
-
-/// The statement of the method behind a GUM result, from its codes (see [`push_gum`]).
-#[wasm_bindgen(js_name = qbGumStatement)]
-pub fn gum_statement(propagation: u32, coverage: u32) -> String {
-    GumMethod {
-        propagation: if propagation == 1 {
-            Propagation::FirstOrderCorrelated
-        } else {
-            Propagation::FirstOrderUncorrelated
-        },
-        coverage: match coverage {
-            0 => CoverageMethod::StudentT,
-            1 => CoverageMethod::Normal,
-            _ => CoverageMethod::StatedFactor,
-        },
-        degrees_of_freedom_used: None,
-    }
-    .describe()
-    .into()
+        for (i, e) in entries.iter().enumerate() {
+            out.extend_from_slice(&[
+                i as f64,
+                e.sensitivity,
+                e.input.standard_uncertainty,
+                e.input.degrees_of_freedom,
+                e.input.evaluation as u8 as f64,
+                e.input.distribution as u8 as f64,
+                e.component.abs(),
+                e.variance_share,
+            ]);
+        }
+        out.len() as f64
+    })
 }
 
 // ---------------------------------------------------------------------------------------------
@@ -245,15 +229,6 @@ const PATHS: [&str; 9] = [
     "uncertainties.windowReflectedTemperatureK",
 ];
 
-/// The nine input uncertainties of the measurement equation (`9·SPEC` numbers).
-fn measurement_inputs(v: &[f64]) -> Result<[InputUncertainty; 9], Fail> {
-    let mut u = [InputUncertainty::ZERO; 9];
-    for (i, x) in u.iter_mut().enumerate() {
-        *x = input_at(v, i, PATHS[i], None)?;
-    }
-    Ok(u)
-}
-
 /// Most inputs of a model given as a list (the propagation's cost is quadratic in them).
 const MAX_INPUTS: usize = 1000;
 
@@ -275,34 +250,48 @@ fn input_list(v: &[f64]) -> Result<Vec<InputUncertainty>, Fail> {
     Ok(out)
 }
 
-/// The 9×9 correlation matrix of `[i, j, r]` triples (input codes in `KEYS` order; the
-/// facade has refused a pair of one input, a repeated pair and r outside [−1, 1]), checked:
-/// INVALID_CORRELATION names an input whose row fails positive semi-definiteness.
-fn pair_matrix(triples: &[f64]) -> Result<Option<[f64; 81]>, Fail> {
-    if triples.is_empty() {
-        return Ok(None);
+/// The checked inputs of the measurement equation at `signal`: the nine input uncertainties
+/// (`9·SPEC` numbers in `inputs`) and the 9×9 correlation matrix of `[i, j, r]` triples
+/// (input codes in `KEYS` order; the facade has refused a pair of one input, a repeated pair
+/// and r outside [−1, 1]), built in `m` and checked: INVALID_CORRELATION names an input whose
+/// row fails positive semi-definiteness. Errors in that order, then a non-finite signal.
+#[inline(never)]
+fn measurement_setup<'a>(
+    signal: f64,
+    inputs: &[f64],
+    triples: &[f64],
+    m: &'a mut [f64; 81],
+) -> Result<([InputUncertainty; 9], Option<Correlation<'a>>), Fail> {
+    let mut u = [InputUncertainty::ZERO; 9];
+    for (i, x) in u.iter_mut().enumerate() {
+        *x = input_at(inputs, i, PATHS[i], None)?;
     }
-    let mut m = [0.0; 81];
-    for i in 0..9 {
-        m[i * 10] = 1.0;
-    }
-    for t in triples.chunks_exact(3) {
-        let (i, j) = ((t[0] as usize).min(8), (t[1] as usize).min(8));
-        m[i * 9 + j] = t[2];
-        m[j * 9 + i] = t[2];
-    }
-    Correlation::new(&m).map_err(|e| match e {
-        Error::InvalidCorrelation { reason, row, .. } => Fail::Binding(
-            "INVALID_CORRELATION",
-            format!(
-                "options.correlations: {reason} (no joint distribution has these coefficients; \
-                 check those involving {})",
-                KEYS.get(row).copied().unwrap_or("?")
+    let corr = if triples.is_empty() {
+        None
+    } else {
+        for i in 0..9 {
+            m[i * 10] = 1.0;
+        }
+        for t in triples.chunks_exact(3) {
+            let (i, j) = ((t[0] as usize).min(8), (t[1] as usize).min(8));
+            m[i * 9 + j] = t[2];
+            m[j * 9 + i] = t[2];
+        }
+        let m: &'a [f64; 81] = m;
+        Some(Correlation::new(m).map_err(|e| match e {
+            Error::InvalidCorrelation { reason, row, .. } => Fail::Binding(
+                "INVALID_CORRELATION",
+                format!(
+                    "options.correlations: {reason} (no joint distribution has these \
+                     coefficients; check those involving {})",
+                    KEYS.get(row).copied().unwrap_or("?")
+                ),
             ),
-        ),
-        other => other.into(),
-    })?;
-    Ok(Some(m))
+            other => other.into(),
+        })?)
+    };
+    check::finite("signal", signal)?;
+    Ok((u, corr))
 }
 
 /// A validated correlation matrix given row-major in `options.correlation`.
@@ -314,6 +303,29 @@ fn matrix<'a>(m: &'a [f64], workspace: &'a mut Vec<f64>) -> Result<Correlation<'
         Error::NonFinite { .. } => Fail::Core(e, None, "options"),
         other => other.into(),
     })
+}
+
+/// The checked inputs of a model given as a list (`SPEC` numbers each in `inputs`), then each
+/// of `finite_sensitivities` finite, then the correlation matrix `correlation` when
+/// `has_correlation` (its Cholesky factor in `workspace`). Errors in that order.
+#[inline(never)]
+fn list_setup<'a>(
+    inputs: &[f64],
+    finite_sensitivities: &[f64],
+    correlation: &'a [f64],
+    has_correlation: bool,
+    workspace: &'a mut Vec<f64>,
+) -> Result<(Vec<InputUncertainty>, Option<Correlation<'a>>), Fail> {
+    let u = input_list(inputs)?;
+    for &k in finite_sensitivities {
+        check::finite("sensitivities", k)?;
+    }
+    let corr = if has_correlation {
+        Some(matrix(correlation, workspace)?)
+    } else {
+        None
+    };
+    Ok((u, corr))
 }
 
 /// The coverage of `options` (the facade refuses both).
@@ -341,22 +353,15 @@ pub(crate) fn instrument_budget(
     coverage_factor: Option<f64>,
 ) -> f64 {
     number((|| {
-        let u = measurement_inputs(inputs)?;
-        let m = pair_matrix(correlations)?;
-        let corr = match &m {
-            Some(m) => Some(Correlation::new(m)?),
-            None => None,
-        };
-        check::finite("signal", signal)?;
+        let mut m = [0.0; 81];
+        let (u, corr) = measurement_setup(signal, inputs, correlations, &mut m)?;
         let cov = coverage(coverage_probability, coverage_factor);
         let b = h
             .model
             .run(|s| measurement_budget(s, signal, &h.conditions, &u, corr.as_ref(), cov))
             .map_err(options_arg)?;
         let rows = if h.conditions.window.is_some() { 9 } else { 5 };
-        let mut out = Vec::new();
-        push_gum(&mut out, b.temperature_k, &b.result, &b.entries[..rows]);
-        Ok(put(&out))
+        Ok(push_gum(b.temperature_k, &b.result, &b.entries[..rows]))
     })())
 }
 
@@ -373,56 +378,40 @@ pub fn propagate_uncertainty(
     coverage_factor: Option<f64>,
 ) -> f64 {
     number((|| {
-        let u = input_list(inputs)?;
         let mut ws = Vec::new();
-        let corr = if has_correlation {
-            Some(matrix(correlation, &mut ws)?)
-        } else {
-            None
-        };
+        let (u, corr) = list_setup(inputs, &[], correlation, has_correlation, &mut ws)?;
         let mut entries = vec![GumEntry::default(); sensitivities.len()];
         let cov = coverage(coverage_probability, coverage_factor);
         let r = propagate(sensitivities, &u, corr.as_ref(), cov, Some(&mut entries))
             .map_err(options_arg)?;
-        let mut out = Vec::new();
-        push_gum(&mut out, f64::NAN, &r, &entries);
-        Ok(put(&out))
+        Ok(push_gum(f64::NAN, &r, &entries))
     })())
 }
 
-#[wasm_bindgen(js_name = studentTCdf)]
-pub fn student_t_cdf(t: f64, degrees_of_freedom: f64) -> f64 {
-    number(student_t::student_t_cdf(t, degrees_of_freedom).map_err(Fail::from))
-}
-
-#[wasm_bindgen(js_name = studentTQuantile)]
-pub fn student_t_quantile(probability: f64, degrees_of_freedom: f64) -> f64 {
-    number(student_t::student_t_quantile(probability, degrees_of_freedom).map_err(Fail::from))
-}
-
-#[wasm_bindgen(js_name = coverageFactor)]
-pub fn coverage_factor(coverage_probability: f64, degrees_of_freedom: f64) -> f64 {
-    number(student_t::coverage_factor(coverage_probability, degrees_of_freedom).map_err(Fail::from))
-}
-
-/// Type A evaluation of the observations in f64 scratch 0: `[mean, s, s/√n, ν]` back there.
-#[wasm_bindgen(js_name = typeA)]
-pub fn type_a() -> f64 {
+/// The free functions on numbers, by `op`: 0 `studentTCdf(a = t, b = ν)`, 1
+/// `studentTQuantile(a = p, b = ν)`, 2 `coverageFactor(a = p, b = ν)`, 3 `typeA` of the
+/// observations in f64 scratch 0 (`[mean, s, s/√n, ν]` back there; returns 4), 4
+/// `typeACorrelation` of the series in f64 scratch 0 and 1. One export for all (their shims
+/// and error paths are shared).
+#[wasm_bindgen(js_name = qbUncertaintyNumber)]
+pub fn uncertainty_number(op: u32, a: f64, b: f64) -> f64 {
     number((|| {
-        let a = with_f64(|b| core_type_a(&b[0]))?;
-        Ok(put(&[
-            a.mean,
-            a.standard_deviation,
-            a.standard_uncertainty,
-            a.degrees_of_freedom,
-        ]))
+        Ok(match op {
+            0 => student_t::student_t_cdf(a, b)?,
+            1 => student_t::student_t_quantile(a, b)?,
+            2 => student_t::coverage_factor(a, b)?,
+            3 => {
+                let a = with_f64(|b| core_type_a(&b[0]))?;
+                put(&[
+                    a.mean,
+                    a.standard_deviation,
+                    a.standard_uncertainty,
+                    a.degrees_of_freedom,
+                ])
+            }
+            _ => with_f64(|b| core_type_a_correlation(&b[0], &b[1]))?,
+        })
     })())
-}
-
-/// Correlation of the means of the series in f64 scratch 0 and 1.
-#[wasm_bindgen(js_name = typeACorrelation)]
-pub fn type_a_correlation() -> f64 {
-    number(with_f64(|b| core_type_a_correlation(&b[0], &b[1])).map_err(Fail::from))
 }
 
 // ---------------------------------------------------------------------------------------------
@@ -517,13 +506,8 @@ impl MonteCarloHandle {
         settings: &[f64],
     ) -> Option<MonteCarloHandle> {
         some((|| {
-            let u = measurement_inputs(inputs)?;
-            let m = pair_matrix(correlations)?;
-            let corr = match &m {
-                Some(m) => Some(Correlation::new(m)?),
-                None => None,
-            };
-            check::finite("signal", signal)?;
+            let mut m = [0.0; 81];
+            let (u, corr) = measurement_setup(signal, inputs, correlations, &mut m)?;
             let cond = instrument.conditions;
             if cond.window.is_none() && u[5..].iter().any(|x| x.standard_uncertainty != 0.0) {
                 return Err(Error::Unsupported {
@@ -552,16 +536,9 @@ impl MonteCarloHandle {
         settings: &[f64],
     ) -> Option<MonteCarloHandle> {
         some((|| {
-            let u = input_list(inputs)?;
-            for &k in sensitivities {
-                check::finite("sensitivities", k)?;
-            }
             let mut ws = Vec::new();
-            let corr = if has_correlation {
-                Some(matrix(correlation, &mut ws)?)
-            } else {
-                None
-            };
+            let (u, corr) =
+                list_setup(inputs, sensitivities, correlation, has_correlation, &mut ws)?;
             Self::build(
                 settings,
                 estimates,
@@ -768,9 +745,16 @@ impl CalibrationHandle {
             }
             .into());
         };
-        let cal = CalibrationTransfer::fit(&r.points, r.c2)?;
+        let cal = fit_reference(r)?;
         Ok(f(&cal, r.points.len())?)
     }
+}
+
+/// The calibration transfer of the kept reference points (out of line: shared by the methods
+/// of [`CalibrationHandle::transfer`]).
+#[inline(never)]
+fn fit_reference(r: &Reference) -> crate::Result<CalibrationTransfer<'_>> {
+    CalibrationTransfer::fit(&r.points, r.c2)
 }
 
 #[wasm_bindgen(js_class = QbCalibration)]
@@ -922,37 +906,4 @@ impl CalibrationHandle {
             Ok(put(&out))
         }))
     }
-}
-
-// ---------------------------------------------------------------------------------------------
-// ITS-90 ratio sensitivities
-// ---------------------------------------------------------------------------------------------
-
-/// `[T, ∂T/∂r, ∂T/∂T_X, ∂T/∂λ]` of a radiance-ratio temperature in f64 scratch 0, ∂T/∂λ in K
-/// per `unit`.
-#[wasm_bindgen(js_name = ratioTemperatureSensitivities)]
-pub fn ratio_temperature_sensitivities(
-    ratio: f64,
-    wavelength: f64,
-    unit: &str,
-    reference_temperature_k: f64,
-    c2_name: &str,
-) -> f64 {
-    number((|| {
-        let wl = super::its90::wavelength_m("wavelength", wavelength, unit)?;
-        let s = its90::ratio_temperature_sensitivities(
-            ratio,
-            wl,
-            reference_temperature_k,
-            super::its90::c2(c2_name)?,
-        )?;
-        // metres per unit of the call (one rounding; the unit was parsed above)
-        let per_unit = wl / wavelength;
-        Ok(put(&[
-            s.temperature_k,
-            s.d_t_d_ratio,
-            s.d_t_d_reference_temperature,
-            s.d_t_d_wavelength * per_unit,
-        ]))
-    })())
 }

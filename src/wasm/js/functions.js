@@ -5,6 +5,7 @@
 
 import { QuantabandError } from './errors.js';
 import { bulk, glue, num, ready, result, some, str } from './runtime.js';
+import { _scratchNumbers } from './uncertainty_results.js';
 
 // ---- occupancies and integrals (src/wasm/stats.rs)
 
@@ -312,7 +313,7 @@ function c2Name(c2) {
 export function fixedPointTemperature(fixedPoint) {
   ready();
   str(fixedPoint, 'fixedPoint', 'UNSUPPORTED');
-  return result(glue.fixedPointTemperature(fixedPoint));
+  return result(glue.qbRatio(0, 0, 0, 0, 0, '', fixedPoint));
 }
 
 export function temperatureFromRatio(ratio, wavelength, unit, referenceTemperatureK, c2) {
@@ -321,7 +322,7 @@ export function temperatureFromRatio(ratio, wavelength, unit, referenceTemperatu
   num(wavelength, 'wavelength');
   str(unit, 'unit', 'UNKNOWN_UNIT');
   num(referenceTemperatureK, 'referenceTemperatureK');
-  return result(glue.temperatureFromRatio(ratio, wavelength, unit, referenceTemperatureK, c2Name(c2)));
+  return result(glue.qbRatio(1, ratio, wavelength, referenceTemperatureK, 0, unit, c2Name(c2)));
 }
 
 export function radianceRatio(temperatureK, wavelength, unit, referenceTemperatureK, c2) {
@@ -330,7 +331,7 @@ export function radianceRatio(temperatureK, wavelength, unit, referenceTemperatu
   num(wavelength, 'wavelength');
   str(unit, 'unit', 'UNKNOWN_UNIT');
   num(referenceTemperatureK, 'referenceTemperatureK');
-  return result(glue.radianceRatio(temperatureK, wavelength, unit, referenceTemperatureK, c2Name(c2)));
+  return result(glue.qbRatio(2, temperatureK, wavelength, referenceTemperatureK, 0, unit, c2Name(c2)));
 }
 
 export function its90Temperature(ratio, wavelength, unit, fixedPoint) {
@@ -339,7 +340,8 @@ export function its90Temperature(ratio, wavelength, unit, fixedPoint) {
   num(wavelength, 'wavelength');
   str(unit, 'unit', 'UNKNOWN_UNIT');
   str(fixedPoint, 'fixedPoint', 'UNSUPPORTED');
-  return some(glue.its90Temperature(ratio, wavelength, unit, fixedPoint));
+  const v = _scratchNumbers(glue.qbRatio(4, ratio, wavelength, 0, 0, unit, fixedPoint));
+  return { t90K: v[0], tCodataC2K: v[1], c2EffectK: v[2], belowSilverPoint: v[3] === 1 };
 }
 
 export function twoColourTemperature(wavelength1, wavelength2, unit, ratio, emissivityRatio, c2) {
@@ -349,5 +351,6 @@ export function twoColourTemperature(wavelength1, wavelength2, unit, ratio, emis
   str(unit, 'unit', 'UNKNOWN_UNIT');
   num(ratio, 'ratio');
   num(emissivityRatio, 'emissivityRatio');
-  return some(glue.twoColourTemperature(wavelength1, wavelength2, unit, ratio, emissivityRatio, c2Name(c2)));
+  const v = _scratchNumbers(glue.qbRatio(5, wavelength1, wavelength2, ratio, emissivityRatio, unit, c2Name(c2)));
+  return { temperatureK: v[0], dTdRatio: v[1], dTdEmissivityRatio: v[2] };
 }

@@ -22,7 +22,7 @@ export function studentTCdf(t, degreesOfFreedom) {
   ready();
   num(t, 't');
   num(degreesOfFreedom, 'degreesOfFreedom');
-  return result(glue.studentTCdf(t, degreesOfFreedom));
+  return result(glue.qbUncertaintyNumber(0, t, degreesOfFreedom));
 }
 
 /** The t with P(T ≤ t) = probability ∈ (0, 1), ν > 0 (Infinity: the normal quantile). */
@@ -30,7 +30,7 @@ export function studentTQuantile(probability, degreesOfFreedom) {
   ready();
   num(probability, 'probability');
   num(degreesOfFreedom, 'degreesOfFreedom');
-  return result(glue.studentTQuantile(probability, degreesOfFreedom));
+  return result(glue.qbUncertaintyNumber(1, probability, degreesOfFreedom));
 }
 
 /** k = t_{(1+p)/2}(ν) of a symmetric interval with coverage probability p (JCGM 100 G.3.4). */
@@ -38,7 +38,7 @@ export function coverageFactor(coverageProbability, degreesOfFreedom) {
   ready();
   num(coverageProbability, 'coverageProbability');
   num(degreesOfFreedom, 'degreesOfFreedom');
-  return result(glue.coverageFactor(coverageProbability, degreesOfFreedom));
+  return result(glue.qbUncertaintyNumber(2, coverageProbability, degreesOfFreedom));
 }
 
 /** Type A evaluation of repeated observations (JCGM 100 §4.2): mean, s, s/√n, ν = n − 1. */
@@ -46,7 +46,7 @@ export function typeA(observations) {
   ready();
   const [x, n] = numbers(observations, 'observations');
   fill(F64, reserve(F64, 0, n), n, x, 'observations');
-  const v = _scratchNumbers(glue.typeA());
+  const v = _scratchNumbers(glue.qbUncertaintyNumber(3, 0, 0));
   return { mean: v[0], standardDeviation: v[1], standardUncertainty: v[2], degreesOfFreedom: v[3] };
 }
 
@@ -59,7 +59,7 @@ export function typeACorrelation(x, y) {
   const pb = reserve(F64, 1, nb);
   fill(F64, pa, na, a, 'x');
   fill(F64, pb, nb, b, 'y');
-  return result(glue.typeACorrelation());
+  return result(glue.qbUncertaintyNumber(4, 0, 0));
 }
 
 /**
@@ -84,7 +84,7 @@ export function ratioTemperatureSensitivities(ratio, wavelength, unit, reference
     if (c2 === '') throw new QuantabandError('UNSUPPORTED', 'c2 must be one of "codata2018", "its90" (got "")');
     c2Name = c2;
   }
-  const v = _scratchNumbers(glue.ratioTemperatureSensitivities(ratio, wavelength, unit, referenceTemperatureK, c2Name));
+  const v = _scratchNumbers(glue.qbRatio(3, ratio, wavelength, referenceTemperatureK, 0, unit, c2Name));
   return { temperatureK: v[0], dTdRatio: v[1], dTdReferenceTemperature: v[2], dTdWavelength: v[3] };
 }
 

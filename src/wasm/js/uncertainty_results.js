@@ -35,16 +35,18 @@ const MEASUREMENT_INPUTS = [
 /** ITS-90 fixed points, in the order of the core's FixedPoint. */
 const FIXED_POINTS = ['indium', 'tin', 'zinc', 'aluminium', 'silver', 'gold', 'copper'];
 
-const methodStatements = new Map();
-function statement(p, c) {
-  const key = p * 3 + c;
-  let s = methodStatements.get(key);
-  if (s === undefined) {
-    s = glue.qbGumStatement(p, c);
-    methodStatements.set(key, s);
-  }
-  return s;
-}
+/** The statement of a GUM method, by propagation code p and coverage code c: the wording of
+ * the core's `GumMethod::describe` (tests/gum_statements.rs checks they agree). */
+const PROPAGATION_TEXT = [
+  'JCGM 100:2008 first-order law of propagation (eq. 10, uncorrelated inputs); ',
+  'JCGM 100:2008 first-order law of propagation with correlations (eq. 16); ',
+];
+const COVERAGE_TEXT = [
+  "Welch-Satterthwaite effective degrees of freedom (eq. G.2b), truncated; coverage factor from Student's t",
+  'infinite effective degrees of freedom; coverage factor from the normal distribution',
+  'stated coverage factor',
+];
+const statement = (p, c) => PROPAGATION_TEXT[p] + COVERAGE_TEXT[c];
 
 /**
  * The GUM result at v[at…] ([estimate, u_c, ν_eff, k, p, U, propagation, coverage, ν used, n],
