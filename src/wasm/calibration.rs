@@ -11,7 +11,7 @@ use super::config::read;
 use super::error::{in_config, number, some, to_js, Fail};
 use super::instrument::InstrumentHandle;
 use super::scratch::{
-    map_in_place, status, with_f32, with_f64, with_f64x, with_u16, with_u8, KIND_F32, KIND_U16,
+    map_in_place, status, with_f32, with_f64, with_f64x, with_u16, with_u8, KIND_F64, KIND_U16,
 };
 use super::testing::Live;
 use crate::constants::C2Convention;
@@ -374,15 +374,29 @@ impl CalibrationHandle {
                 with_f32(|g| {
                     let [g0, g1] = g;
                     with_u16(|u| {
-                        if !maps && !masked {
-                            return match (input, out_f64) {
-                                (KIND_U16, true) => conv.convert(&u[..], &mut f1[..]),
-                                (KIND_U16, false) => conv.convert(&u[..], &mut g1[..]),
-                                (KIND_F32, true) => conv.convert(&g0[..], &mut f1[..]),
-                                (KIND_F32, false) => conv.convert(&g0[..], &mut g1[..]),
-                                (_, true) => conv.convert(&f0[..], &mut f1[..]),
-                                (_, false) => conv.convert(&f0[..], &mut g1[..]),
-                            };
+                        if !maps && !masked && input != KIND_F64 {
+                            // u16 counts or f32 signals: the single-precision loop where it
+                            // applies (f32 out), else the f64 loop on the frame widened to f64
+                            // first (exact), so that loop exists once per output type.
+                            let n = if input == KIND_U16 { u.len() } else { g0.len() };
+                            let n_out = if out_f64 { f1.len() } else { g1.len() };
+                            if n != n_out {
+                                return Err(Error::LengthMismatch {
+                                    expected: n,
+                                    got: n_out,
+                                });
+                            }
+                            if !out_f64 {
+                                let fast = if input == KIND_U16 {
+                                    conv.convert_f32(&u[..], &[], &mut g1[..])
+                                } else {
+                                    conv.convert_f32(&[], &g0[..], &mut g1[..])
+                                };
+                                if let Some(sum) = fast {
+                                    return Ok(sum);
+                                }
+                            }
+                            widen(f0, &u[..], &g0[..], input == KIND_U16);
                         }
                         with_f64x(|x| {
                             let [x3, x4] = x;
@@ -393,8 +407,7 @@ impl CalibrationHandle {
                                     emissivity: if map { Some(&f2[..]) } else { None },
                                     bad_pixels: if masked { Some(&m[..]) } else { None },
                                 };
-                                // Corrections take the frame as f64 (one loop per output
-                                // type instead of one per input type: smaller module).
+                                // The f64 loops: one per output type (and emissivity case).
                                 if out_f64 {
                                     conv.convert_corrected(&f0[..], &corr, &mut f1[..])
                                 } else {
@@ -419,5 +432,16 @@ impl CalibrationHandle {
                 background_signal: conv.background(),
             })
         })())
+    }
+}
+
+/// The frame in u16 `counts` (`counts_in`) or f32 `signals` as f64 into `f0` (exact).
+#[inline(never)]
+fn widen(f0: &mut Vec<f64>, counts: &[u16], signals: &[f32], counts_in: bool) {
+    f0.clear();
+    if counts_in {
+        f0.extend(counts.iter().map(|&c| f64::from(c)));
+    } else {
+        f0.extend(signals.iter().map(|&x| f64::from(x)));
     }
 }
