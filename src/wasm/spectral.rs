@@ -14,7 +14,7 @@ use alloc::format;
 use alloc::vec::Vec;
 use core::fmt;
 
-use serde::de::{self, Deserializer, MapAccess, Visitor};
+use serde::de::{self, DeserializeSeed, Deserializer, MapAccess, Visitor};
 use serde::Deserialize;
 use wasm_bindgen::prelude::*;
 
@@ -98,6 +98,181 @@ impl<'de> Visitor<'de> for TableVisitor {
     }
 }
 
+/// An optical input as given: left out, a number (grey) or a table object.
+#[derive(Default)]
+enum InputDef {
+    #[default]
+    Absent,
+    Constant(f64),
+    Table(TableDef),
+}
+
+/// Everything a definition holds, filled in place by the readers below: one flat record, so
+/// a reader that fails part-way leaves one value to drop instead of a nest of partly built
+/// structs (the nested form cost the package about 3 KB of drop code on the error paths).
+#[derive(Default)]
+struct Definition {
+    /// The response, emissivity, reflectance, path transmittance, window transmittance and
+    /// window reflectance (indices [`RESP`] … [`WIN_R`]).
+    inputs: [InputDef; 6],
+    /// reflectedTemperatureK, pathTemperatureK, window.temperatureK,
+    /// window.reflectedTemperatureK (indices [`T_REFL`] … [`T_WIN_REFL`]).
+    temps: [Option<f64>; 4],
+    window: bool,
+    c2: C2Convention,
+}
+
+const RESP: usize = 0;
+const EPS: usize = 1;
+const REFL: usize = 2;
+const PATH_T: usize = 3;
+const WIN_T: usize = 4;
+const WIN_R: usize = 5;
+const T_REFL: usize = 0;
+const T_PATH: usize = 1;
+const T_WIN: usize = 2;
+const T_WIN_REFL: usize = 3;
+
+/// The parts of a definition: which object (or optional input) a reader fills in.
+#[derive(Clone, Copy)]
+enum Part {
+    Root,
+    Conditions,
+    Window,
+    /// An optional input (`null` or left out: absent) at this index.
+    Input(usize),
+    /// A required input (the window's transmittance) at this index.
+    Required(usize),
+}
+
+/// Reads one part of a definition into the record.
+struct Fill<'a>(&'a mut Definition, Part);
+
+impl<'de> DeserializeSeed<'de> for Fill<'_> {
+    type Value = ();
+    fn deserialize<D: Deserializer<'de>>(self, d: D) -> Result<(), D::Error> {
+        match self.1 {
+            Part::Root => d.deserialize_map(self),
+            Part::Input(_) | Part::Conditions | Part::Window => d.deserialize_option(self),
+            Part::Required(_) => d.deserialize_any(self),
+        }
+    }
+}
+
+const CONDITIONS_FIELDS: &[&str] = &[
+    "emissivity",
+    "reflectance",
+    "reflectedTemperatureK",
+    "pathTransmittance",
+    "pathTemperatureK",
+    "window",
+];
+const WINDOW_FIELDS: &[&str] = &[
+    "transmittance",
+    "reflectance",
+    "temperatureK",
+    "reflectedTemperatureK",
+];
+
+impl<'de> Visitor<'de> for Fill<'_> {
+    type Value = ();
+    fn expecting(&self, f: &mut fmt::Formatter<'_>) -> fmt::Result {
+        f.write_str(match self.1 {
+            Part::Input(_) | Part::Required(_) => {
+                "a number or a table { wavelengths, values, unit, ends? }"
+            }
+            _ => "an object",
+        })
+    }
+    fn visit_none<E: de::Error>(self) -> Result<(), E> {
+        Ok(())
+    }
+    fn visit_some<D: Deserializer<'de>>(self, d: D) -> Result<(), D::Error> {
+        match self.1 {
+            Part::Input(i) => Fill(self.0, Part::Required(i)).deserialize(d),
+            _ => d.deserialize_map(self),
+        }
+    }
+    fn visit_f64<E: de::Error>(self, v: f64) -> Result<(), E> {
+        if let Part::Required(i) | Part::Input(i) = self.1 {
+            if let Some(slot) = self.0.inputs.get_mut(i) {
+                *slot = InputDef::Constant(v);
+            }
+            return Ok(());
+        }
+        Err(de::Error::invalid_type(de::Unexpected::Float(v), &self))
+    }
+    fn visit_map<A: MapAccess<'de>>(self, mut m: A) -> Result<(), A::Error> {
+        let Fill(d, part) = self;
+        match part {
+            Part::Input(i) | Part::Required(i) => {
+                let t = TableVisitor(false).visit_map(m)?;
+                if let Some(slot) = d.inputs.get_mut(i) {
+                    *slot = InputDef::Table(t);
+                }
+                Ok(())
+            }
+            Part::Root => {
+                while let Some(key) = m.next_key::<alloc::string::String>()? {
+                    match key.as_str() {
+                        "response" => {
+                            let t = m.next_value::<ResponseDef>()?.0;
+                            d.inputs[RESP] = InputDef::Table(t);
+                        }
+                        "conditions" => m.next_value_seed(Fill(d, Part::Conditions))?,
+                        "c2" => d.c2 = m.next_value::<Option<C2Convention>>()?.unwrap_or_default(),
+                        other => {
+                            return Err(de::Error::unknown_field(
+                                other,
+                                &["response", "conditions", "c2"],
+                            ))
+                        }
+                    }
+                }
+                if matches!(d.inputs[RESP], InputDef::Absent) {
+                    return Err(de::Error::missing_field("response"));
+                }
+                Ok(())
+            }
+            Part::Conditions => {
+                while let Some(key) = m.next_key::<alloc::string::String>()? {
+                    match key.as_str() {
+                        "emissivity" => m.next_value_seed(Fill(&mut *d, Part::Input(EPS)))?,
+                        "reflectance" => m.next_value_seed(Fill(&mut *d, Part::Input(REFL)))?,
+                        "pathTransmittance" => {
+                            m.next_value_seed(Fill(&mut *d, Part::Input(PATH_T)))?
+                        }
+                        "reflectedTemperatureK" => d.temps[T_REFL] = m.next_value()?,
+                        "pathTemperatureK" => d.temps[T_PATH] = m.next_value()?,
+                        "window" => m.next_value_seed(Fill(&mut *d, Part::Window))?,
+                        other => return Err(de::Error::unknown_field(other, CONDITIONS_FIELDS)),
+                    }
+                }
+                Ok(())
+            }
+            Part::Window => {
+                while let Some(key) = m.next_key::<alloc::string::String>()? {
+                    match key.as_str() {
+                        "transmittance" => m.next_value_seed(Fill(&mut *d, Part::Input(WIN_T)))?,
+                        "reflectance" => m.next_value_seed(Fill(&mut *d, Part::Input(WIN_R)))?,
+                        "temperatureK" => d.temps[T_WIN] = m.next_value()?,
+                        "reflectedTemperatureK" => d.temps[T_WIN_REFL] = m.next_value()?,
+                        other => return Err(de::Error::unknown_field(other, WINDOW_FIELDS)),
+                    }
+                }
+                if matches!(d.inputs[WIN_T], InputDef::Absent) {
+                    return Err(de::Error::missing_field("transmittance"));
+                }
+                if d.temps[T_WIN].is_none() {
+                    return Err(de::Error::missing_field("temperatureK"));
+                }
+                d.window = true;
+                Ok(())
+            }
+        }
+    }
+}
+
 /// The response table (a [`TableDef`] with `quantity`).
 struct ResponseDef(TableDef);
 
@@ -107,167 +282,11 @@ impl<'de> Deserialize<'de> for ResponseDef {
     }
 }
 
-/// An optical input: a number (grey) or a table object.
-enum InputDef {
-    Constant(f64),
-    Table(TableDef),
-}
-
-impl<'de> Deserialize<'de> for InputDef {
-    fn deserialize<D: Deserializer<'de>>(d: D) -> Result<Self, D::Error> {
-        struct V;
-        impl<'de> Visitor<'de> for V {
-            type Value = InputDef;
-            fn expecting(&self, f: &mut fmt::Formatter<'_>) -> fmt::Result {
-                f.write_str("a number or a table { wavelengths, values, unit, ends? }")
-            }
-            fn visit_f64<E: de::Error>(self, v: f64) -> Result<InputDef, E> {
-                Ok(InputDef::Constant(v))
-            }
-            fn visit_map<A: MapAccess<'de>>(self, m: A) -> Result<InputDef, A::Error> {
-                TableVisitor(false).visit_map(m).map(InputDef::Table)
-            }
-        }
-        d.deserialize_any(V)
-    }
-}
-
-struct WindowDef {
-    transmittance: InputDef,
-    reflectance: Option<InputDef>,
-    temperature_k: f64,
-    reflected_temperature_k: Option<f64>,
-}
-
-impl<'de> Deserialize<'de> for WindowDef {
-    fn deserialize<D: Deserializer<'de>>(d: D) -> Result<Self, D::Error> {
-        struct V;
-        impl<'de> Visitor<'de> for V {
-            type Value = WindowDef;
-            fn expecting(&self, f: &mut fmt::Formatter<'_>) -> fmt::Result {
-                f.write_str("an object")
-            }
-            fn visit_map<A: MapAccess<'de>>(self, mut m: A) -> Result<WindowDef, A::Error> {
-                let (mut transmittance, mut reflectance, mut t, mut tr) = (None, None, None, None);
-                while let Some(key) = m.next_key::<alloc::string::String>()? {
-                    match key.as_str() {
-                        "transmittance" => transmittance = m.next_value()?,
-                        "reflectance" => reflectance = m.next_value()?,
-                        "temperatureK" => t = m.next_value()?,
-                        "reflectedTemperatureK" => tr = m.next_value()?,
-                        other => {
-                            return Err(de::Error::unknown_field(
-                                other,
-                                &[
-                                    "transmittance",
-                                    "reflectance",
-                                    "temperatureK",
-                                    "reflectedTemperatureK",
-                                ],
-                            ))
-                        }
-                    }
-                }
-                Ok(WindowDef {
-                    transmittance: transmittance
-                        .ok_or_else(|| de::Error::missing_field("transmittance"))?,
-                    reflectance,
-                    temperature_k: t.ok_or_else(|| de::Error::missing_field("temperatureK"))?,
-                    reflected_temperature_k: tr,
-                })
-            }
-        }
-        d.deserialize_map(V)
-    }
-}
-
-#[derive(Default)]
-struct ConditionsDef {
-    emissivity: Option<InputDef>,
-    reflectance: Option<InputDef>,
-    reflected_temperature_k: Option<f64>,
-    path_transmittance: Option<InputDef>,
-    path_temperature_k: Option<f64>,
-    window: Option<WindowDef>,
-}
-
-impl<'de> Deserialize<'de> for ConditionsDef {
-    fn deserialize<D: Deserializer<'de>>(d: D) -> Result<Self, D::Error> {
-        struct V;
-        impl<'de> Visitor<'de> for V {
-            type Value = ConditionsDef;
-            fn expecting(&self, f: &mut fmt::Formatter<'_>) -> fmt::Result {
-                f.write_str("an object")
-            }
-            fn visit_map<A: MapAccess<'de>>(self, mut m: A) -> Result<ConditionsDef, A::Error> {
-                let mut c = ConditionsDef::default();
-                while let Some(key) = m.next_key::<alloc::string::String>()? {
-                    match key.as_str() {
-                        "emissivity" => c.emissivity = m.next_value()?,
-                        "reflectance" => c.reflectance = m.next_value()?,
-                        "reflectedTemperatureK" => c.reflected_temperature_k = m.next_value()?,
-                        "pathTransmittance" => c.path_transmittance = m.next_value()?,
-                        "pathTemperatureK" => c.path_temperature_k = m.next_value()?,
-                        "window" => c.window = m.next_value()?,
-                        other => {
-                            return Err(de::Error::unknown_field(
-                                other,
-                                &[
-                                    "emissivity",
-                                    "reflectance",
-                                    "reflectedTemperatureK",
-                                    "pathTransmittance",
-                                    "pathTemperatureK",
-                                    "window",
-                                ],
-                            ))
-                        }
-                    }
-                }
-                Ok(c)
-            }
-        }
-        d.deserialize_map(V)
-    }
-}
-
-struct Definition {
-    response: TableDef,
-    conditions: ConditionsDef,
-    c2: C2Convention,
-}
-
 impl<'de> Deserialize<'de> for Definition {
     fn deserialize<D: Deserializer<'de>>(d: D) -> Result<Self, D::Error> {
-        struct V;
-        impl<'de> Visitor<'de> for V {
-            type Value = Definition;
-            fn expecting(&self, f: &mut fmt::Formatter<'_>) -> fmt::Result {
-                f.write_str("an object")
-            }
-            fn visit_map<A: MapAccess<'de>>(self, mut m: A) -> Result<Definition, A::Error> {
-                let (mut response, mut conditions, mut c2) = (None, None, None);
-                while let Some(key) = m.next_key::<alloc::string::String>()? {
-                    match key.as_str() {
-                        "response" => response = Some(m.next_value::<ResponseDef>()?.0),
-                        "conditions" => conditions = m.next_value()?,
-                        "c2" => c2 = m.next_value()?,
-                        other => {
-                            return Err(de::Error::unknown_field(
-                                other,
-                                &["response", "conditions", "c2"],
-                            ))
-                        }
-                    }
-                }
-                Ok(Definition {
-                    response: response.ok_or_else(|| de::Error::missing_field("response"))?,
-                    conditions: conditions.unwrap_or_default(),
-                    c2: c2.unwrap_or_default(),
-                })
-            }
-        }
-        d.deserialize_map(V)
+        let mut def = Definition::default();
+        Fill(&mut def, Part::Root).deserialize(d)?;
+        Ok(def)
     }
 }
 
@@ -409,11 +428,11 @@ enum Input {
 }
 
 impl Input {
-    fn of(d: Option<InputDef>, kind: TableKind, s: &Slot, default: f64) -> Result<Input, Fail> {
+    fn of(d: InputDef, kind: TableKind, s: &Slot, default: f64) -> Result<Input, Fail> {
         Ok(match d {
-            None => Input::Constant(default),
-            Some(InputDef::Constant(c)) => Input::Constant(c),
-            Some(InputDef::Table(t)) => {
+            InputDef::Absent => Input::Constant(default),
+            InputDef::Constant(c) => Input::Constant(c),
+            InputDef::Table(t) => {
                 Input::Table(table(t.wavelengths, t.values, t.unit, kind, s)?.with_ends(t.ends))
             }
         })
@@ -463,55 +482,54 @@ pub struct SpectralHandle {
 
 impl SpectralHandle {
     #[inline(never)]
-    fn build(d: Definition) -> Result<SpectralHandle, Fail> {
-        let r = d.response;
+    fn build(mut d: Definition) -> Result<SpectralHandle, Fail> {
+        let mut take = |i: usize| core::mem::take(&mut d.inputs[i]);
+        // (the reader requires a response table)
+        let InputDef::Table(r) = take(RESP) else {
+            return Err(Fail::from(Error::Unsupported {
+                what: "definition.response",
+            }));
+        };
         let kind = match r.quantity {
             Quantity::Energy => TableKind::EnergyResponse,
             Quantity::Photon => TableKind::PhotonResponse,
         };
         let response = table(r.wavelengths, r.values, r.unit, kind, &RESPONSE)?;
-        let c = d.conditions;
-        let emissivity = Input::of(c.emissivity, TableKind::Emissivity, &EMISSIVITY, 1.0)?;
-        let reflectance = match c.reflectance {
-            None => None,
+        let emissivity = Input::of(take(EPS), TableKind::Emissivity, &EMISSIVITY, 1.0)?;
+        let reflectance = match take(REFL) {
+            InputDef::Absent => None,
             r => Some(Input::of(r, TableKind::Reflectance, &REFLECTANCE, 0.0)?),
         };
-        let path_transmittance =
-            Input::of(c.path_transmittance, TableKind::Transmittance, &PATH, 1.0)?;
-        let window = match c.window {
-            None => None,
-            Some(w) => {
-                let transmittance = Input::of(
-                    Some(w.transmittance),
-                    TableKind::Transmittance,
-                    &WINDOW_T,
-                    1.0,
-                )?;
-                let reflectance = Input::of(w.reflectance, TableKind::Reflectance, &WINDOW_R, 0.0)?;
-                let reflected_temperature_k = match w.reflected_temperature_k {
-                    Some(t) => t,
-                    None if reflectance.is(0.0) => w.temperature_k,
-                    None => {
-                        return Err(required(
-                            "window.reflectedTemperatureK",
-                            "window.reflectance is not 0",
-                        ))
-                    }
-                };
-                Some(WindowInput {
-                    transmittance,
-                    reflectance,
-                    temperature_k: w.temperature_k,
-                    reflected_temperature_k,
-                })
-            }
+        let path_transmittance = Input::of(take(PATH_T), TableKind::Transmittance, &PATH, 1.0)?;
+        let window = if d.window {
+            let transmittance = Input::of(take(WIN_T), TableKind::Transmittance, &WINDOW_T, 1.0)?;
+            let reflectance = Input::of(take(WIN_R), TableKind::Reflectance, &WINDOW_R, 0.0)?;
+            let temperature_k = d.temps[T_WIN].unwrap_or(UNUSED_K);
+            let reflected_temperature_k = match d.temps[T_WIN_REFL] {
+                Some(t) => t,
+                None if reflectance.is(0.0) => temperature_k,
+                None => {
+                    return Err(required(
+                        "window.reflectedTemperatureK",
+                        "window.reflectance is not 0",
+                    ))
+                }
+            };
+            Some(WindowInput {
+                transmittance,
+                reflectance,
+                temperature_k,
+                reflected_temperature_k,
+            })
+        } else {
+            None
         };
         let reflects = match &reflectance {
             None => !emissivity.is(1.0),
             Some(r) => !r.is(0.0),
         };
         let reflected_temperature_k =
-            match c.reflected_temperature_k {
+            match d.temps[T_REFL] {
                 Some(t) => t,
                 None if !reflects => UNUSED_K,
                 None => return Err(required(
@@ -519,7 +537,7 @@ impl SpectralHandle {
                     "the target reflects (emissivity other than 1, or a reflectance other than 0)",
                 )),
             };
-        let path_temperature_k = match c.path_temperature_k {
+        let path_temperature_k = match d.temps[T_PATH] {
             Some(t) => t,
             None if path_transmittance.is(1.0) => UNUSED_K,
             None => return Err(required("pathTemperatureK", "pathTransmittance is not 1")),
