@@ -552,7 +552,11 @@ fn expected(e: &str) -> String {
         _ if e == SPECTRAL_NAMES => "a spectral unit name (a string such as \"um\")".to_string(),
         "f64" | "f32" | "i64" | "u64" | "u32" | "usize" => "a number".to_string(),
         "a sequence" => "an array of numbers".to_string(),
-        _ if e.starts_with("struct ") || e.starts_with("a map") || e.contains("object") => {
+        // (a byte-window search: `str::contains` links a 1.6 KB substring searcher)
+        _ if e.starts_with("struct ")
+            || e.starts_with("a map")
+            || e.as_bytes().windows(6).any(|w| w == b"object") =>
+        {
             "an object".to_string()
         }
         _ if e.starts_with("variant identifier") || e.starts_with("enum ") => {
