@@ -159,6 +159,33 @@ impl<'de> DeserializeSeed<'de> for Fill<'_> {
     }
 }
 
+/// What a field of the definition's objects is.
+#[derive(Clone, Copy)]
+enum Field {
+    Response,
+    C2,
+    /// An object or an optional input, read by [`Fill`].
+    Object(Part),
+    /// An optional temperature at this index of `temps`.
+    Temperature(usize),
+}
+
+const ROOT_FIELDS: &[&str] = &["response", "conditions", "c2"];
+const ROOT_ACTS: &[Field] = &[Field::Response, Field::Object(Part::Conditions), Field::C2];
+const CONDITIONS_ACTS: &[Field] = &[
+    Field::Object(Part::Input(EPS)),
+    Field::Object(Part::Input(REFL)),
+    Field::Temperature(T_REFL),
+    Field::Object(Part::Input(PATH_T)),
+    Field::Temperature(T_PATH),
+    Field::Object(Part::Window),
+];
+const WINDOW_ACTS: &[Field] = &[
+    Field::Object(Part::Input(WIN_T)),
+    Field::Object(Part::Input(WIN_R)),
+    Field::Temperature(T_WIN),
+    Field::Temperature(T_WIN_REFL),
+];
 const CONDITIONS_FIELDS: &[&str] = &[
     "emissivity",
     "reflectance",
@@ -212,62 +239,51 @@ impl<'de> Visitor<'de> for Fill<'_> {
                 }
                 Ok(())
             }
-            Part::Root => {
+            Part::Root | Part::Conditions | Part::Window => {
+                let fields = match part {
+                    Part::Root => ROOT_FIELDS,
+                    Part::Conditions => CONDITIONS_FIELDS,
+                    _ => WINDOW_FIELDS,
+                };
+                // One loop for the three objects: a field's position in its list says what it
+                // is (so each kind of value is read at one place).
                 while let Some(key) = m.next_key::<alloc::string::String>()? {
-                    match key.as_str() {
-                        "response" => {
+                    let Some(at) = fields.iter().position(|f| *f == key.as_str()) else {
+                        return Err(de::Error::unknown_field(&key, fields));
+                    };
+                    let field = match part {
+                        Part::Root => ROOT_ACTS,
+                        Part::Conditions => CONDITIONS_ACTS,
+                        _ => WINDOW_ACTS,
+                    }[at];
+                    match field {
+                        Field::Response => {
                             let t = m.next_value::<ResponseDef>()?.0;
                             d.inputs[RESP] = InputDef::Table(t);
                         }
-                        "conditions" => m.next_value_seed(Fill(d, Part::Conditions))?,
-                        "c2" => d.c2 = m.next_value::<Option<C2Convention>>()?.unwrap_or_default(),
-                        other => {
-                            return Err(de::Error::unknown_field(
-                                other,
-                                &["response", "conditions", "c2"],
-                            ))
+                        Field::C2 => {
+                            d.c2 = m.next_value::<Option<C2Convention>>()?.unwrap_or_default()
                         }
+                        Field::Object(p) => m.next_value_seed(Fill(&mut *d, p))?,
+                        Field::Temperature(i) => d.temps[i] = m.next_value()?,
                     }
                 }
-                if matches!(d.inputs[RESP], InputDef::Absent) {
-                    return Err(de::Error::missing_field("response"));
-                }
-                Ok(())
-            }
-            Part::Conditions => {
-                while let Some(key) = m.next_key::<alloc::string::String>()? {
-                    match key.as_str() {
-                        "emissivity" => m.next_value_seed(Fill(&mut *d, Part::Input(EPS)))?,
-                        "reflectance" => m.next_value_seed(Fill(&mut *d, Part::Input(REFL)))?,
-                        "pathTransmittance" => {
-                            m.next_value_seed(Fill(&mut *d, Part::Input(PATH_T)))?
-                        }
-                        "reflectedTemperatureK" => d.temps[T_REFL] = m.next_value()?,
-                        "pathTemperatureK" => d.temps[T_PATH] = m.next_value()?,
-                        "window" => m.next_value_seed(Fill(&mut *d, Part::Window))?,
-                        other => return Err(de::Error::unknown_field(other, CONDITIONS_FIELDS)),
+                match part {
+                    Part::Root if matches!(d.inputs[RESP], InputDef::Absent) => {
+                        Err(de::Error::missing_field("response"))
                     }
-                }
-                Ok(())
-            }
-            Part::Window => {
-                while let Some(key) = m.next_key::<alloc::string::String>()? {
-                    match key.as_str() {
-                        "transmittance" => m.next_value_seed(Fill(&mut *d, Part::Input(WIN_T)))?,
-                        "reflectance" => m.next_value_seed(Fill(&mut *d, Part::Input(WIN_R)))?,
-                        "temperatureK" => d.temps[T_WIN] = m.next_value()?,
-                        "reflectedTemperatureK" => d.temps[T_WIN_REFL] = m.next_value()?,
-                        other => return Err(de::Error::unknown_field(other, WINDOW_FIELDS)),
+                    Part::Window if matches!(d.inputs[WIN_T], InputDef::Absent) => {
+                        Err(de::Error::missing_field("transmittance"))
                     }
+                    Part::Window if d.temps[T_WIN].is_none() => {
+                        Err(de::Error::missing_field("temperatureK"))
+                    }
+                    Part::Window => {
+                        d.window = true;
+                        Ok(())
+                    }
+                    _ => Ok(()),
                 }
-                if matches!(d.inputs[WIN_T], InputDef::Absent) {
-                    return Err(de::Error::missing_field("transmittance"));
-                }
-                if d.temps[T_WIN].is_none() {
-                    return Err(de::Error::missing_field("temperatureK"));
-                }
-                d.window = true;
-                Ok(())
             }
         }
     }
