@@ -623,101 +623,16 @@ impl SpectralHandle {
         some(read::<Definition>(definition, "definition").and_then(Self::build))
     }
 
-    /// Blackbody signal ∫R·L(T) dλ (no conditions).
-    pub fn signal(&self, t: f64) -> f64 {
-        number(
-            (|| {
-                check::temperature("temperatureK", t)?;
-                self.run(|inst, _| {
-                    Ok(spectral_signal_terms(inst, t, &SpectralConditions::BLACKBODY)?.signal)
-                })
-            })()
-            .map_err(Fail::from),
-        )
+    /// The methods on one number `x`, by `op`: 0 blackbody signal ∫R·L(T) dλ (no conditions;
+    /// x = T), 1 measured signal (x = object temperature), 2 object temperature (x = signal),
+    /// 3 the five terms and their sum (signal, object, reflected, path, window reflected,
+    /// window emitted), 4 the band-effective values (in the order of the core's
+    /// `BandEffective` fields), 5 the sensitivities (in the order of the core's
+    /// `SpectralSensitivities` fields). 3–5 go to f64 scratch buffer 0 (see [`out`]) and
+    /// return their count. NaN with the error stored. (One export instead of six: smaller.)
+    pub fn number(&self, op: u32, x: f64) -> f64 {
+        number(self.number_op(op, x))
     }
-
-    #[wasm_bindgen(js_name = measuredSignal)]
-    pub fn measured_signal(&self, t: f64) -> f64 {
-        number(
-            (|| {
-                check::temperature("objectTemperatureK", t)?;
-                self.run(|inst, c| Ok(spectral_signal_terms(inst, t, c)?.signal))
-            })()
-            .map_err(Fail::from),
-        )
-    }
-
-    #[wasm_bindgen(js_name = objectTemperature)]
-    pub fn object_temperature(&self, signal: f64) -> f64 {
-        number(
-            (|| {
-                check::finite("signal", signal)?;
-                self.run(|inst, c| spectral_object_temperature(inst, signal, c))
-            })()
-            .map_err(Fail::from),
-        )
-    }
-
-    /// The five terms and their sum into f64 scratch buffer 0 (signal, object, reflected,
-    /// path, window reflected, window emitted); their number, or NaN with the error stored.
-    #[wasm_bindgen(js_name = signalTerms)]
-    pub fn signal_terms(&self, t: f64) -> f64 {
-        number((|| {
-            check::temperature("objectTemperatureK", t)?;
-            let r = self.run(|inst, c| spectral_signal_terms(inst, t, c))?;
-            Ok(out(&[
-                r.signal,
-                r.object,
-                r.reflected,
-                r.path,
-                r.window_reflected,
-                r.window_emitted,
-            ]))
-        })())
-    }
-
-    /// The band-effective values into f64 scratch buffer 0, in the order of the core's
-    /// `BandEffective` fields; their number, or NaN with the error stored.
-    #[wasm_bindgen(js_name = bandEffective)]
-    pub fn band_effective(&self, t: f64) -> f64 {
-        number((|| {
-            check::temperature("temperatureK", t)?;
-            let e = self.run(|inst, c| band_effective(inst, t, c))?;
-            Ok(out(&[
-                e.temperature_k,
-                e.emissivity,
-                e.reflectance,
-                e.path_transmittance,
-                e.window_transmittance,
-                e.window_reflectance,
-                e.object_gain,
-            ]))
-        })())
-    }
-
-    /// The sensitivities into f64 scratch buffer 0, in the order of the core's
-    /// `SpectralSensitivities` fields; their number, or NaN with the error stored.
-    pub fn sensitivities(&self, signal: f64) -> f64 {
-        number((|| {
-            check::finite("signal", signal)?;
-            let s = self.run(|inst, c| spectral_sensitivities(inst, signal, c))?;
-            Ok(out(&[
-                s.temperature_k,
-                s.signal,
-                s.emissivity_scale,
-                s.reflectance_scale,
-                s.path_transmittance_scale,
-                s.window_transmittance_scale,
-                s.window_reflectance_scale,
-                s.response_scale,
-                s.reflected_temperature,
-                s.path_temperature,
-                s.window_temperature,
-                s.window_reflected_temperature,
-            ]))
-        })())
-    }
-
     /// Bulk forms over f64 scratch buffer 0: 0 measured signals, 1 object temperatures.
     pub fn bulk(&self, op: u32) -> f64 {
         status(self.run_bulk(op))
@@ -751,6 +666,66 @@ impl SpectralHandle {
 }
 
 impl SpectralHandle {
+    /// [`SpectralHandle::number`].
+    fn number_op(&self, op: u32, x: f64) -> Result<f64, Fail> {
+        let arg = match op {
+            0 | 4 => "temperatureK",
+            1 | 3 => "objectTemperatureK",
+            _ => "signal",
+        };
+        if op == 2 || op == 5 {
+            check::finite(arg, x)?;
+        } else {
+            check::temperature(arg, x)?;
+        }
+        let (inst, c) = self.views()?;
+        Ok(match op {
+            0 => spectral_signal_terms(&inst, x, &SpectralConditions::BLACKBODY)?.signal,
+            1 => spectral_signal_terms(&inst, x, &c)?.signal,
+            2 => spectral_object_temperature(&inst, x, &c)?,
+            3 => {
+                let r = spectral_signal_terms(&inst, x, &c)?;
+                out(&[
+                    r.signal,
+                    r.object,
+                    r.reflected,
+                    r.path,
+                    r.window_reflected,
+                    r.window_emitted,
+                ])
+            }
+            4 => {
+                let e = band_effective(&inst, x, &c)?;
+                out(&[
+                    e.temperature_k,
+                    e.emissivity,
+                    e.reflectance,
+                    e.path_transmittance,
+                    e.window_transmittance,
+                    e.window_reflectance,
+                    e.object_gain,
+                ])
+            }
+            _ => {
+                let s = spectral_sensitivities(&inst, x, &c)?;
+                out(&[
+                    s.temperature_k,
+                    s.signal,
+                    s.emissivity_scale,
+                    s.reflectance_scale,
+                    s.path_transmittance_scale,
+                    s.window_transmittance_scale,
+                    s.window_reflectance_scale,
+                    s.response_scale,
+                    s.reflected_temperature,
+                    s.path_temperature,
+                    s.window_temperature,
+                    s.window_reflected_temperature,
+                ])
+            }
+        })
+    }
+
     #[inline(never)]
     fn run_bulk(&self, op: u32) -> Result<(), Fail> {
         let mut out = Ok(());

@@ -166,19 +166,19 @@ export class SpectralInstrument {
   signal(temperatureK) {
     const h = this.#live();
     num(temperatureK, 'temperatureK');
-    return result(h.signal(temperatureK));
+    return result(h.number(0, temperatureK));
   }
 
   measuredSignal(objectTemperatureK) {
     const h = this.#live();
     num(objectTemperatureK, 'objectTemperatureK');
-    return result(h.measuredSignal(objectTemperatureK));
+    return result(h.number(1, objectTemperatureK));
   }
 
   objectTemperature(signal) {
     const h = this.#live();
     num(signal, 'signal');
-    return result(h.objectTemperature(signal));
+    return result(h.number(2, signal));
   }
 
   measuredSignals(objectTemperaturesK, out) {
@@ -194,19 +194,19 @@ export class SpectralInstrument {
   signalTerms(objectTemperatureK) {
     const h = this.#live();
     num(objectTemperatureK, 'objectTemperatureK');
-    return named(TERMS, result(h.signalTerms(objectTemperatureK)));
+    return named(TERMS, result(h.number(3, objectTemperatureK)));
   }
 
   bandEffective(temperatureK) {
     const h = this.#live();
     num(temperatureK, 'temperatureK');
-    return named(EFFECTIVE, result(h.bandEffective(temperatureK)));
+    return named(EFFECTIVE, result(h.number(4, temperatureK)));
   }
 
   sensitivities(signal) {
     const h = this.#live();
     num(signal, 'signal');
-    return named(SENSITIVITIES, result(h.sensitivities(signal)));
+    return named(SENSITIVITIES, result(h.number(5, signal)));
   }
 }
 
