@@ -640,27 +640,24 @@ impl SpectralHandle {
 
     /// The reading workflows with this instrument (see [`workflow`]).
     #[wasm_bindgen(js_name = readingWorkflow)]
-    pub fn reading_workflow(&self, op: u32, a: f64, b: f64, c: f64, setting: JsValue) -> f64 {
+    pub fn reading_workflow(
+        &self,
+        op: u32,
+        a: f64,
+        b: f64,
+        c: f64,
+        d: f64,
+        setting: JsValue,
+    ) -> f64 {
         number((|| {
             let s = setting_of(setting)?;
             Ok(self.run(|inst, cond| {
                 if op == CORRECT {
                     correct_reading_spectral(inst, a, &s, cond)
                 } else {
-                    workflow(inst, op, a, b, c, &s)
+                    workflow(inst, op, [a, b, c, d], &s)
                 }
             })?)
-        })())
-    }
-
-    /// The reference-coating method with this instrument's response: emissivity and true
-    /// temperature into f64 scratch buffer 0 (see [`out`]).
-    #[wasm_bindgen(js_name = referenceEmissivity)]
-    pub fn reference_emissivity(&self, a: f64, b: f64, c: f64, d: f64, setting: JsValue) -> f64 {
-        number((|| {
-            let s = setting_of(setting)?;
-            let r = self.run(|inst, _| reference(inst, a, b, c, d, &s))?;
-            Ok(out(&[r.emissivity, r.temperature_k]))
         })())
     }
 }
@@ -752,10 +749,12 @@ impl SpectralHandle {
 
 /// Operation numbers of `readingWorkflow`: correct a reading (a = indicated temperature),
 /// reflected temperature from a reflector reading (a = indicated, b = reflector emissivity,
-/// c = reflector temperature), emissivity by contact (a = indicated, b = true temperature,
-/// c = reflected temperature).
+/// c = reflector temperature), emissivity by contact (2: a = indicated, b = true temperature,
+/// c = reflected temperature), the reference-coating method (a = reference reading, b = surface
+/// reading, c = reference emissivity, d = reflected temperature).
 const CORRECT: u32 = 0;
 const REFLECTED: u32 = 1;
+const REFERENCE: u32 = 3;
 
 /// The grey measurement conditions an instrument applied to a reading.
 #[inline(never)]
@@ -765,19 +764,19 @@ fn setting_of(v: JsValue) -> Result<Conditions, Fail> {
         .map_err(in_config("setting"))
 }
 
-/// The reflector method (`REFLECTED`) or the contact method with the blackbody signal of `m`.
-fn workflow(
-    m: &dyn SignalModel,
-    op: u32,
-    t_ind: f64,
-    b: f64,
-    c: f64,
-    setting: &Conditions,
-) -> crate::Result<f64> {
-    if op == REFLECTED {
-        reflected_temperature(m, t_ind, setting, b, c)
-    } else {
-        emissivity_by_contact(m, t_ind, setting, b, c)
+/// The reflector method (`REFLECTED`), the reference-coating method (`REFERENCE`: emissivity
+/// and true temperature into f64 scratch buffer 0, see [`out`]; returns 2) or the contact
+/// method, with the blackbody signal of `m`; `x` are the operation's numbers in the order of
+/// its JavaScript arguments.
+fn workflow(m: &dyn SignalModel, op: u32, x: [f64; 4], setting: &Conditions) -> crate::Result<f64> {
+    let [a, b, c, d] = x;
+    match op {
+        REFLECTED => reflected_temperature(m, a, setting, b, c),
+        REFERENCE => {
+            let r = reference(m, a, b, c, d, setting)?;
+            Ok(out(&[r.emissivity, r.temperature_k]))
+        }
+        _ => emissivity_by_contact(m, a, setting, b, c),
     }
 }
 
@@ -807,27 +806,24 @@ impl InstrumentHandle {
     /// The reading workflows with this instrument's model; a corrected reading is solved under
     /// the instrument's conditions.
     #[wasm_bindgen(js_name = readingWorkflow)]
-    pub fn reading_workflow(&self, op: u32, a: f64, b: f64, c: f64, setting: JsValue) -> f64 {
+    pub fn reading_workflow(
+        &self,
+        op: u32,
+        a: f64,
+        b: f64,
+        c: f64,
+        d: f64,
+        setting: JsValue,
+    ) -> f64 {
         number((|| {
             let s = setting_of(setting)?;
             Ok(self.model.run(|m| {
                 if op == CORRECT {
                     correct_reading(m, a, &s, &self.conditions)
                 } else {
-                    workflow(m, op, a, b, c, &s)
+                    workflow(m, op, [a, b, c, d], &s)
                 }
             })?)
-        })())
-    }
-
-    /// The reference-coating method with this instrument's model (results as
-    /// [`SpectralHandle::reference_emissivity`]).
-    #[wasm_bindgen(js_name = referenceEmissivity)]
-    pub fn reference_emissivity(&self, a: f64, b: f64, c: f64, d: f64, setting: JsValue) -> f64 {
-        number((|| {
-            let s = setting_of(setting)?;
-            let r = self.model.run(|m| reference(m, a, b, c, d, &s))?;
-            Ok(out(&[r.emissivity, r.temperature_k]))
         })())
     }
 }

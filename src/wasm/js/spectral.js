@@ -17,6 +17,7 @@ const OBJECT_TEMPERATURES = 1;
 const CORRECT = 0;
 const REFLECTED = 1;
 const CONTACT = 2;
+const REFERENCE = 3;
 
 /** The `kind` argument of tableFromText and its number in the module. */
 const TEXT_KINDS = { emissivity: 0, reflectance: 1, transmittance: 2, response: 3 };
@@ -245,7 +246,7 @@ function reading(op, instrument, indicatedTemperatureK, setting, b, bName, c, cN
   const s = settingOf(setting);
   num(b, bName);
   num(c, cName);
-  return result(h.readingWorkflow(op, indicatedTemperatureK, b, c, s));
+  return result(h.readingWorkflow(op, indicatedTemperatureK, b, c, 0, s));
 }
 
 export function correctReading(instrument, indicatedTemperatureK, setting) {
@@ -293,5 +294,5 @@ export function emissivityByReference(
   const s = settingOf(setting);
   num(referenceEmissivity, 'referenceEmissivity');
   num(reflectedTemperatureK, 'reflectedTemperatureK');
-  return named(['emissivity', 'temperatureK'], result(h.referenceEmissivity(referenceReadingK, surfaceReadingK, referenceEmissivity, reflectedTemperatureK, s)));
+  return named(['emissivity', 'temperatureK'], result(h.readingWorkflow(REFERENCE, referenceReadingK, surfaceReadingK, referenceEmissivity, reflectedTemperatureK, s)));
 }
