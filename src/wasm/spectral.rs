@@ -60,44 +60,6 @@ struct TableDef {
 const TABLE_FIELDS: &[&str] = &["wavelengths", "values", "unit", "ends"];
 const RESPONSE_FIELDS: &[&str] = &["wavelengths", "values", "unit", "quantity"];
 
-/// Reads a [`TableDef`]; `true` for the response (which takes `quantity`, not `ends`).
-struct TableVisitor(bool);
-
-impl<'de> Visitor<'de> for TableVisitor {
-    type Value = TableDef;
-    fn expecting(&self, f: &mut fmt::Formatter<'_>) -> fmt::Result {
-        f.write_str("an object")
-    }
-    fn visit_map<A: MapAccess<'de>>(self, mut m: A) -> Result<TableDef, A::Error> {
-        let (mut wavelengths, mut values, mut unit) = (None, None, None);
-        let (mut ends, mut quantity) = (Ends::Reject, Quantity::Energy);
-        while let Some(key) = m.next_key::<alloc::string::String>()? {
-            match key.as_str() {
-                "wavelengths" => wavelengths = Some(m.next_value()?),
-                "values" => values = Some(m.next_value()?),
-                "unit" => unit = Some(m.next_value()?),
-                "ends" if !self.0 => ends = m.next_value()?,
-                "quantity" if self.0 => quantity = m.next_value()?,
-                other => {
-                    let fields = if self.0 {
-                        RESPONSE_FIELDS
-                    } else {
-                        TABLE_FIELDS
-                    };
-                    return Err(de::Error::unknown_field(other, fields));
-                }
-            }
-        }
-        Ok(TableDef {
-            wavelengths: wavelengths.ok_or_else(|| de::Error::missing_field("wavelengths"))?,
-            values: values.ok_or_else(|| de::Error::missing_field("values"))?,
-            unit: unit.ok_or_else(|| de::Error::missing_field("unit"))?,
-            ends,
-            quantity,
-        })
-    }
-}
-
 /// An optical input as given: left out, a number (grey) or a table object.
 #[derive(Default)]
 enum InputDef {
@@ -141,8 +103,10 @@ enum Part {
     Window,
     /// An optional input (`null` or left out: absent) at this index.
     Input(usize),
-    /// A required input (the window's transmittance) at this index.
+    /// An input that is a number or a table (not `null`) at this index.
     Required(usize),
+    /// The response table.
+    Response,
 }
 
 /// Reads one part of a definition into the record.
@@ -152,7 +116,7 @@ impl<'de> DeserializeSeed<'de> for Fill<'_> {
     type Value = ();
     fn deserialize<D: Deserializer<'de>>(self, d: D) -> Result<(), D::Error> {
         match self.1 {
-            Part::Root => d.deserialize_map(self),
+            Part::Root | Part::Response => d.deserialize_map(self),
             Part::Input(_) | Part::Conditions | Part::Window => d.deserialize_option(self),
             Part::Required(_) => d.deserialize_any(self),
         }
@@ -162,16 +126,32 @@ impl<'de> DeserializeSeed<'de> for Fill<'_> {
 /// What a field of the definition's objects is.
 #[derive(Clone, Copy)]
 enum Field {
-    Response,
     C2,
     /// An object or an optional input, read by [`Fill`].
     Object(Part),
     /// An optional temperature at this index of `temps`.
     Temperature(usize),
+    /// A table's fields.
+    Wavelengths,
+    Values,
+    Unit,
+    Ends,
+    Quantity,
 }
 
 const ROOT_FIELDS: &[&str] = &["response", "conditions", "c2"];
-const ROOT_ACTS: &[Field] = &[Field::Response, Field::Object(Part::Conditions), Field::C2];
+const ROOT_ACTS: &[Field] = &[
+    Field::Object(Part::Response),
+    Field::Object(Part::Conditions),
+    Field::C2,
+];
+const TABLE_ACTS: &[Field] = &[Field::Wavelengths, Field::Values, Field::Unit, Field::Ends];
+const RESPONSE_ACTS: &[Field] = &[
+    Field::Wavelengths,
+    Field::Values,
+    Field::Unit,
+    Field::Quantity,
+];
 const CONDITIONS_ACTS: &[Field] = &[
     Field::Object(Part::Input(EPS)),
     Field::Object(Part::Input(REFL)),
@@ -231,70 +211,61 @@ impl<'de> Visitor<'de> for Fill<'_> {
     }
     fn visit_map<A: MapAccess<'de>>(self, mut m: A) -> Result<(), A::Error> {
         let Fill(d, part) = self;
-        match part {
-            Part::Input(i) | Part::Required(i) => {
-                let t = TableVisitor(false).visit_map(m)?;
-                if let Some(slot) = d.inputs.get_mut(i) {
-                    *slot = InputDef::Table(t);
-                }
-                Ok(())
-            }
-            Part::Root | Part::Conditions | Part::Window => {
-                let fields = match part {
-                    Part::Root => ROOT_FIELDS,
-                    Part::Conditions => CONDITIONS_FIELDS,
-                    _ => WINDOW_FIELDS,
-                };
-                // One loop for the three objects: a field's position in its list says what it
-                // is (so each kind of value is read at one place).
-                while let Some(key) = m.next_key::<alloc::string::String>()? {
-                    let Some(at) = fields.iter().position(|f| *f == key.as_str()) else {
-                        return Err(de::Error::unknown_field(&key, fields));
-                    };
-                    let field = match part {
-                        Part::Root => ROOT_ACTS,
-                        Part::Conditions => CONDITIONS_ACTS,
-                        _ => WINDOW_ACTS,
-                    }[at];
-                    match field {
-                        Field::Response => {
-                            let t = m.next_value::<ResponseDef>()?.0;
-                            d.inputs[RESP] = InputDef::Table(t);
-                        }
-                        Field::C2 => {
-                            d.c2 = m.next_value::<Option<C2Convention>>()?.unwrap_or_default()
-                        }
-                        Field::Object(p) => m.next_value_seed(Fill(&mut *d, p))?,
-                        Field::Temperature(i) => d.temps[i] = m.next_value()?,
-                    }
-                }
-                match part {
-                    Part::Root if matches!(d.inputs[RESP], InputDef::Absent) => {
-                        Err(de::Error::missing_field("response"))
-                    }
-                    Part::Window if matches!(d.inputs[WIN_T], InputDef::Absent) => {
-                        Err(de::Error::missing_field("transmittance"))
-                    }
-                    Part::Window if d.temps[T_WIN].is_none() => {
-                        Err(de::Error::missing_field("temperatureK"))
-                    }
-                    Part::Window => {
-                        d.window = true;
-                        Ok(())
-                    }
-                    _ => Ok(()),
-                }
+        let (fields, acts) = match part {
+            Part::Root => (ROOT_FIELDS, ROOT_ACTS),
+            Part::Conditions => (CONDITIONS_FIELDS, CONDITIONS_ACTS),
+            Part::Window => (WINDOW_FIELDS, WINDOW_ACTS),
+            Part::Response => (RESPONSE_FIELDS, RESPONSE_ACTS),
+            Part::Input(_) | Part::Required(_) => (TABLE_FIELDS, TABLE_ACTS),
+        };
+        // One loop for every object of a definition: a field's position in its list says what
+        // it is (so each kind of value is read at one place). A table's fields collect here.
+        let (mut wavelengths, mut values, mut unit) = (None, None, None);
+        let (mut ends, mut quantity) = (Ends::Reject, Quantity::Energy);
+        while let Some(key) = m.next_key::<alloc::string::String>()? {
+            let Some(at) = fields.iter().position(|f| *f == key.as_str()) else {
+                return Err(de::Error::unknown_field(&key, fields));
+            };
+            match acts[at] {
+                Field::C2 => d.c2 = m.next_value::<Option<C2Convention>>()?.unwrap_or_default(),
+                Field::Object(p) => m.next_value_seed(Fill(&mut *d, p))?,
+                Field::Temperature(i) => d.temps[i] = m.next_value()?,
+                Field::Wavelengths => wavelengths = Some(m.next_value()?),
+                Field::Values => values = Some(m.next_value()?),
+                Field::Unit => unit = Some(m.next_value()?),
+                Field::Ends => ends = m.next_value()?,
+                Field::Quantity => quantity = m.next_value()?,
             }
         }
-    }
-}
-
-/// The response table (a [`TableDef`] with `quantity`).
-struct ResponseDef(TableDef);
-
-impl<'de> Deserialize<'de> for ResponseDef {
-    fn deserialize<D: Deserializer<'de>>(d: D) -> Result<Self, D::Error> {
-        d.deserialize_map(TableVisitor(true)).map(ResponseDef)
+        let table_at = match part {
+            Part::Root if matches!(d.inputs[RESP], InputDef::Absent) => {
+                return Err(de::Error::missing_field("response"))
+            }
+            Part::Window if matches!(d.inputs[WIN_T], InputDef::Absent) => {
+                return Err(de::Error::missing_field("transmittance"))
+            }
+            Part::Window if d.temps[T_WIN].is_none() => {
+                return Err(de::Error::missing_field("temperatureK"))
+            }
+            Part::Window => {
+                d.window = true;
+                return Ok(());
+            }
+            Part::Response => RESP,
+            Part::Input(i) | Part::Required(i) => i,
+            _ => return Ok(()),
+        };
+        let t = TableDef {
+            wavelengths: wavelengths.ok_or_else(|| de::Error::missing_field("wavelengths"))?,
+            values: values.ok_or_else(|| de::Error::missing_field("values"))?,
+            unit: unit.ok_or_else(|| de::Error::missing_field("unit"))?,
+            ends,
+            quantity,
+        };
+        if let Some(slot) = d.inputs.get_mut(table_at) {
+            *slot = InputDef::Table(t);
+        }
+        Ok(())
     }
 }
 
