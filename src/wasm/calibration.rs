@@ -68,34 +68,87 @@ struct Report<'a> {
 
 /// Per-frame settings of a frame conversion. The facade reads the arrays itself and passes
 /// `true` for `emissivity`, `pixelGain`, `pixelOffset`, `badPixels` and `out` when they are
-/// given; it also chooses the output buffer from `output`, which is checked here.
-#[derive(Deserialize, Default)]
-#[serde(rename_all = "camelCase", deny_unknown_fields)]
+/// given; it also chooses the output buffer from `output`, which is checked here. Read by a
+/// hand-written `visit_map` (fields by position in one list, each kind of value read at one
+/// place; smaller than the derived reader, same defaults and messages).
 struct FrameSettings {
-    #[serde(default = "one")]
     gain: f64,
-    #[serde(default)]
     offset: f64,
-    #[serde(default)]
     conditions: MeasurementConditions,
-    #[serde(default)]
-    #[allow(dead_code)]
-    output: FrameOutput,
-    #[serde(default)]
-    #[allow(dead_code)]
-    emissivity: Option<bool>,
-    #[serde(default)]
-    #[allow(dead_code)]
-    out: Option<bool>,
     /// A per-pixel non-uniformity gain map is in f64 scratch slot 3.
-    #[serde(default)]
     pixel_gain: Option<bool>,
     /// A per-pixel non-uniformity offset map is in f64 scratch slot 4.
-    #[serde(default)]
     pixel_offset: Option<bool>,
     /// A bad-pixel mask is in u8 scratch slot 0.
-    #[serde(default)]
     bad_pixels: Option<bool>,
+}
+
+/// The fields of [`FrameSettings`] as JavaScript writes them.
+const FRAME_FIELDS: &[&str] = &[
+    "gain",
+    "offset",
+    "conditions",
+    "output",
+    "emissivity",
+    "out",
+    "pixelGain",
+    "pixelOffset",
+    "badPixels",
+];
+
+impl<'de> Deserialize<'de> for FrameSettings {
+    fn deserialize<D: serde::Deserializer<'de>>(d: D) -> Result<Self, D::Error> {
+        struct V;
+        impl<'de> serde::de::Visitor<'de> for V {
+            type Value = FrameSettings;
+            fn expecting(&self, f: &mut core::fmt::Formatter<'_>) -> core::fmt::Result {
+                f.write_str("struct FrameSettings")
+            }
+            fn visit_map<A: serde::de::MapAccess<'de>>(
+                self,
+                mut m: A,
+            ) -> Result<FrameSettings, A::Error> {
+                let mut s = FrameSettings {
+                    gain: 1.0,
+                    offset: 0.0,
+                    conditions: MeasurementConditions::default(),
+                    pixel_gain: None,
+                    pixel_offset: None,
+                    bad_pixels: None,
+                };
+                while let Some(key) = m.next_key::<alloc::string::String>()? {
+                    let Some(at) = FRAME_FIELDS.iter().position(|f| *f == key.as_str()) else {
+                        return Err(serde::de::Error::unknown_field(&key, FRAME_FIELDS));
+                    };
+                    match at {
+                        0 | 1 => {
+                            let v = m.next_value::<f64>()?;
+                            if at == 0 {
+                                s.gain = v;
+                            } else {
+                                s.offset = v;
+                            }
+                        }
+                        2 => s.conditions = m.next_value()?,
+                        3 => {
+                            m.next_value::<FrameOutput>()?;
+                        }
+                        _ => {
+                            let v = m.next_value::<Option<bool>>()?;
+                            match at {
+                                6 => s.pixel_gain = v,
+                                7 => s.pixel_offset = v,
+                                8 => s.bad_pixels = v,
+                                _ => {}
+                            }
+                        }
+                    }
+                }
+                Ok(s)
+            }
+        }
+        d.deserialize_struct("FrameSettings", FRAME_FIELDS, V)
+    }
 }
 
 /// Element type of the returned temperatures.
@@ -105,10 +158,6 @@ enum FrameOutput {
     #[default]
     Float32,
     Float64,
-}
-
-fn one() -> f64 {
-    1.0
 }
 
 #[derive(Serialize)]
