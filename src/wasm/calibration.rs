@@ -34,16 +34,55 @@ pub struct CalibrationHandle {
 }
 
 /// The coefficients of a curve as given (checked by `SakumaHattori::new`, whose error keeps its
-/// code; the core's own `Deserialize` for the curve reports it as text).
-#[derive(Deserialize)]
-#[serde(rename_all = "camelCase", deny_unknown_fields)]
+/// code; the core's own `Deserialize` for the curve reports it as text). Read by a hand-written
+/// `visit_map` (smaller than the derived reader; same defaults and messages).
 struct Coefficients {
     a_m: f64,
-    #[serde(rename = "bMK")]
     b_mk: f64,
     c: f64,
-    #[serde(default)]
     c2: C2Convention,
+}
+
+/// The fields of [`Coefficients`] as JavaScript writes them.
+const COEFFICIENT_FIELDS: &[&str] = &["aM", "bMK", "c", "c2"];
+
+impl<'de> Deserialize<'de> for Coefficients {
+    fn deserialize<D: serde::Deserializer<'de>>(d: D) -> Result<Self, D::Error> {
+        struct V;
+        impl<'de> serde::de::Visitor<'de> for V {
+            type Value = Coefficients;
+            fn expecting(&self, f: &mut core::fmt::Formatter<'_>) -> core::fmt::Result {
+                f.write_str("struct Coefficients")
+            }
+            fn visit_map<A: serde::de::MapAccess<'de>>(
+                self,
+                mut m: A,
+            ) -> Result<Coefficients, A::Error> {
+                let mut abc = [None; 3];
+                let mut c2 = C2Convention::default();
+                while let Some(key) = m.next_key::<alloc::string::String>()? {
+                    let Some(at) = COEFFICIENT_FIELDS.iter().position(|f| *f == key.as_str())
+                    else {
+                        return Err(serde::de::Error::unknown_field(&key, COEFFICIENT_FIELDS));
+                    };
+                    match abc.get_mut(at) {
+                        Some(slot) => *slot = Some(m.next_value::<f64>()?),
+                        None => c2 = m.next_value()?,
+                    }
+                }
+                let get = |i: usize| {
+                    abc[i].ok_or_else(|| serde::de::Error::missing_field(COEFFICIENT_FIELDS[i]))
+                };
+                Ok(Coefficients {
+                    a_m: get(0)?,
+                    b_mk: get(1)?,
+                    c: get(2)?,
+                    c2,
+                })
+            }
+        }
+        d.deserialize_struct("Coefficients", COEFFICIENT_FIELDS, V)
+    }
 }
 
 /// Options of the fits.
