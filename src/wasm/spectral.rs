@@ -641,78 +641,82 @@ impl SpectralHandle {
             1 | 3 => "objectTemperatureK",
             _ => "signal",
         };
-        if op == 2 || op == 5 {
-            check::finite(arg, x)?;
-        } else {
-            check::temperature(arg, x)?;
-        }
         let (inst, c) = self.views()?;
-        Ok(match op {
-            0 => spectral_signal_terms(&inst, x, &SpectralConditions::BLACKBODY)?.signal,
-            1 => spectral_signal_terms(&inst, x, &c)?.signal,
-            2 => spectral_object_temperature(&inst, x, &c)?,
-            3 => {
-                let r = spectral_signal_terms(&inst, x, &c)?;
-                out(&[
-                    r.signal,
-                    r.object,
-                    r.reflected,
-                    r.path,
-                    r.window_reflected,
-                    r.window_emitted,
-                ])
-            }
-            4 => {
-                let e = band_effective(&inst, x, &c)?;
-                out(&[
-                    e.temperature_k,
-                    e.emissivity,
-                    e.reflectance,
-                    e.path_transmittance,
-                    e.window_transmittance,
-                    e.window_reflectance,
-                    e.object_gain,
-                ])
-            }
-            _ => {
-                let s = spectral_sensitivities(&inst, x, &c)?;
-                out(&[
-                    s.temperature_k,
-                    s.signal,
-                    s.emissivity_scale,
-                    s.reflectance_scale,
-                    s.path_transmittance_scale,
-                    s.window_transmittance_scale,
-                    s.window_reflectance_scale,
-                    s.response_scale,
-                    s.reflected_temperature,
-                    s.path_temperature,
-                    s.window_temperature,
-                    s.window_reflected_temperature,
-                ])
-            }
-        })
+        Ok(eval(&inst, &c, op, x, arg)?)
     }
 
+    /// Bulk forms over f64 scratch buffer 0 (ops 1 and 2 of [`eval`] element by element).
     #[inline(never)]
     fn run_bulk(&self, op: u32) -> Result<(), Fail> {
-        let mut out = Ok(());
-        self.run(|inst, c| {
-            out = if op == 0 {
-                map_in_place(|t| {
-                    check::temperature("objectTemperaturesK", t)?;
-                    Ok(spectral_signal_terms(inst, t, c)?.signal)
-                })
-            } else {
-                map_in_place(|s| {
-                    check::finite("signals", s)?;
-                    spectral_object_temperature(inst, s, c)
-                })
-            };
-            Ok(())
-        })?;
-        out
+        let (inst, c) = self.views()?;
+        let (op, arg) = if op == 0 {
+            (1, "objectTemperaturesK")
+        } else {
+            (2, "signals")
+        };
+        map_in_place(|x| eval(&inst, &c, op, x, arg))
     }
+}
+
+/// One evaluation of [`SpectralHandle::number`]'s `op` with the core's views; `arg` names `x`
+/// in errors. Ops 3–5 write to f64 scratch buffer 0 (not for bulk use).
+fn eval(
+    inst: &SpectralInstrument<'_>,
+    c: &SpectralConditions<'_>,
+    op: u32,
+    x: f64,
+    arg: &'static str,
+) -> crate::Result<f64> {
+    if op == 2 || op == 5 {
+        check::finite(arg, x)?;
+    } else {
+        check::temperature(arg, x)?;
+    }
+    Ok(match op {
+        0 => spectral_signal_terms(inst, x, &SpectralConditions::BLACKBODY)?.signal,
+        1 => spectral_signal_terms(inst, x, c)?.signal,
+        2 => spectral_object_temperature(inst, x, c)?,
+        3 => {
+            let r = spectral_signal_terms(inst, x, c)?;
+            out(&[
+                r.signal,
+                r.object,
+                r.reflected,
+                r.path,
+                r.window_reflected,
+                r.window_emitted,
+            ])
+        }
+        4 => {
+            let e = band_effective(inst, x, c)?;
+            out(&[
+                e.temperature_k,
+                e.emissivity,
+                e.reflectance,
+                e.path_transmittance,
+                e.window_transmittance,
+                e.window_reflectance,
+                e.object_gain,
+            ])
+        }
+        _ => {
+            let s = spectral_sensitivities(inst, x, c)?;
+            out(&[
+                s.temperature_k,
+                s.signal,
+                s.emissivity_scale,
+                s.reflectance_scale,
+                s.path_transmittance_scale,
+                s.window_transmittance_scale,
+                s.window_reflectance_scale,
+                s.response_scale,
+                s.reflected_temperature,
+                s.path_temperature,
+                s.window_temperature,
+                s.window_reflected_temperature,
+            ])
+        }
+    })
 }
 
 // ---------------------------------------------------------------------------------------------
