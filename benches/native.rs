@@ -168,6 +168,11 @@ mod cases {
     use quantaband::thermometry::gum::{Distribution, InputUncertainty};
     use quantaband::thermometry::measurement_gum::{measurement_estimates, MeasurementEquation};
     use quantaband::thermometry::monte_carlo::{MonteCarlo, MonteCarloConfig, TrialCount};
+    use quantaband::thermometry::spectral::{
+        spectral_measured_signal, SpectralConditions, SpectralInstrument, SpectralValue,
+        SpectralWindow,
+    };
+    use quantaband::thermometry::table::{SpectralTableBuf, TableKind};
     use quantaband::thermometry::{
         Conditions, FrameConverter, Response, ResponseSignal, SakumaHattori, SignalModel,
     };
@@ -273,6 +278,55 @@ mod cases {
             })
             .collect();
         (signals, exact)
+    }
+
+    /// The tables (response, emissivity, path transmittance, window transmittance, window
+    /// reflectance) and temperatures (object, reflected, path, window, window-reflected; K) of
+    /// the `signal_table_400` case, read from benches/data/bench_reference.json.
+    fn spectral_table_case() -> Result<(Vec<SpectralTableBuf>, [f64; 5]), &'static str> {
+        let path = concat!(
+            env!("CARGO_MANIFEST_DIR"),
+            "/benches/data/bench_reference.json"
+        );
+        let text =
+            std::fs::read_to_string(path).map_err(|_| "bench_reference.json not readable")?;
+        let json: serde_json::Value =
+            serde_json::from_str(&text).map_err(|_| "bench_reference.json not JSON")?;
+        let i = &json["cases"]["signal_table_400"]["inputs"];
+        let nums = |v: &serde_json::Value| -> Option<Vec<f64>> {
+            v.as_array()?
+                .iter()
+                .map(serde_json::Value::as_f64)
+                .collect()
+        };
+        let kinds = [
+            ("response", TableKind::EnergyResponse),
+            ("emissivity", TableKind::Emissivity),
+            ("path_transmittance", TableKind::Transmittance),
+            ("window_transmittance", TableKind::Transmittance),
+            ("window_reflectance", TableKind::Reflectance),
+        ];
+        let mut tables = Vec::new();
+        for (name, kind) in kinds {
+            let t = &i["tables"][name];
+            let (Some(w), Some(v)) = (nums(&t["wavelengths_m"]), nums(&t["values"])) else {
+                return Err("signal_table_400 inputs missing (rerun gen_bench_reference.py)");
+            };
+            tables.push(SpectralTableBuf::new(kind, w, v).map_err(|e| e.code())?);
+        }
+        let mut temps = [0.0; 5];
+        for (t, k) in temps.iter_mut().zip([
+            "temperature_k",
+            "reflected_temperature_k",
+            "path_temperature_k",
+            "window_temperature_k",
+            "window_reflected_temperature_k",
+        ]) {
+            *t = i[k]
+                .as_f64()
+                .ok_or("signal_table_400 temperatures missing")?;
+        }
+        Ok((tables, temps))
     }
 
     /// `Ok(v)` as `v`, an error as NaN (the table then shows the case as wrong, not fast).
@@ -385,6 +439,48 @@ mod cases {
                 );
             }
             Err(e) => r.skip("response_signal_400", e.code()),
+        }
+
+        // Spectral-table signal: the spectral measurement equation with the 200-point tables
+        // over 8–14 µm of benches/data/bench_reference.json (`signal_table_400`), 400 K.
+        match spectral_table_case() {
+            Ok((tables, temps)) => {
+                let view = |k: usize| SpectralValue::Table(tables[k].as_table());
+                let prepared = (|| -> quantaband::Result<_> {
+                    let inst =
+                        SpectralInstrument::new(tables[0].as_table(), C2Convention::Codata2018)?;
+                    let cond = SpectralConditions {
+                        emissivity: view(1),
+                        reflectance: None,
+                        reflected_temperature_k: temps[1],
+                        path_transmittance: view(2),
+                        path_temperature_k: temps[2],
+                        window: Some(SpectralWindow {
+                            transmittance: view(3),
+                            reflectance: view(4),
+                            temperature_k: temps[3],
+                            reflected_temperature_k: temps[4],
+                        }),
+                    };
+                    Ok((inst, cond))
+                })();
+                match prepared {
+                    Ok((inst, cond)) => {
+                        let f = || val(spectral_measured_signal(&inst, black_box(temps[0]), &cond));
+                        r.run(
+                            "signal_table_400",
+                            f,
+                            Extra {
+                                value: Some(f()),
+                                note: Some("spectral_measured_signal: 5 tables on 5 grids (200/200/200/150/120 points)"),
+                                ..Extra::default()
+                            },
+                        );
+                    }
+                    Err(e) => r.skip("signal_table_400", e.code()),
+                }
+            }
+            Err(why) => r.skip("signal_table_400", why),
         }
 
         // Sakuma–Hattori inverse, one value (invented coefficients, see the reference JSON).

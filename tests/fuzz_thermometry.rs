@@ -1352,6 +1352,13 @@ fn fuzz_spectral() {
             let text = lines.join("\n");
             let parsed = SpectralTableBuf::from_text(kind, &text, unit);
             ok("SpectralTableBuf::from_text", &parsed)?;
+            // The same text through the caller's parser (Rust's, as the facade's is
+            // equivalent): the same table or the same error.
+            let with = SpectralTableBuf::from_text_with(kind, &text, unit, &|f: &str| {
+                f.parse::<f64>().ok()
+            });
+            ok("SpectralTableBuf::from_text_with", &with)?;
+            prop_assert_eq!(format!("{with:?}"), format!("{parsed:?}"));
             // Spectral values and conditions.
             let eps_v = spectral_value(&eps, TableKind::Emissivity);
             let rho_v = rho
@@ -1414,6 +1421,10 @@ fn fuzz_spectral() {
                 return Ok(());
             };
             for c in [&cond, &grey_s] {
+                ok(
+                    "SpectralConditions::validate_for",
+                    &SpectralConditions::validate_for(c, &inst),
+                )?;
                 let terms = spectral_signal_terms(&inst, t, c);
                 check("spectral_signal_terms", &terms, MODEL_INF)?;
                 let s = spectral_measured_signal(&inst, t, c);

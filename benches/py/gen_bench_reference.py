@@ -121,6 +121,108 @@ cases["response_signal_400"] = {
     "unit": "W m^-2 sr^-1",
 }
 
+# 6b. Spectral-table signal: the spectral measurement equation of an invented long-wave scene
+#     with 200-point tables over 8-14 um on different grids (response; target emissivity, opaque;
+#     path transmittance; window transmittance 150 points, window reflectance 120 points), object
+#     at 400 K, reflected 295 K, path 290 K, window 300 K, window-reflected 305 K. The tables are
+#     those of `lwir_200` in tests/data/gen_spectral.py (same formulas, rounded to 4 decimals),
+#     written out below so every harness reads the same numbers. Reference: the piecewise-linear
+#     interpolants integrated with mp.quad per interval of the union of the grids (never across a
+#     kink), each interval split geometrically so tanh-sinh sees a smooth integrand.
+def grid_um(lo, hi, n, shift=0.0):
+    """n points from lo to hi (um), interior points shifted by `shift` of a step; in m."""
+    step = (hi - lo) / (n - 1)
+    pts = [lo] + [lo + step * (i + shift) for i in range(1, n - 1)] + [hi]
+    return [round(p, 6) * 1e-6 for p in pts]
+
+
+def smooth(wl, fn):
+    return [round(fn(w * 1e6), 4) for w in wl]
+
+
+def lwir_tables():
+    import math
+    wl_r = grid_um(8, 14, 200)
+    wl_e = grid_um(8, 14, 200, 0.37)
+    wl_p = grid_um(8, 14, 200, 0.61)
+    wl_w = grid_um(8, 14, 150, 0.5)
+    wl_rw = grid_um(8, 14, 120, 0.25)
+    return {
+        "response": (wl_r, smooth(wl_r, lambda u: min(1.0, 0.3 + 0.7 * math.sin(math.pi * (u - 8) / 6) ** 0.5))),
+        "emissivity": (wl_e, smooth(wl_e, lambda u: 0.88 - 0.35 * math.exp(-((u - 9.4) / 0.45) ** 2)
+                                    + 0.03 * math.sin(3 * u))),
+        "path_transmittance": (wl_p, smooth(wl_p, lambda u: 0.97 - 0.12 * math.exp(-((u - 9.6) / 0.15) ** 2)
+                                            - 0.02 * (u - 8) / 6)),
+        "window_transmittance": (wl_w, smooth(wl_w, lambda u: 0.78 - 0.25 * math.exp(-((u - 12.2) / 0.3) ** 2))),
+        "window_reflectance": (wl_rw, smooth(wl_rw, lambda u: 0.05 + 0.01 * math.cos(u))),
+    }
+
+
+def linear(wl, vals):
+    """The piecewise-linear interpolant of a table (exact binary grid values)."""
+    w = [mp.mpf(x) for x in wl]
+    v = [mp.mpf(x) for x in vals]
+
+    def at(lam):
+        lo, hi = 0, len(w) - 1
+        while hi - lo > 1:
+            mid = (lo + hi) // 2
+            if w[mid] <= lam:
+                lo = mid
+            else:
+                hi = mid
+        return v[lo] + (v[hi] - v[lo]) * (lam - w[lo]) / (w[hi] - w[lo])
+
+    return w, at
+
+
+def table_signal(tables, t, t_refl, t_path, t_win, t_int):
+    fns = {k: linear(*tab) for k, tab in tables.items()}
+    r, e, tp = fns["response"][1], fns["emissivity"][1], fns["path_transmittance"][1]
+    tw, rw = fns["window_transmittance"][1], fns["window_reflectance"][1]
+    t, t_refl, t_path, t_win, t_int = (mp.mpf(x) for x in (t, t_refl, t_path, t_win, t_int))
+
+    def g(lam):
+        ev, tpv, twv, rwv = e(lam), tp(lam), tw(lam), rw(lam)
+        scene = tpv * (ev * planck_l(lam, t) + (1 - ev) * planck_l(lam, t_refl)) + (1 - tpv) * planck_l(lam, t_path)
+        return r(lam) * (twv * scene + rwv * planck_l(lam, t_int) + (1 - twv - rwv) * planck_l(lam, t_win))
+
+    # the response is positive over its whole grid: the band is [8, 14] um
+    lo, hi = fns["response"][0][0], fns["response"][0][-1]
+    grid = sorted({x for w, _ in fns.values() for x in w if lo <= x <= hi})
+    total = mp.mpf(0)
+    for a, b in zip(grid[:-1], grid[1:]):
+        m = max(1, int(mp.ceil(mp.log(b / a) / mp.mpf("0.05"))))
+        total += mp.quad(g, [a * (b / a) ** (mp.mpf(j) / m) for j in range(m + 1)])
+    return total
+
+
+lwir = lwir_tables()
+lwir_temps = {"temperature_k": 400.0, "reflected_temperature_k": 295.0, "path_temperature_k": 290.0,
+              "window_temperature_k": 300.0, "window_reflected_temperature_k": 305.0}
+assert all(v > 0 for v in lwir["response"][1])
+sig_table = table_signal(lwir, 400, 295, 290, 300, 305)
+# Cross-check with the spectral tests' reference (tests/data/spectral_reference.json, written by
+# gen_spectral.py at 30 digits with its own code): the same scene's signal as an f64.
+_spec_ref = os.path.join(os.path.dirname(os.path.abspath(__file__)), "..", "..", "tests", "data",
+                         "spectral_reference.json")
+if os.path.exists(_spec_ref):
+    with open(_spec_ref) as fh:
+        _lw = json.load(fh)["spectral"]["lwir_200"]
+    for k, (wl, vals) in lwir.items():
+        assert _lw["scene"][k]["wavelengths_m"] == wl and _lw["scene"][k]["values"] == vals, k
+    assert abs(mp.mpf(_lw["signal"]) / sig_table - 1) < mp.mpf("1e-15"), (_lw["signal"], sig_table)
+cases["signal_table_400"] = {
+    "inputs": {
+        **lwir_temps,
+        "tables": {k: {"wavelengths_m": wl, "values": vals} for k, (wl, vals) in lwir.items()},
+        "note": "energy response (relative); opaque target (reflectance 1 - emissivity); tables linear "
+                "between points, zero response outside 8-14 um",
+    },
+    "value": s(sig_table),
+    "unit": "W m^-2 sr^-1 (times the response unit)",
+}
+
 # 7. Sakuma-Hattori inverse T = (c2 / ln(C/S + 1) - B) / A with invented coefficients.
 SH_A, SH_B, SH_C = 1.05e-5, 1.5e-4, 2.0e4
 

@@ -764,7 +764,7 @@ impl FrameConverter {
     /// map, bad-pixel mask; see [`PixelCorrections`]); `out_k` (same length as `raw`) receives
     /// temperatures in K, NaN for invalid and masked pixels (counted as invalid).
     ///
-    /// Which loop runs: without any correction this is [`FrameConverter::convert`] (so u16
+    /// Which loop runs: without any correction this gives what [`FrameConverter::convert`] gives (u16
     /// counts or f32 signals into f32 take the single-precision simd128 loop); with a mask
     /// only, those frames still take it (masked pixels enter as NaN, which the loop treats as
     /// invalid); with a gain, offset or emissivity map, the f64 loop.
@@ -818,22 +818,25 @@ impl FrameConverter {
             bad_pixels,
         } = *corrections;
         if gain.is_none() && offset.is_none() && emissivity.is_none() {
-            let Some(mask) = bad_pixels else {
-                return self.convert(raw, out_k);
-            };
-            // Mask only: the single-precision loop where it applies.
+            // No map (a mask or nothing): the single-precision loop where it applies.
             if let Some(out) = O::as_f32_mut(out_k) {
                 let fast = match (I::as_counts(raw), I::as_f32(raw)) {
                     (None, None) => None,
-                    (c, s) => {
-                        self.convert_f32_masked(c.unwrap_or(&[]), s.unwrap_or(&[]), mask, out)
-                    }
+                    (c, s) => self.convert_f32_masked(
+                        c.unwrap_or(&[]),
+                        s.unwrap_or(&[]),
+                        bad_pixels.unwrap_or(&[]),
+                        out,
+                    ),
                 };
                 if let Some(sum) = fast {
                     return Ok(sum);
                 }
             }
         }
+        // Otherwise one f64 loop per emissivity case; with no correction at all it computes
+        // what `convert` does (1·raw + 0 is raw, and every pixel is good), so the loop of
+        // `convert` is not instantiated a second time here.
         let at = |m: Option<&[P]>, i: usize, default: f64| -> f64 {
             m.map_or(default, |m| m.get(i).map_or(f64::NAN, |v| v.to_f64()))
         };

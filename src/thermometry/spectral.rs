@@ -320,6 +320,47 @@ impl<'a> SpectralConditions<'a> {
         }
         Ok(())
     }
+
+    /// Checks every input ([`SpectralConditions::validate`]) and that every table without
+    /// constant ends covers the band of `instrument` (the span of its response segments with
+    /// some response): the checks every calculation with this instrument makes first, without
+    /// integrating anything — for a caller that prepares a scene once and wants its errors
+    /// at once rather than at the first calculation.
+    ///
+    /// # Formula
+    /// ```text
+    /// validate()  and  λ_first ≤ λ_lo, λ_last ≥ λ_hi for every table with Ends::Reject,
+    /// [λ_lo, λ_hi] = span of the response segments with R > 0 at one end
+    /// ```
+    ///
+    /// # Errors
+    /// Those of [`SpectralConditions::validate`]; `OutsideTable` (arg: the input, the first
+    /// band edge it misses) for a table that does not cover the band.
+    ///
+    /// # Accuracy
+    /// Exact comparisons.
+    ///
+    /// # Examples
+    /// ```
+    /// use quantaband::thermometry::spectral::{SpectralConditions, SpectralInstrument, SpectralValue};
+    /// use quantaband::thermometry::table::{SpectralTable, TableKind};
+    /// let (wl, r) = ([8e-6, 14e-6], [1.0, 1.0]);
+    /// let inst = SpectralInstrument::new(SpectralTable::new(TableKind::EnergyResponse, &wl, &r).unwrap(), Default::default()).unwrap();
+    /// // an emissivity table that stops at 12 µm does not cover the 8–14 µm band
+    /// let (ew, ev) = ([8e-6, 12e-6], [0.9, 0.8]);
+    /// let c = SpectralConditions {
+    ///     emissivity: SpectralValue::Table(SpectralTable::new(TableKind::Emissivity, &ew, &ev).unwrap()),
+    ///     ..SpectralConditions::BLACKBODY
+    /// };
+    /// assert_eq!(c.validate_for(&inst).unwrap_err().code(), "OUTSIDE_TABLE");
+    /// assert!(SpectralConditions::BLACKBODY.validate_for(&inst).is_ok());
+    /// ```
+    ///
+    /// # References
+    /// See the module docs.
+    pub fn validate_for(&self, instrument: &SpectralInstrument<'_>) -> Result<()> {
+        Prepared::new(instrument, self).map(|_| ())
+    }
 }
 
 fn check_value(arg: &'static str, v: &SpectralValue<'_>, kind: TableKind) -> Result<()> {
@@ -605,6 +646,9 @@ impl<'a> Cursor<'a> {
     }
 }
 
+/// Most outputs of one integration ([`Prepared::scaled_terms_dyn`]; the sensitivities use 14).
+const MAX_TERMS: usize = 14;
+
 /// Temperatures within this factor of each other are integrated in one walk (the pieces, made
 /// for the coldest, are then at most this factor finer than the hottest needs).
 const GROUP_RATIO: f64 = 2.0;
@@ -749,14 +793,47 @@ impl<'a, 'b> Prepared<'a, 'b> {
     /// [`Prepared::terms`] before the scale is restored: output j is 2^(−k_j) times its value
     /// (k_j = 0 except where L would overflow, T ≳ 1e290 K), so that ratios of outputs at one
     /// temperature stay finite where the values themselves overflow.
+    ///
+    /// A thin typed front end of [`Prepared::scaled_terms_dyn`], which does the work for every
+    /// output count and weight function (one copy of the integration code: each caller's
+    /// weights are reached through one indirect call per node, which costs nothing measurable
+    /// next to the Planck evaluations and keeps the WebAssembly package small).
     fn scaled_terms<const N: usize, W>(&self, spec: [Of; N], w: W) -> Result<([f64; N], [i32; N])>
     where
         W: Fn(&[f64; NF]) -> [f64; N],
     {
+        let mut acc = [0.0; N];
+        let mut out_k = [0i32; N];
+        let weights = |v: &[f64; NF], out: &mut [f64; MAX_TERMS]| {
+            for (o, x) in out.iter_mut().zip(w(v)) {
+                *o = x;
+            }
+        };
+        self.scaled_terms_dyn(&spec, &weights, &mut acc, &mut out_k)?;
+        Ok((acc, out_k))
+    }
+
+    /// The integration of [`Prepared::scaled_terms`] for `spec.len()` ≤ [`MAX_TERMS`] outputs
+    /// (`w` writes the weights of a node into the first `spec.len()` entries); results into
+    /// `acc` and `out_k`.
+    #[inline(never)]
+    fn scaled_terms_dyn(
+        &self,
+        spec: &[Of],
+        w: &dyn Fn(&[f64; NF], &mut [f64; MAX_TERMS]),
+        acc: &mut [f64],
+        out_k: &mut [i32],
+    ) -> Result<()> {
+        let n = spec.len();
+        if n > MAX_TERMS || acc.len() != n || out_k.len() != n {
+            return Err(Error::Unsupported {
+                what: "internal: too many terms in one integration",
+            });
+        }
         // Distinct temperatures, which of L and ∂L/∂T each needs, and each output's slot.
-        let mut ts = [0.0; N];
-        let mut need_d = [false; N];
-        let mut slot = [0usize; N];
+        let mut ts = [0.0; MAX_TERMS];
+        let mut need_d = [false; MAX_TERMS];
+        let mut slot = [0usize; MAX_TERMS];
         let mut m = 0;
         for (j, sp) in spec.iter().enumerate() {
             let (t, d) = match *sp {
@@ -774,16 +851,20 @@ impl<'a, 'b> Prepared<'a, 'b> {
                     m - 1
                 }
             };
-            if let (Some(n), Some(sl)) = (need_d.get_mut(s), slot.get_mut(j)) {
-                *n |= d;
+            if let (Some(nd), Some(sl)) = (need_d.get_mut(s), slot.get_mut(j)) {
+                *nd |= d;
                 *sl = s;
             }
         }
-        let mut acc = [0.0; N];
-        let mut out_k = [0i32; N];
+        for a in acc.iter_mut() {
+            *a = 0.0;
+        }
+        for k in out_k.iter_mut() {
+            *k = 0;
+        }
         let ts = ts.get(..m).unwrap_or(&[]);
         if ts.is_empty() {
-            return Ok((acc, out_k));
+            return Ok(());
         }
         // Per-temperature scale 2⁻ᵏ (k > 0 only where L would overflow, T ≳ 1e290 K).
         let extra_ln = if self.photon {
@@ -793,7 +874,7 @@ impl<'a, 'b> Prepared<'a, 'b> {
         } else {
             0.0
         };
-        let mut ks = [0i32; N];
+        let mut ks = [0i32; MAX_TERMS];
         for (k, &t) in ks.iter_mut().zip(ts) {
             *k = node_scale_exp(self.lo, t, self.c2_mk, extra_ln);
         }
@@ -801,7 +882,7 @@ impl<'a, 'b> Prepared<'a, 'b> {
         // Temperatures within a factor GROUP_RATIO of each other share a walk (pieces for the
         // group's coldest, short-wave skip for its hottest: march_pieces); widely different ones
         // get their own, so a very cold term does not force tiny steps on a hot one.
-        let mut order = [0usize; N];
+        let mut order = [0usize; MAX_TERMS];
         for (i, o) in order.iter_mut().enumerate() {
             *o = i;
         }
@@ -840,8 +921,8 @@ impl<'a, 'b> Prepared<'a, 'b> {
                         for (vi, l) in v.iter_mut().zip(lins.iter()) {
                             *vi = l.v + l.s * d;
                         }
-                        let mut l = [0.0; N];
-                        let mut dl = [0.0; N];
+                        let mut l = [0.0; MAX_TERMS];
+                        let mut dl = [0.0; MAX_TERMS];
                         for &s in group {
                             let t = ts.get(s).copied().unwrap_or(1.0);
                             let sc = crate::float::powi(2.0, -ks.get(s).copied().unwrap_or(0));
@@ -855,9 +936,10 @@ impl<'a, 'b> Prepared<'a, 'b> {
                                 *b = dls;
                             }
                         }
-                        let wv = w(&v);
-                        let mut out = [0.0; N];
-                        for (j, o) in out.iter_mut().enumerate() {
+                        let mut wv = [0.0; MAX_TERMS];
+                        w(&v, &mut wv);
+                        let mut out = [0.0; MAX_TERMS];
+                        for (j, o) in out.iter_mut().enumerate().take(n) {
                             let s = slot.get(j).copied().unwrap_or(0);
                             if !group.contains(&s) {
                                 continue;
@@ -882,7 +964,7 @@ impl<'a, 'b> Prepared<'a, 'b> {
         for (j, k) in out_k.iter_mut().enumerate() {
             *k = slot.get(j).and_then(|&sl| ks.get(sl)).copied().unwrap_or(0);
         }
-        Ok((acc, out_k))
+        Ok(())
     }
 
     /// ∫ of the object weight R·τ_w·τ_p·ε dλ (trapezoid per union interval: a scale for the

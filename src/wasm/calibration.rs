@@ -10,13 +10,16 @@ use wasm_bindgen::prelude::*;
 use super::config::read;
 use super::error::{in_config, number, some, to_js, Fail};
 use super::instrument::InstrumentHandle;
-use super::scratch::{map_in_place, status, with_f32, with_f64, with_u16, KIND_F32, KIND_U16};
+use super::scratch::{
+    map_in_place, status, with_f32, with_f64, with_f64x, with_u16, with_u8, KIND_F64, KIND_U16,
+};
 use super::testing::Live;
 use crate::constants::C2Convention;
 use crate::definition::MeasurementConditions;
 use crate::error::{self as check, Error};
 use crate::thermometry::{
-    max_interpolation_error_k, FitReport, FrameConverter, FrameSummary, SakumaHattori, SignalModel,
+    max_interpolation_error_k, FitReport, FrameConverter, FrameSummary, PixelCorrections,
+    SakumaHattori, SignalModel,
 };
 
 /// A checked curve, with the report of the fit that made it (if any).
@@ -31,16 +34,55 @@ pub struct CalibrationHandle {
 }
 
 /// The coefficients of a curve as given (checked by `SakumaHattori::new`, whose error keeps its
-/// code; the core's own `Deserialize` for the curve reports it as text).
-#[derive(Deserialize)]
-#[serde(rename_all = "camelCase", deny_unknown_fields)]
+/// code; the core's own `Deserialize` for the curve reports it as text). Read by a hand-written
+/// `visit_map` (smaller than the derived reader; same defaults and messages).
 struct Coefficients {
     a_m: f64,
-    #[serde(rename = "bMK")]
     b_mk: f64,
     c: f64,
-    #[serde(default)]
     c2: C2Convention,
+}
+
+/// The fields of [`Coefficients`] as JavaScript writes them.
+const COEFFICIENT_FIELDS: &[&str] = &["aM", "bMK", "c", "c2"];
+
+impl<'de> Deserialize<'de> for Coefficients {
+    fn deserialize<D: serde::Deserializer<'de>>(d: D) -> Result<Self, D::Error> {
+        struct V;
+        impl<'de> serde::de::Visitor<'de> for V {
+            type Value = Coefficients;
+            fn expecting(&self, f: &mut core::fmt::Formatter<'_>) -> core::fmt::Result {
+                f.write_str("struct Coefficients")
+            }
+            fn visit_map<A: serde::de::MapAccess<'de>>(
+                self,
+                mut m: A,
+            ) -> Result<Coefficients, A::Error> {
+                let mut abc = [None; 3];
+                let mut c2 = C2Convention::default();
+                while let Some(key) = m.next_key::<alloc::string::String>()? {
+                    let Some(at) = COEFFICIENT_FIELDS.iter().position(|f| *f == key.as_str())
+                    else {
+                        return Err(serde::de::Error::unknown_field(&key, COEFFICIENT_FIELDS));
+                    };
+                    match abc.get_mut(at) {
+                        Some(slot) => *slot = Some(m.next_value::<f64>()?),
+                        None => c2 = m.next_value()?,
+                    }
+                }
+                let get = |i: usize| {
+                    abc[i].ok_or_else(|| serde::de::Error::missing_field(COEFFICIENT_FIELDS[i]))
+                };
+                Ok(Coefficients {
+                    a_m: get(0)?,
+                    b_mk: get(1)?,
+                    c: get(2)?,
+                    c2,
+                })
+            }
+        }
+        d.deserialize_struct("Coefficients", COEFFICIENT_FIELDS, V)
+    }
 }
 
 /// Options of the fits.
@@ -64,26 +106,88 @@ struct Report<'a> {
 }
 
 /// Per-frame settings of a frame conversion. The facade reads the arrays itself and passes
-/// `true` for `emissivity` and `out` when they are given; it also chooses the output buffer
-/// from `output`, which is checked here.
-#[derive(Deserialize, Default)]
-#[serde(rename_all = "camelCase", deny_unknown_fields)]
+/// `true` for `emissivity`, `pixelGain`, `pixelOffset`, `badPixels` and `out` when they are
+/// given; it also chooses the output buffer from `output`, which is checked here. Read by a
+/// hand-written `visit_map` (fields by position in one list, each kind of value read at one
+/// place; smaller than the derived reader, same defaults and messages).
 struct FrameSettings {
-    #[serde(default = "one")]
     gain: f64,
-    #[serde(default)]
     offset: f64,
-    #[serde(default)]
     conditions: MeasurementConditions,
-    #[serde(default)]
-    #[allow(dead_code)]
-    output: FrameOutput,
-    #[serde(default)]
-    #[allow(dead_code)]
-    emissivity: Option<bool>,
-    #[serde(default)]
-    #[allow(dead_code)]
-    out: Option<bool>,
+    /// A per-pixel non-uniformity gain map is in f64 scratch slot 3.
+    pixel_gain: Option<bool>,
+    /// A per-pixel non-uniformity offset map is in f64 scratch slot 4.
+    pixel_offset: Option<bool>,
+    /// A bad-pixel mask is in u8 scratch slot 0.
+    bad_pixels: Option<bool>,
+}
+
+/// The fields of [`FrameSettings`] as JavaScript writes them.
+const FRAME_FIELDS: &[&str] = &[
+    "gain",
+    "offset",
+    "conditions",
+    "output",
+    "emissivity",
+    "out",
+    "pixelGain",
+    "pixelOffset",
+    "badPixels",
+];
+
+impl<'de> Deserialize<'de> for FrameSettings {
+    fn deserialize<D: serde::Deserializer<'de>>(d: D) -> Result<Self, D::Error> {
+        struct V;
+        impl<'de> serde::de::Visitor<'de> for V {
+            type Value = FrameSettings;
+            fn expecting(&self, f: &mut core::fmt::Formatter<'_>) -> core::fmt::Result {
+                f.write_str("struct FrameSettings")
+            }
+            fn visit_map<A: serde::de::MapAccess<'de>>(
+                self,
+                mut m: A,
+            ) -> Result<FrameSettings, A::Error> {
+                let mut s = FrameSettings {
+                    gain: 1.0,
+                    offset: 0.0,
+                    conditions: MeasurementConditions::default(),
+                    pixel_gain: None,
+                    pixel_offset: None,
+                    bad_pixels: None,
+                };
+                while let Some(key) = m.next_key::<alloc::string::String>()? {
+                    let Some(at) = FRAME_FIELDS.iter().position(|f| *f == key.as_str()) else {
+                        return Err(serde::de::Error::unknown_field(&key, FRAME_FIELDS));
+                    };
+                    match at {
+                        0 | 1 => {
+                            let v = m.next_value::<f64>()?;
+                            if at == 0 {
+                                s.gain = v;
+                            } else {
+                                s.offset = v;
+                            }
+                        }
+                        2 => s.conditions = m.next_value()?,
+                        3 => {
+                            m.next_value::<FrameOutput>()?;
+                        }
+                        _ => {
+                            let v = m.next_value::<Option<bool>>()?;
+                            match at {
+                                6 => s.pixel_gain = v,
+                                7 => s.pixel_offset = v,
+                                8 => s.bad_pixels = v,
+                                _ => {}
+                            }
+                        }
+                    }
+                }
+                Ok(s)
+            }
+        }
+        d.deserialize_struct("FrameSettings", FRAME_FIELDS, V)
+    }
 }
 
 /// Element type of the returned temperatures.
@@ -93,10 +197,6 @@ enum FrameOutput {
     #[default]
     Float32,
     Float64,
-}
-
-fn one() -> f64 {
-    1.0
 }
 
 #[derive(Serialize)]
@@ -314,9 +414,10 @@ impl CalibrationHandle {
         })())
     }
 
-    /// Converts the frame in scratch (input: f64 buffer 0, f32 buffer 0 or u16 buffer 0 by
-    /// `input`; with an emissivity map, in f64 buffer 2 when `map`, the input is f64 buffer 0)
-    /// into f64 or f32 buffer 1.
+    /// Converts the frame in scratch into f64 or f32 buffer 1. Without per-pixel corrections
+    /// the input is f64 buffer 0, f32 buffer 0 or u16 buffer 0 by `input`. With corrections
+    /// (emissivity in f64 buffer 2 when `map`, gain in f64 buffer 3, offset in f64 buffer 4, a
+    /// bad-pixel mask in u8 buffer 0, as the settings say) the input is f64 buffer 0.
     #[wasm_bindgen(js_name = convertFrame)]
     pub fn convert_frame(
         &self,
@@ -349,24 +450,61 @@ impl CalibrationHandle {
                         other => other,
                     }
                 })?;
+            let maps = map || fs.pixel_gain.is_some() || fs.pixel_offset.is_some();
+            let masked = fs.bad_pixels.is_some();
             let summary = with_f64(|f| {
                 let [f0, f1, f2] = f;
-                let eps: Option<&[f64]> = if map { Some(f2) } else { None };
                 with_f32(|g| {
                     let [g0, g1] = g;
-                    with_u16(|u| match (input, eps, out_f64) {
-                        // Emissivity maps: the facade passes the frame as f64 (one loop each
-                        // output type instead of one per input type).
-                        (_, Some(e), true) => conv.convert_with_emissivity(&f0[..], e, &mut f1[..]),
-                        (_, Some(e), false) => {
-                            conv.convert_with_emissivity(&f0[..], e, &mut g1[..])
+                    with_u16(|u| {
+                        if !maps && !masked && input != KIND_F64 {
+                            // u16 counts or f32 signals: the single-precision loop where it
+                            // applies (f32 out), else the f64 loop on the frame widened to f64
+                            // first (exact), so that loop exists once per output type.
+                            let n = if input == KIND_U16 { u.len() } else { g0.len() };
+                            let n_out = if out_f64 { f1.len() } else { g1.len() };
+                            if n != n_out {
+                                return Err(Error::LengthMismatch {
+                                    expected: n,
+                                    got: n_out,
+                                });
+                            }
+                            if !out_f64 {
+                                let fast = if input == KIND_U16 {
+                                    conv.convert_f32(&u[..], &[], &mut g1[..])
+                                } else {
+                                    conv.convert_f32(&[], &g0[..], &mut g1[..])
+                                };
+                                if let Some(sum) = fast {
+                                    return Ok(sum);
+                                }
+                            }
+                            widen(f0, &u[..], &g0[..], input == KIND_U16);
                         }
-                        (KIND_U16, None, true) => conv.convert(&u[..], &mut f1[..]),
-                        (KIND_U16, None, false) => conv.convert(&u[..], &mut g1[..]),
-                        (KIND_F32, None, true) => conv.convert(&g0[..], &mut f1[..]),
-                        (KIND_F32, None, false) => conv.convert(&g0[..], &mut g1[..]),
-                        (_, None, true) => conv.convert(&f0[..], &mut f1[..]),
-                        (_, None, false) => conv.convert(&f0[..], &mut g1[..]),
+                        with_f64x(|x| {
+                            let [x3, x4] = x;
+                            with_u8(|m| {
+                                let corr = PixelCorrections::<f64> {
+                                    gain: fs.pixel_gain.map(|_| &x3[..]),
+                                    offset: fs.pixel_offset.map(|_| &x4[..]),
+                                    emissivity: if map { Some(&f2[..]) } else { None },
+                                    bad_pixels: if masked { Some(&m[..]) } else { None },
+                                };
+                                // The f64 loops: one per output type (and emissivity case);
+                                // an uncorrected frame keeps the plain loop (no per-pixel
+                                // correction branches: about 20 % faster).
+                                match (maps || masked, out_f64) {
+                                    (false, true) => conv.convert(&f0[..], &mut f1[..]),
+                                    (false, false) => conv.convert(&f0[..], &mut g1[..]),
+                                    (true, true) => {
+                                        conv.convert_corrected(&f0[..], &corr, &mut f1[..])
+                                    }
+                                    (true, false) => {
+                                        conv.convert_corrected(&f0[..], &corr, &mut g1[..])
+                                    }
+                                }
+                            })
+                        })
                     })
                 })
             })?;
@@ -384,5 +522,16 @@ impl CalibrationHandle {
                 background_signal: conv.background(),
             })
         })())
+    }
+}
+
+/// The frame in u16 `counts` (`counts_in`) or f32 `signals` as f64 into `f0` (exact).
+#[inline(never)]
+fn widen(f0: &mut Vec<f64>, counts: &[u16], signals: &[f32], counts_in: bool) {
+    f0.clear();
+    if counts_in {
+        f0.extend(counts.iter().map(|&c| f64::from(c)));
+    } else {
+        f0.extend(signals.iter().map(|&x| f64::from(x)));
     }
 }

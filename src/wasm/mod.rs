@@ -25,11 +25,14 @@ pub(crate) mod config;
 pub mod design;
 pub mod error;
 pub mod fractions;
+#[cfg(all(target_arch = "wasm32", not(target_feature = "atomics")))]
+mod heap;
 pub mod instrument;
 pub mod its90;
 pub mod quantum;
 pub mod quantum_fit;
 pub mod scratch;
+pub mod spectral;
 pub mod spectrum;
 pub mod stats;
 pub mod testing;

@@ -10,7 +10,9 @@
 //!
 //! Slots: f64 0 (bulk input/output, frame input), f64 1 (second input: fit signals, frame
 //! output), f64 2 (emissivity map, fit residuals); f32 0 (frame input), f32 1 (frame output);
-//! u16 0 (frame counts).
+//! u16 0 (frame counts); f64 3 and 4 (frame non-uniformity gain and offset maps) and u8 0
+//! (bad-pixel mask), kept apart from the first three f64 slots so code destructuring those is
+//! unaffected.
 
 use alloc::vec::Vec;
 use core::cell::RefCell;
@@ -20,12 +22,16 @@ thread_local! {
     static F64: RefCell<[Vec<f64>; 3]> = const { RefCell::new([Vec::new(), Vec::new(), Vec::new()]) };
     static F32: RefCell<[Vec<f32>; 2]> = const { RefCell::new([Vec::new(), Vec::new()]) };
     static U16: RefCell<Vec<u16>> = const { RefCell::new(Vec::new()) };
+    /// f64 slots 3 and 4.
+    static F64X: RefCell<[Vec<f64>; 2]> = const { RefCell::new([Vec::new(), Vec::new()]) };
+    static U8: RefCell<Vec<u8>> = const { RefCell::new(Vec::new()) };
 }
 
 /// Element type of a scratch buffer (the `kind` argument of [`scratch`]).
 pub(crate) const KIND_F64: u32 = 0;
 pub(crate) const KIND_F32: u32 = 1;
 pub(crate) const KIND_U16: u32 = 2;
+pub(crate) const KIND_U8: u32 = 3;
 
 /// Sets buffer `v` to `n` elements (contents unspecified); false when the memory cannot grow.
 fn fit<T: Copy + Default>(v: &mut Vec<T>, n: usize) -> bool {
@@ -49,6 +55,23 @@ pub fn scratch(kind: u32, slot: u32, n: u32) -> u32 {
     // Addresses are 32-bit on wasm32.
     let addr = |p: usize| p as u32;
     match kind {
+        KIND_F64 if s >= 3 => F64X.with(|b| {
+            let mut b = b.borrow_mut();
+            let Some(v) = b.get_mut(s - 3) else { return 0 };
+            if fit(v, n) {
+                addr(v.as_mut_ptr() as usize)
+            } else {
+                0
+            }
+        }),
+        KIND_U8 if s == 0 => U8.with(|v| {
+            let mut v = v.borrow_mut();
+            if fit(&mut v, n) {
+                addr(v.as_mut_ptr() as usize)
+            } else {
+                0
+            }
+        }),
         KIND_F64 => F64.with(|b| {
             let mut b = b.borrow_mut();
             let Some(v) = b.get_mut(s) else { return 0 };
@@ -92,6 +115,16 @@ pub(crate) fn with_f32<R>(f: impl FnOnce(&mut [Vec<f32>; 2]) -> R) -> R {
 /// Runs `f` on the u16 scratch buffer.
 pub(crate) fn with_u16<R>(f: impl FnOnce(&mut Vec<u16>) -> R) -> R {
     U16.with(|b| f(&mut b.borrow_mut()))
+}
+
+/// Runs `f` on f64 scratch slots 3 and 4.
+pub(crate) fn with_f64x<R>(f: impl FnOnce(&mut [Vec<f64>; 2]) -> R) -> R {
+    F64X.with(|b| f(&mut b.borrow_mut()))
+}
+
+/// Runs `f` on the u8 scratch buffer.
+pub(crate) fn with_u8<R>(f: impl FnOnce(&mut Vec<u8>) -> R) -> R {
+    U8.with(|b| f(&mut b.borrow_mut()))
 }
 
 /// Applies `op` to every element of f64 scratch buffer 0, in place; the first error stops it

@@ -7,7 +7,10 @@
 //! checks its own arguments first, under their JavaScript names.
 
 use alloc::string::{String, ToString};
-use serde::Serialize;
+use core::fmt;
+
+use serde::de::{self, Deserializer, MapAccess, Visitor};
+use serde::{Deserialize, Serialize};
 use wasm_bindgen::prelude::*;
 
 use super::config::read;
@@ -15,11 +18,73 @@ use super::error::{in_config, number, some, to_js, Fail};
 use super::scratch::{map_in_place, status, with_f64};
 use super::testing::Live;
 use crate::band;
+use crate::constants::C2Convention;
 use crate::definition::SpectrumSettings;
 use crate::error::{self as check, Error};
 use crate::inverse;
-use crate::planck::{Direct, Geometry, Quantity, Spectrum};
+use crate::planck::{Direct, Geometry, Quantity, SpectralVariable, Spectrum};
 use crate::units::{convert_spectral_checked, SpectralKind, SpectralUnit};
+
+/// The core's [`SpectrumSettings`] read by hand with `visit_map` (fields dispatched by their
+/// position in one list, each kind of value read at one place): the derived reader carried a
+/// field-name visitor and one inlined read per field (about 1.5 KB of the package, DEVELOPERS.md
+/// size notes). Same fields, defaults and messages as the derived reader.
+struct Settings(SpectrumSettings);
+
+/// The fields of [`SpectrumSettings`] as JavaScript writes them (the derived reader's list).
+const SETTINGS_FIELDS: &[&str] = &[
+    "unit",
+    "variable",
+    "quantity",
+    "geometry",
+    "emissivity",
+    "refractiveIndex",
+    "c2",
+    "densityUnit",
+];
+
+impl<'de> Deserialize<'de> for Settings {
+    fn deserialize<D: Deserializer<'de>>(d: D) -> Result<Self, D::Error> {
+        struct V;
+        impl<'de> Visitor<'de> for V {
+            type Value = Settings;
+            fn expecting(&self, f: &mut fmt::Formatter<'_>) -> fmt::Result {
+                f.write_str("struct SpectrumSettings")
+            }
+            fn visit_map<A: MapAccess<'de>>(self, mut m: A) -> Result<Settings, A::Error> {
+                let mut unit = None;
+                let mut s = SpectrumSettings {
+                    unit: SpectralUnit::Metre, // (replaced below: `unit` is required)
+                    variable: None,
+                    quantity: Quantity::default(),
+                    geometry: Geometry::default(),
+                    emissivity: 1.0,
+                    refractive_index: 1.0,
+                    c2: C2Convention::default(),
+                    density_unit: None,
+                };
+                while let Some(key) = m.next_key::<String>()? {
+                    let Some(at) = SETTINGS_FIELDS.iter().position(|f| *f == key.as_str()) else {
+                        return Err(de::Error::unknown_field(&key, SETTINGS_FIELDS));
+                    };
+                    match at {
+                        0 => unit = Some(m.next_value::<SpectralUnit>()?),
+                        1 => s.variable = m.next_value::<Option<SpectralVariable>>()?,
+                        2 => s.quantity = m.next_value()?,
+                        3 => s.geometry = m.next_value()?,
+                        4 => s.emissivity = m.next_value()?,
+                        5 => s.refractive_index = m.next_value()?,
+                        6 => s.c2 = m.next_value()?,
+                        _ => s.density_unit = m.next_value::<Option<SpectralUnit>>()?,
+                    }
+                }
+                s.unit = unit.ok_or_else(|| de::Error::missing_field("unit"))?;
+                Ok(Settings(s))
+            }
+        }
+        d.deserialize_struct("SpectrumSettings", SETTINGS_FIELDS, V)
+    }
+}
 
 /// A checked spectrum with its user units.
 #[wasm_bindgen(js_name = QbSpectrum)]
@@ -140,7 +205,7 @@ impl SpectrumHandle {
     /// Reads and checks `settings` (a plain-data copy made by the facade).
     pub fn create(settings: JsValue) -> Option<SpectrumHandle> {
         some((|| {
-            let settings: SpectrumSettings = read(settings, "settings")?;
+            let settings = read::<Settings>(settings, "settings")?.0;
             let spectrum = settings.spectrum().map_err(in_config("settings"))?;
             let density_unit = settings.density_unit().map_err(in_config("settings"))?;
             let si = crate::definition::variable_kind(spectrum.variable).si_unit();

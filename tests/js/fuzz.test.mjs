@@ -95,7 +95,7 @@ test(`fuzz: seeded random calls of every function and method (seed ${SEED}, ≤ 
         return [pick(nums), pick(strs)];
     }
   };
-  const pool = { spectra: [], instruments: [], curves: [], raman: [], loads: [], semis: [], fits: [], designs: [], monteCarlo: [] };
+  const pool = { spectra: [], instruments: [], curves: [], raman: [], loads: [], semis: [], fits: [], designs: [], monteCarlo: [], spectral: [] };
   // configurations of the quantum area (src/wasm/js/quantum.js), valid and near-valid
   const quantum = [
     { shiftPerCm: 520.7, excitation: 532, unit: 'nm', detection: 'energy' },
@@ -109,6 +109,18 @@ test(`fuzz: seeded random calls of every function and method (seed ${SEED}, ≤ 
     { model: { kind: 'logPolynomial', order: 1 }, maxConditionNumber: 10 },
     { model: { kind: 'polynomial', order: 4 } },
   ];
+  // spectral-table definitions (src/wasm/js/spectral.js), valid and near-valid, and text tables
+  const flat = { wavelengths: [8, 14], values: [1, 1], unit: 'um' };
+  const spectral = [
+    { response: flat },
+    { response: { ...flat, quantity: 'photon' }, conditions: { emissivity: { wavelengths: [8, 10, 14], values: [0.9, 0.5, 0.7], unit: 'um' }, reflectedTemperatureK: 295, pathTransmittance: 0.9, pathTemperatureK: 290, window: { transmittance: { wavelengths: [7, 15], values: [0.8, 0.9], unit: 'um' }, reflectance: 0.05, temperatureK: 300, reflectedTemperatureK: 301 } } },
+    { response: flat, conditions: { emissivity: { wavelengths: [9, 14], values: [0.5, 0.5], unit: 'um', ends: 'constant' }, reflectedTemperatureK: 295 } },
+    { response: flat, conditions: { emissivity: { wavelengths: [9, 14], values: [0.5, 0.5], unit: 'um' }, reflectedTemperatureK: 295 } },
+    { response: flat, conditions: { emissivity: { wavelengths: [8, 14], values: [0.5, NaN], unit: 'um' }, reflectedTemperatureK: 295 } },
+    { response: { wavelengths: [0.1, 1000], values: [1, 1], unit: 'um' } },
+    { response: { ...flat, unit: 'cm-1' } },
+  ];
+  const texts = ['8, 0.9\n14, 0.8', '# x\n1000;0.5\n2000;0.6', '8 0.9\n9 x', '', '\ufeff1e0\t0\n2\t1\n', '8,0.9,1\n'];
   const arg = () => {
     const r = rnd();
     if (r < 0.3) return pick(nums);
@@ -122,7 +134,8 @@ test(`fuzz: seeded random calls of every function and method (seed ${SEED}, ≤ 
     if (r < 0.78) return { gain: pick(nums), output: pick(strs), emissivity: pick([undefined, new Float32Array(3)]) };
     if (r < 0.79) return pick(pool.instruments) ?? null;
     if (r < 0.8) return pick([{ signal: pick(nums), emissivity: { standardUncertainty: pick(nums), degreesOfFreedom: pick(nums), distribution: pick(['normal', 'studentT', 'x']) } }, { correlations: [{ inputs: ['signal', pick(strs)], coefficient: pick(nums) }], coverageFactor: pick(nums) }, { correlation: [[1, pick(nums)], [pick(nums), 1]], trials: pick(nums), seed: pick(nums) }, [pick(nums), { standardUncertainty: pick(nums) }], ['zinc', pick(['aluminium', 'gold', 'lead']), 'copper']]);
-    if (r < 0.815) return pick(quantum);
+    if (r < 0.81) return pick(quantum);
+    if (r < 0.815) return rnd() < 0.5 ? pick(spectral) : pick(texts);
     if (r < 0.82) return { channels: pool.instruments.slice(0, 3), wavelengths: [8, 10, 12], unit: 'um', signals: [1, 2, 3], uncertainties: [0.1, 0.1, 0.1] };
     if (r < 0.83) return null;
     if (r < 0.86) return undefined;
@@ -130,7 +143,7 @@ test(`fuzz: seeded random calls of every function and method (seed ${SEED}, ≤ 
     return weird();
   };
 
-  const CLASSES = new Set(['Spectrum', 'Instrument', 'CalibrationCurve', 'DetectorDesign', 'QuantabandError', 'MultiwavelengthFit', 'RamanMode', 'YFactorLoads', 'Semiconductor', 'fitMultiwavelength', 'MonteCarlo']);
+  const CLASSES = new Set(['Spectrum', 'Instrument', 'CalibrationCurve', 'DetectorDesign', 'QuantabandError', 'MultiwavelengthFit', 'RamanMode', 'YFactorLoads', 'Semiconductor', 'fitMultiwavelength', 'MonteCarlo', 'SpectralInstrument']);
   const fns = Object.entries(qb).filter(([k, v]) => typeof v === 'function' && !CLASSES.has(k) && !['default', 'init', 'initSync'].includes(k));
   const methods = (cls) => Object.entries(Object.getOwnPropertyDescriptors(cls.prototype)).filter(([m, d]) => m !== 'constructor' && m !== 'free' && typeof d.value === 'function').map(([m]) => m);
   const targets = [
@@ -154,8 +167,12 @@ test(`fuzz: seeded random calls of every function and method (seed ${SEED}, ≤ 
     { name: 'MonteCarlo.measurement', call: (a) => pool.monteCarlo.push(qb.MonteCarlo.measurement(a[0], a[1], a[2], { trials: 200 })), arity: 3 },
     { name: 'MonteCarlo.measurement options', call: (a) => pool.monteCarlo.push(qb.MonteCarlo.measurement(mcInstrument, a[0], a[1], a[2])), arity: 3 },
     { name: 'MonteCarlo.linear', call: (a) => pool.monteCarlo.push(qb.MonteCarlo.linear(a[0], a[1], a[2])), arity: 3 },
+    { name: 'new SpectralInstrument', call: (a) => pool.spectral.push(new qb.SpectralInstrument(rnd() < 0.6 ? pick(spectral) : a[0])), arity: 1 },
+    { name: 'SpectralInstrument.tableFromText', call: (a) => qb.SpectralInstrument.tableFromText(rnd() < 0.6 ? pick(texts) : a[0], rnd() < 0.6 ? pick(['um', 'cm-1', 'nm']) : a[1], rnd() < 0.6 ? pick(['emissivity', 'transmittance', 'response']) : a[2]), arity: 3 },
+    // the workflows with any instrument from the pools (valid ones most of the time)
+    { name: 'correctReading pools', call: (a) => qb.correctReading(pick([...pool.instruments, ...pool.spectral]), a[0], rnd() < 0.5 ? { emissivity: 0.9, reflectedTemperatureK: 293 } : a[1]), arity: 2 },
   ];
-  for (const [kind, cls] of [['spectra', qb.Spectrum], ['instruments', qb.Instrument], ['curves', qb.CalibrationCurve], ['raman', qb.RamanMode], ['loads', qb.YFactorLoads], ['semis', qb.Semiconductor], ['fits', qb.MultiwavelengthFit], ['designs', qb.DetectorDesign], ['monteCarlo', qb.MonteCarlo]]) {
+  for (const [kind, cls] of [['spectra', qb.Spectrum], ['instruments', qb.Instrument], ['curves', qb.CalibrationCurve], ['raman', qb.RamanMode], ['loads', qb.YFactorLoads], ['semis', qb.Semiconductor], ['fits', qb.MultiwavelengthFit], ['designs', qb.DetectorDesign], ['monteCarlo', qb.MonteCarlo], ['spectral', qb.SpectralInstrument]]) {
     for (const m of methods(cls)) {
       targets.push({
         name: `${cls.name}.${m}`,
@@ -181,6 +198,7 @@ test(`fuzz: seeded random calls of every function and method (seed ${SEED}, ≤ 
   pool.semis.push(new qb.Semiconductor(quantum[4]));
   pool.fits.push(qb.fitMultiwavelength(quantum[6], quantum[8]));
   pool.designs.push(new qb.DetectorDesign(designs[0]), new qb.DetectorDesign(designs[2]));
+  pool.spectral.push(new qb.SpectralInstrument(spectral[0]), new qb.SpectralInstrument(spectral[1]));
   // and one freed object of each class (its calls must be DISPOSED)
   for (const [k, make] of [
     ['spectra', () => new qb.Spectrum({ unit: 'nm' })],
@@ -192,6 +210,7 @@ test(`fuzz: seeded random calls of every function and method (seed ${SEED}, ≤ 
     ['fits', () => qb.fitMultiwavelength(quantum[6])],
     ['designs', () => new qb.DetectorDesign(designs[1])],
     ['monteCarlo', () => qb.MonteCarlo.linear([1], [1], { trials: 10 })],
+    ['spectral', () => new qb.SpectralInstrument(spectral[2])],
   ]) {
     const o = make();
     o.free();

@@ -51,6 +51,19 @@ export interface FrameOptionsBase {
   conditions?: MeasurementConditions;
   /** Per-pixel emissivity (one per pixel), replacing conditions.emissivity; ε outside (0, 1] gives NaN. */
   emissivity?: NumberArray;
+  /**
+   * Per-pixel gain g_i of a non-uniformity correction (one per pixel, dimensionless), applied
+   * to the raw value before `gain` and `offset`: signal_i = gain·(g_i·raw_i + o_i) + offset.
+   * Default 1 everywhere. A non-finite g_i makes the pixel invalid.
+   */
+  pixelGain?: NumberArray;
+  /** Per-pixel offset o_i of the non-uniformity correction, in raw units (one per pixel). Default 0. */
+  pixelOffset?: NumberArray;
+  /**
+   * Bad-pixel mask, one entry per pixel: nonzero (or NaN) marks a pixel that becomes NaN and
+   * is counted invalid. A Uint8Array is used as it is; other arrays are read as numbers.
+   */
+  badPixels?: NumberArray;
 }
 
 /** A converted frame: temperatures in K (NaN for invalid pixels) and counts. */
@@ -128,7 +141,9 @@ export class CalibrationCurve {
   /**
    * Converts a whole frame to object temperatures through this curve and the measurement
    * equation, into a new array or the caller's `out` (no allocation per frame then). Invalid
-   * pixels become NaN and are counted; they do not throw.
+   * pixels become NaN and are counted; they do not throw. Per-pixel corrections (`emissivity`,
+   * `pixelGain`, `pixelOffset`, `badPixels`) take the double-precision loop; without them u16
+   * counts and f32 signals into Float32Array output take the single-precision loop.
    *
    * Caution: a calculation from the given emissivity and conditions, not a substitute for a
    * calibrated instrument; never use it for medical or fever screening.

@@ -9,6 +9,7 @@ import {
   F64,
   MAX_LENGTH,
   U16,
+  U8,
   bulk,
   config,
   configKeeping,
@@ -201,7 +202,8 @@ export class CalibrationCurve {
 
   /**
    * Converts a frame of raw values (Uint16Array counts or Float32Array/Float64Array signals)
-   * to object temperatures. options: { gain, offset, conditions, emissivity, output, out }.
+   * to object temperatures. options: { gain, offset, conditions, emissivity, pixelGain,
+   * pixelOffset, badPixels, output, out }.
    */
   convertFrame(raw, options) {
     const h = this.#live();
@@ -212,35 +214,38 @@ export class CalibrationCurve {
     // Split the options: the arrays stay here (read once, not copied), the rest is read by the
     // module (which sees `true` in their place).
     let settings = {};
-    let emissivity;
-    let out;
+    let kept = {};
     if (options !== undefined) {
-      const [copy, kept] = configKeeping(options, 'options', ['emissivity', 'out']);
+      const [copy, arrays] = configKeeping(options, 'options', FRAME_ARRAYS);
       if (copy === null || typeof copy !== 'object' || Array.isArray(copy) || ArrayBuffer.isView(copy)) {
         throw wrongType('options', 'an object', options);
       }
       settings = copy;
-      emissivity = kept.emissivity;
-      out = kept.out;
+      kept = arrays;
     }
     const f64Out = settings.output === 'float64';
-    const target = output(out, n, f64Out ? 'Float64Array' : 'Float32Array', 'options.out');
-    let eps = null;
-    if (emissivity !== undefined) {
-      const [e, m] = numbers(emissivity, 'options.emissivity', MAX_LENGTH);
-      if (m !== n) {
-        throw new QuantabandError('LENGTH_MISMATCH', `options.emissivity must have ${n} elements, one per pixel (got ${m})`);
-      }
-      eps = e;
-    }
+    const target = output(kept.out, n, f64Out ? 'Float64Array' : 'Float32Array', 'options.out');
+    const eps = pixelMap(kept.emissivity, 'options.emissivity', n);
+    const gains = pixelMap(kept.pixelGain, 'options.pixelGain', n);
+    const offsets = pixelMap(kept.pixelOffset, 'options.pixelOffset', n);
+    const mask = badPixelMask(kept.badPixels, n);
+    // Per-pixel corrections take the frame as f64 (the module has one corrected loop per
+    // output type); without them each input type keeps its own loop.
+    const own = eps === null && gains === null && offsets === null && mask === null;
     // Reserve every buffer first, then write (no memory growth between the views).
-    const inKind = eps === null ? kind : F64;
+    const inKind = own ? kind : F64;
     const pIn = reserve(inKind, 0, n);
     const outKind = f64Out ? F64 : F32;
     const pOut = reserve(outKind, 1, n);
     const pEps = eps === null ? 0 : reserve(F64, 2, n);
+    const pGain = gains === null ? 0 : reserve(F64, 3, n);
+    const pOffset = offsets === null ? 0 : reserve(F64, 4, n);
+    const pMask = mask === null ? 0 : reserve(U8, 0, n);
     fill(inKind, pIn, n, src, 'raw');
     if (eps !== null) fill(F64, pEps, n, eps, 'options.emissivity');
+    if (gains !== null) fill(F64, pGain, n, gains, 'options.pixelGain');
+    if (offsets !== null) fill(F64, pOffset, n, offsets, 'options.pixelOffset');
+    if (mask !== null) fill(U8, pMask, n, mask, 'options.badPixels');
     const summary = some(h.convertFrame(inKind, f64Out, eps !== null, settings));
     const temperaturesK = readBack(outKind, pOut, n, target);
     return {
@@ -252,6 +257,28 @@ export class CalibrationCurve {
       backgroundSignal: summary.backgroundSignal,
     };
   }
+}
+
+/** The options of convertFrame that are arrays (read here, not copied into the settings). */
+const FRAME_ARRAYS = ['emissivity', 'pixelGain', 'pixelOffset', 'badPixels', 'out'];
+
+/** A per-pixel map (option `name`) of n numbers, or null when not given. */
+function pixelMap(x, name, n) {
+  if (x === undefined) return null;
+  const [a, m] = numbers(x, name, MAX_LENGTH);
+  if (m !== n) {
+    throw new QuantabandError('LENGTH_MISMATCH', `${name} must have ${n} elements, one per pixel (got ${m})`);
+  }
+  return a;
+}
+
+/** The bad-pixel mask as a Uint8Array (nonzero or NaN: bad), or null when not given. */
+function badPixelMask(x, n) {
+  const a = pixelMap(x, 'options.badPixels', n);
+  if (a === null || typedArrayTag(a) === 'Uint8Array') return a;
+  const mask = new Uint8Array(n);
+  for (let i = 0; i < n; i++) mask[i] = a[i] !== 0 ? 1 : 0;
+  return mask;
 }
 
 if (typeof Symbol.dispose === 'symbol') CalibrationCurve.prototype[Symbol.dispose] = CalibrationCurve.prototype.free;

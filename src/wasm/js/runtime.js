@@ -203,7 +203,8 @@ export function output(out, n, tag, name) {
 export const F64 = 0;
 export const F32 = 1;
 export const U16 = 2;
-const VIEW = [Float64Array, Float32Array, Uint16Array];
+export const U8 = 3;
+const VIEW = [Float64Array, Float32Array, Uint16Array, Uint8Array];
 
 /** The address of scratch buffer (kind, slot) with n elements. */
 export function reserve(kind, slot, n) {
