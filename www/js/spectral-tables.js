@@ -133,8 +133,9 @@ export function tagSpectral(fields, fn, fallback) {
     if (e.code === 'OUTSIDE_TABLE') {
       const m = /is needed at (\S+) m, outside its wavelength grid \[(\S+), (\S+)\] m/.exec(e.message);
       if (m && isTable) {
-        const [a, b] = [inUnit(id, Number(m[2])), inUnit(id, Number(m[3]))];
-        throw new FieldError(id, `${L} covers ${a} to ${b}, but the instrument's response needs it at ${inUnit(id, Number(m[1]))}: extend the table, or tick “extend each table beyond its first and last wavelength”.`, e.code);
+        const u = unitOf(id);
+        const [a, b] = [Number(m[2]), Number(m[3])].map((w) => api.convertSpectral(w, 'm', u)).sort((x, y) => x - y);
+        throw new FieldError(id, `${L} covers ${trim(a)} to ${trim(b)} ${symbol(u)}, but the instrument's response needs it at ${inUnit(id, Number(m[1]))}: extend the table, or tick “extend each table beyond its first and last wavelength”.`, e.code);
       }
     }
     if (e.code === 'INVALID_TABLE_ENTRY') {
