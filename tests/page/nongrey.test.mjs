@@ -176,7 +176,7 @@ test('the unit menu of a table converts its wavelength column and changes no res
 });
 
 test('the invented demo set loads every table, says it is invented, and gives a result', async () => {
-  const { page, context, consoleErrors, requests } = await open(browser);
+  const { page, context, consoleErrors, requests } = await open(browser, '', { viewport: { width: 1366, height: 768 } });
   assert.match(await page.textContent('#sg-ngp'), /invented demo set/);
   await page.click('#sg-demo');
   await settle(page);
@@ -195,6 +195,17 @@ test('the invented demo set loads every table, says it is invented, and gives a 
   assert.ok(rel(terms.slice(0, 5).reduce((a, b) => a + b, 0), terms[5]) < 1e-12);
   assert.equal(await page.locator('#sg-ngplot .series').count(), 5);
   assert.ok(await page.locator('#sg-mc').isHidden(), 'the grey-only Monte Carlo panel is not offered for tables');
+  // At 1366 × 768 the inputs and the (longer) main result still fit the section's first screen.
+  const ext = await page.evaluate(() => {
+    const s = document.getElementById('signal');
+    const top = s.getBoundingClientRect().top;
+    const shown = [...s.querySelectorAll('.inputs input, .inputs select, .inputs textarea, .inputs button')].filter((x) => !x.closest('[hidden]') && x.getClientRects().length > 0);
+    return { inputs: Math.max(...shown.map((x) => x.getBoundingClientRect().bottom - top)), main: s.querySelector('.main-result').getBoundingClientRect().bottom - top };
+  });
+  assert.ok(ext.inputs <= 768 && ext.main <= 768, `inputs end at ${ext.inputs} px, main result at ${ext.main} px`);
+  // The cautions of the page stand above every section (process safety, medical screening).
+  assert.match(await page.textContent('.cautions'), /process-safety/);
+  assert.match(await page.textContent('.cautions'), /oxidised-steel sample/);
   assert.deepEqual(consoleErrors, []);
   assert.equal(requests.filter((u) => !u.startsWith('data:') && !u.startsWith('blob:') && !u.startsWith('file:')).length, 0);
   await page.locator('#signal').screenshot({ path: resolve(ARTIFACTS, 'nongrey-demo.png') });
