@@ -259,6 +259,8 @@ const TERM_NAMES = [
 function computeSpectral(mode, ou) {
   $('sg-ngplot').hidden = false;
   const scene = readScene('sg');
+  // The budget below is the page's propagation: its standard uncertainties must not be negative.
+  for (const id of ['sg-ueps', 'sg-utr', 'sg-utau', 'sg-utp']) if (!$(id).closest('[hidden]')) nonNegative(id, number(id));
   const ng = readSpectral(mode, scene);
   const { response } = ng.definition;
   const si = tagSpectral(ng.fields, () => api.spectralInstrument(ng.definition), 'sg-rtab');

@@ -69,7 +69,11 @@ function textWords(e, id, text) {
   }
   if (e.code === 'NON_POSITIVE') return `${L}: every response value is 0; at least one must be greater than 0.`;
   if (e.code === 'TOO_LARGE') return `${L}: the text is too long for this page; shorten the table.`;
-  if (e.code === 'TOO_FEW_POINTS') return explain(e, id, { unit: '' });
+  if (e.code === 'TOO_FEW_POINTS') {
+    const m = /has (\d+) data line/.exec(e.message);
+    const n = m ? Number(m[1]) : null;
+    return `${L}: a table needs at least 2 lines of wavelength and value${n === null ? '' : `; it has ${n === 1 ? 'one' : n}`}.`;
+  }
   return `${L}: the table cannot be read (${e.code.toLowerCase().replace(/_/g, ' ')}).`;
 }
 
@@ -146,7 +150,7 @@ export function tagSpectral(fields, fn, fallback) {
       const where = isTable ? (line ? `line ${line} (“${lineText($(id).value, line)}”)` : `point ${Number(idx?.[1] ?? 0) + 1}`) : '';
       if (sum) {
         const s = got ? ` is ${trim(Number(got[1]))}` : ' is above 1';
-        throw new FieldError(id, `${L}${where ? `, ${where}` : ''}: the window's transmittance plus its reflectance${s} there; together they cannot exceed 1.`, e.code);
+        throw new FieldError(id, `${L}${where ? `, ${where}` : ''}: the window's transmittance plus its reflectance${s}${where ? ' there' : ''}; together they cannot exceed 1.`, e.code);
       }
       throw new FieldError(id, `${L}${where ? `, ${where}` : ''}: the value must be from 0 to 1.`, e.code);
     }
