@@ -211,3 +211,35 @@ test('the invented demo set loads every table, says it is invented, and gives a 
   await page.locator('#signal').screenshot({ path: resolve(ARTIFACTS, 'nongrey-demo.png') });
   await context.close();
 });
+
+test('grey inputs through the spectral equation (a fully transparent window) give the grey route’s result and budget', async () => {
+  // Issue 15: "grey inputs remain the special case and must give today's numbers to rounding".
+  const { page, context } = await open(browser);
+  const snap = async () => ({
+    t: await resultText(page, 'sg-res', 't'),
+    rows: await page.$$eval('#sg-table tbody tr', (trs) => trs.map((r) => [Number(r.children[3].dataset.value), Number(r.children[4].dataset.value)])),
+  });
+  for (const mode of ['indicated', 'radiance']) {
+    await select(page, 'sg-mode', mode);
+    await select(page, 'sg-wk', 'none');
+    await setValue(page, 'sg-tau', '0.95');
+    await setValue(page, 'sg-utau', '0.01');
+    await setValue(page, 'sg-utp', '2');
+    const grey = await snap();
+    await select(page, 'sg-wk', 'grey');
+    await setValue(page, 'sg-wtau', '1');
+    await setValue(page, 'sg-wrho', '0');
+    assert.equal(await page.getAttribute('#signal', 'data-state'), 'ok');
+    assert.match(await page.textContent('#sg-assume'), /spectral measurement equation/);
+    const spec = await snap();
+    assert.equal(spec.t, grey.t, `${mode}: object temperature`);
+    // reading, ε, T_refl, τ, T_path and u_c: sensitivities and contributions to 1e-12
+    const pick = (r) => [...r.slice(0, 5), r[r.length - 1]];
+    pick(spec.rows).forEach(([s, c], i) => {
+      const [s0, c0] = pick(grey.rows)[i];
+      if (Number.isFinite(s0)) assert.ok(Math.abs(s - s0) <= 1e-12 * Math.abs(s0), `${mode} row ${i}: sensitivity ${s} vs ${s0}`);
+      assert.ok(Math.abs(c - c0) <= 1e-12 * Math.abs(c0) + 1e-15, `${mode} row ${i}: contribution ${c} vs ${c0}`);
+    });
+  }
+  await context.close();
+});
