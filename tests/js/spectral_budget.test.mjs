@@ -8,37 +8,10 @@
 // coefficients themselves are checked to 1e-9 (spectral.test.mjs); the rest is arithmetic.
 import { test } from 'node:test';
 import assert from 'node:assert/strict';
-import { qb, close, throwsCode, loadReference } from './helpers.mjs';
+import { qb, close, throwsCode, loadReference, spectralDefinition as definition } from './helpers.mjs';
 
 const REF = loadReference('spectral_reference.json');
 const BUDGET = loadReference('spectral_budget_reference.json');
-
-/** A JSON input (constant or table in metres) as a definition input. */
-const input = (x) =>
-  x.constant !== undefined ? x.constant : { wavelengths: x.wavelengths_m, values: x.values, unit: 'm', ...(x.constant_ends ? { ends: 'constant' } : {}) };
-
-/** A JSON scene as a SpectralInstrument definition (`window`: keep its window). */
-function definition(sc, window = true) {
-  const conditions = {
-    emissivity: input(sc.emissivity),
-    reflectedTemperatureK: sc.reflected_temperature_k,
-    pathTransmittance: input(sc.path_transmittance),
-    pathTemperatureK: sc.path_temperature_k,
-  };
-  if (window) {
-    conditions.window = {
-      transmittance: input(sc.window_transmittance),
-      reflectance: input(sc.window_reflectance),
-      temperatureK: sc.window_temperature_k,
-      reflectedTemperatureK: sc.window_reflected_temperature_k,
-    };
-  }
-  if (sc.reflectance) conditions.reflectance = input(sc.reflectance);
-  return {
-    response: { wavelengths: sc.response.wavelengths_m, values: sc.response.values, unit: 'm', quantity: sc.photon ? 'photon' : 'energy' },
-    conditions,
-  };
-}
 
 /** The uncertainties of a reference case as the method takes them. */
 const uncertainties = (c) =>

@@ -217,7 +217,7 @@ export class SpectralInstrument {
   uncertaintyBudget(signal, uncertainties, options) {
     this.#live();
     num(signal, 'signal');
-    return _spectralBudget(() => this.sensitivities(signal), uncertainties, options);
+    return _spectralBudget(SENSITIVITIES.slice(1), () => this.sensitivities(signal), uncertainties, options);
   }
 }
 

@@ -287,48 +287,37 @@ export function _measurementBudget(h, signal, uncertainties, opts) {
 }
 
 /**
- * The inputs of SpectralInstrument.uncertaintyBudget, in row order: the row name (also the key
- * of the sensitivity in SpectralInstrument.sensitivities) and the key of its uncertainty.
- * A `…Scale` input is the factor k of a whole table (ε, ρ, τ_p, τ_w, ρ_w or the response R)
- * at k = 1, so its standard uncertainty is the table's relative standard uncertainty.
+ * The uncertainty key of a row of SpectralInstrument.uncertaintyBudget (rows: the keys of
+ * SpectralInstrument.sensitivities after temperatureK; temperatures take a K suffix). A
+ * `…Scale` input is the factor k of a whole table (ε, ρ, τ_p, τ_w, ρ_w or the response R) at
+ * k = 1, so its standard uncertainty is the table's relative standard uncertainty.
  */
-const SPECTRAL_ROWS = [
-  'signal',
-  'emissivityScale',
-  'reflectanceScale',
-  'pathTransmittanceScale',
-  'windowTransmittanceScale',
-  'windowReflectanceScale',
-  'responseScale',
-  'reflectedTemperature',
-  'pathTemperature',
-  'windowTemperature',
-  'windowReflectedTemperature',
-];
-const SPECTRAL_KEYS = SPECTRAL_ROWS.map((k) => (k.endsWith('Temperature') ? `${k}K` : k));
-/** Rows of the window's inputs (their sensitivities are all 0 without a window). */
-const WINDOW_ROWS = [4, 5, 9, 10];
-const REFLECTANCE_ROW = 2;
+const spectralKey = (row) => (row.endsWith('Temperature') ? `${row}K` : row);
+/** The window's inputs (their sensitivities are all 0 without a window). */
+const WINDOW_INPUTS = ['windowTransmittanceScale', 'windowReflectanceScale', 'windowTemperature', 'windowReflectedTemperature'];
 
 /**
- * SpectralInstrument.uncertaintyBudget: `sensitivities(signal)` gives the 11 coefficients
- * (after T, in SPECTRAL_ROWS order); the law of propagation is the module's
+ * SpectralInstrument.uncertaintyBudget: `names` are the 11 inputs (the sensitivity keys after
+ * temperatureK) and `sensitivities()` gives them; the law of propagation is the module's
  * (propagateUncertainty), so the budget is the same engine as Instrument.uncertaintyBudget.
  */
-export function _spectralBudget(sensitivities, uncertainties, opts) {
-  const u = object(config(uncertainties, 'uncertainties'), 'uncertainties', SPECTRAL_KEYS);
-  const n = SPECTRAL_ROWS.length;
+export function _spectralBudget(names, sensitivities, uncertainties, opts) {
+  const n = names.length;
+  const keys = names.map(spectralKey);
+  const windowRows = WINDOW_INPUTS.map((w) => names.indexOf(w));
+  const reflectanceRow = names.indexOf('reflectanceScale');
+  const u = object(config(uncertainties, 'uncertainties'), 'uncertainties', keys);
   const inputs = new Float64Array(5 * n);
-  SPECTRAL_KEYS.forEach((k, i) => spec(u[k] ?? 0, `uncertainties.${k}`, inputs, 5 * i));
+  keys.forEach((k, i) => spec(u[k] ?? 0, `uncertainties.${k}`, inputs, 5 * i));
   const o = options(opts, ['correlations', 'coverageProbability', 'coverageFactor']);
-  const pr = pairs(o.correlations, 'options.correlations', SPECTRAL_KEYS);
+  const pr = pairs(o.correlations, 'options.correlations', keys);
   const s = sensitivities();
-  const c = Float64Array.from(SPECTRAL_ROWS, (k) => s[k]);
+  const c = Float64Array.from(names, (k) => s[k]);
   const given = (i) => inputs[5 * i] !== 0;
-  if (WINDOW_ROWS.some(given) && WINDOW_ROWS.every((i) => c[i] === 0)) {
+  if (windowRows.some(given) && windowRows.every((i) => c[i] === 0)) {
     throw new QuantabandError('UNSUPPORTED', 'window uncertainties need a window in the conditions');
   }
-  if (given(REFLECTANCE_ROW) && c[REFLECTANCE_ROW] === 0) {
+  if (given(reflectanceRow) && c[reflectanceRow] === 0) {
     throw new QuantabandError(
       'UNSUPPORTED',
       "uncertainties.reflectanceScale: the target's reflectance does not enter this measurement on its own (an opaque target reflects 1 − ε: give emissivityScale)",
@@ -336,34 +325,34 @@ export function _spectralBudget(sensitivities, uncertainties, opts) {
   }
   // Rows as in Instrument.uncertaintyBudget: the window's only with a window; the separate
   // reflectance only for a target that has one (not opaque).
-  const noWindow = WINDOW_ROWS.every((i) => c[i] === 0);
-  const rows = [];
+  const noWindow = windowRows.every((i) => c[i] === 0);
+  const active = [];
   for (let i = 0; i < n; i++) {
-    if (!((noWindow && WINDOW_ROWS.includes(i)) || (i === REFLECTANCE_ROW && c[i] === 0))) rows.push(i);
+    if (!((noWindow && windowRows.includes(i)) || (i === reflectanceRow && c[i] === 0))) active.push(i);
   }
-  const r = rows.length;
+  const r = active.length;
   const has = pr.length > 0;
   const m = new Float64Array(has ? r * r : 0);
   if (has) {
     for (let i = 0; i < r; i++) m[i * r + i] = 1;
     for (let k = 0; k < pr.length; k += 3) {
-      const [a, b] = [rows.indexOf(pr[k]), rows.indexOf(pr[k + 1])];
+      const [a, b] = [active.indexOf(pr[k]), active.indexOf(pr[k + 1])];
       if (a < 0 || b < 0) {
-        const name = SPECTRAL_KEYS[a < 0 ? pr[k] : pr[k + 1]];
+        const name = keys[a < 0 ? pr[k] : pr[k + 1]];
         throw new QuantabandError('UNSUPPORTED', `options.correlations[${k / 3}]: ${name} is not an input of this measurement (no window, or an opaque target)`);
       }
       m[a * r + b] = pr[k + 2];
       m[b * r + a] = pr[k + 2];
     }
   }
-  const cs = Float64Array.from(rows, (i) => c[i]);
+  const cs = Float64Array.from(active, (i) => c[i]);
   const us = new Float64Array(5 * r);
-  rows.forEach((i, j) => us.set(inputs.subarray(5 * i, 5 * i + 5), 5 * j));
+  active.forEach((i, j) => us.set(inputs.subarray(5 * i, 5 * i + 5), 5 * j));
   const count = glue.propagateUncertainty(cs, us, m, has, optNumber(o, 'coverageProbability', 'options'), optNumber(o, 'coverageFactor', 'options'));
   const g = _gum(_scratchNumbers(count), 0, false)[0];
   return {
     temperatureK: s.temperatureK,
-    entries: g.entries.map(({ contribution, varianceShare, ...row }, j) => ({ input: SPECTRAL_ROWS[rows[j]], ...row, contributionK: contribution, varianceShare })),
+    entries: g.entries.map(({ contribution, varianceShare, ...row }, j) => ({ input: names[active[j]], ...row, contributionK: contribution, varianceShare })),
     combinedStandardUncertaintyK: g.combinedStandardUncertainty,
     effectiveDegreesOfFreedom: g.effectiveDegreesOfFreedom,
     coverageFactor: g.coverageFactor,
