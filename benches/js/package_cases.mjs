@@ -82,6 +82,30 @@ const CASES = [
     },
   ],
   [
+    "signal_table_400",
+    (pkg, { ref }) => {
+      if (!has(pkg, "SpectralInstrument")) return null;
+      const i = ref.signal_table_400.inputs;
+      const table = (name) => ({ wavelengths: Float64Array.from(i.tables[name].wavelengths_m), values: Float64Array.from(i.tables[name].values), unit: "m" });
+      const instrument = new pkg.SpectralInstrument({
+        response: table("response"),
+        conditions: {
+          emissivity: table("emissivity"),
+          reflectedTemperatureK: i.reflected_temperature_k,
+          pathTransmittance: table("path_transmittance"),
+          pathTemperatureK: i.path_temperature_k,
+          window: {
+            transmittance: table("window_transmittance"),
+            reflectance: table("window_reflectance"),
+            temperatureK: i.window_temperature_k,
+            reflectedTemperatureK: i.window_reflected_temperature_k,
+          },
+        },
+      });
+      return scalar(() => instrument.measuredSignal(i.temperature_k));
+    },
+  ],
+  [
     "sh_inverse",
     (pkg, { ref }) => {
       if (!has(pkg, "CalibrationCurve")) return null;

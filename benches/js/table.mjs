@@ -39,6 +39,7 @@ const ROWS = [
   ["band_1_2_1500", "Band radiance 1–2 µm, 1500 K"],
   ["band_inverse_8_14", "Band inverse 8–14 µm (T = 350 K)"],
   ["response_signal_400", "Response-weighted signal, 9-point curve, 400 K"],
+  ["signal_table_400", "Spectral-table signal: response, ε, τ_p, τ_w, ρ_w tables (120–200 points), 8–14 µm, 400 K"],
   ["sh_inverse", "Sakuma–Hattori inverse, one value"],
   ["frame_640x512", "Frame 640×512 signal → T (Sakuma–Hattori)"],
   ["frame_counts_640x512", "Frame 640×512 counts → T (gain/offset, Sakuma–Hattori)"],

@@ -53,3 +53,30 @@ export function loadReference(name) {
   if (!existsSync(url)) return undefined;
   return JSON.parse(readFileSync(url, 'utf8'));
 }
+
+/** A JSON input of tests/data/spectral_reference.json (constant or table in metres) as a definition input. */
+const spectralInput = (x) =>
+  x.constant !== undefined ? x.constant : { wavelengths: x.wavelengths_m, values: x.values, unit: 'm', ...(x.constant_ends ? { ends: 'constant' } : {}) };
+
+/** A scene of tests/data/spectral_reference.json as a SpectralInstrument definition (`window`: keep its window). */
+export function spectralDefinition(sc, window = true) {
+  const conditions = {
+    emissivity: spectralInput(sc.emissivity),
+    reflectedTemperatureK: sc.reflected_temperature_k,
+    pathTransmittance: spectralInput(sc.path_transmittance),
+    pathTemperatureK: sc.path_temperature_k,
+  };
+  if (window) {
+    conditions.window = {
+      transmittance: spectralInput(sc.window_transmittance),
+      reflectance: spectralInput(sc.window_reflectance),
+      temperatureK: sc.window_temperature_k,
+      reflectedTemperatureK: sc.window_reflected_temperature_k,
+    };
+  }
+  if (sc.reflectance) conditions.reflectance = spectralInput(sc.reflectance);
+  return {
+    response: { wavelengths: sc.response.wavelengths_m, values: sc.response.values, unit: 'm', quantity: sc.photon ? 'photon' : 'energy' },
+    conditions,
+  };
+}

@@ -9,34 +9,9 @@
 // Tolerances are those the core documents and those Rust tests use.
 import { test } from 'node:test';
 import assert from 'node:assert/strict';
-import { qb, close, throwsCode, loadReference } from './helpers.mjs';
+import { qb, close, throwsCode, loadReference, spectralDefinition as definition } from './helpers.mjs';
 
 const REF = loadReference('spectral_reference.json');
-
-/** A JSON input (constant or table in metres) as a definition input. */
-const input = (x) =>
-  x.constant !== undefined ? x.constant : { wavelengths: x.wavelengths_m, values: x.values, unit: 'm', ...(x.constant_ends ? { ends: 'constant' } : {}) };
-
-/** A JSON scene as a SpectralInstrument definition. */
-function definition(sc) {
-  const conditions = {
-    emissivity: input(sc.emissivity),
-    reflectedTemperatureK: sc.reflected_temperature_k,
-    pathTransmittance: input(sc.path_transmittance),
-    pathTemperatureK: sc.path_temperature_k,
-    window: {
-      transmittance: input(sc.window_transmittance),
-      reflectance: input(sc.window_reflectance),
-      temperatureK: sc.window_temperature_k,
-      reflectedTemperatureK: sc.window_reflected_temperature_k,
-    },
-  };
-  if (sc.reflectance) conditions.reflectance = input(sc.reflectance);
-  return {
-    response: { wavelengths: sc.response.wavelengths_m, values: sc.response.values, unit: 'm', quantity: sc.photon ? 'photon' : 'energy' },
-    conditions,
-  };
-}
 
 /** A JSON grey setting as MeasurementConditions. */
 const setting = (s) => ({
@@ -145,16 +120,7 @@ test('workflows from an indicated temperature on four models against mpmath (1e-
 test('a spectral correction: non-grey target behind a window table, flat 8–14 µm (mpmath, 1e-12)', () => {
   const c = REF.spectral_correction;
   const sc = c.scene;
-  const si = new qb.SpectralInstrument({
-    response: { wavelengths: sc.response.wavelengths_m, values: sc.response.values, unit: 'm' },
-    conditions: {
-      emissivity: input(sc.emissivity),
-      reflectedTemperatureK: sc.reflected_temperature_k,
-      pathTransmittance: input(sc.path_transmittance),
-      pathTemperatureK: sc.path_temperature_k,
-      window: { transmittance: input(sc.window_transmittance), reflectance: input(sc.window_reflectance), temperatureK: sc.window_temperature_k, reflectedTemperatureK: sc.window_reflected_temperature_k },
-    },
-  });
+  const si = new qb.SpectralInstrument(definition(sc));
   close(qb.correctReading(si, c.indicated_k, setting(c.setting)), c.expected, 1e-12, 'spectral correction (mpmath)');
   // the other workflows accept a SpectralInstrument too (its blackbody signal): a reflector of
   // emissivity 0 reads the reflected temperature itself

@@ -88,7 +88,7 @@ test('400 px wide: plots redraw at their width with text ≥ 10 px; the frame ke
   await settle(page);
   await settle(page);
   const narrow = await plots();
-  assert.equal(narrow.length, 6, 'six plots');
+  assert.equal(narrow.length, 7, 'seven plots (with the spectral inputs of the signal section)');
   for (const p of narrow) {
     const w = wide.find((x) => x.id === p.id);
     console.log(`${p.id}: drawn ${w.drawn} px wide at 1366, ${p.drawn} px at 400; smallest text ${p.minFont.toFixed(1)} px`);

@@ -105,9 +105,15 @@ test('every input-unit menu converts its fields and changes no result', async ()
   const tested = new Set();
   // Unit menus shown only in some modes: visit each mode that shows them.
   const configurations = [[], [['sg-mode', 'radiance'], ['sg-resp', 'point']], [['sg-mode', 'ratio'], ['sg-rin', 'indicated']],
+    [['sg-mode', 'indicated'], ['click', '#sg-demo']], // the signal section's spectral tables (the invented demo set)
     [['oc-task', 'multi']], [['oc-task', 'raman'], ['oc-rm-dir', 'temp']], [['oc-task', 'yfactor']], [['oc-task', 'carriers']]];
   for (const config of configurations) {
-    for (const [id, v] of config) await select(page, id, v);
+    for (const [id, v] of config) {
+      if (id === 'click') {
+        await page.click(v);
+        await settle(page);
+      } else await select(page, id, v);
+    }
     for (const m of await menuInfo(page)) {
       if (m.hidden || tested.has(m.id)) continue;
       tested.add(m.id);
@@ -141,8 +147,10 @@ test('every input-unit menu converts its fields and changes no result', async ()
           if (f.kind === 'table') {
             const now = await tableFirstColumn(page, f.id);
             const was = phys0[f.id];
-            const conv = f.colKind === 'temperature' ? (v) => toK(v, target) : (v) => v * LENGTH[target];
-            const orig = f.colKind === 'temperature' ? (v) => toK(v, original) : (v) => v * LENGTH[original];
+            // A wavelength column in metres (a wavenumber column: λ = 1/ν̃, 1 cm⁻¹ ↔ 0.01 m).
+            const metres = (v, u) => (u === 'cm-1' ? 0.01 / v : v * LENGTH[u]);
+            const conv = f.colKind === 'temperature' ? (v) => toK(v, target) : (v) => metres(v, target);
+            const orig = f.colKind === 'temperature' ? (v) => toK(v, original) : (v) => metres(v, original);
             now.forEach((v, i) => assert.ok(rel(conv(v), orig(was[i])) < 1e-10, `${f.id} line ${i + 1} in ${target}: ${v}`));
             continue;
           }

@@ -31,7 +31,13 @@ const terms: QB.SignalTerms = si.signalTerms(t);
 const eff: QB.BandEffective = si.bandEffective(400);
 const sens: QB.SpectralSensitivities = si.sensitivities(s);
 const bulk: Float64Array = si.objectTemperatures([s, s], new Float64Array(2));
-const x: number = terms.object + terms.windowEmitted + eff.emissivity + sens.emissivityScale + (bulk[0] ?? 0);
+const budget: QB.SpectralUncertaintyBudget = si.uncertaintyBudget(s, { signal: 0.1, emissivityScale: { standardUncertainty: 0.02, degreesOfFreedom: 8 }, reflectedTemperatureK: 2 }, { correlations: [{ inputs: ['reflectedTemperatureK', 'pathTemperatureK'], coefficient: 0.5 }], coverageFactor: 2 });
+const row: QB.SpectralBudgetInput = budget.entries[0]!.input;
+// @ts-expect-error the grey key "emissivity" is not an input of a spectral budget
+si.uncertaintyBudget(s, { emissivity: 0.01 });
+// @ts-expect-error coverageProbability and coverageFactor exclude each other
+si.uncertaintyBudget(s, {}, { coverageProbability: 0.95, coverageFactor: 2 });
+const x: number = terms.object + terms.windowEmitted + eff.emissivity + sens.emissivityScale + (bulk[0] ?? 0) + budget.expandedUncertaintyK + row.length;
 // @ts-expect-error result fields are readonly
 terms.signal = 1;
 // @ts-expect-error ends is "reject" or "constant"

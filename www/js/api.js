@@ -219,4 +219,18 @@ export const api = {
       c.free();
     }
   },
+
+  // ---- spectral (non-grey) instruments (spectral.d.ts)
+  /** A SpectralInstrument for this definition ({ response, conditions }), cached. */
+  spectralInstrument(definition) {
+    return preparedOf('SpectralInstrument', definition);
+  },
+  /** A two-column text table read by the package: { wavelengths (m), values, unit: 'm' }. */
+  tableFromText(text, unit, kind) {
+    return fn('SpectralInstrument').tableFromText(text, unit, kind);
+  },
+  /** The object temperature (K) behind a reading made with grey settings `setting`. */
+  correctReading(instrument, indicatedK, setting) {
+    return fn('correctReading')(instrument, indicatedK, setting);
+  },
 };

@@ -5,12 +5,13 @@
 // temperature) of two equal narrow bands.
 import { api } from './api.js';
 import { formatNumber, formatInput } from './fmt.js';
-import { fillResults } from './plot.js';
+import { fillResults, fillTable } from './plot.js';
 import { tag, tagMap, tagPair, number, kelvin, kelvinDiff, spectral, count, FieldError, labelOf, typed, unitText } from './fields.js';
 import { symbol } from './units.js';
 import { fillBudget, showTemperature, showDifference, readScene, budgetRows, gumMarkup, gumView, uncertaintyItems, uncertaintyOf, readCoverage, readMeasurementGum, gumCall, MEASUREMENT_INPUTS } from './budget.js';
 import { monteCarloPanel } from './montecarlo.js';
 import { shared } from './shared.js';
+import { spectralWanted, readSpectral, tagSpectral, plotSpectral, loadDemo, wireLoaders } from './spectral-tables.js';
 
 const $ = (id) => document.getElementById(id);
 const RADIANCE = 'W·m⁻²·sr⁻¹';
@@ -51,9 +52,15 @@ function readModel(mode) {
 }
 
 function computeSingle(mode, ou) {
+  if (spectralAvailable() && spectralWanted()) {
+    computeSpectral(mode, ou);
+    return;
+  }
+  setSignalUnit(RADIANCE);
   const { model, describe } = readModel(mode);
   const scene = readScene('sg');
   const eps = scene.eps;
+  if (spectralAvailable()) plotGrey(scene);
   const inst = tagMap(scene.condFields, () => api.instrument({ model, conditions: scene.conditions }), 'sg-eps');
   const blackbody = api.instrument({ model });
 
@@ -210,6 +217,203 @@ function computeRatio(ou) {
   $('sg-assume').textContent = `Assumes ${what}, a grey-body ratio (ε₁/ε₂ as entered), and no reflected radiation or path absorption that differs between the channels.`;
 }
 
+// ------------------------------------------------------------------ spectral (non-grey) readings
+
+const spectralAvailable = () => api.has('SpectralInstrument', 'correctReading') && !!$('sg-ngp');
+
+/** The unit shown beside the band-signal reading (it follows the response's kind). */
+function setSignalUnit(u) {
+  for (const id of ['sg-sig', 'sg-usig']) $(id).dataset.unitText = u;
+  const span = $('sg-sig').parentElement.querySelector('.unit');
+  if (span) span.textContent = u;
+}
+
+/** The plot of the grey inputs over a flat band (nothing to plot for one wavelength). */
+function plotGrey(scene) {
+  const fig = $('sg-ngplot');
+  fig.hidden = $('sg-resp').value !== 'band';
+  if (fig.hidden) return;
+  const lo = spectral('sg-lo');
+  const hi = spectral('sg-hi');
+  if (api.spectralKind(lo.unit) !== 'wavelength' || !(hi.value > lo.value && lo.value > 0)) return;
+  plotSpectral(fig, {
+    response: { wavelengths: [lo.value, hi.value], values: [1, 1], unit: lo.unit, quantity: 'energy' },
+    conditions: { emissivity: scene.eps, pathTransmittance: scene.conditions.pathTransmittance },
+  });
+}
+
+const TERM_NAMES = [
+  ['object', 'Target emission', 'τ<sub>w</sub>·τ·ε·<i>L</i>(<i>T</i>)'],
+  ['reflected', 'Surroundings reflected by the target', 'τ<sub>w</sub>·τ·(1 − ε)·<i>L</i>(<i>T</i><sub>refl</sub>)'],
+  ['path', 'Path emission', 'τ<sub>w</sub>·(1 − τ)·<i>L</i>(<i>T</i><sub>path</sub>)'],
+  ['windowReflected', 'Reflected by the window', 'ρ<sub>w</sub>·<i>L</i>(<i>T</i><sub>wr</sub>)'],
+  ['windowEmitted', 'Window emission', '(1 − τ<sub>w</sub> − ρ<sub>w</sub>)·<i>L</i>(<i>T</i><sub>w</sub>)'],
+];
+
+/**
+ * A reading through the spectral measurement equation (SpectralInstrument): the object
+ * temperature, the band-effective values at it, the terms of the signal and a first-order
+ * budget (JCGM 100 eq. 10/13 through the core's propagateUncertainty) with the package's
+ * sensitivity coefficients; a table enters the budget as a scale factor k (u(k) relative).
+ */
+function computeSpectral(mode, ou) {
+  $('sg-ngplot').hidden = false;
+  const scene = readScene('sg');
+  // The budget below is the page's propagation: its standard uncertainties must not be negative.
+  for (const id of ['sg-ueps', 'sg-utr', 'sg-utau', 'sg-utp']) if (!$(id).closest('[hidden]')) nonNegative(id, number(id));
+  const ng = readSpectral(mode, scene);
+  const { response } = ng.definition;
+  const si = tagSpectral(ng.fields, () => api.spectralInstrument(ng.definition), 'sg-rtab');
+  const bb = api.spectralInstrument({ response });
+  plotSpectral($('sg-ngplot'), ng.definition);
+  const table = $('sg-rk').value !== 'band';
+  const sigUnit = ng.photon ? 's⁻¹·m⁻²·sr⁻¹×η' : table ? 'W·m⁻²·sr⁻¹×R' : RADIANCE;
+  setSignalUnit(sigUnit);
+
+  // The reading as a signal S of the response, and ∂S/∂x of the reading x as entered.
+  let S;
+  let uX;
+  let dSdX;
+  let row;
+  let readId;
+  let readUId;
+  let indicatedK = null;
+  let setting = null;
+  if (mode === 'indicated') {
+    readId = 'sg-ti';
+    readUId = 'sg-uti';
+    indicatedK = kelvin('sg-ti');
+    uX = nonNegative('sg-uti', kelvinDiff('sg-uti'));
+    setting = { emissivity: number('sg-eset'), reflectedTemperatureK: kelvin('sg-trset') };
+    const setInst = tagSpectral({ 'definition.conditions.emissivity': 'sg-eset', 'definition.conditions.reflectedTemperatureK': 'sg-trset' },
+      () => api.spectralInstrument({ response, conditions: setting }), 'sg-eset');
+    S = tag('sg-ti', () => setInst.measuredSignal(indicatedK));
+    dSdX = 1 / setInst.sensitivities(S).signal;
+    row = { name: 'Indicated temperature', value: showTemperature(indicatedK, ou, true), u: showDifference(uX, ou, 6, 0, true), xUnit: 'T', scale: uX || indicatedK };
+  } else if (mode === 'counts') {
+    readId = 'sg-n';
+    readUId = 'sg-un';
+    const { model } = readModel('counts');
+    const curve = api.instrument({ model });
+    const n = number('sg-n');
+    uX = nonNegative('sg-un', number('sg-un'));
+    const tbbK = tag('sg-n', () => curve.temperature(n));
+    S = bb.signal(tbbK);
+    dSdX = curve.sensitivities(n).signal / bb.sensitivities(S).signal; // (dT/dn of the curve) / (dT/dS of the response)
+    row = { name: 'Signal', value: `${trim(n)} counts`, u: `${trim(uX)} counts`, xUnit: 'count', scale: uX || Math.abs(n) };
+  } else {
+    readId = 'sg-sig';
+    readUId = 'sg-usig';
+    S = number('sg-sig');
+    uX = nonNegative('sg-usig', number('sg-usig'));
+    dSdX = 1;
+    row = { name: 'Band signal', value: `${trim(S)} ${sigUnit}`, u: `${trim(uX)} ${sigUnit}`, xUnit: sigUnit, scale: uX || Math.abs(S) };
+  }
+
+  const custom = (e) => {
+    if (e.code === 'NO_PHYSICAL_SOLUTION') {
+      return `No object temperature explains this reading: the reflected surroundings, the path and the window alone would give the instrument ${mode === 'indicated' ? 'more than it saw' : `more than ${typed(readId)} ${mode === 'counts' ? 'counts' : sigUnit}`}. Check the emissivity, the transmittances and the reflected, path and window temperatures.`;
+    }
+    if (e.code === 'NO_SOLUTION') return `${labelOf(readId)}: no object temperature up to 10⁹ K gives this reading.`;
+    return undefined;
+  };
+  const T = mode === 'indicated'
+    ? tag('sg-ti', () => api.correctReading(si, indicatedK, setting), { custom })
+    : tag(readId, () => si.objectTemperature(S), { custom });
+  const sens = si.sensitivities(S);
+  const eff = si.bandEffective(T);
+  const terms = si.signalTerms(T);
+
+  // Budget rows: the reading, then each optical input (a grey value, or a table's scale k) and
+  // the temperatures of the other terms.
+  const inp = ng.input;
+  const greyDerivative = (key, scaleSens) => {
+    const x = inp[key];
+    if (x.relative) return scaleSens;
+    if (x.value > 0) return scaleSens / x.value;
+    if (!(x.u > 0)) return 0;
+    // ∂T/∂x at x = 0 (a scale factor has no effect there): one-sided difference, step 10⁻⁶.
+    const h = 1e-6;
+    const c = JSON.parse(JSON.stringify(ng.definition.conditions));
+    if (key === 'emissivity') c.emissivity = h;
+    else if (key === 'path') c.pathTransmittance = h;
+    else if (key === 'windowT') c.window.transmittance = h;
+    else c.window.reflectance = h;
+    return (api.spectralInstrument({ response, conditions: c }).objectTemperature(S) - T) / h;
+  };
+  const optical = (key, name, scaleSens) => {
+    const x = inp[key];
+    return x.relative
+      ? { name: `${name}, table scale k`, value: '1 (as tabulated)', u: `${trim(100 * x.u)} % (relative)`, xUnit: '', scale: x.u || 1, sensitivityK: scaleSens, uX: x.u }
+      : { name, value: trim(x.value), u: trim(x.u), xUnit: '', scale: x.u || x.value || 1, sensitivityK: greyDerivative(key, scaleSens), uX: x.u };
+  };
+  const tRow = (name, k, uk, s) => ({ name, value: showTemperature(k, ou, true), u: showDifference(uk, ou, 6, 0, true), xUnit: 'T', scale: uk || k, sensitivityK: s, uX: uk });
+  const rows = [
+    ['sig', { ...row, sensitivityK: sens.signal * dSdX, uX }],
+    ['eps', optical('emissivity', 'Emissivity ε', sens.emissivityScale)],
+    ['tr', tRow('Reflected temperature', scene.conditions.reflectedTemperatureK, scene.u.reflectedTemperatureK, sens.reflectedTemperature)],
+    ['tau', optical('path', 'Path transmittance τ', sens.pathTransmittanceScale)],
+    ['tp', tRow('Path temperature', scene.conditions.pathTemperatureK, scene.u.pathTemperatureK, sens.pathTemperature)],
+  ];
+  if (ng.window) {
+    rows.push(
+      ['wt', optical('windowT', 'Window transmittance τw', sens.windowTransmittanceScale)],
+      ['wr', optical('windowR', 'Window reflectance ρw', sens.windowReflectanceScale)],
+      ['wT', tRow('Window temperature', ng.window.temperatureK, ng.window.u, sens.windowTemperature)],
+      ['wTr', tRow('Temperature the window reflects', ng.window.reflectedK, ng.window.uReflected, sens.windowReflectedTemperature)],
+    );
+  }
+  const coreKey = Object.fromEntries(MEASUREMENT_INPUTS.map(([key, core]) => [key, core]));
+  const names = Object.fromEntries(MEASUREMENT_INPUTS.map(([key, , label]) => [key, label.replace(/ [ετ]$/, '').toLowerCase()]));
+  const cov = readCoverage('sg', coreKey, names);
+  const options = { ...cov.options };
+  delete options.correlations;
+  if (cov.pairs.length) {
+    const at = Object.fromEntries(rows.map(([k], i) => [k, i]));
+    const m = rows.map((_, i) => rows.map((__, j) => (i === j ? 1 : 0)));
+    for (const p of cov.pairs) {
+      const [i, j] = p.keys.map((k) => at[k]);
+      m[i][j] = p.coefficient;
+      m[j][i] = p.coefficient;
+    }
+    options.correlation = m;
+  }
+  const inputs = rows.map(([k, r]) => (MEASUREMENT_INPUTS.some(([key]) => key === k) ? uncertaintyOf('sg', k, r.uX) : { standardUncertainty: r.uX, distribution: 'normal' }));
+  const gum = gumCall(cov, () => api.fn('propagateUncertainty')(rows.map(([, r]) => r.sensitivityK), inputs, options), {}, readUId);
+  const budgetRowsOut = rows.map(([, r], i) => {
+    const e = gum.entries[i];
+    return { ...r, contributionK: e.contribution, share: e.varianceShare, nu: e.degreesOfFreedom, evaluation: e.evaluation, distribution: e.distribution };
+  });
+  const view = gumView(gum, cov.text);
+
+  const items = [['t', 'Object temperature', showTemperature(T, ou), { big: true }], ...uncertaintyItems(view, ou)];
+  if (mode === 'indicated') items.push(['corr', 'Correction to the indicated temperature', showDifference(T - indicatedK, ou, 4)]);
+  const at = `at ${showTemperature(T, ou)}`;
+  items.push(['epseff', 'Band-effective emissivity', formatNumber(eff.emissivity, { digits: 5 }), { labelHtml: `Band-effective emissivity <i>ε</i><sub>eff</sub> ${at}` }]);
+  items.push(['taueff', 'Band-effective path transmittance', formatNumber(eff.pathTransmittance, { digits: 5 }), { labelHtml: `Band-effective path transmittance <i>τ</i><sub>eff</sub> ${at}` }]);
+  if (ng.window) {
+    items.push(['twineff', 'Band-effective window transmittance', formatNumber(eff.windowTransmittance, { digits: 5 }), { labelHtml: `Band-effective window transmittance <i>τ</i><sub>w,eff</sub> ${at}` }]);
+  }
+  items.push(['tbb', 'Blackbody temperature of the signal (ε = 1, no corrections)', showTemperature(bb.objectTemperature(S), ou)]);
+  fillResults($('sg-res'), items);
+  fillBudget($('sg-table'), budgetRowsOut, view, T, ou);
+
+  const shown = TERM_NAMES.filter(([k]) => ng.window || (k !== 'windowReflected' && k !== 'windowEmitted'));
+  fillTable($('sg-terms'), ['Term', 'Model', `Signal (${sigUnit})`, 'Share of the signal'], [
+    ...shown.map(([k, name, model]) => [name, { html: model }, { text: formatNumber(terms[k], { digits: 5 }), value: terms[k] },
+      { text: formatNumber((100 * terms[k]) / terms.signal, { digits: 3 }) + ' %', value: terms[k] / terms.signal }]),
+    ['Total (the reading)', '', { text: formatNumber(terms.signal, { digits: 5 }), value: terms.signal }, '100 %'],
+  ]);
+
+  const what = (key, word) => (inp[key].relative ? `${word} from its table` : `${word} grey`);
+  const parts = [`Assumes the spectral measurement equation with ${ng.describe}`, what('emissivity', 'ε'), what('path', 'τ')];
+  if (ng.window) parts.push(`a window (${what('windowT', 'τw')}, ${what('windowR', 'ρw')})`);
+  parts.push('straight lines between table points', 'an opaque target (reflectance 1 − ε)', 'uniform diffuse surroundings at the reflected temperature');
+  if (mode === 'indicated') parts.push('an instrument that computed its reading with this same response, the emissivity and reflected temperature set on it, and no path or window correction');
+  if (mode === 'counts') parts.push('a calibration curve that belongs to the instrument whose response is the table (the curve gives its blackbody temperature, the table the spectral weighting)');
+  $('sg-assume').textContent = `${parts.join(', ')}. A table enters the budget as a scale factor k with the relative uncertainty entered for it; the Monte Carlo check is for grey inputs only.`;
+}
+
 export const signalSection = {
   id: 'signal',
   available: () => api.has('Instrument', 'convertTemperature', 'convertTemperatureDifference'),
@@ -218,10 +422,26 @@ export const signalSection = {
     inputs.push(['er', 'Emissivity ratio ε₁/ε₂', 'sg-mode=ratio']);
     // Neutral defaults (every input Type B and normal, no correlation, p = 95 %): nothing the
     // practitioner did not choose changes the result; the pair most often correlated is offered.
+    if (!api.has('SpectralInstrument', 'correctReading')) {
+      // A package without the spectral bindings: the panel stays out of view, its menus at grey.
+      $('sg-ngp').dataset.when = 'sg-mode=none';
+      for (const a of this.el.querySelectorAll('a[href="#sg-ngp"]')) a.closest('p').remove();
+    }
     $('sg-gum').innerHTML = gumMarkup('sg', inputs, MEASUREMENT_INPUTS.map(([k, , l]) => [k, l]), { corr: [['tr', 'tp', '0']], corrWhen: SINGLE });
   },
   wire(recompute) {
     panel = monteCarloPanel('sg', this.el, () => (this.el.dataset.state === 'ok' && $('sg-mode').value !== 'ratio' ? mcInputs : null));
+    if (spectralAvailable()) {
+      wireLoaders($('sg-ngp'), recompute);
+      $('sg-demo').addEventListener('click', () => {
+        loadDemo();
+        recompute();
+      });
+      // A response table reads a band signal: the reading field of a band.
+      $('sg-rk').addEventListener('change', () => {
+        if ($('sg-rk').value !== 'band') $('sg-resp').value = 'band';
+      });
+    }
     $('sg-take').addEventListener('click', () => {
       const c = shared.curve;
       if (!c) {

@@ -209,6 +209,75 @@ export class SpectralInstrument {
   bandEffective(temperatureK: number): BandEffective;
   /** ∂T/∂(signal, each table's scale, the temperatures of the other terms) at a reading. */
   sensitivities(signal: number): SpectralSensitivities;
+  /**
+   * The GUM budget of the object temperature at a reading (JCGM 100:2008 eq. 10, or eq. 16 with
+   * correlations; ν_eff by eq. G.2b): the coefficients of `sensitivities(signal)` with the
+   * inputs' standard uncertainties, through the same law of propagation as
+   * `propagateUncertainty` and `Instrument.uncertaintyBudget`. A `…Scale` input is a factor k
+   * multiplying a whole table at k = 1, so its standard uncertainty is the table's relative
+   * standard uncertainty (0.01 for 1 %). Rows: every input, except the window's four without a
+   * window and `reflectanceScale` for an opaque target.
+   *
+   * @throws {QuantabandError} those of `sensitivities`; WRONG_TYPE / UNSUPPORTED (unknown key,
+   * an uncertainty on the window without a window, on `reflectanceScale` for an opaque target,
+   * a correlation naming an input that is not a row); INVALID_CORRELATION; NON_FINITE /
+   * OUT_OF_RANGE for an uncertainty, ν, p or k outside its range.
+   */
+  uncertaintyBudget(
+    signal: number,
+    uncertainties: SpectralMeasurementUncertainties,
+    options?: SpectralBudgetOptions,
+  ): SpectralUncertaintyBudget;
+}
+
+/** The inputs of a spectral measurement's budget (rows; the sensitivity keys). */
+export type SpectralBudgetInput = Exclude<keyof SpectralSensitivities, "temperatureK">;
+
+/**
+ * The standard uncertainties of a spectral measurement's inputs (absent: 0). Scales are
+ * relative (dimensionless), temperatures in K, the signal in its unit.
+ */
+export interface SpectralMeasurementUncertainties {
+  signal?: UncertaintyInput;
+  emissivityScale?: UncertaintyInput;
+  reflectanceScale?: UncertaintyInput;
+  pathTransmittanceScale?: UncertaintyInput;
+  windowTransmittanceScale?: UncertaintyInput;
+  windowReflectanceScale?: UncertaintyInput;
+  responseScale?: UncertaintyInput;
+  reflectedTemperatureK?: UncertaintyInput;
+  pathTemperatureK?: UncertaintyInput;
+  windowTemperatureK?: UncertaintyInput;
+  windowReflectedTemperatureK?: UncertaintyInput;
+}
+
+/** The correlation coefficient r ∈ [−1, 1] of two inputs of a spectral budget. */
+export interface SpectralInputCorrelation {
+  inputs: readonly [keyof SpectralMeasurementUncertainties, keyof SpectralMeasurementUncertainties];
+  coefficient: number;
+}
+
+/** Options of `SpectralInstrument.uncertaintyBudget`. */
+export type SpectralBudgetOptions = CoverageOptions & {
+  correlations?: readonly SpectralInputCorrelation[];
+};
+
+/** One row of a spectral measurement's budget. */
+export interface SpectralBudgetEntry extends BudgetRow {
+  readonly input: SpectralBudgetInput;
+  /** u_i(T) = |c|·u(x), K (JCGM 100 eq. 11a). */
+  readonly contributionK: number;
+}
+
+/** The GUM budget of the object temperature of a spectral measurement. */
+export interface SpectralUncertaintyBudget extends GumCoverage {
+  /** The object temperature the reading gives, K. */
+  readonly temperatureK: number;
+  readonly entries: readonly SpectralBudgetEntry[];
+  /** Combined standard uncertainty u_c(T), K. */
+  readonly combinedStandardUncertaintyK: number;
+  /** U = k·u_c, K. */
+  readonly expandedUncertaintyK: number;
 }
 
 /** Emissivity from the reference-coating method, with the true temperature it gave. */

@@ -7,6 +7,7 @@
 
 import { QuantabandError, disposed, wrongType } from './errors.js';
 import { _instrumentHandle as instrumentHandle } from './instrument.js';
+import { _spectralBudget } from './uncertainty_results.js';
 import { F64, MAX_LENGTH, bulk, config, fill, glue, num, readBack, ready, reserve, result, some, str } from './runtime.js';
 
 // Bulk operation numbers of QbSpectral.bulk.
@@ -208,6 +209,16 @@ export class SpectralInstrument {
     const h = this.#live();
     num(signal, 'signal');
     return named(SENSITIVITIES, result(h.number(5, signal)));
+  }
+
+  /**
+   * The GUM budget of the object temperature at a reading (JCGM 100 eq. 10/16, G.2b): the
+   * sensitivities above with the inputs' uncertainties (see spectral.d.ts).
+   */
+  uncertaintyBudget(signal, uncertainties, options) {
+    this.#live();
+    num(signal, 'signal');
+    return _spectralBudget(SENSITIVITIES.slice(1), () => this.sensitivities(signal), uncertainties, options);
   }
 }
 

@@ -205,8 +205,11 @@ function inputList(inputs) {
   return out;
 }
 
-/** `{ inputs: [a, b], coefficient }` pairs as [i, j, r] triples (each pair once, r ∈ [−1, 1]). */
-function pairs(list, path) {
+/**
+ * `{ inputs: [a, b], coefficient }` pairs as [i, j, r] triples (each pair once, r ∈ [−1, 1]);
+ * `keys`: the input names, in row order.
+ */
+function pairs(list, path, keys = UNCERTAINTY_KEYS) {
   if (list === undefined || list === null) return new Float64Array(0);
   if (list instanceof Float64Array && list.length === 0) return list;
   if (!Array.isArray(list)) throw wrongType(path, 'an array of { inputs, coefficient } objects', list);
@@ -222,16 +225,16 @@ function pairs(list, path) {
     }
     const [i, j] = names.map((name, n) => {
       if (typeof name !== 'string') throw wrongType(`${at}.inputs[${n}]`, 'a string', name);
-      const x = UNCERTAINTY_KEYS.indexOf(name);
+      const x = keys.indexOf(name);
       if (x < 0) {
-        throw new QuantabandError('UNSUPPORTED', `${at}.inputs[${n}] must be one of ${UNCERTAINTY_KEYS.map(q).join(', ')} (got "${name}")`);
+        throw new QuantabandError('UNSUPPORTED', `${at}.inputs[${n}] must be one of ${keys.map(q).join(', ')} (got "${name}")`);
       }
       return x;
     });
     const r = required(p, 'coefficient', at);
     if (i === j) throw bad(`${at}: an input cannot be correlated with itself (${names[0]})`);
     if (!(r >= -1 && r <= 1)) throw bad(`${at}.coefficient must lie in [-1, 1] (got ${r})`);
-    const key = Math.min(i, j) * 9 + Math.max(i, j);
+    const key = Math.min(i, j) * keys.length + Math.max(i, j);
     if (seen.has(key)) throw bad(`${at}: the pair ${names[0]} / ${names[1]} is given twice`);
     seen.add(key);
     out.set([i, j, r], 3 * k);
@@ -281,6 +284,82 @@ export function _measurementBudget(h, signal, uncertainties, opts) {
   const c = pairs(o.correlations, 'options.correlations');
   const n = h.uncertaintyBudget(signal, u, c, optNumber(o, 'coverageProbability', 'options'), optNumber(o, 'coverageFactor', 'options'));
   return _gum(_scratchNumbers(n), 0, true)[0];
+}
+
+/**
+ * The uncertainty key of a row of SpectralInstrument.uncertaintyBudget (rows: the keys of
+ * SpectralInstrument.sensitivities after temperatureK; temperatures take a K suffix). A
+ * `…Scale` input is the factor k of a whole table (ε, ρ, τ_p, τ_w, ρ_w or the response R) at
+ * k = 1, so its standard uncertainty is the table's relative standard uncertainty.
+ */
+const spectralKey = (row) => (row.endsWith('Temperature') ? `${row}K` : row);
+/** The window's inputs (their sensitivities are all 0 without a window). */
+const WINDOW_INPUTS = ['windowTransmittanceScale', 'windowReflectanceScale', 'windowTemperature', 'windowReflectedTemperature'];
+
+/**
+ * SpectralInstrument.uncertaintyBudget: `names` are the 11 inputs (the sensitivity keys after
+ * temperatureK) and `sensitivities()` gives them; the law of propagation is the module's
+ * (propagateUncertainty), so the budget is the same engine as Instrument.uncertaintyBudget.
+ */
+export function _spectralBudget(names, sensitivities, uncertainties, opts) {
+  const n = names.length;
+  const keys = names.map(spectralKey);
+  const windowRows = WINDOW_INPUTS.map((w) => names.indexOf(w));
+  const reflectanceRow = names.indexOf('reflectanceScale');
+  const u = object(config(uncertainties, 'uncertainties'), 'uncertainties', keys);
+  const inputs = new Float64Array(5 * n);
+  keys.forEach((k, i) => spec(u[k] ?? 0, `uncertainties.${k}`, inputs, 5 * i));
+  const o = options(opts, ['correlations', 'coverageProbability', 'coverageFactor']);
+  const pr = pairs(o.correlations, 'options.correlations', keys);
+  const s = sensitivities();
+  const c = Float64Array.from(names, (k) => s[k]);
+  const given = (i) => inputs[5 * i] !== 0;
+  if (windowRows.some(given) && windowRows.every((i) => c[i] === 0)) {
+    throw new QuantabandError('UNSUPPORTED', 'window uncertainties need a window in the conditions');
+  }
+  if (given(reflectanceRow) && c[reflectanceRow] === 0) {
+    throw new QuantabandError(
+      'UNSUPPORTED',
+      "uncertainties.reflectanceScale: the target's reflectance does not enter this measurement on its own (an opaque target reflects 1 − ε: give emissivityScale)",
+    );
+  }
+  // Rows as in Instrument.uncertaintyBudget: the window's only with a window; the separate
+  // reflectance only for a target that has one (not opaque).
+  const noWindow = windowRows.every((i) => c[i] === 0);
+  const active = [];
+  for (let i = 0; i < n; i++) {
+    if (!((noWindow && windowRows.includes(i)) || (i === reflectanceRow && c[i] === 0))) active.push(i);
+  }
+  const r = active.length;
+  const has = pr.length > 0;
+  const m = new Float64Array(has ? r * r : 0);
+  if (has) {
+    for (let i = 0; i < r; i++) m[i * r + i] = 1;
+    for (let k = 0; k < pr.length; k += 3) {
+      const [a, b] = [active.indexOf(pr[k]), active.indexOf(pr[k + 1])];
+      if (a < 0 || b < 0) {
+        const name = keys[a < 0 ? pr[k] : pr[k + 1]];
+        throw new QuantabandError('UNSUPPORTED', `options.correlations[${k / 3}]: ${name} is not an input of this measurement (no window, or an opaque target)`);
+      }
+      m[a * r + b] = pr[k + 2];
+      m[b * r + a] = pr[k + 2];
+    }
+  }
+  const cs = Float64Array.from(active, (i) => c[i]);
+  const us = new Float64Array(5 * r);
+  active.forEach((i, j) => us.set(inputs.subarray(5 * i, 5 * i + 5), 5 * j));
+  const count = glue.propagateUncertainty(cs, us, m, has, optNumber(o, 'coverageProbability', 'options'), optNumber(o, 'coverageFactor', 'options'));
+  const g = _gum(_scratchNumbers(count), 0, false)[0];
+  return {
+    temperatureK: s.temperatureK,
+    entries: g.entries.map(({ contribution, varianceShare, ...row }, j) => ({ input: names[active[j]], ...row, contributionK: contribution, varianceShare })),
+    combinedStandardUncertaintyK: g.combinedStandardUncertainty,
+    effectiveDegreesOfFreedom: g.effectiveDegreesOfFreedom,
+    coverageFactor: g.coverageFactor,
+    coverageProbability: g.coverageProbability,
+    expandedUncertaintyK: g.expandedUncertainty,
+    method: g.method,
+  };
 }
 
 /** propagateUncertainty. */
