@@ -148,6 +148,9 @@ step clippy-no-std cargo clippy --lib --no-default-features -- -D warnings
 step clippy-no-std-serde cargo clippy --lib --no-default-features --features serde -- -D warnings
 # The bindings (the package and the wasm-bindgen-test suites both build them with std).
 step clippy-wasm cargo clippy --lib --features wasm --target wasm32-unknown-unknown -- -D warnings
+# ... and with the spectral-table bindings (feature spectral-js: the full build of the page and
+# the JavaScript tests; the npm package leaves them out for its size ceiling).
+step clippy-wasm-spectral cargo clippy --lib --features spectral-js --target wasm32-unknown-unknown -- -D warnings
 step no-std-thumbv7em "cargo build --lib --no-default-features --target thumbv7em-none-eabihf && cargo build --lib --no-default-features --features serde --target thumbv7em-none-eabihf"
 step no-std-wasm32 cargo build --lib --no-default-features --target wasm32-unknown-unknown
 # A no_std crate that depends on quantaband with default-features = false: checks, tests on the

@@ -32,6 +32,7 @@ pub mod its90;
 pub mod quantum;
 pub mod quantum_fit;
 pub mod scratch;
+#[cfg(feature = "spectral-js")]
 pub mod spectral;
 pub mod spectrum;
 pub mod stats;

@@ -1,7 +1,19 @@
 // Shared helpers for the node --test suites (not a test file itself).
 import assert from 'node:assert/strict';
 import { readFileSync, existsSync } from 'node:fs';
-import * as qb from '../../pkg/node.js';
+import { resolve } from 'node:path';
+import { pathToFileURL } from 'node:url';
+
+/**
+ * The module under test: the full build (target/pkg-full/: the npm package's API plus the
+ * spectral-table bindings, which the package leaves out for its size ceiling) — or the directory
+ * in QB_PKG_DIR (e.g. `QB_PKG_DIR=pkg` runs a suite against the npm package itself).
+ * tests/js/package.test.mjs checks that pkg/ is exactly this API minus the spectral area.
+ */
+export const ENTRY = process.env.QB_PKG_DIR
+  ? pathToFileURL(resolve(process.env.QB_PKG_DIR, 'node.js')).href
+  : new URL('../../target/pkg-full/node.js', import.meta.url).href;
+const qb = await import(ENTRY);
 
 export { qb };
 

@@ -9,8 +9,8 @@ import {
   emissivityByContact,
   emissivityByReference,
   reflectedTemperature,
-} from '../../pkg/quantaband.js';
-import type * as QB from '../../pkg/quantaband.js';
+} from '../../target/pkg-full/quantaband.js';
+import type * as QB from '../../target/pkg-full/quantaband.js';
 
 const emissivity: QB.SpectralTable = { wavelengths: [8, 10, 14], values: [0.9, 0.5, 0.7], unit: 'um', ends: 'constant' };
 const def: QB.SpectralInstrumentDefinition = {
