@@ -16,12 +16,16 @@
 #   --serve      after building, serve dist/ on http://127.0.0.1:PORT/ (default 8765) until Ctrl-C
 #
 # Steps: install.sh -> cargo rustc --crate-type cdylib --profile wasm --target wasm32-unknown-unknown
-# --features wasm (the whole API, with std) -> wasm-bindgen --target web -> wasm-opt (binaryen from
+# --features wasm (the whole API except the spectral-table bindings, with std) -> wasm-bindgen
+# --target web -> wasm-opt (binaryen from
 # node_modules, with exactly the features the module declares) -> the JavaScript facade
 # (pkg-scripts/lib/assemble-js.mjs: src/wasm/js/ -> pkg/lib/, pkg/quantaband.js, pkg/quantaband.d.ts;
 # the glue becomes pkg/quantaband_glue.js) -> pkg/package.json + Node entry -> size budget
 # (tests/size/check.mjs: 320 KB raw / 128 KB gzip, fails when over) -> load check in Node ->
-# node www/build.mjs (the page) -> prints the paths.
+# the same with --features spectral-js into target/pkg-full/ (the full module: the package plus
+# the spectral-table bindings, which do not fit the package's ceiling yet; for the page and the
+# JavaScript tests, not published) -> node www/build.mjs --pkg target/pkg-full (the page) ->
+# prints the paths.
 # Environment: QB_SKIP_INSTALL=1 skips install.sh (test.sh sets it after running it once).
 set -euo pipefail
 cd "$(dirname "${BASH_SOURCE[0]}")/.."

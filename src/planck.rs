@@ -802,11 +802,62 @@ impl Direct {
         }
     }
 
+    /// Two densities by the direct formula on the lanes of a simd128 vector, with
+    /// [`float::exp_reduced`] for eˣ; NaN in a lane unless ln 2 ≤ x < 700 and vⁿ and the value
+    /// are normal numbers (the caller then uses [`density`], which covers every other input).
+    /// Same operations as [`Direct::eval`] except eˣ (bound: see `exp_reduced`).
+    #[cfg(all(target_arch = "wasm32", target_feature = "simd128"))]
+    #[inline(never)]
+    fn pair(&self, v: float::F64x2, t: float::F64x2) -> float::F64x2 {
+        use float::Lanes;
+        let s = float::F64x2::splat;
+        let x = if self.inverse {
+            s(self.q).div(v.mul(t))
+        } else {
+            s(self.q).mul(v).div(t)
+        };
+        let em1 = float::exp_reduced(x).sub(s(1.0));
+        let v2 = v.mul(v);
+        let vn = match self.n {
+            5 => v2.mul(v2).mul(v),
+            4 => v2.mul(v2),
+            3 => v2.mul(v),
+            _ => v2,
+        };
+        let val = if self.inverse {
+            s(self.coef).div(vn.mul(em1))
+        } else {
+            s(self.coef).mul(vn).div(em1)
+        };
+        val.where_within(x, core::f64::consts::LN_2, 700.0)
+            .where_within(vn, f64::MIN_POSITIVE, f64::INFINITY)
+            .where_within(val, f64::MIN_POSITIVE, f64::INFINITY)
+    }
+
     /// The densities at the coordinates `vs` (validated: positive and finite, in the spectrum's
     /// SI unit) at temperature `t` (validated), times `factor`, written over `vs`: one loop over
-    /// constants prepared once.
+    /// constants prepared once; with simd128, two coordinates per step through [`Direct::pair`].
     #[cfg_attr(not(feature = "wasm"), allow(dead_code))]
     pub(crate) fn fill(&self, spec: &Spectrum, vs: &mut [f64], t: f64, factor: f64) {
+        #[cfg(all(target_arch = "wasm32", target_feature = "simd128"))]
+        for p in vs.chunks_mut(2) {
+            use core::arch::wasm32::{f64x2, f64x2_extract_lane};
+            use float::Lanes;
+            // an odd last element is paired with itself
+            let a = p[0];
+            let b = p.get(1).copied().unwrap_or(a);
+            let y = self.pair(float::F64x2(f64x2(a, b)), float::F64x2::splat(t));
+            let y = [f64x2_extract_lane::<0>(y.0), f64x2_extract_lane::<1>(y.0)];
+            for (o, y) in p.iter_mut().zip(y) {
+                *o = factor
+                    * if ok(y) {
+                        y
+                    } else {
+                        density(spec, *o, t, false)
+                    };
+            }
+        }
+        #[cfg(not(all(target_arch = "wasm32", target_feature = "simd128")))]
         for v in vs.iter_mut() {
             let y = self.eval(*v, t, false);
             *v = factor
