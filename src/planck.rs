@@ -802,15 +802,14 @@ impl Direct {
         }
     }
 
-    /// Two densities by the direct formula on the lanes of a simd128 vector, with
-    /// [`float::exp_reduced`] for eˣ; NaN in a lane unless ln 2 ≤ x < 700 and vⁿ and the value
-    /// are normal numbers (the caller then uses [`density`], which covers every other input).
-    /// Same operations as [`Direct::eval`] except eˣ (bound: see `exp_reduced`).
-    #[cfg(all(target_arch = "wasm32", target_feature = "simd128"))]
-    #[inline(never)]
-    fn pair(&self, v: float::F64x2, t: float::F64x2) -> float::F64x2 {
-        use float::Lanes;
-        let s = float::F64x2::splat;
+    /// The density on lanes (one `f64`, or the two of a simd128 vector) by the direct formula
+    /// with [`float::exp_reduced`] for eˣ; NaN in a lane unless ln 2 ≤ x < 700 and vⁿ and the
+    /// value are normal numbers (the caller then uses the rest of [`density`], which covers
+    /// every other input). Same operations as [`Direct::eval`] except eˣ (bound: see
+    /// `exp_reduced`): the point and the bulk loop run these, so they agree to the bit.
+    #[inline(always)]
+    fn lanes<L: float::Lanes>(&self, v: L, t: L) -> L {
+        let s = L::splat;
         let x = if self.inverse {
             s(self.q).div(v.mul(t))
         } else {
@@ -832,6 +831,30 @@ impl Direct {
         val.where_within(x, core::f64::consts::LN_2, 700.0)
             .where_within(vn, f64::MIN_POSITIVE, f64::INFINITY)
             .where_within(val, f64::MIN_POSITIVE, f64::INFINITY)
+    }
+
+    /// Two values of the fast path.
+    #[cfg(all(target_arch = "wasm32", target_feature = "simd128"))]
+    #[inline(never)]
+    fn pair(&self, v: float::F64x2, t: float::F64x2) -> float::F64x2 {
+        self.lanes(v, t)
+    }
+
+    /// One value of the fast path (lane 0 of [`Direct::pair`]: one copy of the code in the
+    /// module), or NaN when the rest of [`density`] must be used.
+    #[cfg(all(target_arch = "wasm32", target_feature = "simd128"))]
+    #[inline]
+    fn point(&self, v: f64, t: f64) -> f64 {
+        use float::Lanes;
+        let y = self.pair(float::F64x2::splat(v), float::F64x2::splat(t));
+        core::arch::wasm32::f64x2_extract_lane::<0>(y.0)
+    }
+
+    /// One value of the fast path, or NaN when the rest of [`density`] must be used.
+    #[cfg(not(all(target_arch = "wasm32", target_feature = "simd128")))]
+    #[inline]
+    fn point(&self, v: f64, t: f64) -> f64 {
+        self.lanes(v, t)
     }
 
     /// The densities at the coordinates `vs` (validated: positive and finite, in the spectrum's
@@ -859,7 +882,7 @@ impl Direct {
         }
         #[cfg(not(all(target_arch = "wasm32", target_feature = "simd128")))]
         for v in vs.iter_mut() {
-            let y = self.eval(*v, t, false);
+            let y = self.point(*v, t);
             *v = factor
                 * if ok(y) {
                     y
@@ -874,7 +897,13 @@ impl Direct {
 /// the point, the bulk loop's fallback and the derivative.
 #[inline(never)]
 fn density(spec: &Spectrum, v: f64, t: f64, d_dt: bool) -> f64 {
-    let y = Direct::of(spec).eval(v, t, d_dt);
+    let direct = Direct::of(spec);
+    // values: the lanes form (as the bulk loop) for ln 2 ≤ x < 700, then `eval` (expm1 below
+    // ln 2), then the logarithmic form; derivatives: `eval`, then the logarithmic form
+    let mut y = if d_dt { f64::NAN } else { direct.point(v, t) };
+    if !ok(y) {
+        y = direct.eval(v, t, d_dt);
+    }
     if ok(y) {
         return y;
     }
