@@ -34,7 +34,7 @@ const TRIGGERS = {
   DEGENERATE_FIT: () => qb.CalibrationCurve.fit(new Float64Array([300, 300, 500]), new Float64Array([1, 2, 3])),
   NOT_CONVERGED: () =>
     qb.fitMultiwavelength(
-      { wavelengths: [1000, 1000.1, 1000.2, 1000.3], unit: 'nm', radiances: [1, 1, 1, 1], uncertainties: [1e-3, 1e-3, 1e-3, 1e-3] },
+      { wavelengths: [1000, 1000.01, 1000.02, 1000.03], unit: 'nm', radiances: [1, 1, 1, 1], uncertainties: [1e-3, 1e-3, 1e-3, 1e-3] },
       { model: { kind: 'polynomial', order: 2 } },
     ),
   UNKNOWN_UNIT: () => qb.convertTemperature(300, 'kelvin', 'K'),
