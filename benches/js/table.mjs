@@ -233,6 +233,22 @@ function bandTarget(kase) {
 }
 bandTarget("band_8_14_300");
 bandTarget("band_1_2_1500");
+// Point and bulk calls of the prepared objects against plain JavaScript (Baselines A and C), and
+// the band inverse against SciPy's brentq.
+for (const [kase, what, cmp] of [
+  ["spectral_single", "spectral point vs Baseline A (goal: wasm ≤ 3× plain JS)", 3],
+  ["sh_inverse", "Sakuma–Hattori inverse vs Baseline C (goal: wasm ≤ 3× plain JS)", 3],
+  ["spectrum_10k", "spectrum 10⁴ points vs Baseline A (goal: wasm ≤ 1× plain JS)", 1],
+]) {
+  const r = results[kase];
+  if (!r || !r.w || !r.a) continue;
+  const x = r.w.ns_median / r.a.ns_median;
+  out.push(`- ${what}: ${fmtNs(r.w.ns_median)} vs ${fmtNs(r.a.ns_median)} = ${x.toFixed(2)}× (${mark(x <= cmp)})`);
+}
+{
+  const r = results.band_inverse_8_14;
+  if (r) out.push(`- band_inverse_8_14 vs SciPy brentq (goal ≥ 100×): wasm ${goal(times(r.s, r.w), 100)}, native ${goal(times(r.s, r.n), 100)}`);
+}
 const wr = Object.entries(results)
   .filter(([, r]) => r.n && r.w)
   .map(([k, r]) => [k, r.w.ns_median / r.n.ns_median]);
