@@ -287,36 +287,23 @@ struct Slot {
     values: &'static str,
 }
 
-const RESPONSE: Slot = Slot {
-    at: "definition.response",
-    wavelengths: "definition.response.wavelengths",
-    values: "definition.response.values",
-};
-const EMISSIVITY: Slot = Slot {
-    at: "definition.conditions.emissivity",
-    wavelengths: "definition.conditions.emissivity.wavelengths",
-    values: "definition.conditions.emissivity.values",
-};
-const REFLECTANCE: Slot = Slot {
-    at: "definition.conditions.reflectance",
-    wavelengths: "definition.conditions.reflectance.wavelengths",
-    values: "definition.conditions.reflectance.values",
-};
-const PATH: Slot = Slot {
-    at: "definition.conditions.pathTransmittance",
-    wavelengths: "definition.conditions.pathTransmittance.wavelengths",
-    values: "definition.conditions.pathTransmittance.values",
-};
-const WINDOW_T: Slot = Slot {
-    at: "definition.conditions.window.transmittance",
-    wavelengths: "definition.conditions.window.transmittance.wavelengths",
-    values: "definition.conditions.window.transmittance.values",
-};
-const WINDOW_R: Slot = Slot {
-    at: "definition.conditions.window.reflectance",
-    wavelengths: "definition.conditions.window.reflectance.wavelengths",
-    values: "definition.conditions.window.reflectance.values",
-};
+/// A slot's three paths from its path (`.wavelengths` and `.values` appended at compile time).
+macro_rules! slot {
+    ($at:literal) => {
+        Slot {
+            at: $at,
+            wavelengths: concat!($at, ".wavelengths"),
+            values: concat!($at, ".values"),
+        }
+    };
+}
+
+const RESPONSE: Slot = slot!("definition.response");
+const EMISSIVITY: Slot = slot!("definition.conditions.emissivity");
+const REFLECTANCE: Slot = slot!("definition.conditions.reflectance");
+const PATH: Slot = slot!("definition.conditions.pathTransmittance");
+const WINDOW_T: Slot = slot!("definition.conditions.window.transmittance");
+const WINDOW_R: Slot = slot!("definition.conditions.window.reflectance");
 const TEXT: Slot = Slot {
     at: "text",
     wavelengths: "wavelengths",

@@ -456,3 +456,22 @@ export function guarded(section, fn) {
     return false;
   }
 }
+
+/**
+ * The "Load a file" inputs (`input.loader`, `data-target` = the text area) under `root`: the
+ * file is read locally with FileReader (nothing leaves the machine), a leading BOM dropped.
+ */
+export function wireLoaders(root, recompute) {
+  for (const input of root.querySelectorAll('input.loader')) {
+    input.addEventListener('change', () => {
+      const file = input.files && input.files[0];
+      if (!file) return;
+      const reader = new FileReader();
+      reader.onload = () => {
+        $(input.dataset.target).value = String(reader.result).replace(/^\uFEFF/, '');
+        recompute();
+      };
+      reader.readAsText(file);
+    });
+  }
+}

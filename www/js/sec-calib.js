@@ -4,7 +4,7 @@
 import { api } from './api.js';
 import { formatNumber } from './fmt.js';
 import { drawPlot, fillTable, fillResults } from './plot.js';
-import { tag, tagMap, number, table, typed, kelvin, kelvinDiff, FieldError } from './fields.js';
+import { tag, tagMap, number, table, typed, kelvin, kelvinDiff, FieldError, wireLoaders } from './fields.js';
 import { symbol } from './units.js';
 import { fillBudget, showTemperature, showDifference, readScene, budgetRows, temperatureDecimals, measurementGumMarkup, readMeasurementGum, gumCall, gumView, uncertaintyItems } from './budget.js';
 import { emberRamp } from './colormap.js';
@@ -207,18 +207,7 @@ export const calibSection = {
   },
   wire(recompute) {
     // "Load" buttons: read a local file into its text area (FileReader; nothing leaves the machine).
-    for (const input of this.el.querySelectorAll('input.loader')) {
-      input.addEventListener('change', () => {
-        const file = input.files && input.files[0];
-        if (!file) return;
-        const reader = new FileReader();
-        reader.onload = () => {
-          $(input.dataset.target).value = String(reader.result).replace(/^\uFEFF/, '');
-          recompute();
-        };
-        reader.readAsText(file);
-      });
-    }
+    wireLoaders(this.el, recompute);
     const c = $('cf-canvas');
     if (!c) return;
     const move = (x, y) => {

@@ -6,12 +6,12 @@
 import { api } from './api.js';
 import { formatNumber, formatInput } from './fmt.js';
 import { fillResults, fillTable } from './plot.js';
-import { tag, tagMap, tagPair, number, kelvin, kelvinDiff, spectral, count, FieldError, labelOf, typed, unitText } from './fields.js';
+import { tag, tagMap, tagPair, number, kelvin, kelvinDiff, spectral, count, FieldError, labelOf, typed, unitText, wireLoaders } from './fields.js';
 import { symbol } from './units.js';
 import { fillBudget, showTemperature, showDifference, readScene, budgetRows, gumMarkup, gumView, uncertaintyItems, uncertaintyOf, readCoverage, readMeasurementGum, gumCall, MEASUREMENT_INPUTS } from './budget.js';
 import { monteCarloPanel } from './montecarlo.js';
 import { shared } from './shared.js';
-import { spectralWanted, readSpectral, tagSpectral, plotSpectral, loadDemo, wireLoaders } from './spectral-tables.js';
+import { spectralWanted, readSpectral, tagSpectral, plotSpectral, loadDemo } from './spectral-tables.js';
 
 const $ = (id) => document.getElementById(id);
 const RADIANCE = 'W·m⁻²·sr⁻¹';

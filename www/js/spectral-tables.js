@@ -360,18 +360,3 @@ export function loadDemo() {
   }
 }
 
-/** "Load a file" inputs of the panel: the file's text goes into its table (read locally). */
-export function wireLoaders(root, recompute) {
-  for (const input of root.querySelectorAll('input.loader')) {
-    input.addEventListener('change', () => {
-      const file = input.files && input.files[0];
-      if (!file) return;
-      const reader = new FileReader();
-      reader.onload = () => {
-        $(input.dataset.target).value = String(reader.result).replace(/^\uFEFF/, '');
-        recompute();
-      };
-      reader.readAsText(file);
-    });
-  }
-}
