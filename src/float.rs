@@ -339,6 +339,18 @@ pub(crate) fn exp_reduced<L: Lanes>(x: L) -> L {
     s(1.0).add(r.add(r2.mul(p))).mul(t.pow2_shifted())
 }
 
+/// eˣ by [`exp_reduced`] on one `f64` where it is valid (−708 ≤ x ≤ 709: a few inline
+/// multiplications and additions, ≤ 3.4e-16 relative), the platform's `exp` elsewhere (its
+/// underflow and overflow, and NaN).
+#[inline]
+pub(crate) fn exp_fast(x: f64) -> f64 {
+    if (-708.0..=709.0).contains(&x) {
+        exp_reduced(x)
+    } else {
+        exp(x)
+    }
+}
+
 #[cfg(all(test, feature = "std"))]
 mod tests {
     use super::exp_reduced;
