@@ -221,6 +221,42 @@ impl Lanes for f64 {
     }
 }
 
+/// Two f64 lanes as a plain pair (targets without wasm simd128; the compiler may vectorise it).
+#[cfg(not(all(target_arch = "wasm32", target_feature = "simd128")))]
+impl Lanes for [f64; 2] {
+    #[inline(always)]
+    fn splat(v: f64) -> Self {
+        [v, v]
+    }
+    #[inline(always)]
+    fn add(self, b: Self) -> Self {
+        [self[0] + b[0], self[1] + b[1]]
+    }
+    #[inline(always)]
+    fn sub(self, b: Self) -> Self {
+        [self[0] - b[0], self[1] - b[1]]
+    }
+    #[inline(always)]
+    fn mul(self, b: Self) -> Self {
+        [self[0] * b[0], self[1] * b[1]]
+    }
+    #[inline(always)]
+    fn div(self, b: Self) -> Self {
+        [self[0] / b[0], self[1] / b[1]]
+    }
+    #[inline(always)]
+    fn pow2_shifted(self) -> Self {
+        [self[0].pow2_shifted(), self[1].pow2_shifted()]
+    }
+    #[inline(always)]
+    fn where_within(self, test: Self, lo: f64, hi: f64) -> Self {
+        [
+            self[0].where_within(test[0], lo, hi),
+            self[1].where_within(test[1], lo, hi),
+        ]
+    }
+}
+
 /// Two f64 lanes of a wasm simd128 vector.
 #[cfg(all(target_arch = "wasm32", target_feature = "simd128"))]
 #[derive(Clone, Copy)]

@@ -489,14 +489,6 @@ impl Spectrum {
         Ok(density(self, x, temperature_k, false))
     }
 
-    /// [`Spectrum::spectral`] for inputs already checked (the spectrum valid, x and T positive
-    /// and finite).
-    #[cfg_attr(not(feature = "wasm"), allow(dead_code))]
-    #[inline]
-    pub(crate) fn spectral_unchecked(&self, x: f64, temperature_k: f64) -> f64 {
-        density(self, x, temperature_k, false)
-    }
-
     /// Partial derivative ∂/∂T of [`Spectrum::spectral`], in the density's unit per kelvin.
     ///
     /// # Formula
@@ -751,6 +743,20 @@ impl Direct {
             q: kn.q,
             n: kn.p.unsigned_abs(),
             inverse: kn.inverse,
+        }
+    }
+
+    /// The density of `spec` (whose constants these are) at validated v and T: the fast path
+    /// where it applies, else the rest of [`density`]; the same value as [`Spectrum::spectral`]
+    /// for inputs already checked, without preparing the constants on every call.
+    #[cfg_attr(not(feature = "wasm"), allow(dead_code))]
+    #[inline]
+    pub(crate) fn density(&self, spec: &Spectrum, v: f64, t: f64) -> f64 {
+        let y = self.point(v, t);
+        if ok(y) {
+            y
+        } else {
+            density(spec, v, t, false)
         }
     }
 

@@ -98,6 +98,8 @@ pub struct SpectrumHandle {
     /// Density per SI unit × factor = density per the density unit.
     factor: f64,
     density_unit: SpectralUnit,
+    /// The density's constants, prepared once (the point path).
+    direct: Direct,
     _live: Live,
 }
 
@@ -170,7 +172,7 @@ impl SpectrumHandle {
         let v = if d_dt {
             self.spectrum.spectral_d_dt(xs, t)?
         } else {
-            self.spectrum.spectral_unchecked(xs, t)
+            self.direct.density(&self.spectrum, xs, t)
         };
         Ok(v * self.factor)
     }
@@ -188,7 +190,7 @@ impl SpectrumHandle {
 }
 
 /// The bulk forms: which operation a bulk call applies to every element of scratch buffer 0.
-#[derive(Clone, Copy)]
+#[derive(Clone, Copy, PartialEq, Eq)]
 enum Bulk {
     Points,
     Derivatives,
@@ -216,6 +218,7 @@ impl SpectrumHandle {
                 si,
                 factor: density_unit.si_factor(),
                 density_unit,
+                direct: Direct::of(&spectrum),
                 _live: Live::new(),
             })
         })())
@@ -280,7 +283,8 @@ impl SpectrumHandle {
             (|| {
                 let (a, b) = self.band_si(lower, upper)?;
                 check::temperature("temperatureK", t)?;
-                band::band(&self.spectrum, a, b, t)
+                // The spectrum was validated when the object was made.
+                Ok::<_, Error>(band::band_checked(&self.spectrum, a, b, t, false))
             })()
             .map_err(Fail::from),
         )
@@ -292,7 +296,7 @@ impl SpectrumHandle {
             (|| {
                 let (a, b) = self.band_si(lower, upper)?;
                 check::temperature("temperatureK", t)?;
-                band::band_d_dt(&self.spectrum, a, b, t)
+                Ok::<_, Error>(band::band_checked(&self.spectrum, a, b, t, true))
             })()
             .map_err(Fail::from),
         )
@@ -399,13 +403,15 @@ impl SpectrumHandle {
             Bulk::Bands | Bulk::BandDerivatives | Bulk::BandFractions | Bulk::BandTemperatures => {
                 let (lo, hi) = self.band_si(a, b)?;
                 map_in_place(|t| match op {
-                    Bulk::Bands => {
+                    Bulk::Bands | Bulk::BandDerivatives => {
                         check::temperature("temperaturesK", t)?;
-                        band::band(s, lo, hi, t)
-                    }
-                    Bulk::BandDerivatives => {
-                        check::temperature("temperaturesK", t)?;
-                        band::band_d_dt(s, lo, hi, t)
+                        Ok(band::band_checked(
+                            s,
+                            lo,
+                            hi,
+                            t,
+                            op == Bulk::BandDerivatives,
+                        ))
                     }
                     Bulk::BandFractions => {
                         check::temperature("temperaturesK", t)?;
