@@ -749,7 +749,6 @@ impl Direct {
     /// The density of `spec` (whose constants these are) at validated v and T: the fast path
     /// where it applies, else the rest of [`density`]; the same value as [`Spectrum::spectral`]
     /// for inputs already checked, without preparing the constants on every call.
-    #[cfg_attr(not(feature = "wasm"), allow(dead_code))]
     #[inline]
     pub(crate) fn density(&self, spec: &Spectrum, v: f64, t: f64) -> f64 {
         let y = self.point(v, t);

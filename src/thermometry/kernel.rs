@@ -4,7 +4,8 @@
 #![forbid(unsafe_code)]
 
 use crate::constants::C2Convention;
-use crate::planck::Spectrum;
+use crate::error;
+use crate::planck::{Direct, Spectrum};
 use crate::Result;
 
 /// (L_λ, ∂L_λ/∂T) in W·m⁻³·sr⁻¹ and W·m⁻³·sr⁻¹·K⁻¹ at `wavelength_m`, `temperature_k`.
@@ -43,57 +44,49 @@ pub(crate) fn scaled_radiance_and_dt(
     ))
 }
 
-/// ε·L_λ for a scale factor ε in (0, 1] (see [`scaled_radiance_and_dt`]), W·m⁻³·sr⁻¹.
-///
-/// # Errors
-/// Those of [`Spectrum::spectral`].
-#[inline]
-pub(crate) fn scaled_radiance(
-    wavelength_m: f64,
-    temperature_k: f64,
-    c2: C2Convention,
-    scale: f64,
-) -> Result<f64> {
-    Spectrum::BLACKBODY
-        .with_c2(c2)
-        .with_emissivity(scale)
-        .spectral(wavelength_m, temperature_k)
+/// s·L_λ for a scale factor s in (0, 1] (see [`scaled_radiance_and_dt`]), in energy
+/// (W·m⁻³·sr⁻¹) or photon units, at many wavelengths: the spectrum is checked and the
+/// density's constants prepared once, not at every node (the value is the same as
+/// [`Spectrum::spectral`]'s).
+#[derive(Clone, Copy)]
+pub(crate) struct ScaledRadiance {
+    spec: Spectrum,
+    direct: Direct,
 }
 
-/// (s·L, s·∂L/∂T) per wavelength in energy (W·m⁻³·sr⁻¹) or photon (photons·s⁻¹·m⁻³·sr⁻¹)
-/// units, for a scale factor s in (0, 1] (an exact power of two, as in
-/// [`scaled_radiance_and_dt`]). Used by the spectral measurement equation.
-///
-/// # Errors
-/// Those of [`Spectrum::spectral`].
-#[inline]
-pub(crate) fn quantity_radiance_and_dt(
-    wavelength_m: f64,
-    temperature_k: f64,
-    c2: C2Convention,
-    photon: bool,
-    scale: f64,
-) -> Result<(f64, f64)> {
-    let s = spectrum(c2, photon, scale);
-    Ok((
-        s.spectral(wavelength_m, temperature_k)?,
-        s.spectral_d_dt(wavelength_m, temperature_k)?,
-    ))
-}
+impl ScaledRadiance {
+    /// # Errors
+    /// Those of [`Spectrum::validate`] (a scale outside (0, 1]).
+    pub(crate) fn new(c2: C2Convention, photon: bool, scale: f64) -> Result<Self> {
+        let spec = spectrum(c2, photon, scale);
+        spec.validate()?;
+        Ok(ScaledRadiance {
+            direct: Direct::of(&spec),
+            spec,
+        })
+    }
 
-/// s·L alone (see [`quantity_radiance_and_dt`]).
-///
-/// # Errors
-/// Those of [`Spectrum::spectral`].
-#[inline]
-pub(crate) fn quantity_radiance(
-    wavelength_m: f64,
-    temperature_k: f64,
-    c2: C2Convention,
-    photon: bool,
-    scale: f64,
-) -> Result<f64> {
-    spectrum(c2, photon, scale).spectral(wavelength_m, temperature_k)
+    /// ε·L_λ at `wavelength_m` and `temperature_k`; the caller has checked the temperature
+    /// (finite, positive).
+    ///
+    /// # Errors
+    /// `NonFinite`/`NonPositiveSpectral` for `wavelength_m`, as [`Spectrum::spectral`].
+    #[inline]
+    pub(crate) fn at(&self, wavelength_m: f64, temperature_k: f64) -> Result<f64> {
+        error::spectral("wavelength_m", wavelength_m)?;
+        Ok(self.direct.density(&self.spec, wavelength_m, temperature_k))
+    }
+
+    /// (s·L, s·∂L/∂T) at `wavelength_m` and `temperature_k` (checked by the caller).
+    ///
+    /// # Errors
+    /// As [`ScaledRadiance::at`].
+    pub(crate) fn at_and_dt(&self, wavelength_m: f64, temperature_k: f64) -> Result<(f64, f64)> {
+        Ok((
+            self.at(wavelength_m, temperature_k)?,
+            self.spec.spectral_d_dt(wavelength_m, temperature_k)?,
+        ))
+    }
 }
 
 #[inline]

@@ -556,12 +556,12 @@ impl<'a> ResponseSignal<'a> {
         temperature("temperature_k", temperature_k)?;
         let conv = self.c2;
         let k = self.node_scale_exp(temperature_k);
-        let scale = crate::float::powi(2.0, -k);
+        let scaled = super::kernel::ScaledRadiance::new(conv, false, crate::float::powi(2.0, -k))?;
         let mut s = 0.0;
         self.march(temperature_k, |lo, hi, a, ra, slope| {
             let [p0] = integrate(lo, hi, |w| {
                 let r = ra + slope * (w - a);
-                Ok([r * super::kernel::scaled_radiance(w, temperature_k, conv, scale)?])
+                Ok([r * scaled.at(w, temperature_k)?])
             })?;
             s += p0;
             Ok(())

@@ -83,7 +83,7 @@
 #![forbid(unsafe_code)]
 
 use super::gauss_legendre::{integrate_rule, Rule, GL20, GL4, GL6, GL8};
-use super::kernel::{quantity_radiance, quantity_radiance_and_dt};
+use super::kernel::ScaledRadiance;
 use super::measurement::Conditions;
 use super::model::{invert_monotone, SignalModel};
 use super::response::{march_pieces, node_scale_exp};
@@ -878,7 +878,13 @@ impl<'a, 'b> Prepared<'a, 'b> {
         for (k, &t) in ks.iter_mut().zip(ts) {
             *k = node_scale_exp(self.lo, t, self.c2_mk, extra_ln);
         }
-        let (conv, photon, c2) = (self.c2, self.photon, self.c2_mk);
+        // Each temperature's s·L with its scale, checked and prepared once for every node.
+        let mut kernels = [ScaledRadiance::new(self.c2, self.photon, 1.0)?; MAX_TERMS];
+        for ((kernel, &k), &t) in kernels.iter_mut().zip(ks.iter()).zip(ts) {
+            temperature("temperature_k", t)?;
+            *kernel = ScaledRadiance::new(self.c2, self.photon, crate::float::powi(2.0, -k))?;
+        }
+        let c2 = self.c2_mk;
         // Temperatures within a factor GROUP_RATIO of each other share a walk (pieces for the
         // group's coldest, short-wave skip for its hottest: march_pieces); widely different ones
         // get their own, so a very cold term does not force tiny steps on a hot one.
@@ -925,11 +931,13 @@ impl<'a, 'b> Prepared<'a, 'b> {
                         let mut dl = [0.0; MAX_TERMS];
                         for &s in group {
                             let t = ts.get(s).copied().unwrap_or(1.0);
-                            let sc = crate::float::powi(2.0, -ks.get(s).copied().unwrap_or(0));
+                            let Some(kernel) = kernels.get(s) else {
+                                continue;
+                            };
                             let (ls, dls) = if need_d.get(s) == Some(&true) {
-                                quantity_radiance_and_dt(x, t, conv, photon, sc)?
+                                kernel.at_and_dt(x, t)?
                             } else {
-                                (quantity_radiance(x, t, conv, photon, sc)?, 0.0)
+                                (kernel.at(x, t)?, 0.0)
                             };
                             if let (Some(a), Some(b)) = (l.get_mut(s), dl.get_mut(s)) {
                                 *a = ls;
