@@ -424,6 +424,19 @@ fn tail_from_j(kind: PlanckKernel, x: f64, r: f64, j: f64) -> f64 {
     }
 }
 
+/// (eᵖ, e^q) by [`float::exp_fast`]; on wasm32 with simd128 both at once on the two lanes of a
+/// vector when both are within the own eˣ's range (same operations per lane, so the same bits).
+#[inline]
+fn exp_pair(p: f64, q: f64) -> (f64, f64) {
+    #[cfg(all(target_arch = "wasm32", target_feature = "simd128"))]
+    if (-708.0..=709.0).contains(&p) && (-708.0..=709.0).contains(&q) {
+        use core::arch::wasm32::{f64x2, f64x2_extract_lane};
+        let v = float::exp_reduced(float::F64x2(f64x2(p, q)));
+        return (f64x2_extract_lane::<0>(v.0), f64x2_extract_lane::<1>(v.0));
+    }
+    (float::exp_fast(p), float::exp_fast(q))
+}
+
 /// Whether the kernel's tail series is that of n = 3 (else n = 2).
 #[inline]
 fn n3(kind: PlanckKernel) -> bool {
@@ -486,7 +499,7 @@ fn interval(kind: PlanckKernel, a: f64, lna: f64, b: f64, lnb: f64) -> Sc {
         if b <= 1e4 {
             // Both tails in one loop (their recurrences interleave), as many terms as the
             // lower limit needs (more than enough for the upper one).
-            let (ra, rel) = (float::exp_fast(-a), float::exp_fast(-(b - a)));
+            let (ra, rel) = exp_pair(-a, -(b - a));
             let rb = ra * rel;
             let (ja, jb) = tail_poly_j_pair(n3(kind), a, ra, b, rb, tail_terms(a));
             let (ma, mb) = (tail_from_j(kind, a, ra, ja), tail_from_j(kind, b, rb, jb));
