@@ -21,7 +21,7 @@
 //! # Evaluation of the integrals
 //!
 //! - **Upper tail**, x ≥ 2 (`SPLIT`): the exponential series of Widger & Woodall (1976),
-//!   `∫ₓ^∞ tⁿ/(eᵗ−1) dt = Σₖ e^{−kx} Σⱼ n!/(n−j)! x^{n−j}/k^{j+1}`, K terms with K·x > 37.6
+//!   `∫ₓ^∞ tⁿ/(eᵗ−1) dt = Σₖ e^{−kx} Σⱼ n!/(n−j)! x^{n−j}/k^{j+1}`, K terms with K·x ≥ 37.6
 //!   (remainder below 2.8e-17 of the sum; at most 20 terms), two interleaved partial sums
 //!   (both ends of a band in one loop). The factor e^{−x} is kept separate, so far-tail
 //!   values keep full *relative* accuracy and even values below the f64 range can be multiplied
@@ -334,11 +334,12 @@ fn head(kind: PlanckKernel, x: f64, lnx: f64) -> Sc {
     }
 }
 
-/// Number of tail-series terms at x ≥ SPLIT: the least K with K·x > 37.6, rounded up to even.
+/// Number of tail-series terms at x ≥ SPLIT: K with K·x ≥ 37.6 (the least such K, or one more
+/// when 37.6/x is a whole number), rounded up to even.
 ///
 /// Term k is e^{−(k−1)x}·p_k(x) with p_k ≤ p_1/k, so the remainder after K terms is at most
-/// p_1·e^{−Kx}/((K+1)(1 − e^{−x})) < p_1·e^{−37.6}·1.16/2 < 2.8e-17·p_1 (x ≥ 2, K ≥ 1): below
-/// a quarter of an ulp of the sum.
+/// p_1·e^{−Kx}/((K+1)(1 − e^{−x})) ≤ p_1·e^{−37.6}·1.16/2 < 2.8e-17·p_1 (x ≥ 2, K ≥ 1): below
+/// a quarter of the unit roundoff 2⁻⁵³ relative to the sum.
 #[inline]
 fn tail_terms(x: f64) -> usize {
     let terms = if x >= 37.6 {
