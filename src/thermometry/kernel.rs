@@ -25,26 +25,8 @@ pub(crate) fn radiance_and_dt(
     ))
 }
 
-/// (ε·L_λ, ε·∂L_λ/∂T) for a scale factor ε in (0, 1] (an exact power of two chosen by the
-/// caller so that the values stay below the f64 overflow threshold at extreme temperatures).
-///
-/// # Errors
-/// Those of [`Spectrum::spectral`].
-#[inline]
-pub(crate) fn scaled_radiance_and_dt(
-    wavelength_m: f64,
-    temperature_k: f64,
-    c2: C2Convention,
-    scale: f64,
-) -> Result<(f64, f64)> {
-    let s = Spectrum::BLACKBODY.with_c2(c2).with_emissivity(scale);
-    Ok((
-        s.spectral(wavelength_m, temperature_k)?,
-        s.spectral_d_dt(wavelength_m, temperature_k)?,
-    ))
-}
-
-/// s·L_λ for a scale factor s in (0, 1] (see [`scaled_radiance_and_dt`]), in energy
+/// s·L_λ for a scale factor s in (0, 1] (an exact power of two chosen by the caller so that the
+/// values stay below the f64 overflow threshold at extreme temperatures), in energy
 /// (W·m⁻³·sr⁻¹) or photon units, at many wavelengths: the spectrum is checked and the
 /// density's constants prepared once, not at every node (the value is the same as
 /// [`Spectrum::spectral`]'s).
@@ -66,7 +48,7 @@ impl ScaledRadiance {
         })
     }
 
-    /// ε·L_λ at `wavelength_m` and `temperature_k`; the caller has checked the temperature
+    /// s·L_λ at `wavelength_m` and `temperature_k`; the caller has checked the temperature
     /// (finite, positive).
     ///
     /// # Errors

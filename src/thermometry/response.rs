@@ -524,12 +524,12 @@ impl<'a> ResponseSignal<'a> {
         temperature("temperature_k", temperature_k)?;
         let conv = self.c2;
         let k = self.node_scale_exp(temperature_k);
-        let scale = crate::float::powi(2.0, -k);
+        let scaled = super::kernel::ScaledRadiance::new(conv, false, crate::float::powi(2.0, -k))?;
         let (mut s, mut ds) = (0.0, 0.0);
         self.march(temperature_k, |lo, hi, a, ra, slope| {
             let [p0, p1] = integrate(lo, hi, |w| {
                 let r = ra + slope * (w - a);
-                let (l, dl) = super::kernel::scaled_radiance_and_dt(w, temperature_k, conv, scale)?;
+                let (l, dl) = scaled.at_and_dt(w, temperature_k)?;
                 Ok([r * l, r * dl])
             })?;
             s += p0;
@@ -577,14 +577,14 @@ impl<'a> ResponseSignal<'a> {
         temperature("temperature_k", temperature_k)?;
         let conv = self.c2;
         let k = self.node_scale_exp(temperature_k);
-        let scale = crate::float::powi(2.0, -k);
+        let scaled = super::kernel::ScaledRadiance::new(conv, false, crate::float::powi(2.0, -k))?;
         let (mut s_tot, mut ds_tot) = (0.0, 0.0);
         let (mut weight, mut mean, mut m2) = (0.0f64, 0.0f64, 0.0f64);
         self.march(temperature_k, |lo, hi, a, ra, slope| {
             let centre = 0.5 * (lo + hi);
             let [p0, p1, pm1, pm2] = integrate(lo, hi, |w| {
                 let r = ra + slope * (w - a);
-                let (l, dl) = super::kernel::scaled_radiance_and_dt(w, temperature_k, conv, scale)?;
+                let (l, dl) = scaled.at_and_dt(w, temperature_k)?;
                 let rl = r * l;
                 let d = w - centre;
                 Ok([rl, r * dl, rl * d, rl * d * d])
