@@ -31,6 +31,7 @@ pub mod instrument;
 pub mod its90;
 pub mod quantum;
 pub mod quantum_fit;
+pub mod reading;
 pub mod scratch;
 #[cfg(feature = "spectral-js")]
 pub mod spectral;

@@ -4,7 +4,8 @@
 //! read, converted to SI and checked once (including that every table covers the band), then
 //! the forward and inverse spectral measurement equation, its five terms, band-effective
 //! values and sensitivities on plain numbers; text tables; and the workflows from an
-//! indicated temperature, for this object and for the grey `Instrument` (`QbInstrument`).
+//! indicated temperature with this object (`src/wasm/reading.rs` has them for the grey
+//! `Instrument`).
 //!
 //! Errors name what the caller wrote: table fields by their path in the definition
 //! (`definition.conditions.window.reflectance.values`, with the element index), conditions by
@@ -20,23 +21,18 @@ use wasm_bindgen::prelude::*;
 
 use super::config::read;
 use super::error::{in_config, number, some, Fail};
-use super::instrument::InstrumentHandle;
+use super::reading::{out, setting_of, workflow, CORRECT};
 use super::scratch::{map_in_place, status, with_f64};
 use super::testing::Live;
 use crate::constants::C2Convention;
-use crate::definition::MeasurementConditions;
 use crate::error::{self as check, Error};
 use crate::planck::Quantity;
-use crate::thermometry::indicated::{
-    correct_reading, correct_reading_spectral, emissivity_by_contact, emissivity_by_reference,
-    reflected_temperature,
-};
+use crate::thermometry::indicated::correct_reading_spectral;
 use crate::thermometry::spectral::{
     band_effective, spectral_object_temperature, spectral_sensitivities, spectral_signal_terms,
     SpectralConditions, SpectralInstrument, SpectralValue, SpectralWindow,
 };
 use crate::thermometry::table::{Ends, SpectralTableBuf, TableKind};
-use crate::thermometry::{Conditions, SignalModel};
 use crate::units::{SpectralKind, SpectralUnit};
 
 // ---------------------------------------------------------------------------------------------
@@ -563,17 +559,6 @@ impl SpectralHandle {
     }
 }
 
-/// Writes `v` to f64 scratch buffer 0 for the facade, which builds the result object (smaller
-/// than a serde result type per method); returns the count.
-#[inline(never)]
-fn out(v: &[f64]) -> f64 {
-    with_f64(|b| {
-        b[0].clear();
-        b[0].extend_from_slice(v);
-    });
-    v.len() as f64
-}
-
 #[wasm_bindgen(js_class = QbSpectral)]
 impl SpectralHandle {
     /// Reads and checks a definition `{ response, conditions?, c2? }` (plain-data copy).
@@ -704,90 +689,6 @@ fn eval(
             ])
         }
     })
-}
-
-// ---------------------------------------------------------------------------------------------
-// Workflows from an indicated temperature (both instrument classes).
-
-/// Operation numbers of `readingWorkflow`: correct a reading (a = indicated temperature),
-/// reflected temperature from a reflector reading (a = indicated, b = reflector emissivity,
-/// c = reflector temperature), emissivity by contact (2: a = indicated, b = true temperature,
-/// c = reflected temperature), the reference-coating method (a = reference reading, b = surface
-/// reading, c = reference emissivity, d = reflected temperature).
-const CORRECT: u32 = 0;
-const REFLECTED: u32 = 1;
-const REFERENCE: u32 = 3;
-
-/// The grey measurement conditions an instrument applied to a reading.
-#[inline(never)]
-fn setting_of(v: JsValue) -> Result<Conditions, Fail> {
-    read::<MeasurementConditions>(v, "setting")?
-        .conditions()
-        .map_err(in_config("setting"))
-}
-
-/// The reflector method (`REFLECTED`), the reference-coating method (`REFERENCE`: emissivity
-/// and true temperature into f64 scratch buffer 0, see [`out`]; returns 2) or the contact
-/// method, with the blackbody signal of `m`; `x` are the operation's numbers in the order of
-/// its JavaScript arguments.
-fn workflow(m: &dyn SignalModel, op: u32, x: [f64; 4], setting: &Conditions) -> crate::Result<f64> {
-    let [a, b, c, d] = x;
-    match op {
-        REFLECTED => reflected_temperature(m, a, setting, b, c),
-        REFERENCE => {
-            let r = reference(m, a, b, c, d, setting)?;
-            Ok(out(&[r.emissivity, r.temperature_k]))
-        }
-        _ => emissivity_by_contact(m, a, setting, b, c),
-    }
-}
-
-/// The reference-coating method with the blackbody signal of `m`.
-fn reference(
-    m: &dyn SignalModel,
-    reference_k: f64,
-    surface_k: f64,
-    reference_emissivity: f64,
-    reflected_k: f64,
-    setting: &Conditions,
-) -> crate::Result<crate::thermometry::indicated::ReferenceEmissivity> {
-    check::temperature("referenceReadingK", reference_k)?;
-    check::temperature("surfaceReadingK", surface_k)?;
-    emissivity_by_reference(
-        m,
-        reference_k,
-        surface_k,
-        setting,
-        reference_emissivity,
-        reflected_k,
-    )
-}
-
-#[wasm_bindgen(js_class = QbInstrument)]
-impl InstrumentHandle {
-    /// The reading workflows with this instrument's model; a corrected reading is solved under
-    /// the instrument's conditions.
-    #[wasm_bindgen(js_name = readingWorkflow)]
-    pub fn reading_workflow(
-        &self,
-        op: u32,
-        a: f64,
-        b: f64,
-        c: f64,
-        d: f64,
-        setting: JsValue,
-    ) -> f64 {
-        number((|| {
-            let s = setting_of(setting)?;
-            Ok(self.model.run(|m| {
-                if op == CORRECT {
-                    correct_reading(m, a, &s, &self.conditions)
-                } else {
-                    workflow(m, op, [a, b, c, d], &s)
-                }
-            })?)
-        })())
-    }
 }
 
 // ---------------------------------------------------------------------------------------------

@@ -1,7 +1,8 @@
 // The npm package (pkg/) against the full build the other suites test (target/pkg-full/): the
 // package is built without the `spectral-js` feature (the spectral-table bindings do not fit its
-// size ceiling yet), so its public API must be exactly the full API minus the spectral area —
-// no other export lost, and nothing of the spectral area half-present.
+// size ceiling), so its public API must be exactly the full API minus the spectral area
+// (src/wasm/js/spectral.js) — no other export lost (the workflows from an indicated temperature
+// of reading.js included), and nothing of the spectral area half-present.
 import { test } from 'node:test';
 import assert from 'node:assert/strict';
 import { readFileSync } from 'node:fs';
@@ -12,7 +13,11 @@ import * as pkg from '../../pkg/node.js';
 const SPECTRAL = [...readFileSync(new URL('../../src/wasm/js/spectral.js', import.meta.url), 'utf8').matchAll(/^export\s+(?:function|class|const)\s+([A-Za-z$][\w$]*)/gm)].map((m) => m[1]);
 
 test('pkg/ exports the full API minus the spectral area', () => {
-  assert.ok(SPECTRAL.includes('SpectralInstrument') && SPECTRAL.includes('correctReading'), `spectral names: ${SPECTRAL}`);
+  assert.ok(SPECTRAL.includes('SpectralInstrument'), `spectral names: ${SPECTRAL}`);
+  // The workflows from an indicated temperature ship in the package (with Instrument).
+  for (const k of ['correctReading', 'reflectedTemperature', 'emissivityByContact', 'emissivityByReference']) {
+    assert.ok(!SPECTRAL.includes(k) && typeof pkg[k] === 'function', `pkg/ exports ${k}`);
+  }
   const want = Object.keys(full).filter((k) => !SPECTRAL.includes(k)).sort();
   assert.deepEqual(Object.keys(pkg).sort(), want);
   for (const k of SPECTRAL) assert.ok(k in full, `the full build exports ${k}`);
@@ -36,4 +41,20 @@ test('pkg/ computes what the full build computes', () => {
     return Array.from(r.temperaturesK);
   };
   assert.deepEqual(convert(pkg), convert(full));
+  // A reading workflow with a grey Instrument: the same number in both builds, and the
+  // package's message names only the class it has.
+  const workflow = (m) => {
+    const inst = new m.Instrument({ model: { kind: 'spectralPoint', wavelength: 10, unit: 'um' }, conditions: { emissivity: 0.8, reflectedTemperatureK: 295 } });
+    const r = [
+      m.correctReading(inst, 350, { emissivity: 0.95, reflectedTemperatureK: 293 }),
+      m.emissivityByContact(inst, 350, { emissivity: 1 }, 360, 293),
+      m.emissivityByReference(inst, 355, 350, { emissivity: 1 }, 0.95, 293).emissivity,
+    ];
+    inst.free();
+    return r;
+  };
+  const [a, b] = [workflow(pkg), workflow(full)];
+  assert.deepEqual(a, b);
+  assert.ok(a.every((x) => Number.isFinite(x) && x > 0), `workflow results ${a}`);
+  assert.throws(() => pkg.correctReading({}, 350, { emissivity: 1 }), (e) => e.code === 'WRONG_TYPE' && /instrument must be an Instrument \(got/.test(e.message));
 });

@@ -23,6 +23,10 @@ import init, {
   its90Temperature,
   spectralUnitKind,
   twoColourTemperature,
+  correctReading,
+  emissivityByContact,
+  emissivityByReference,
+  reflectedTemperature,
 } from '../../pkg/quantaband.js';
 import type {
   BudgetInput,
@@ -35,6 +39,8 @@ import type {
   MeasurementConditions,
   NumberArray,
   RatioReading,
+  ReadingInstrument,
+  ReferenceEmissivity,
   SakumaHattoriModel,
   SpectralKind,
   SpectralUnit,
@@ -168,6 +174,16 @@ const t3: Float64Array = inst.objectTemperatures([50, 60]);
 const other: Instrument = inst.withConditions({ emissivity: 0.5, reflectedTemperatureK: 300 });
 const ub: UncertaintyBudget = inst.uncertaintyBudget(50, { emissivity: 0.02 });
 const firstInput: BudgetInput | undefined = ub.entries[0]?.input;
+// The workflows from an indicated temperature, with the package's grey Instrument.
+const readingInst: ReadingInstrument = inst;
+const corrected: number = correctReading(readingInst, 350, { emissivity: 0.95, reflectedTemperatureK: 293 });
+const tRefl: number = reflectedTemperature(inst, 300, { emissivity: 1 }, 0.03, 296);
+const eContact: number = emissivityByContact(inst, 350, { emissivity: 1 }, 360, 293);
+const eRef: ReferenceEmissivity = emissivityByReference(inst, 355, 350, { emissivity: 1 }, 0.95, 293);
+// @ts-expect-error the workflows take an instrument object, not a definition
+correctReading(definition, 350, { emissivity: 1 });
+// @ts-expect-error the setting is required
+emissivityByContact(inst, 350);
 const rr: RatioReading = new Instrument({ model: point }).ratioTemperature(other, 0.5);
 const two: RatioReading = twoColourTemperature(0.9, 1.05, 'um', 0.5, 1);
 const t90: number = its90Temperature(10, 650, 'nm', 'gold').t90K;

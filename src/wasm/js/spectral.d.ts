@@ -1,4 +1,4 @@
-// ---- spectral (non-grey) instruments and indicated-temperature workflows (src/wasm/js/spectral.js)
+// ---- spectral (non-grey) instruments (src/wasm/js/spectral.js) -------------------------------
 
 /**
  * A tabulated spectral quantity: wavelengths (strictly increasing, in `unit`) and one value
@@ -280,69 +280,7 @@ export interface SpectralUncertaintyBudget extends GumCoverage {
   readonly expandedUncertaintyK: number;
 }
 
-/** Emissivity from the reference-coating method, with the true temperature it gave. */
-export interface ReferenceEmissivity {
-  /** The surface's band emissivity. */
-  readonly emissivity: number;
-  /** The true surface temperature from the reference reading, K. */
-  readonly temperatureK: number;
+/** A SpectralInstrument is accepted by the workflows from an indicated temperature too. */
+export interface ReadingInstruments {
+  SpectralInstrument: SpectralInstrument;
 }
-
-/**
- * Corrects a reading: the object temperature (K) under the instrument's conditions (grey for
- * an Instrument, spectral for a SpectralInstrument) from the temperature the instrument
- * indicated with its settings `setting` (its emissivity, reflected temperature and, if it has
- * them, path and window settings). The instrument's signal model or response must be that of
- * the instrument that made the reading.
- *
- * Follows the emissivity correction of ASTM E1933 and ISO 18434-1 (recalled, not quoted).
- */
-export function correctReading(
-  instrument: Instrument | SpectralInstrument,
-  indicatedTemperatureK: number,
-  setting: MeasurementConditions,
-): number;
-
-/**
- * The reflected (surroundings) temperature, K, from a reading of a diffuse reflector (e.g.
- * crumpled foil) of emissivity reflectorEmissivity in [0, 1) at reflectorTemperatureK, placed
- * at the target and facing like it (reflector method, as in ASTM E1862). Uses only the
- * instrument's blackbody signal and `setting` (path and window from the setting); the
- * instrument's own conditions are not used.
- */
-export function reflectedTemperature(
-  instrument: Instrument | SpectralInstrument,
-  indicatedTemperatureK: number,
-  setting: MeasurementConditions,
-  reflectorEmissivity: number,
-  reflectorTemperatureK: number,
-): number;
-
-/**
- * The surface's band emissivity in (0, 1] from a reading and its true temperature measured by
- * a contact (reference) thermometer (contact method, as in ASTM E1933). The surface must be
- * clearly hotter or colder than reflectedTemperatureK. The instrument's own conditions are not
- * used.
- */
-export function emissivityByContact(
-  instrument: Instrument | SpectralInstrument,
-  indicatedTemperatureK: number,
-  setting: MeasurementConditions,
-  trueTemperatureK: number,
-  reflectedTemperatureK: number,
-): number;
-
-/**
- * The surface's band emissivity from two readings taken with the same setting: one of a
- * reference coating or tape of known emissivity on the surface (giving the true temperature)
- * and one of the bare surface next to it (reference-material method, as in ASTM E1933). The
- * instrument's own conditions are not used.
- */
-export function emissivityByReference(
-  instrument: Instrument | SpectralInstrument,
-  referenceReadingK: number,
-  surfaceReadingK: number,
-  setting: MeasurementConditions,
-  referenceEmissivity: number,
-  reflectedTemperatureK: number,
-): ReferenceEmissivity;

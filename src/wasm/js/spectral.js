@@ -1,24 +1,18 @@
 // SpectralInstrument: a detector response (energy or photon units) with spectral measurement
 // conditions — target emissivity or reflectance, path transmittance, window transmittance and
 // reflectance, each a number or a table — prepared once, then evaluated with plain numbers.
-// Also: two-column text tables, and the workflows from an indicated temperature for both
-// instrument classes (Instrument and SpectralInstrument). Wraps QbSpectral and the reading
-// exports of QbInstrument (src/wasm/spectral.rs).
+// Also: two-column text tables. Wraps QbSpectral (src/wasm/spectral.rs); the workflows from an
+// indicated temperature (reading.js) accept a SpectralInstrument through the resolver this
+// module registers there.
 
 import { QuantabandError, disposed, wrongType } from './errors.js';
-import { _instrumentHandle as instrumentHandle } from './instrument.js';
+import { _named as named, _registerReadingInstrument } from './reading.js';
 import { _spectralBudget } from './uncertainty_results.js';
 import { F64, MAX_LENGTH, bulk, config, fill, glue, num, readBack, ready, reserve, result, some, str } from './runtime.js';
 
 // Bulk operation numbers of QbSpectral.bulk.
 const MEASURED_SIGNALS = 0;
 const OBJECT_TEMPERATURES = 1;
-
-// Operation numbers of readingWorkflow (QbSpectral and QbInstrument).
-const CORRECT = 0;
-const REFLECTED = 1;
-const CONTACT = 2;
-const REFERENCE = 3;
 
 /** The `kind` argument of tableFromText and its number in the module. */
 const TEXT_KINDS = { emissivity: 0, reflectance: 1, transmittance: 2, response: 3 };
@@ -72,16 +66,6 @@ const SENSITIVITIES = [
   'windowTemperature',
   'windowReflectedTemperature',
 ];
-
-/** The object with `keys` and the n numbers the module left in f64 scratch buffer 0. */
-function named(keys, n) {
-  const v = readBack(F64, reserve(F64, 0, n), n, null);
-  const o = {};
-  keys.forEach((k, i) => {
-    o[k] = v[i];
-  });
-  return o;
-}
 
 let handleOf;
 
@@ -226,84 +210,8 @@ if (typeof Symbol.dispose === 'symbol') {
   SpectralInstrument.prototype[Symbol.dispose] = SpectralInstrument.prototype.free;
 }
 
-// ---- workflows from an indicated temperature ------------------------------------------------
-
-/** The live handle of an Instrument or SpectralInstrument argument. */
-function readingHandle(x) {
-  const s = handleOf(x);
-  if (s === null) throw disposed('SpectralInstrument');
-  if (s !== undefined) return s;
-  try {
-    return instrumentHandle(x, 'instrument');
-  } catch (e) {
-    if (e.code === 'WRONG_TYPE') throw wrongType('instrument', 'an Instrument or a SpectralInstrument', x);
-    throw e;
-  }
-}
-
-/** The copy of the `setting` argument (required). */
-function settingOf(setting) {
-  if (setting === undefined) {
-    throw wrongType('setting', 'an object: the settings of the reading, e.g. { emissivity: 0.95, reflectedTemperatureK: 293.15 }', setting);
-  }
-  return config(setting, 'setting');
-}
-
-/** A workflow of readingWorkflow: `op`, the indicated temperature and two numbers b, c. */
-function reading(op, instrument, indicatedTemperatureK, setting, b, bName, c, cName) {
-  ready();
-  const h = readingHandle(instrument);
-  num(indicatedTemperatureK, 'indicatedTemperatureK');
-  const s = settingOf(setting);
-  num(b, bName);
-  num(c, cName);
-  return result(h.readingWorkflow(op, indicatedTemperatureK, b, c, 0, s));
-}
-
-export function correctReading(instrument, indicatedTemperatureK, setting) {
-  return reading(CORRECT, instrument, indicatedTemperatureK, setting, 0, '', 0, '');
-}
-
-export function reflectedTemperature(instrument, indicatedTemperatureK, setting, reflectorEmissivity, reflectorTemperatureK) {
-  return reading(
-    REFLECTED,
-    instrument,
-    indicatedTemperatureK,
-    setting,
-    reflectorEmissivity,
-    'reflectorEmissivity',
-    reflectorTemperatureK,
-    'reflectorTemperatureK',
-  );
-}
-
-export function emissivityByContact(instrument, indicatedTemperatureK, setting, trueTemperatureK, reflectedTemperatureK) {
-  return reading(
-    CONTACT,
-    instrument,
-    indicatedTemperatureK,
-    setting,
-    trueTemperatureK,
-    'trueTemperatureK',
-    reflectedTemperatureK,
-    'reflectedTemperatureK',
-  );
-}
-
-export function emissivityByReference(
-  instrument,
-  referenceReadingK,
-  surfaceReadingK,
-  setting,
-  referenceEmissivity,
-  reflectedTemperatureK,
-) {
-  ready();
-  const h = readingHandle(instrument);
-  num(referenceReadingK, 'referenceReadingK');
-  num(surfaceReadingK, 'surfaceReadingK');
-  const s = settingOf(setting);
-  num(referenceEmissivity, 'referenceEmissivity');
-  num(reflectedTemperatureK, 'reflectedTemperatureK');
-  return named(['emissivity', 'temperatureK'], result(h.readingWorkflow(REFERENCE, referenceReadingK, surfaceReadingK, referenceEmissivity, reflectedTemperatureK, s)));
-}
+_registerReadingInstrument('SpectralInstrument', (x) => {
+  const h = handleOf(x);
+  if (h === null) throw disposed('SpectralInstrument');
+  return h;
+});
