@@ -862,6 +862,35 @@ impl Direct {
         self.lanes(v, t)
     }
 
+    /// The densities at two coordinates `v` (validated: positive and finite, in the spectrum's
+    /// SI unit) at one temperature `t` (validated): each lane exactly [`Direct::density`] at its
+    /// coordinate (the same operations per lane; with simd128 both on one vector).
+    #[inline]
+    pub(crate) fn density2(&self, spec: &Spectrum, v: [f64; 2], t: f64) -> [f64; 2] {
+        #[cfg(all(target_arch = "wasm32", target_feature = "simd128"))]
+        let y = {
+            use core::arch::wasm32::{f64x2, f64x2_extract_lane};
+            use float::Lanes;
+            let y = self.pair(float::F64x2(f64x2(v[0], v[1])), float::F64x2::splat(t));
+            [f64x2_extract_lane::<0>(y.0), f64x2_extract_lane::<1>(y.0)]
+        };
+        #[cfg(not(all(target_arch = "wasm32", target_feature = "simd128")))]
+        let y = self.lanes(v, [t, t]);
+        let [y0, y1] = y;
+        [
+            if ok(y0) {
+                y0
+            } else {
+                density(spec, v[0], t, false)
+            },
+            if ok(y1) {
+                y1
+            } else {
+                density(spec, v[1], t, false)
+            },
+        ]
+    }
+
     /// The densities at the coordinates `vs` (validated: positive and finite, in the spectrum's
     /// SI unit) at temperature `t` (validated), times `factor`, written over `vs`: one loop over
     /// constants prepared once; with simd128, two coordinates per step through [`Direct::pair`].

@@ -59,6 +59,17 @@ impl ScaledRadiance {
         Ok(self.direct.density(&self.spec, wavelength_m, temperature_k))
     }
 
+    /// [`ScaledRadiance::at`] at two wavelengths (the two nodes of a Gauss–Legendre pair),
+    /// each lane exactly the single value (one vector with simd128).
+    #[inline]
+    pub(crate) fn at2(&self, wavelengths_m: [f64; 2], temperature_k: f64) -> Result<[f64; 2]> {
+        error::spectral("wavelength_m", wavelengths_m[0])?;
+        error::spectral("wavelength_m", wavelengths_m[1])?;
+        Ok(self
+            .direct
+            .density2(&self.spec, wavelengths_m, temperature_k))
+    }
+
     /// (s·L, s·∂L/∂T) at `wavelength_m` and `temperature_k` (checked by the caller).
     ///
     /// # Errors

@@ -82,7 +82,7 @@
 //! - JCGM 100:2008 (GUM), §5.1.3 (sensitivity coefficients as partial derivatives).
 #![forbid(unsafe_code)]
 
-use super::gauss_legendre::{integrate_rule, Rule, GL20, GL4, GL6, GL8};
+use super::gauss_legendre::{integrate_rule_pairs, Rule, GL20, GL4, GL6, GL8};
 use super::kernel::ScaledRadiance;
 use super::measurement::Conditions;
 use super::model::{invert_monotone, SignalModel};
@@ -918,46 +918,66 @@ impl<'a, 'b> Prepared<'a, 'b> {
                 .and_then(|&i| ts.get(i))
                 .copied()
                 .unwrap_or(t_cold);
+            // Where each output takes its kernel value in a node's `kv`: L of slot s at s,
+            // ∂L/∂T at MAX_TERMS + s, nothing (skipped, or its temperature is in another group)
+            // at ZERO, an entry that stays 0.
+            const ZERO: usize = 2 * MAX_TERMS;
+            let mut src = [ZERO; MAX_TERMS];
+            for (j, sj) in src.iter_mut().enumerate().take(n) {
+                let s = slot.get(j).copied().unwrap_or(0);
+                if group.contains(&s) {
+                    *sj = match spec.get(j) {
+                        Some(Of::L(_)) => s,
+                        Some(Of::Dl(_)) => MAX_TERMS + s,
+                        _ => ZERO,
+                    };
+                }
+            }
             self.for_each_interval(|a, b, lins| {
                 march_pieces(a, b, t_hot, t_cold, c2, |p, q| {
                     let rule = rule_for(p, q, t_cold, c2);
-                    let part = integrate_rule(rule, p, q, |x| {
-                        let d = x - a;
-                        let mut v = [0.0; NF];
-                        for (vi, l) in v.iter_mut().zip(lins.iter()) {
-                            *vi = l.v + l.s * d;
-                        }
-                        let mut l = [0.0; MAX_TERMS];
-                        let mut dl = [0.0; MAX_TERMS];
+                    // Both nodes of a Gauss–Legendre pair at once: the kernels on two lanes
+                    // (each lane exactly the single-node value), the rest node by node.
+                    let part = integrate_rule_pairs(rule, p, q, n, |xs| {
+                        let mut kv = [[0.0; ZERO + 1]; 2];
                         for &s in group {
                             let t = ts.get(s).copied().unwrap_or(1.0);
                             let Some(kernel) = kernels.get(s) else {
                                 continue;
                             };
-                            let (ls, dls) = if need_d.get(s) == Some(&true) {
-                                kernel.at_and_dt(x, t)?
+                            let [kp, km] = &mut kv;
+                            if need_d.get(s) == Some(&true) {
+                                let (lp, dp) = kernel.at_and_dt(xs[0], t)?;
+                                let (lm, dm) = kernel.at_and_dt(xs[1], t)?;
+                                for (k, (l, d)) in [(kp, (lp, dp)), (km, (lm, dm))] {
+                                    if let Some(x) = k.get_mut(s) {
+                                        *x = l;
+                                    }
+                                    if let Some(x) = k.get_mut(MAX_TERMS + s) {
+                                        *x = d;
+                                    }
+                                }
                             } else {
-                                (kernel.at(x, t)?, 0.0)
-                            };
-                            if let (Some(a), Some(b)) = (l.get_mut(s), dl.get_mut(s)) {
-                                *a = ls;
-                                *b = dls;
+                                let [lp, lm] = kernel.at2(xs, t)?;
+                                if let (Some(x), Some(y)) = (kp.get_mut(s), km.get_mut(s)) {
+                                    (*x, *y) = (lp, lm);
+                                }
                             }
                         }
-                        let mut wv = [0.0; MAX_TERMS];
-                        w(&v, &mut wv);
-                        let mut out = [0.0; MAX_TERMS];
-                        for (j, o) in out.iter_mut().enumerate().take(n) {
-                            let s = slot.get(j).copied().unwrap_or(0);
-                            if !group.contains(&s) {
-                                continue;
+                        let mut out = [[0.0; MAX_TERMS]; 2];
+                        for ((o, &x), kv) in out.iter_mut().zip(xs.iter()).zip(&kv) {
+                            let d = x - a;
+                            let mut v = [0.0; NF];
+                            for (vi, f) in v.iter_mut().zip(lins.iter()) {
+                                *vi = f.v + f.s * d;
                             }
-                            let wj = wv.get(j).copied().unwrap_or(0.0);
-                            *o = match spec.get(j) {
-                                Some(Of::L(_)) => wj * l.get(s).copied().unwrap_or(0.0),
-                                Some(Of::Dl(_)) => wj * dl.get(s).copied().unwrap_or(0.0),
-                                _ => 0.0,
-                            };
+                            let mut wv = [0.0; MAX_TERMS];
+                            w(&v, &mut wv);
+                            for ((o, &wj), &sj) in o.iter_mut().zip(&wv).zip(&src).take(n) {
+                                if sj != ZERO {
+                                    *o = wj * kv.get(sj).copied().unwrap_or(0.0);
+                                }
+                            }
                         }
                         Ok(out)
                     })?;
