@@ -7,8 +7,7 @@
 // These are design estimates, not measurements (see the README "Instrument design" cautions).
 
 import { QuantabandError, disposed, wrongType } from './errors.js';
-import { _figures as figures } from './quantum.js';
-import { bulk, config, glue, num, ready, result, some, str } from './runtime.js';
+import { bulk, config, figures, glue, num, ready, result, some, str } from './runtime.js';
 
 // Bulk operation numbers of QbDesign.bulk.
 const NETDS = 0;

@@ -12,6 +12,7 @@ import {
   readBack,
   config,
   configKeeping,
+  figures,
   fill,
   glue,
   num,
@@ -104,13 +105,6 @@ function frozen(o) {
     }
   }
   return Object.freeze(o);
-}
-
-/** The `n` figures an export just wrote to f64 scratch buffer 0 (`put` in src/wasm/quantum.rs),
- * `n` being the export's result (NaN: throws its error). */
-export function _figures(n) {
-  const len = result(n);
-  return readBack(F64, reserve(F64, 0, len), len, null);
 }
 
 /** Makes Symbol.dispose an alias of the class's free(). */
@@ -357,7 +351,7 @@ export class RamanMode {
   temperature(ratio) {
     const h = this.#live();
     num(ratio, 'ratio');
-    const v = _figures(h.number(READING, ratio));
+    const v = figures(h.number(READING, ratio));
     return {
       temperatureK: v[0],
       dTdRatio: v[1],
@@ -417,7 +411,7 @@ export class YFactorLoads {
     const h = this.#live();
     num(y, 'y');
     num(frequency, 'frequency');
-    const v = _figures(h.number(1, y, frequency));
+    const v = figures(h.number(1, y, frequency));
     return {
       model: LOAD_MODELS[v[0]],
       receiverNoiseTemperatureK: v[1],
@@ -470,7 +464,7 @@ const INTRINSIC = 7;
 
 /** A carrier-density result from its figures. */
 function carriers(n) {
-  const v = _figures(n);
+  const v = figures(n);
   return {
     densityPerM3: v[0],
     boltzmannDensityPerM3: v[1],
@@ -569,7 +563,7 @@ export class Semiconductor {
   intrinsic(temperatureK) {
     const h = this.#live();
     num(temperatureK, 'temperatureK');
-    const v = _figures(h.number(INTRINSIC, 0, temperatureK));
+    const v = figures(h.number(INTRINSIC, 0, temperatureK));
     return {
       densityPerM3: v[0],
       boltzmannDensityPerM3: v[1],

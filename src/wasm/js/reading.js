@@ -7,23 +7,13 @@
 
 import { wrongType } from './errors.js';
 import { _instrumentHandle as instrumentHandle } from './instrument.js';
-import { F64, config, num, readBack, ready, reserve, result } from './runtime.js';
+import { config, named, num, ready, result } from './runtime.js';
 
 // Operation numbers of readingWorkflow (QbInstrument and QbSpectral).
 const CORRECT = 0;
 const REFLECTED = 1;
 const CONTACT = 2;
 const REFERENCE = 3;
-
-/** The object with `keys` and the n numbers the module left in f64 scratch buffer 0. */
-export function _named(keys, n) {
-  const v = readBack(F64, reserve(F64, 0, n), n, null);
-  const o = {};
-  keys.forEach((k, i) => {
-    o[k] = v[i];
-  });
-  return o;
-}
 
 
 /**
@@ -120,5 +110,5 @@ export function emissivityByReference(
   const s = settingOf(setting);
   num(referenceEmissivity, 'referenceEmissivity');
   num(reflectedTemperatureK, 'reflectedTemperatureK');
-  return _named(['emissivity', 'temperatureK'], result(h.readingWorkflow(REFERENCE, referenceReadingK, surfaceReadingK, referenceEmissivity, reflectedTemperatureK, s)));
+  return named(['emissivity', 'temperatureK'], h.readingWorkflow(REFERENCE, referenceReadingK, surfaceReadingK, referenceEmissivity, reflectedTemperatureK, s));
 }

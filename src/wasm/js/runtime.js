@@ -252,6 +252,25 @@ export function readBack(kind, p, n, out) {
 }
 
 /**
+ * The numbers an export just wrote to f64 scratch buffer 0 (instead of a result object), as a
+ * new Float64Array; `n`, the export's result, is their count (NaN: throws its error).
+ */
+export function figures(n) {
+  const len = result(n);
+  return readBack(F64, reserve(F64, 0, len), len, null);
+}
+
+/** As `figures`, as an object with `keys` in the order the export wrote the numbers. */
+export function named(keys, n) {
+  const v = figures(n);
+  const o = {};
+  keys.forEach((k, i) => {
+    o[k] = v[i];
+  });
+  return o;
+}
+
+/**
  * A bulk call over f64 scratch buffer 0: copies `input` (parameter `name`) in, runs `run()`
  * (an export working in place, returning 0 or NaN), and returns the results as a new
  * Float64Array or in `out` (a Float64Array of the same length).

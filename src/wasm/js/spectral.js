@@ -6,9 +6,9 @@
 // module registers there.
 
 import { QuantabandError, disposed, wrongType } from './errors.js';
-import { _named as named, _registerReadingInstrument } from './reading.js';
+import { _registerReadingInstrument } from './reading.js';
 import { _spectralBudget } from './uncertainty_results.js';
-import { F64, MAX_LENGTH, bulk, config, fill, glue, num, readBack, ready, reserve, result, some, str } from './runtime.js';
+import { F64, MAX_LENGTH, bulk, config, fill, glue, named, num, readBack, ready, reserve, result, some, str } from './runtime.js';
 
 // Bulk operation numbers of QbSpectral.bulk.
 const MEASURED_SIGNALS = 0;
@@ -180,19 +180,19 @@ export class SpectralInstrument {
   signalTerms(objectTemperatureK) {
     const h = this.#live();
     num(objectTemperatureK, 'objectTemperatureK');
-    return named(TERMS, result(h.number(3, objectTemperatureK)));
+    return named(TERMS, h.number(3, objectTemperatureK));
   }
 
   bandEffective(temperatureK) {
     const h = this.#live();
     num(temperatureK, 'temperatureK');
-    return named(EFFECTIVE, result(h.number(4, temperatureK)));
+    return named(EFFECTIVE, h.number(4, temperatureK));
   }
 
   sensitivities(signal) {
     const h = this.#live();
     num(signal, 'signal');
-    return named(SENSITIVITIES, result(h.number(5, signal)));
+    return named(SENSITIVITIES, h.number(5, signal));
   }
 
   /**
