@@ -105,11 +105,12 @@ pub(crate) const GL20: Rule = Rule {
 };
 
 /// ∫ₐᵇ f(x) dx by `rule` for a vector-valued integrand, as [`integrate`] (which is this with
-/// [`GL20`], written out), with the two nodes of each symmetric pair evaluated in one call
-/// (`f([mid + h·x, mid − h·x])` gives both values, so an integrand can evaluate them on two
-/// lanes): the same sums in the same order as [`integrate`], so the same result to the bit.
-/// Only the first `len` entries are summed (the others stay 0): an integrand with fewer
-/// outputs than its array holds pays only for those.
+/// [`GL20`], written out), with the two nodes of each symmetric pair evaluated in one call:
+/// `f([mid + h·x, mid − h·x], out)` writes the integrand at both into `out[0]` and `out[1]`
+/// (so it can evaluate them on two lanes; `out` is reused from pair to pair, not cleared, so
+/// `f` writes every entry it is asked for). The same sums in the same order as [`integrate`],
+/// so the same result to the bit. Only the first `len` entries are summed (the others stay 0):
+/// an integrand with fewer outputs than its array holds pays only for those.
 pub(crate) fn integrate_rule_pairs<const N: usize, F>(
     rule: &Rule,
     a: f64,
@@ -118,13 +119,15 @@ pub(crate) fn integrate_rule_pairs<const N: usize, F>(
     mut f: F,
 ) -> crate::Result<[f64; N]>
 where
-    F: FnMut([f64; 2]) -> crate::Result<[[f64; N]; 2]>,
+    F: FnMut([f64; 2], &mut [[f64; N]; 2]) -> crate::Result<()>,
 {
     let half = 0.5 * (b - a);
     let mid = 0.5 * (a + b);
     let mut acc = [0.0; N];
+    let mut pm = [[0.0; N]; 2];
     for (x, w) in rule.nodes.iter().zip(rule.weights.iter()) {
-        let [p, m] = f([mid + half * x, mid - half * x])?;
+        f([mid + half * x, mid - half * x], &mut pm)?;
+        let [p, m] = &pm;
         for ((s, pk), mk) in acc.iter_mut().zip(p.iter()).zip(m.iter()).take(len) {
             *s += w * (pk + mk);
         }
@@ -160,7 +163,10 @@ mod tests {
         b: f64,
         f: impl Fn(f64) -> crate::Result<[f64; N]>,
     ) -> crate::Result<[f64; N]> {
-        integrate_rule_pairs(rule, a, b, N, |[p, m]| Ok([f(p)?, f(m)?]))
+        integrate_rule_pairs(rule, a, b, N, |[p, m], out| {
+            *out = [f(p)?, f(m)?];
+            Ok(())
+        })
     }
 
     /// Each shorter rule is exact on monomials up to degree 2n − 1 (the defining property of

@@ -933,54 +933,63 @@ impl<'a, 'b> Prepared<'a, 'b> {
                     };
                 }
             }
+            // A node pair's kernel values and a node's weights, reused from node to node: only
+            // the entries the group and the weight function write are ever read.
+            let mut kv = [[0.0; ZERO + 1]; 2];
+            let mut wv = [0.0; MAX_TERMS];
             self.for_each_interval(|a, b, lins| {
                 march_pieces(a, b, t_hot, t_cold, c2, |p, q| {
                     let rule = rule_for(p, q, t_cold, c2);
                     // Both nodes of a Gauss–Legendre pair at once: the kernels on two lanes
                     // (each lane exactly the single-node value), the rest node by node.
-                    let part = integrate_rule_pairs(rule, p, q, n, |xs| {
-                        let mut kv = [[0.0; ZERO + 1]; 2];
-                        for &s in group {
-                            let t = ts.get(s).copied().unwrap_or(1.0);
-                            let Some(kernel) = kernels.get(s) else {
-                                continue;
-                            };
-                            let [kp, km] = &mut kv;
-                            if need_d.get(s) == Some(&true) {
-                                let (lp, dp) = kernel.at_and_dt(xs[0], t)?;
-                                let (lm, dm) = kernel.at_and_dt(xs[1], t)?;
-                                for (k, (l, d)) in [(kp, (lp, dp)), (km, (lm, dm))] {
-                                    if let Some(x) = k.get_mut(s) {
-                                        *x = l;
+                    let part = integrate_rule_pairs(
+                        rule,
+                        p,
+                        q,
+                        n,
+                        |xs, out: &mut [[f64; MAX_TERMS]; 2]| {
+                            for &s in group {
+                                let t = ts.get(s).copied().unwrap_or(1.0);
+                                let Some(kernel) = kernels.get(s) else {
+                                    continue;
+                                };
+                                let [kp, km] = &mut kv;
+                                if need_d.get(s) == Some(&true) {
+                                    let (lp, dp) = kernel.at_and_dt(xs[0], t)?;
+                                    let (lm, dm) = kernel.at_and_dt(xs[1], t)?;
+                                    for (k, (l, d)) in [(kp, (lp, dp)), (km, (lm, dm))] {
+                                        if let Some(x) = k.get_mut(s) {
+                                            *x = l;
+                                        }
+                                        if let Some(x) = k.get_mut(MAX_TERMS + s) {
+                                            *x = d;
+                                        }
                                     }
-                                    if let Some(x) = k.get_mut(MAX_TERMS + s) {
-                                        *x = d;
+                                } else {
+                                    let [lp, lm] = kernel.at2(xs, t)?;
+                                    if let (Some(x), Some(y)) = (kp.get_mut(s), km.get_mut(s)) {
+                                        (*x, *y) = (lp, lm);
                                     }
                                 }
-                            } else {
-                                let [lp, lm] = kernel.at2(xs, t)?;
-                                if let (Some(x), Some(y)) = (kp.get_mut(s), km.get_mut(s)) {
-                                    (*x, *y) = (lp, lm);
+                            }
+                            for ((o, &x), kv) in out.iter_mut().zip(xs.iter()).zip(&kv) {
+                                let d = x - a;
+                                let mut v = [0.0; NF];
+                                for (vi, f) in v.iter_mut().zip(lins.iter()) {
+                                    *vi = f.v + f.s * d;
+                                }
+                                w(&v, &mut wv);
+                                for ((o, &wj), &sj) in o.iter_mut().zip(&wv).zip(&src).take(n) {
+                                    *o = if sj == ZERO {
+                                        0.0
+                                    } else {
+                                        wj * kv.get(sj).copied().unwrap_or(0.0)
+                                    };
                                 }
                             }
-                        }
-                        let mut out = [[0.0; MAX_TERMS]; 2];
-                        for ((o, &x), kv) in out.iter_mut().zip(xs.iter()).zip(&kv) {
-                            let d = x - a;
-                            let mut v = [0.0; NF];
-                            for (vi, f) in v.iter_mut().zip(lins.iter()) {
-                                *vi = f.v + f.s * d;
-                            }
-                            let mut wv = [0.0; MAX_TERMS];
-                            w(&v, &mut wv);
-                            for ((o, &wj), &sj) in o.iter_mut().zip(&wv).zip(&src).take(n) {
-                                if sj != ZERO {
-                                    *o = wj * kv.get(sj).copied().unwrap_or(0.0);
-                                }
-                            }
-                        }
-                        Ok(out)
-                    })?;
+                            Ok(())
+                        },
+                    )?;
                     for (acc_j, p) in acc.iter_mut().zip(part.iter()) {
                         *acc_j += p;
                     }
