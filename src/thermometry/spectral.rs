@@ -754,7 +754,11 @@ impl<'a, 'b> Prepared<'a, 'b> {
             }
             let mut b = self.hi;
             for c in cur.iter_mut() {
-                b = b.min(c.seek(a));
+                // not f64::min, a call to libm's fmin on wasm32 (the points are never NaN)
+                let x = c.seek(a);
+                if x < b {
+                    b = x;
+                }
             }
             let mut lins = [Lin { v: 0.0, s: 0.0 }; NF];
             for (l, c) in lins.iter_mut().zip(cur.iter()) {
@@ -1125,7 +1129,13 @@ fn rule_for(p: f64, q: f64, temperature_k: f64, c2_mk: f64) -> &'static Rule {
 /// 1 − τ_w − ρ_w at a node, never below 0 (rounding).
 #[inline]
 fn window_emissivity(v: &[f64; NF]) -> f64 {
-    (1.0 - v[TW] - v[RW]).max(0.0)
+    // a comparison, not f64::max (a call to libm's fmax on wasm32, at every node)
+    let e = 1.0 - v[TW] - v[RW];
+    if e > 0.0 {
+        e
+    } else {
+        0.0
+    }
 }
 
 /// The object term G(T) = ∫ R·τ_w·τ_p·ε·L(λ,T) dλ as a monotone signal model, for the shared

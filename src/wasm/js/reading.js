@@ -15,7 +15,6 @@ const REFLECTED = 1;
 const CONTACT = 2;
 const REFERENCE = 3;
 
-
 /**
  * Instrument classes of other areas the workflows accept besides Instrument: [name, resolver],
  * the resolver giving the live handle of its class's objects (throwing DISPOSED for a freed
